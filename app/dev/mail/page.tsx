@@ -1,0 +1,44 @@
+import { notFound } from "next/navigation";
+import { listCaughtMessages } from "@/lib/mail/catcher-client";
+
+export const dynamic = "force-dynamic";
+export const metadata = { title: "Caught mail" };
+
+export default async function CaughtMailPage() {
+  const messages = await listCaughtMessages().catch(() => null);
+  if (messages === null) notFound();
+  return (
+    <div className="space-y-4">
+      <h1 className="text-2xl font-semibold">Caught mail</h1>
+      <p className="text-sm text-ink-600">
+        Every message the local mail catcher received ({messages.length}). This page exists only where a catcher is configured.
+      </p>
+      {messages.length === 0 ? <p className="text-ink-500">No mail yet.</p> : null}
+      <ol className="space-y-3">
+        {[...messages].reverse().map((m) => (
+          <li key={m.id} className="rounded-panel border border-ink-200 bg-white p-4 shadow-panel">
+            <details>
+              <summary className="cursor-pointer">
+                <span className="font-semibold">{m.subject || "(no subject)"}</span>
+                <span className="ml-2 text-sm text-ink-600">to {m.to.join(", ")}</span>
+                <span className="ml-2 text-xs text-ink-500">{new Date(m.receivedAt).toLocaleString("en-GB")}</span>
+              </summary>
+              <dl className="mt-3 grid grid-cols-[8rem_1fr] gap-1 text-sm">
+                <dt className="text-ink-500">From</dt>
+                <dd>{m.from}</dd>
+                <dt className="text-ink-500">To</dt>
+                <dd>{m.to.join(", ")}</dd>
+                <dt className="text-ink-500">Attachments</dt>
+                <dd>{m.attachments.length ? m.attachments.map((a) => `${a.filename ?? "unnamed"} (${a.contentType}, ${a.size} B)`).join("; ") : "none"}</dd>
+              </dl>
+              <pre className="mt-3 whitespace-pre-wrap rounded-chip bg-ink-50 p-3 font-mono text-xs">{m.text}</pre>
+              {m.html ? (
+                <iframe title={`HTML body of ${m.subject}`} sandbox="" srcDoc={m.html} className="mt-3 h-80 w-full rounded-chip border border-ink-200 bg-white" />
+              ) : null}
+            </details>
+          </li>
+        ))}
+      </ol>
+    </div>
+  );
+}

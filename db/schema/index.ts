@@ -1,0 +1,5 @@
+export * from "./accounts";
+export * from "./boards";
+export * from "./proposals";
+export * from "./reviews";
+export * from "./decisions";

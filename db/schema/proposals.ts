@@ -1,0 +1,139 @@
+import { bigint, index, integer, jsonb, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { users } from "./accounts";
+import { boards } from "./boards";
+
+/** The tolerance a call applies when the server recomputes orbit claims (contract units). */
+export interface TolerancePolicy {
+  relative: number;
+  absolute?: Partial<Record<"km" | "km/s" | "deg" | "s" | "kg" | "deg/day", number>>;
+}
+
+/** A review round of a board. */
+export const calls = pgTable(
+  "calls",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    boardId: uuid("board_id").notNull().references(() => boards.id, { onDelete: "cascade" }),
+    title: text("title").notNull(),
+    description: text("description").notNull().default(""),
+    opensAt: timestamp("opens_at", { withTimezone: true }).notNull(),
+    closesAt: timestamp("closes_at", { withTimezone: true }).notNull(),
+    tolerance: jsonb("tolerance").$type<TolerancePolicy>().notNull().default({ relative: 0.01 }),
+    /** Headings (level 2) a dossier must contain before it can be submitted. */
+    requiredSections: jsonb("required_sections").$type<string[]>().notNull().default([]),
+    reviewersPerProposal: integer("reviewers_per_proposal").notNull().default(2),
+    /** The rubric template version reviews of this call use (see rubric_templates). */
+    rubricTemplateId: uuid("rubric_template_id"),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("calls_board_idx").on(t.boardId)],
+);
+
+export const proposalStatuses = ["draft", "submitted", "in_review", "decided", "withdrawn"] as const;
+export type ProposalStatus = (typeof proposalStatuses)[number];
+
+export const proposals = pgTable(
+  "proposals",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    boardId: uuid("board_id").notNull().references(() => boards.id, { onDelete: "cascade" }),
+    callId: uuid("call_id").notNull().references(() => calls.id, { onDelete: "cascade" }),
+    ownerId: uuid("owner_id").notNull().references(() => users.id),
+    title: text("title").notNull(),
+    missionType: text("mission_type").notNull().default(""),
+    status: text("status", { enum: proposalStatuses }).notNull().default("draft"),
+    /** Number of the latest submitted version; 0 while never submitted. */
+    latestVersion: integer("latest_version").notNull().default(0),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("proposals_board_idx").on(t.boardId), index("proposals_call_idx").on(t.callId), index("proposals_owner_idx").on(t.ownerId)],
+);
+
+export const proposalCoauthors = pgTable(
+  "proposal_coauthors",
+  {
+    proposalId: uuid("proposal_id").notNull().references(() => proposals.id, { onDelete: "cascade" }),
+    userId: uuid("user_id").notNull().references(() => users.id, { onDelete: "cascade" }),
+  },
+  (t) => [primaryKey({ columns: [t.proposalId, t.userId] })],
+);
+
+/** The working draft: one per proposal, saved with optimistic concurrency on `revision`. */
+export const proposalDrafts = pgTable("proposal_drafts", {
+  proposalId: uuid("proposal_id")
+    .primaryKey()
+    .references(() => proposals.id, { onDelete: "cascade" }),
+  document: jsonb("document").$type<Record<string, unknown>>().notNull(),
+  revision: integer("revision").notNull().default(1),
+  /** The submitted version this draft continues from (0 for a first draft). */
+  basedOnVersion: integer("based_on_version").notNull().default(0),
+  updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+  updatedBy: uuid("updated_by").references(() => users.id, { onDelete: "set null" }),
+});
+
+export interface VersionAttachment {
+  attachmentId: string;
+  filename: string;
+  contentType: string;
+  size: number;
+  sha256: string;
+}
+
+/** An immutable snapshot made at submission. */
+export const proposalVersions = pgTable(
+  "proposal_versions",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    proposalId: uuid("proposal_id").notNull().references(() => proposals.id, { onDelete: "cascade" }),
+    boardId: uuid("board_id").notNull().references(() => boards.id, { onDelete: "cascade" }),
+    number: integer("number").notNull(),
+    title: text("title").notNull(),
+    document: jsonb("document").$type<Record<string, unknown>>().notNull(),
+    documentKey: text("document_key").notNull(),
+    htmlKey: text("html_key").notNull(),
+    attachments: jsonb("attachments").$type<VersionAttachment[]>().notNull().default([]),
+    submittedBy: uuid("submitted_by").references(() => users.id, { onDelete: "set null" }),
+    submittedAt: timestamp("submitted_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex("proposal_versions_number_key").on(t.proposalId, t.number), index("proposal_versions_board_idx").on(t.boardId)],
+);
+
+/** The server's own recomputation of one orbit-check block of a submitted version. */
+export const checkResults = pgTable(
+  "check_results",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    versionId: uuid("version_id").notNull().references(() => proposalVersions.id, { onDelete: "cascade" }),
+    boardId: uuid("board_id").notNull().references(() => boards.id, { onDelete: "cascade" }),
+    blockId: text("block_id").notNull(),
+    label: text("label").notNull().default(""),
+    kind: text("kind").notNull(),
+    status: text("status", { enum: ["consistent", "inconsistent", "invalid"] }).notNull(),
+    claim: jsonb("claim").$type<Record<string, unknown>>().notNull(),
+    result: jsonb("result").$type<Record<string, unknown>>().notNull(),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex("check_results_version_block_key").on(t.versionId, t.blockId)],
+);
+
+export const attachments = pgTable(
+  "attachments",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    proposalId: uuid("proposal_id").notNull().references(() => proposals.id, { onDelete: "cascade" }),
+    boardId: uuid("board_id").notNull().references(() => boards.id, { onDelete: "cascade" }),
+    objectKey: text("object_key").notNull(),
+    filename: text("filename").notNull(),
+    declaredType: text("declared_type").notNull(),
+    detectedType: text("detected_type"),
+    declaredSize: bigint("declared_size", { mode: "number" }).notNull(),
+    size: bigint("size", { mode: "number" }),
+    sha256: text("sha256"),
+    status: text("status", { enum: ["pending", "confirmed", "removed"] }).notNull().default("pending"),
+    uploadedBy: uuid("uploaded_by").references(() => users.id, { onDelete: "set null" }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    confirmedAt: timestamp("confirmed_at", { withTimezone: true }),
+  },
+  (t) => [uniqueIndex("attachments_object_key").on(t.objectKey), index("attachments_proposal_idx").on(t.proposalId)],
+);

@@ -1,0 +1,113 @@
+import "server-only";
+import type { NextAuthOptions } from "next-auth";
+import CredentialsProvider from "next-auth/providers/credentials";
+import { env } from "@/lib/env";
+import { recordAudit } from "@/lib/dal/audit";
+import {
+  consumeAccountToken,
+  findUserForSignIn,
+  openSession,
+  recordSignInAttempt,
+  revokeSession,
+  SESSION_DAYS,
+  signInRetryAfter,
+} from "@/lib/dal/sessions";
+import { verifyPassword } from "./passwords";
+
+type HeaderBag = Record<string, string | string[] | undefined> | Headers | undefined;
+
+function header(headers: HeaderBag, name: string): string | null {
+  if (!headers) return null;
+  if (headers instanceof Headers) return headers.get(name);
+  const value = headers[name];
+  return Array.isArray(value) ? (value[0] ?? null) : (value ?? null);
+}
+
+export function clientAddress(headers: HeaderBag): string {
+  const forwarded = header(headers, "x-forwarded-for");
+  return forwarded?.split(",")[0]?.trim() || header(headers, "x-real-ip") || "local";
+}
+
+/** Message shown on the sign-in page; next-auth passes it through as the `error` parameter. */
+export function tooManyAttemptsMessage(retryAfterSeconds: number): string {
+  const minutes = Math.ceil(retryAfterSeconds / 60);
+  return `Too many failed sign-in attempts. Try again in ${minutes} minute${minutes === 1 ? "" : "s"} (retry after ${retryAfterSeconds} s).`;
+}
+
+export const INVALID_CREDENTIALS = "That e-mail and password do not match an active account.";
+
+export const authOptions: NextAuthOptions = {
+  secret: process.env.NEXTAUTH_SECRET,
+  session: { strategy: "jwt", maxAge: SESSION_DAYS * 86_400 },
+  pages: { signIn: "/sign-in", error: "/sign-in" },
+  providers: [
+    CredentialsProvider({
+      id: "password",
+      name: "E-mail and password",
+      credentials: { email: { label: "E-mail", type: "email" }, password: { label: "Password", type: "password" } },
+      async authorize(credentials, req) {
+        const email = String(credentials?.email ?? "").trim().toLowerCase();
+        const password = String(credentials?.password ?? "");
+        const ipAddress = clientAddress(req?.headers as HeaderBag);
+        if (!email || !password) throw new Error("Enter your e-mail and password.");
+        const retryAfter = await signInRetryAfter(email, ipAddress);
+        if (retryAfter > 0) {
+          await recordAudit({ action: "sign-in.rate-limited", actorEmail: email, ipAddress });
+          throw new Error(tooManyAttemptsMessage(retryAfter));
+        }
+        const user = await findUserForSignIn(email);
+        const ok = user !== null && user.status === "active" && (await verifyPassword(user.passwordHash, password));
+        await recordSignInAttempt(email, ipAddress, ok);
+        if (!ok || !user) {
+          await recordAudit({ action: "sign-in.failed", actorEmail: email, ipAddress, details: { method: "password" } });
+          throw new Error(INVALID_CREDENTIALS);
+        }
+        const sessionId = await openSession(user.id, { userAgent: header(req?.headers as HeaderBag, "user-agent"), ipAddress });
+        await recordAudit({ action: "sign-in", actorId: user.id, actorEmail: user.email, ipAddress, details: { method: "password" } });
+        return { id: user.id, email: user.email, name: user.name, sessionId };
+      },
+    }),
+    CredentialsProvider({
+      id: "link",
+      name: "Sign-in link",
+      credentials: { token: { label: "Token", type: "text" } },
+      async authorize(credentials, req) {
+        const token = String(credentials?.token ?? "");
+        const ipAddress = clientAddress(req?.headers as HeaderBag);
+        const email = token ? await consumeAccountToken("sign-in-link", token) : null;
+        const user = email ? await findUserForSignIn(email) : null;
+        if (!user || user.status !== "active") {
+          await recordAudit({ action: "sign-in.failed", actorEmail: email, ipAddress, details: { method: "link" } });
+          throw new Error("This sign-in link is invalid, already used or expired. Ask for a new one.");
+        }
+        await recordSignInAttempt(user.email, ipAddress, true);
+        const sessionId = await openSession(user.id, { userAgent: header(req?.headers as HeaderBag, "user-agent"), ipAddress });
+        await recordAudit({ action: "sign-in", actorId: user.id, actorEmail: user.email, ipAddress, details: { method: "link" } });
+        return { id: user.id, email: user.email, name: user.name, sessionId };
+      },
+    }),
+  ],
+  events: {
+    async signOut({ token }) {
+      const sessionId = (token as { sid?: string } | null)?.sid;
+      if (sessionId) await revokeSession(sessionId);
+    },
+  },
+  callbacks: {
+    async jwt({ token, user }) {
+      if (user) {
+        token.uid = user.id;
+        token.sid = (user as { sessionId?: string }).sessionId;
+      }
+      return token;
+    },
+    async session({ session, token }) {
+      return { ...session, uid: token.uid, sid: token.sid } as typeof session;
+    },
+  },
+};
+
+/** Fails fast in production when required variables are missing (see lib/env.ts). */
+export function assertAuthConfigured(): void {
+  env();
+}

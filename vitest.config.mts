@@ -1,0 +1,51 @@
+import { defineConfig } from "vitest/config";
+import path from "node:path";
+import { fileURLToPath } from "node:url";
+
+const __dirname = path.dirname(fileURLToPath(import.meta.url));
+
+const alias = {
+  "@": path.resolve(__dirname),
+  // Next's guard module throws outside a server bundle; in tests the code runs on the server.
+  "server-only": path.resolve(__dirname, "tests/support/server-only.ts"),
+};
+
+export default defineConfig({
+  resolve: { alias },
+  test: {
+    projects: [
+      {
+        resolve: { alias },
+        test: {
+          name: "unit",
+          include: ["lib/**/*.test.ts", "components/**/*.test.ts", "db/**/*.test.ts", "storage/**/*.test.ts", "scripts/**/*.test.ts"],
+          environment: "node",
+        },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: "integration",
+          include: ["tests/integration/**/*.test.ts"],
+          environment: "node",
+          globalSetup: ["tests/support/global-setup.ts"],
+          testTimeout: 60_000,
+          hookTimeout: 300_000,
+          fileParallelism: false,
+        },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: "e2e",
+          include: ["tests/e2e/**/*.test.ts"],
+          environment: "node",
+          globalSetup: ["tests/support/global-setup.ts"],
+          testTimeout: 180_000,
+          hookTimeout: 600_000,
+          fileParallelism: false,
+        },
+      },
+    ],
+  },
+});
