@@ -25,8 +25,14 @@ function newestSourceTime(root: string): number {
   return newest;
 }
 
+/** The test profile builds into its own folder (overridable so engineers working side by side don't share one). */
 export function distDirFor(profile: Profile): string {
-  return profile === "test" ? ".next-test" : ".next";
+  return profile === "test" ? (process.env.VISVIVA_TEST_DIST_DIR ?? ".next-test") : ".next";
+}
+
+function pidFileFor(profile: Profile): string {
+  const config = serviceConfig(profile);
+  return path.join(config.runDir, `app-${config.app.port}.pid`);
 }
 
 function pidAlive(pid: number): boolean {
@@ -40,7 +46,7 @@ function pidAlive(pid: number): boolean {
 
 export function stopApp(profile: Profile): void {
   const config = serviceConfig(profile);
-  const pidFile = path.join(config.runDir, "app.pid");
+  const pidFile = pidFileFor(profile);
   const pid = Number(fs.existsSync(pidFile) ? fs.readFileSync(pidFile, "utf8") : 0);
   if (pid && pidAlive(pid)) {
     try {
@@ -48,7 +54,7 @@ export function stopApp(profile: Profile): void {
     } catch {
       process.kill(pid, "SIGTERM");
     }
-    log("app stopped");
+    log(`app on port ${config.app.port} stopped`);
   }
   fs.rmSync(pidFile, { force: true });
 }
@@ -62,7 +68,7 @@ export async function ensureApp(profile: Profile, extraEnv: Record<string, strin
   const buildId = path.join(root, distDir, "BUILD_ID");
   const builtAt = fs.statSync(buildId, { throwIfNoEntry: false })?.mtimeMs ?? 0;
   const stale = builtAt < newestSourceTime(root);
-  const pidFile = path.join(config.runDir, "app.pid");
+  const pidFile = pidFileFor(profile);
   const url = `http://127.0.0.1:${config.app.port}`;
 
   if (!stale && (await portAnswers(config.app.port))) {
@@ -82,7 +88,7 @@ export async function ensureApp(profile: Profile, extraEnv: Record<string, strin
   }
   fs.mkdirSync(config.logDir, { recursive: true });
   fs.mkdirSync(config.runDir, { recursive: true });
-  const logFile = path.join(config.logDir, "app.log");
+  const logFile = path.join(config.logDir, `app-${config.app.port}.log`);
   const out = fs.openSync(logFile, "a");
   const child = spawn(process.execPath, [require.resolve("next/dist/bin/next"), "start", "--hostname", "127.0.0.1", "--port", String(config.app.port)], {
     cwd: root,

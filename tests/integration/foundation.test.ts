@@ -1,10 +1,15 @@
-import { describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it } from "vitest";
+import { appUrl } from "../support/app";
 import { sql } from "drizzle-orm";
 import { db } from "@/db/client";
 import { HttpClient, baseUrl } from "../support/http";
 import { createBoardWithCast } from "../support/factories";
 
 describe("the app on its real local services", () => {
+  beforeAll(async () => {
+    await appUrl();
+  });
+
   it("reports every service ok at /api/health", async () => {
     const response = await fetch(`${baseUrl()}/api/health`);
     const body = await response.json();

@@ -1,15 +1,15 @@
-// Starts the test profile's real services (PostgreSQL, S3 store, mail catcher), applies the
-// migrations and serves a production build of the app on its own port. Idempotent: what
-// already runs is reused, so one file can be run alone (`npx vitest run path/to.test.ts`).
-// Everything is stopped by `npm test` at the end (or `npm run services:stop -- test`).
+// Starts the test profile's real services (PostgreSQL, S3 store, mail catcher) and applies
+// the migrations. Idempotent: what already runs is reused, so one file can be run alone
+// (`npx vitest run path/to.test.ts`). Tests that speak HTTP to the app call `await appUrl()`
+// (tests/support/app.ts) in beforeAll, which builds and serves it when needed. `npm test`
+// stops everything at the end (or `npx tsx scripts/services.ts stop test`).
 import fs from "node:fs";
 import path from "node:path";
 import { runMigrations } from "../../db/migrate";
-import { ensureApp } from "../../scripts/app-server";
 import { appEnvironment, serviceConfig } from "../../scripts/service-config";
 import { startServices } from "../../scripts/services";
 
-async function withLock<T>(file: string, work: () => Promise<T>): Promise<T> {
+export async function withLock<T>(file: string, work: () => Promise<T>): Promise<T> {
   const deadline = Date.now() + 15 * 60_000;
   for (;;) {
     try {
@@ -36,8 +36,7 @@ export default async function setup(): Promise<void> {
   const env = await withLock(path.join(config.runDir, "setup.lock"), async () => {
     const environment = await startServices("test");
     await runMigrations(environment.DATABASE_URL!);
-    const baseUrl = await ensureApp("test");
-    return { ...environment, VISVIVA_TEST_BASE_URL: baseUrl };
+    return environment;
   });
   Object.assign(process.env, env, appEnvironment(config));
 }

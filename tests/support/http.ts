@@ -4,7 +4,7 @@ import { TEST_PASSWORD } from "./factories";
 
 export function baseUrl(): string {
   const url = process.env.VISVIVA_TEST_BASE_URL;
-  if (!url) throw new Error("VISVIVA_TEST_BASE_URL is not set: run through vitest's integration or e2e project");
+  if (!url) throw new Error("The test app is not up: call `await appUrl()` (tests/support/app.ts) in beforeAll");
   return url;
 }
 
