@@ -35,7 +35,8 @@ function portFrom(variable: string, fallback: number): number {
 export function serviceConfig(profile: Profile, root = path.resolve(__dirname, "..")): ServiceConfig {
   const prefix = profile === "demo" ? "VISVIVA_DEMO" : "VISVIVA_TEST";
   const d = defaults[profile];
-  const dataDir = path.join(root, ".data", profile);
+  // Overridable so a second copy of a profile (e.g. a full test run beside a developer's) keeps its own data.
+  const dataDir = process.env[`${prefix}_DATA_DIR`] ? path.resolve(root, process.env[`${prefix}_DATA_DIR`]!) : path.join(root, ".data", profile);
   return {
     profile,
     root,

@@ -1,0 +1,62 @@
+import { describe, expect, it } from "vitest";
+import { AppError } from "@/lib/errors";
+import { authorize, decide, permissions } from "./policy";
+
+const member = { id: "u1", isAdmin: false };
+const admin = { id: "a1", isAdmin: true };
+
+describe("the authorization policy", () => {
+  it("hides every board resource from non-members (404, existence not leaked)", () => {
+    for (const permission of permissions.filter((p) => p !== "site.admin")) {
+      expect(decide(member, permission, { role: null })).toBe("hide");
+    }
+  });
+
+  it("lets admins do everything, and nobody else use site administration", () => {
+    for (const permission of permissions) expect(decide(admin, permission, { role: null })).toBe("allow");
+    expect(decide(member, "site.admin", { role: "chair" })).toBe("forbid");
+  });
+
+  it("keeps chair-only work with chairs", () => {
+    for (const permission of ["members.manage", "review.assign", "decision.make", "rubric.manage", "call.manage"] as const) {
+      expect(decide(member, permission, { role: "chair" })).toBe("allow");
+      expect(decide(member, permission, { role: "reviewer" })).toBe("forbid");
+      expect(decide(member, permission, { role: "proposer" })).toBe("forbid");
+    }
+  });
+
+  it("lets a reviewer see a proposal only when assigned and free of conflicts", () => {
+    expect(decide(member, "proposal.view", { role: "reviewer", isAssigned: true })).toBe("allow");
+    expect(decide(member, "proposal.view", { role: "reviewer", isAssigned: true, isConflicted: true })).toBe("hide");
+    expect(decide(member, "proposal.view", { role: "reviewer", isAssigned: false })).toBe("hide");
+    expect(decide(member, "review.write", { role: "reviewer", isAssigned: true, isConflicted: true })).toBe("forbid");
+  });
+
+  it("shows proposers their review items and decision only once the decision is issued", () => {
+    expect(decide(member, "decision.view", { role: "proposer", isAuthor: true, decisionIssued: false })).toBe("hide");
+    expect(decide(member, "decision.view", { role: "proposer", isAuthor: true, decisionIssued: true })).toBe("allow");
+    expect(decide(member, "review-item.view", { role: "proposer", isAuthor: true, decisionIssued: true })).toBe("allow");
+  });
+
+  it("shares review items between reviewers only after their own review is submitted, where the board allows", () => {
+    const facts = { role: "reviewer" as const, isAssigned: true, shareItemsAfterSubmit: true };
+    expect(decide(member, "review-item.view", { ...facts, ownReviewSubmitted: false })).toBe("hide");
+    expect(decide(member, "review-item.view", { ...facts, ownReviewSubmitted: true })).toBe("allow");
+    expect(decide(member, "review-item.view", { ...facts, ownReviewSubmitted: true, shareItemsAfterSubmit: false })).toBe("hide");
+  });
+
+  it("throws AppErrors with 404 and 403", () => {
+    expect(() => authorize(member, "board.view", { role: null }, "That board")).toThrow(AppError);
+    try {
+      authorize(member, "members.manage", { role: "proposer" });
+    } catch (error) {
+      expect((error as AppError).status).toBe(403);
+    }
+    try {
+      authorize(member, "board.view", { role: null }, "That board");
+    } catch (error) {
+      expect((error as AppError).status).toBe(404);
+      expect((error as AppError).message).toBe("That board was not found.");
+    }
+  });
+});

@@ -1,0 +1,33 @@
+import { describe, expect, it } from "vitest";
+import { parseEnv, REQUIRED_VARIABLES } from "./env";
+
+const complete = {
+  DATABASE_URL: "postgres://u:p@127.0.0.1:5432/db",
+  S3_ENDPOINT: "http://127.0.0.1:9000",
+  S3_ACCESS_KEY: "key",
+  S3_SECRET_KEY: "secret",
+  S3_BUCKET: "visviva",
+  SMTP_URL: "smtp://127.0.0.1:2525",
+  APP_URL: "https://visviva.example.org",
+  NEXTAUTH_SECRET: "a-secret-of-enough-length",
+};
+
+describe("parseEnv", () => {
+  it("accepts a complete production environment and fills defaults", () => {
+    const env = parseEnv(complete);
+    expect(env.VISVIVA_MODE).toBe("production");
+    expect(env.UPLOAD_MAX_BYTES).toBe(100 * 1024 * 1024);
+    expect(env.MAIL_CATCHER_URL).toBeUndefined();
+  });
+
+  it("lists every missing required variable at once", () => {
+    expect(() => parseEnv({})).toThrow(REQUIRED_VARIABLES.join(", "));
+    const { SMTP_URL: _smtp, S3_BUCKET: _bucket, ...rest } = complete;
+    expect(() => parseEnv(rest)).toThrow("missing environment variables: S3_BUCKET, SMTP_URL");
+  });
+
+  it("names the variable that is malformed", () => {
+    expect(() => parseEnv({ ...complete, SMTP_URL: "http://mail" })).toThrow(/SMTP_URL: must start with smtp/);
+    expect(() => parseEnv({ ...complete, VISVIVA_MODE: "staging" })).toThrow(/VISVIVA_MODE/);
+  });
+});
