@@ -1,7 +1,10 @@
 import "server-only";
-import { desc, sql } from "drizzle-orm";
+import { and, asc, desc, eq, ilike, or, sql, type SQL } from "drizzle-orm";
 import { db, type Database, type Transaction } from "@/db/client";
 import { auditEvents } from "@/db/schema";
+import { authorize } from "@/lib/auth/policy";
+import type { SessionUser } from "@/lib/dal/sessions";
+import type { AuditQuery } from "@/lib/validation/accounts";
 
 export interface AuditEntry {
   action: string;
@@ -44,4 +47,36 @@ export async function listAuditEvents(options: { limit: number; offset: number }
     .offset(options.offset);
   const [count] = await db().select({ n: sql<number>`count(*)::int` }).from(auditEvents);
   return { rows, total: count?.n ?? 0 };
+}
+
+/** The audit log for site admins: searched by actor, target or action, newest first by default. */
+export async function listAuditLog(user: SessionUser, query: AuditQuery) {
+  authorize(user, "site.admin", { role: null });
+  const conditions: SQL[] = [];
+  if (query.action) conditions.push(eq(auditEvents.action, query.action));
+  if (query.q) {
+    const pattern = `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+    conditions.push(or(ilike(auditEvents.actorEmail, pattern), ilike(auditEvents.target, pattern), ilike(auditEvents.action, pattern))!);
+  }
+  const where = conditions.length ? and(...conditions) : undefined;
+  const [events, [count]] = await Promise.all([
+    db()
+      .select({
+        id: auditEvents.id,
+        occurredAt: auditEvents.occurredAt,
+        actorEmail: auditEvents.actorEmail,
+        boardId: auditEvents.boardId,
+        action: auditEvents.action,
+        target: auditEvents.target,
+        details: auditEvents.details,
+        ipAddress: auditEvents.ipAddress,
+      })
+      .from(auditEvents)
+      .where(where)
+      .orderBy(query.dir === "asc" ? asc(auditEvents.occurredAt) : desc(auditEvents.occurredAt), asc(auditEvents.id))
+      .limit(query.pageSize)
+      .offset((query.page - 1) * query.pageSize),
+    db().select({ n: sql<number>`count(*)::int` }).from(auditEvents).where(where),
+  ]);
+  return { events, total: count?.n ?? 0, page: query.page, pageSize: query.pageSize };
 }
