@@ -41,8 +41,11 @@ export function lambert(r1: Vec3, r2: Vec3, tof: number, mu: number, direction: 
   let dth = Math.acos(cosDth);
   const pro = direction !== "retrograde";
   if (pro ? c12[2] < 0 : c12[2] >= 0) dth = 2 * Math.PI - dth;
+  // 1 + cos Δθ = |r̂1 + r̂2|²/2 keeps full relative precision near 180°, where A is small.
+  const u = [r1[0] / r1m + r2[0] / r2m, r1[1] / r1m + r2[1] / r2m, r1[2] / r1m + r2[2] / r2m] as const;
+  const onePlusCos = (u[0] * u[0] + u[1] * u[1] + u[2] * u[2]) / 2;
   // Lambert's A constant: A = sin Δθ·√(r1 r2 / (1 − cos Δθ)) = ±√(r1 r2 (1 + cos Δθ)).
-  const A = (dth < Math.PI ? 1 : -1) * Math.sqrt(r1m * r2m * (1 + cosDth));
+  const A = (dth < Math.PI ? 1 : -1) * Math.sqrt(r1m * r2m * onePlusCos);
   const sqmu = Math.sqrt(mu);
   // y(z) of the universal-variable Lambert formulation.
   const yOf = (z: number) => r1m + r2m + (A * (z * stumpffS(z) - 1)) / Math.sqrt(stumpffC(z));

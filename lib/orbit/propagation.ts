@@ -39,6 +39,34 @@ export function stumpffS(z: number): number {
   return 1 / 6 - z / 120 + (z * z) / 5040 - (z * z * z) / 362880 + (z * z * z * z) / 39916800;
 }
 
+/** Universal Kepler equation F(χ) = a1 χ² C + a2 χ³ S + r0 χ − √μ Δt, increasing in χ (F' = r > 0). */
+function universalF(x: number, a1: number, a2: number, r0m: number, alpha: number, target: number): number {
+  const z = alpha * x * x;
+  return a1 * x * x * stumpffC(z) + a2 * x * x * x * stumpffS(z) + r0m * x - target;
+}
+
+/**
+ * Fallback for nearly rectilinear or extreme cases where the Laguerre iteration stalls:
+ * F is monotonic, so bracket the root and bisect (slow but certain).
+ */
+function solveByBracketing(a1: number, a2: number, r0m: number, alpha: number, target: number): number {
+  const F = (x: number) => universalF(x, a1, a2, r0m, alpha, target);
+  let lo = 0;
+  let hi = target >= 0 ? 1 : -1;
+  while (F(hi) * Math.sign(target) < 0) {
+    lo = hi;
+    hi *= 2;
+    if (!Number.isFinite(F(hi)) || Math.abs(hi) > 1e12) fail("the universal Kepler equation did not converge for this state and time");
+  }
+  if (target < 0) [lo, hi] = [hi, lo];
+  for (let i = 0; i < 400 && hi - lo > 1e-15 * Math.max(1, Math.abs(lo)); i++) {
+    const mid = 0.5 * (lo + hi);
+    if (F(mid) < 0) lo = mid;
+    else hi = mid;
+  }
+  return 0.5 * (lo + hi);
+}
+
 export interface PropagationResult {
   position: Vec3;
   velocity: Vec3;
@@ -76,7 +104,8 @@ export function propagate(r0: Vec3, v0: Vec3, dt: number, mu: number): Propagati
     const aa = 1 / alpha;
     const s = Math.sign(t);
     const g = Math.log((-2 * mu * alpha * t) / (dot(r0, v0) + s * Math.sqrt(-mu * aa) * (1 - r0m * alpha)));
-    if (Number.isFinite(g)) x = s * Math.sqrt(-aa) * g;
+    // The starter is meant for long times; for short ones the near-linear guess √μ·Δt/r0 is better.
+    x = Number.isFinite(g) && g > 0 ? s * Math.sqrt(-aa) * g : (sqmu * t) / r0m;
   }
   const target = sqmu * t;
   const nL = 5;
@@ -99,7 +128,7 @@ export function propagate(r0: Vec3, v0: Vec3, dt: number, mu: number): Propagati
       break;
     }
   }
-  if (!converged || !Number.isFinite(x)) fail("the universal Kepler equation did not converge for this state and time");
+  if (!converged || !Number.isFinite(x)) x = solveByBracketing(a1, a2, r0m, alpha, target);
   const z = alpha * x * x;
   const C = stumpffC(z);
   const S = stumpffS(z);

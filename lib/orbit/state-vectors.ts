@@ -3,7 +3,7 @@
  */
 import { classify, type OrbitType } from "./conics";
 import { fail, fmt } from "./errors";
-import { cross, dot, norm, scale, sub, type Vec3, TWO_PI } from "./vector";
+import { cross, dot, norm, scale, sub, type Vec3, TWO_PI, wrapTwoPi as wrap } from "./vector";
 
 export interface ClassicalElements {
   /** Specific angular momentum vector, km²/s. */
@@ -49,45 +49,30 @@ export function stateToElements(r: Vec3, v: Vec3, mu: number): ClassicalElements
   // p = h²/μ; a = −μ/(2ε).
   const p = (h * h) / mu;
   const a = orbitType === "parabolic" ? Infinity : -mu / (2 * energy);
-  // Inclination cos i = h_z / h.
-  const i = Math.acos(Math.max(-1, Math.min(1, hVec[2] / h)));
+  // Inclination from h: tan i = √(hx² + hy²) / hz (atan2 keeps full precision near 0° and 180°).
+  const i = Math.atan2(Math.hypot(hVec[0], hVec[1]), hVec[2]);
   // Node vector n = K × h.
   const nVec: Vec3 = [-hVec[1], hVec[0], 0];
   const n = norm(nVec);
+  const hHat = scale(hVec, 1 / h);
+  // Signed angle from u to w about the orbit normal: atan2((u × w)·ĥ, u·w).
+  const angle = (u: Vec3, w: Vec3) => {
+    const x = Math.atan2(dot(cross(u, w), hHat), dot(u, w));
+    return x < 0 ? x + TWO_PI : x;
+  };
   const notes: string[] = [];
   const equatorial = n < SMALL * h;
   const circular = orbitType === "circular";
-  let raan = 0;
-  let argPeriapsis = 0;
-  let trueAnomaly = 0;
-  if (!equatorial) raan = Math.acos(Math.max(-1, Math.min(1, nVec[0] / n)));
-  if (!equatorial && nVec[1] < 0) raan = TWO_PI - raan;
+  const xAxis: Vec3 = [1, 0, 0];
+  // Right ascension of the ascending node from the node vector.
+  const raan = equatorial ? 0 : wrap(Math.atan2(nVec[1], nVec[0]));
   if (equatorial) notes.push("the orbit is equatorial: raan is undefined and reported as 0; angles are measured from the x axis");
   if (circular) notes.push("the orbit is circular: argPeriapsis is undefined and reported as 0; trueAnomaly is measured from the node (or the x axis)");
-  if (!circular) {
-    if (!equatorial) {
-      // Argument of periapsis cos ω = n·e / (n e).
-      argPeriapsis = Math.acos(Math.max(-1, Math.min(1, dot(nVec, eVec) / (n * e))));
-      if (eVec[2] < 0) argPeriapsis = TWO_PI - argPeriapsis;
-    } else {
-      // Longitude of periapsis for equatorial orbits, measured in the sense of motion.
-      argPeriapsis = Math.atan2(eVec[1], eVec[0]);
-      if (hVec[2] < 0) argPeriapsis = -argPeriapsis;
-      if (argPeriapsis < 0) argPeriapsis += TWO_PI;
-    }
-    // True anomaly cos θ = e·r / (e r), quadrant from r·v.
-    trueAnomaly = Math.acos(Math.max(-1, Math.min(1, dot(eVec, r) / (e * rm))));
-    if (rv < 0) trueAnomaly = TWO_PI - trueAnomaly;
-  } else if (!equatorial) {
-    // Argument of latitude u for circular inclined orbits.
-    trueAnomaly = Math.acos(Math.max(-1, Math.min(1, dot(nVec, r) / (n * rm))));
-    if (r[2] < 0) trueAnomaly = TWO_PI - trueAnomaly;
-  } else {
-    // True longitude for circular equatorial orbits.
-    trueAnomaly = Math.atan2(r[1], r[0]);
-    if (hVec[2] < 0) trueAnomaly = -trueAnomaly;
-    if (trueAnomaly < 0) trueAnomaly += TWO_PI;
-  }
+  const reference = equatorial ? xAxis : nVec;
+  // Argument of periapsis: angle from the node (or x axis) to the eccentricity vector.
+  const argPeriapsis = circular ? 0 : angle(reference, eVec);
+  // True anomaly: angle from the eccentricity vector to r (argument of latitude or true longitude when circular).
+  const trueAnomaly = circular ? angle(reference, r) : angle(eVec, r);
   return { hVec, h, eVec, e, p, a, i, raan, argPeriapsis, trueAnomaly, energy, orbitType, notes };
 }
 
