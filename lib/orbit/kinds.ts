@@ -219,8 +219,8 @@ function readShape(g: Inputs, body: Body, allowSingleRadius: boolean): { conic: 
 }
 
 function checkAboveSurface(c: Conic, body: Body): Conic {
-  if (!Number.isFinite(c.p) || !Number.isFinite(c.e) || !(c.p > 0)) fail("the orbit shape does not describe a valid conic");
   const rp = periapsisRadius(c);
+  if (!Number.isFinite(c.p) || !Number.isFinite(c.e) || Number.isNaN(rp)) fail("the orbit shape does not describe a valid conic; check the given values");
   if (rp < body.radius)
     fail(
       `the periapsis radius ${fmt(rp)} km is below the surface of ${body.name} (radius ${fmt(body.radius)} km, altitude ${fmt(rp - body.radius)} km): ` +
