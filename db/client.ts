@@ -10,7 +10,12 @@ export type Transaction = Parameters<Parameters<Database["transaction"]>[0]>[0];
 const globalForDb = globalThis as unknown as { visvivaPool?: Pool; visvivaDb?: Database };
 
 export function pool(): Pool {
-  globalForDb.visvivaPool ??= new Pool({ connectionString: env().DATABASE_URL, max: 10 });
+  if (!globalForDb.visvivaPool) {
+    globalForDb.visvivaPool = new Pool({ connectionString: env().DATABASE_URL, max: 10 });
+    // An idle connection dropped by the server (a database restart) is an 'error' event on
+    // the pool; unhandled it would end the process. The pool discards it and reconnects.
+    globalForDb.visvivaPool.on("error", (error) => console.error("[db] idle connection lost:", error.message));
+  }
   return globalForDb.visvivaPool;
 }
 
