@@ -1,0 +1,342 @@
+import "server-only";
+import crypto from "node:crypto";
+import { and, asc, eq, lt, sql } from "drizzle-orm";
+import { db } from "@/db/client";
+import { attachments, proposalVersions } from "@/db/schema";
+import type { SessionUser } from "@/lib/auth/session";
+import { attachmentContentPath } from "@/lib/dossier/schema";
+import { env } from "@/lib/env";
+import { conflict, notFound, unprocessable } from "@/lib/errors";
+import { ATTACHMENT_TYPES, type PresignUploadInput } from "@/lib/validation/dossier";
+import { deleteObject, presignDownload, presignUpload, readObjectHead, readObjectStream, statObjectOrNull } from "@/storage/object-store";
+import { recordAudit } from "./audit";
+import { isUuid } from "./boards";
+import { editableState, proposalFor } from "./proposals";
+
+/** Presigned upload URLs live this long; the browser starts the PUT right away. */
+export const UPLOAD_URL_SECONDS = 15 * 60;
+/** Pending uploads older than this are removed (object and row). */
+export const UNCONFIRMED_UPLOAD_MAX_AGE_MS = 60 * 60 * 1000;
+
+export interface AttachmentView {
+  id: string;
+  proposalId: string;
+  filename: string;
+  contentType: string;
+  size: number | null;
+  sha256: string | null;
+  status: "pending" | "confirmed" | "removed";
+  textKind: string | null;
+  createdAt: string;
+  contentPath: string;
+}
+
+const attachmentColumns = {
+  id: attachments.id,
+  proposalId: attachments.proposalId,
+  boardId: attachments.boardId,
+  objectKey: attachments.objectKey,
+  filename: attachments.filename,
+  declaredType: attachments.declaredType,
+  detectedType: attachments.detectedType,
+  declaredSize: attachments.declaredSize,
+  size: attachments.size,
+  sha256: attachments.sha256,
+  status: attachments.status,
+  createdAt: attachments.createdAt,
+};
+
+type AttachmentRow = {
+  id: string;
+  proposalId: string;
+  boardId: string;
+  objectKey: string;
+  filename: string;
+  declaredType: string;
+  detectedType: string | null;
+  declaredSize: number;
+  size: number | null;
+  sha256: string | null;
+  status: "pending" | "confirmed" | "removed";
+  createdAt: Date;
+};
+
+function toView(row: AttachmentRow, textKind: string | null = null): AttachmentView {
+  return {
+    id: row.id,
+    proposalId: row.proposalId,
+    filename: row.filename,
+    contentType: row.detectedType ?? row.declaredType,
+    size: row.size ?? row.declaredSize,
+    sha256: row.sha256,
+    status: row.status,
+    textKind,
+    createdAt: row.createdAt.toISOString(),
+    contentPath: attachmentContentPath(row.boardId, row.id),
+  };
+}
+
+export function uploadMaxBytes(): number {
+  return env().UPLOAD_MAX_BYTES;
+}
+
+function formatBytes(n: number): string {
+  if (n >= 1024 * 1024) return `${(n / 1024 / 1024).toFixed(n % (1024 * 1024) === 0 ? 0 : 1)} MB`;
+  if (n >= 1024) return `${(n / 1024).toFixed(0)} KB`;
+  return `${n} bytes`;
+}
+
+function extensionOf(filename: string): string {
+  const i = filename.lastIndexOf(".");
+  return i >= 0 ? filename.slice(i).toLowerCase() : "";
+}
+
+const ALLOWED_DESCRIPTION = "PDF, PNG, JPEG, CSV or plain text (including CCSDS OEM/OPM/OMM messages and two-line element sets)";
+
+/** Checks a declared file against the allow-list and the cap; returns the normalised type. */
+export function checkDeclaredFile(input: PresignUploadInput, maxBytes = uploadMaxBytes()): string {
+  const type = input.contentType.split(";")[0]!.trim().toLowerCase();
+  const endings = ATTACHMENT_TYPES[type];
+  if (!endings) throw unprocessable(`Files of type "${type || "unknown"}" cannot be attached. Attach ${ALLOWED_DESCRIPTION}.`, { field: "contentType" });
+  const ext = extensionOf(input.filename);
+  if (!endings.includes(ext)) {
+    throw unprocessable(`"${input.filename}" does not end in ${endings.join(", ")} as a ${type} file should. Rename it or attach it as the right type.`, { field: "filename" });
+  }
+  if (input.size > maxBytes) throw unprocessable(`"${input.filename}" is ${formatBytes(input.size)}; attachments are limited to ${formatBytes(maxBytes)}.`, { field: "size", maxBytes });
+  return type;
+}
+
+export function attachmentObjectKey(boardId: string, proposalId: string, id: string): string {
+  return `boards/${boardId}/proposals/${proposalId}/attachments/${id}`;
+}
+
+/**
+ * Registers a pending upload and returns a short-lived presigned PUT URL for it. Only an
+ * author of an editable proposal gets one; the server names the object key.
+ */
+export async function presignAttachmentUpload(
+  user: SessionUser,
+  boardId: string,
+  proposalId: string,
+  input: PresignUploadInput,
+): Promise<{ attachment: AttachmentView; uploadUrl: string; method: "PUT"; headers: Record<string, string>; expiresAt: string }> {
+  const { proposal } = await proposalFor(user, boardId, proposalId, "proposal.edit");
+  const state = await editableState(proposal);
+  if (!state.editable) throw conflict(state.reason ?? "This proposal cannot be changed now.");
+  const type = checkDeclaredFile(input);
+  // Opportunistic housekeeping: old unconfirmed uploads go whenever someone starts a new one.
+  void cleanUpUnconfirmedUploads(new Date(Date.now() - UNCONFIRMED_UPLOAD_MAX_AGE_MS)).catch((error) => console.error("[attachments] cleanup failed", error));
+  const id = crypto.randomUUID();
+  const objectKey = attachmentObjectKey(boardId, proposalId, id);
+  const [row] = await db()
+    .insert(attachments)
+    .values({ id, proposalId, boardId, objectKey, filename: input.filename, declaredType: type, declaredSize: input.size, uploadedBy: user.id })
+    .returning(attachmentColumns);
+  const uploadUrl = await presignUpload(objectKey, UPLOAD_URL_SECONDS);
+  return {
+    attachment: toView(row!),
+    uploadUrl,
+    method: "PUT",
+    headers: { "Content-Type": type },
+    expiresAt: new Date(Date.now() + UPLOAD_URL_SECONDS * 1000).toISOString(),
+  };
+}
+
+const MAGIC: { type: string; bytes: number[] }[] = [
+  { type: "application/pdf", bytes: [0x25, 0x50, 0x44, 0x46, 0x2d] }, // %PDF-
+  { type: "image/png", bytes: [0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a] },
+  { type: "image/jpeg", bytes: [0xff, 0xd8, 0xff] },
+];
+
+/** The binary type the first bytes announce, or null (then it may be text). */
+export function sniffBinaryType(head: Uint8Array): string | null {
+  for (const m of MAGIC) if (m.bytes.every((b, i) => head[i] === b)) return m.type;
+  return null;
+}
+
+/** What kind of orbit text a plain-text file holds, from its first lines (for display). */
+export function textKindOf(head: string): string | null {
+  const start = head.replace(/^\uFEFF/, "").trimStart();
+  const ccsds = /^CCSDS_(OEM|OPM|OMM)_VERS\s*=/.exec(start);
+  if (ccsds) return `CCSDS ${ccsds[1]}`;
+  const lines = start.split(/\r?\n/).map((l) => l.trimEnd());
+  const tleAt = lines.findIndex((l) => /^1 [0-9A-Z ]{5}[A-Z ] /.test(l));
+  if (tleAt >= 0 && /^2 [0-9A-Z ]{5} /.test(lines[tleAt + 1] ?? "")) return "two-line element set";
+  return null;
+}
+
+const HEAD_BYTES = 4096;
+
+/**
+ * Confirms an upload: the object must exist, be within the cap and the declared size, and
+ * its bytes must be what was declared (magic numbers for PDF/PNG/JPEG; valid UTF-8 without
+ * NUL for text). Records size, detected type and SHA-256; otherwise deletes the object and
+ * the row and answers 422 saying why.
+ */
+export async function confirmAttachment(user: SessionUser, boardId: string, attachmentId: string, options: { maxBytes?: number } = {}): Promise<AttachmentView> {
+  const row = await loadAttachment(boardId, attachmentId);
+  if (!row || row.status === "removed") throw notFound("That attachment");
+  await proposalFor(user, boardId, row.proposalId, "proposal.edit");
+  if (row.status === "confirmed") return toView(row);
+  const maxBytes = options.maxBytes ?? uploadMaxBytes();
+  const stat = await statObjectOrNull(row.objectKey);
+  if (!stat) throw unprocessable(`"${row.filename}" has not arrived in storage yet. Upload it again (retry), then confirm.`);
+
+  const reject = async (message: string, details?: unknown): Promise<never> => {
+    await deleteObject(row.objectKey).catch(() => undefined);
+    await db().delete(attachments).where(and(eq(attachments.id, row.id), eq(attachments.boardId, boardId)));
+    await recordAudit({ action: "attachment.reject", actorId: user.id, actorEmail: user.email, boardId, target: row.id, details: { filename: row.filename, reason: message } });
+    throw unprocessable(message, details);
+  };
+
+  if (stat.size > maxBytes) await reject(`"${row.filename}" is ${formatBytes(stat.size)}; attachments are limited to ${formatBytes(maxBytes)}. It was removed.`, { size: stat.size, maxBytes });
+  if (stat.size !== row.declaredSize) await reject(`"${row.filename}" is ${stat.size} bytes but was declared as ${row.declaredSize}. It was removed; upload it again.`, { size: stat.size });
+
+  const head = await readObjectHead(row.objectKey, Math.min(HEAD_BYTES, stat.size));
+  const binary = sniffBinaryType(head);
+  const isText = row.declaredType.startsWith("text/");
+  if (!isText && binary !== row.declaredType) {
+    await reject(
+      `"${row.filename}" was declared as ${row.declaredType} but its content is ${binary ?? "not a file of that type"}. It was removed; attach the real file.`,
+      { declaredType: row.declaredType, detectedType: binary },
+    );
+  }
+  if (isText && binary) await reject(`"${row.filename}" was declared as text but its content is ${binary}. It was removed.`, { declaredType: row.declaredType, detectedType: binary });
+
+  // One pass over the whole object: SHA-256, and for text files UTF-8 validity and no NUL.
+  const hash = crypto.createHash("sha256");
+  const decoder = new TextDecoder("utf-8", { fatal: true });
+  let textProblem: string | null = null;
+  let total = 0;
+  for await (const chunk of await readObjectStream(row.objectKey)) {
+    const buf = Buffer.isBuffer(chunk) ? chunk : Buffer.from(chunk as Uint8Array);
+    total += buf.length;
+    hash.update(buf);
+    if (isText && !textProblem) {
+      if (buf.includes(0)) textProblem = "contains NUL bytes (it is a binary file)";
+      else {
+        try {
+          decoder.decode(buf, { stream: true });
+        } catch {
+          textProblem = "is not valid UTF-8 text";
+        }
+      }
+    }
+  }
+  if (isText && !textProblem) {
+    try {
+      decoder.decode();
+    } catch {
+      textProblem = "is not valid UTF-8 text";
+    }
+  }
+  if (textProblem) await reject(`"${row.filename}" was declared as text but ${textProblem}. It was removed.`, { declaredType: row.declaredType });
+  if (total !== stat.size) await reject(`"${row.filename}" changed while it was checked. It was removed; upload it again.`);
+
+  const sha256 = hash.digest("hex");
+  const [updated] = await db()
+    .update(attachments)
+    .set({ status: "confirmed", size: stat.size, sha256, detectedType: binary ?? row.declaredType, confirmedAt: new Date() })
+    .where(and(eq(attachments.id, row.id), eq(attachments.boardId, boardId), eq(attachments.status, "pending")))
+    .returning(attachmentColumns);
+  if (!updated) {
+    const again = await loadAttachment(boardId, attachmentId);
+    if (again?.status === "confirmed") return toView(again);
+    throw notFound("That attachment");
+  }
+  await recordAudit({ action: "attachment.confirm", actorId: user.id, actorEmail: user.email, boardId, target: row.id, details: { filename: row.filename, size: stat.size, sha256 } });
+  return toView(updated, isText ? textKindOf(head.toString("utf8")) : null);
+}
+
+async function loadAttachment(boardId: string, attachmentId: string): Promise<AttachmentRow | null> {
+  if (!isUuid(boardId) || !isUuid(attachmentId)) return null;
+  const [row] = await db()
+    .select(attachmentColumns)
+    .from(attachments)
+    .where(and(eq(attachments.boardId, boardId), eq(attachments.id, attachmentId)))
+    .limit(1);
+  return row ?? null;
+}
+
+/** Confirmed attachments of a proposal (and the caller's pending ones when they may edit). */
+export async function listAttachments(user: SessionUser, boardId: string, proposalId: string): Promise<AttachmentView[]> {
+  await proposalFor(user, boardId, proposalId, "proposal.view");
+  const rows = await db()
+    .select(attachmentColumns)
+    .from(attachments)
+    .where(and(eq(attachments.boardId, boardId), eq(attachments.proposalId, proposalId), eq(attachments.status, "confirmed")))
+    .orderBy(asc(attachments.createdAt));
+  return rows.map((r) => toView(r));
+}
+
+/**
+ * A short-lived presigned GET (Content-Disposition: attachment) for an attachment the caller
+ * may see: confirmed ones of proposals they may view, including ones kept only by a version.
+ */
+export async function attachmentDownloadUrl(user: SessionUser, boardId: string, attachmentId: string): Promise<string> {
+  const row = await loadAttachment(boardId, attachmentId);
+  if (!row) throw notFound("That attachment");
+  await proposalFor(user, boardId, row.proposalId, "proposal.view");
+  if (row.status === "pending") throw notFound("That attachment");
+  if (row.status === "removed" && !(await referencedByVersion(row))) throw notFound("That attachment");
+  return presignDownload(row.objectKey, row.filename, 300);
+}
+
+async function referencedByVersion(row: AttachmentRow): Promise<boolean> {
+  const [hit] = await db()
+    .select({ id: proposalVersions.id })
+    .from(proposalVersions)
+    .where(and(eq(proposalVersions.proposalId, row.proposalId), sql`${proposalVersions.attachments} @> ${JSON.stringify([{ attachmentId: row.id }])}::jsonb`))
+    .limit(1);
+  return Boolean(hit);
+}
+
+/**
+ * Removes an attachment from the draft. Its object stays when a submitted version lists it
+ * (versions are immutable); otherwise object and row both go.
+ */
+export async function deleteAttachment(user: SessionUser, boardId: string, attachmentId: string): Promise<{ removed: true }> {
+  const row = await loadAttachment(boardId, attachmentId);
+  if (!row || row.status === "removed") throw notFound("That attachment");
+  const { proposal } = await proposalFor(user, boardId, row.proposalId, "proposal.edit");
+  const state = await editableState(proposal);
+  if (!state.editable) throw conflict(state.reason ?? "This proposal cannot be changed now.");
+  if (await referencedByVersion(row)) {
+    await db().update(attachments).set({ status: "removed" }).where(and(eq(attachments.id, row.id), eq(attachments.boardId, boardId)));
+  } else {
+    await deleteObject(row.objectKey).catch(() => undefined);
+    await db().delete(attachments).where(and(eq(attachments.id, row.id), eq(attachments.boardId, boardId)));
+  }
+  await recordAudit({ action: "attachment.remove", actorId: user.id, actorEmail: user.email, boardId, target: row.id, details: { filename: row.filename } });
+  return { removed: true };
+}
+
+/**
+ * Deletes uploads never confirmed and created before `olderThan`: the object (if it arrived)
+ * and the row. Called opportunistically when uploads start; returns how many went.
+ */
+export async function cleanUpUnconfirmedUploads(olderThan: Date): Promise<number> {
+  const stale = await db()
+    .select({ id: attachments.id, objectKey: attachments.objectKey })
+    .from(attachments)
+    .where(and(eq(attachments.status, "pending"), lt(attachments.createdAt, olderThan)))
+    .limit(500);
+  let removed = 0;
+  for (const a of stale) {
+    try {
+      await deleteObject(a.objectKey);
+    } catch (error) {
+      const code = (error as { code?: string }).code;
+      if (code !== "NoSuchKey" && code !== "NotFound") {
+        console.error("[attachments] could not delete", a.objectKey, error);
+        continue;
+      }
+    }
+    const deleted = await db()
+      .delete(attachments)
+      .where(and(eq(attachments.id, a.id), eq(attachments.status, "pending")))
+      .returning({ id: attachments.id });
+    removed += deleted.length;
+  }
+  return removed;
+}

@@ -1,0 +1,194 @@
+/**
+ * Server-side HTML of a dossier, from its JSON, through the same sanitizer the API uses.
+ * A hand-walk rather than a DOM serializer: every piece of text and every attribute value
+ * is escaped here, and only the elements below can appear.
+ */
+import { quantityInfo } from "@/lib/orbit";
+import { sanitizeDossier } from "./sanitize";
+import type { DossierClaim, DossierMark, DossierNode, SanitizeContext } from "./schema";
+
+export function escapeHtml(text: string): string {
+  return text.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]!);
+}
+
+/** The verdict the server found for a block, shown beside it when given. */
+export interface BlockVerdict {
+  status: "consistent" | "inconsistent" | "invalid";
+  checks?: { quantity: string; claimed: unknown; computed: unknown; unit: string; relativeError: number | null; ok: boolean }[];
+  messages?: string[];
+}
+
+export interface RenderOptions extends SanitizeContext {
+  /** Server verdicts by blockId. */
+  verdicts?: Record<string, BlockVerdict>;
+}
+
+const attr = (name: string, value: unknown) => (value === undefined || value === null ? "" : ` ${name}="${escapeHtml(String(value))}"`);
+
+function renderMarks(text: string, marks: DossierMark[] | undefined): string {
+  let html = escapeHtml(text);
+  for (const mark of marks ?? []) {
+    switch (mark.type) {
+      case "bold":
+        html = `<strong>${html}</strong>`;
+        break;
+      case "italic":
+        html = `<em>${html}</em>`;
+        break;
+      case "strike":
+        html = `<s>${html}</s>`;
+        break;
+      case "underline":
+        html = `<u>${html}</u>`;
+        break;
+      case "code":
+        html = `<code>${html}</code>`;
+        break;
+      case "link":
+        html = `<a${attr("href", mark.attrs?.href)} rel="noopener noreferrer nofollow">${html}</a>`;
+        break;
+    }
+  }
+  return html;
+}
+
+export function formatValue(value: unknown): string {
+  if (typeof value === "number") return Number.isInteger(value) ? String(value) : String(Number(value.toPrecision(6)));
+  if (Array.isArray(value)) return `[${value.map(formatValue).join(", ")}]`;
+  if (typeof value === "object" && value !== null) {
+    const rec = value as Record<string, unknown>;
+    if ("name" in rec && "deltaV" in rec) return `${String(rec.name)}: ${formatValue(rec.deltaV)}`;
+    return Object.entries(rec)
+      .map(([k, v]) => `${k} ${formatValue(v)}`)
+      .join(", ");
+  }
+  return String(value);
+}
+
+function unitOf(name: string): string {
+  const unit = quantityInfo(name)?.unit ?? "";
+  return unit === "1" ? "" : unit;
+}
+
+function bodyName(body: unknown): string {
+  if (typeof body === "string") return body;
+  if (typeof body === "object" && body !== null) return formatValue(body);
+  return "default body";
+}
+
+const STATUS_TEXT: Record<BlockVerdict["status"], string> = {
+  consistent: "Consistent",
+  inconsistent: "Inconsistent",
+  invalid: "Cannot be evaluated",
+};
+
+function renderOrbitCheck(node: DossierNode, options: RenderOptions): string {
+  const a = node.attrs ?? {};
+  const blockId = String(a.blockId ?? "");
+  const claim = (a.claim ?? { kind: "orbit", given: {} }) as DossierClaim;
+  const label = typeof a.label === "string" && a.label.trim() ? a.label.trim() : `${claim.kind} claim`;
+  const rows = (title: string, values: Record<string, unknown> | undefined) => {
+    const entries = Object.entries(values ?? {});
+    if (entries.length === 0) return "";
+    return (
+      `<tr><th colspan="2" scope="colgroup">${escapeHtml(title)}</th></tr>` +
+      entries.map(([k, v]) => `<tr><th scope="row">${escapeHtml(k)}</th><td>${escapeHtml(formatValue(v))}${unitOf(k) ? ` ${escapeHtml(unitOf(k))}` : ""}</td></tr>`).join("")
+    );
+  };
+  const verdict = options.verdicts?.[blockId];
+  const verdictHtml = verdict
+    ? `<div class="orbit-check-verdict" data-status="${escapeHtml(verdict.status)}"><strong>Server check: ${escapeHtml(STATUS_TEXT[verdict.status])}</strong>` +
+      (verdict.checks ?? [])
+        .filter((c) => !c.ok)
+        .map((c) => `<div>${escapeHtml(c.quantity)}: claimed ${escapeHtml(formatValue(c.claimed))}, computed ${escapeHtml(formatValue(c.computed))} ${escapeHtml(c.unit)}</div>`)
+        .join("") +
+      (verdict.messages ?? []).map((m) => `<div>${escapeHtml(m)}</div>`).join("") +
+      `</div>`
+    : "";
+  return (
+    `<figure class="orbit-check" data-orbit-check="" data-block-id="${escapeHtml(blockId)}" data-kind="${escapeHtml(claim.kind)}"${verdict ? attr("data-status", verdict.status) : ""}>` +
+    `<figcaption><strong>${escapeHtml(label)}</strong> · ${escapeHtml(claim.kind)} · ${escapeHtml(bodyName(claim.body))}</figcaption>` +
+    `<table class="orbit-check-values"><tbody>${rows("Given", claim.given)}${rows("Claimed", claim.claimed)}</tbody></table>` +
+    verdictHtml +
+    `</figure>`
+  );
+}
+
+function renderNode(node: DossierNode, options: RenderOptions): string {
+  const inner = () => (node.content ?? []).map((child) => renderNode(child, options)).join("");
+  switch (node.type) {
+    case "text":
+      return renderMarks(node.text ?? "", node.marks);
+    case "paragraph":
+      return `<p>${inner()}</p>`;
+    case "heading": {
+      const level = Number(node.attrs?.level ?? 2);
+      const tag = `h${level >= 1 && level <= 3 ? level : 2}`;
+      return `<${tag}>${inner()}</${tag}>`;
+    }
+    case "bulletList":
+      return `<ul>${inner()}</ul>`;
+    case "orderedList":
+      return `<ol${node.attrs?.start !== undefined && node.attrs.start !== 1 ? attr("start", node.attrs.start) : ""}>${inner()}</ol>`;
+    case "listItem":
+      return `<li>${inner()}</li>`;
+    case "blockquote":
+      return `<blockquote>${inner()}</blockquote>`;
+    case "codeBlock":
+      return `<pre><code>${inner()}</code></pre>`;
+    case "hardBreak":
+      return "<br>";
+    case "horizontalRule":
+      return "<hr>";
+    case "table":
+      return `<table><tbody>${inner()}</tbody></table>`;
+    case "tableRow":
+      return `<tr>${inner()}</tr>`;
+    case "tableHeader":
+    case "tableCell": {
+      const tag = node.type === "tableHeader" ? "th" : "td";
+      const span = (n: string) => (typeof node.attrs?.[n] === "number" && node.attrs[n] !== 1 ? attr(n, node.attrs[n]) : "");
+      return `<${tag}${span("colspan")}${span("rowspan")}>${inner()}</${tag}>`;
+    }
+    case "image":
+      return `<img${attr("src", node.attrs?.src)}${attr("alt", node.attrs?.alt ?? "")}${attr("title", node.attrs?.title)} loading="lazy">`;
+    case "orbitCheck":
+      return renderOrbitCheck(node, options);
+    default:
+      return "";
+  }
+}
+
+/** Sanitized HTML of a stored or submitted document. Never throws on bad input. */
+export function renderDossierHtml(doc: unknown, options: RenderOptions = {}): string {
+  const { doc: clean } = sanitizeDossier(doc, options);
+  return clean.content.map((node) => renderNode(node, options)).join("\n");
+}
+
+/** The document as plain text (search, e-mail excerpts, diffs): one line per block. */
+export function dossierPlainText(doc: unknown): string {
+  const { doc: clean } = sanitizeDossier(doc);
+  const lines: string[] = [];
+  const textOf = (node: DossierNode): string => {
+    if (node.type === "text") return node.text ?? "";
+    if (node.type === "hardBreak") return "\n";
+    return (node.content ?? []).map(textOf).join("");
+  };
+  const walk = (node: DossierNode) => {
+    if (["paragraph", "heading", "codeBlock"].includes(node.type)) {
+      lines.push(textOf(node));
+    } else if (node.type === "tableRow") {
+      lines.push((node.content ?? []).map(textOf).join("\t"));
+    } else if (node.type === "orbitCheck") {
+      const claim = node.attrs?.claim as DossierClaim | undefined;
+      const label = typeof node.attrs?.label === "string" && node.attrs.label ? node.attrs.label : claim?.kind ?? "orbit check";
+      lines.push(`[orbit check: ${label} (${claim?.kind ?? "?"})]`);
+    } else if (node.type === "image") {
+      lines.push(`[image: ${String(node.attrs?.alt ?? "")}]`);
+    } else {
+      (node.content ?? []).forEach(walk);
+    }
+  };
+  clean.content.forEach(walk);
+  return lines.join("\n").replace(/\n{3,}/g, "\n\n").trim();
+}

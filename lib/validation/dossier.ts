@@ -1,0 +1,172 @@
+// zod schemas for calls, proposals, drafts and attachments: shared by the forms, the
+// route handlers, the server actions and the OpenAPI document.
+import { z } from "zod";
+import { proposalStatuses } from "@/db/schema/proposals";
+
+const TOLERANCE_UNITS = ["km", "km/s", "deg", "s", "kg", "deg/day"] as const;
+
+export const tolerancePolicySchema = z.strictObject({
+  relative: z.number("relative tolerance must be a number").min(0, "relative tolerance cannot be negative").max(0.5, "relative tolerance above 50% checks nothing"),
+  absolute: z.partialRecord(z.enum(TOLERANCE_UNITS), z.number().min(0, "absolute tolerances cannot be negative")).optional(),
+});
+
+const dateInput = z.coerce.date("must be a date and time (ISO 8601)");
+
+const sectionName = z.string().trim().min(1, "a section name cannot be empty").max(120, "section names are at most 120 characters");
+
+export const callInputSchema = z
+  .strictObject({
+    title: z.string().trim().min(3, "give the call a title of at least 3 characters").max(200),
+    description: z.string().max(5000).default(""),
+    opensAt: dateInput,
+    closesAt: dateInput,
+    tolerance: tolerancePolicySchema.default({ relative: 0.01 }),
+    requiredSections: z.array(sectionName).max(30, "at most 30 required sections").default([]),
+    reviewersPerProposal: z.coerce.number().int().min(1, "at least one reviewer per proposal").max(10, "at most 10 reviewers per proposal").default(2),
+  })
+  .refine((c) => c.closesAt.getTime() > c.opensAt.getTime(), { message: "the call must close after it opens", path: ["closesAt"] });
+export type CallInput = z.infer<typeof callInputSchema>;
+
+export const callSchema = z.object({
+  id: z.uuid(),
+  boardId: z.uuid(),
+  title: z.string(),
+  description: z.string(),
+  opensAt: z.string(),
+  closesAt: z.string(),
+  tolerance: tolerancePolicySchema,
+  requiredSections: z.array(z.string()),
+  reviewersPerProposal: z.number().int(),
+  state: z.enum(["upcoming", "open", "closed"]),
+});
+
+export const MISSION_TYPES = ["earth-observation", "communications", "science", "technology-demonstration", "lunar", "planetary", "other"] as const;
+
+export const proposalCreateSchema = z.strictObject({
+  title: z.string().trim().min(3, "give the proposal a title of at least 3 characters").max(200),
+  missionType: z.string().trim().max(80).default(""),
+  callId: z.uuid("choose a call"),
+  coauthorIds: z.array(z.uuid()).max(20, "at most 20 co-authors").default([]),
+});
+export type ProposalCreateInput = z.infer<typeof proposalCreateSchema>;
+
+export const proposalUpdateSchema = z.strictObject({
+  title: z.string().trim().min(3).max(200).optional(),
+  missionType: z.string().trim().max(80).optional(),
+  coauthorIds: z.array(z.uuid()).max(20).optional(),
+});
+export type ProposalUpdateInput = z.infer<typeof proposalUpdateSchema>;
+
+export const proposalSortColumns = ["title", "status", "updatedAt", "createdAt", "callTitle", "latestVersion"] as const;
+
+export const proposalListQuerySchema = z.object({
+  page: z.coerce.number().int().min(1).default(1),
+  pageSize: z.coerce.number().int().min(1).max(100).default(20),
+  sort: z.enum(proposalSortColumns).default("updatedAt"),
+  dir: z.enum(["asc", "desc"]).default("desc"),
+  q: z.string().trim().max(200).optional(),
+  status: z.enum(proposalStatuses).optional(),
+  callId: z.uuid().optional(),
+});
+export type ProposalListQuery = z.infer<typeof proposalListQuerySchema>;
+
+export const proposalRowSchema = z.object({
+  id: z.uuid(),
+  title: z.string(),
+  missionType: z.string(),
+  status: z.enum(proposalStatuses),
+  callId: z.uuid(),
+  callTitle: z.string(),
+  latestVersion: z.number().int(),
+  isOwner: z.boolean(),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+});
+
+export const proposalPageSchema = z.object({
+  rows: z.array(proposalRowSchema),
+  total: z.number().int(),
+  page: z.number().int(),
+  pageSize: z.number().int(),
+});
+
+export const draftSaveSchema = z.strictObject({
+  revision: z.number("send the revision you loaded").int().min(1),
+  document: z.record(z.string(), z.unknown(), "document must be a Tiptap JSON object"),
+});
+export type DraftSaveInput = z.infer<typeof draftSaveSchema>;
+
+export const draftSchema = z.object({
+  proposalId: z.uuid(),
+  revision: z.number().int(),
+  basedOnVersion: z.number().int(),
+  document: z.record(z.string(), z.unknown()),
+  updatedAt: z.string(),
+  dropped: z.array(z.string()).optional(),
+});
+
+export const submitSchema = z.strictObject({
+  /** The draft revision the author saw; a newer saved draft makes the submission 409. */
+  revision: z.number().int().min(1).optional(),
+});
+
+/** Types an attachment may be declared as, with the file name endings each allows. */
+export const ATTACHMENT_TYPES: Record<string, readonly string[]> = {
+  "application/pdf": [".pdf"],
+  "image/png": [".png"],
+  "image/jpeg": [".jpg", ".jpeg"],
+  "text/csv": [".csv"],
+  // Plain text covers CCSDS orbit data messages in KVN and two-line element sets.
+  "text/plain": [".txt", ".oem", ".opm", ".omm", ".kvn", ".tle", ".3le"],
+};
+
+export const presignUploadSchema = z.strictObject({
+  filename: z
+    .string()
+    .trim()
+    .min(1, "the file needs a name")
+    .max(255, "file names are at most 255 characters")
+    .refine((s) => !/[\u0000-\u001f/\\]/.test(s), "the file name contains characters that are not allowed"),
+  contentType: z.string().trim().toLowerCase().max(100),
+  size: z.number("declare the file size in bytes").int().min(1, "the file is empty").max(Number.MAX_SAFE_INTEGER),
+});
+export type PresignUploadInput = z.infer<typeof presignUploadSchema>;
+
+export const attachmentSchema = z.object({
+  id: z.uuid(),
+  proposalId: z.uuid(),
+  filename: z.string(),
+  contentType: z.string(),
+  size: z.number().nullable(),
+  sha256: z.string().nullable(),
+  status: z.enum(["pending", "confirmed", "removed"]),
+  textKind: z.string().nullable().optional(),
+  createdAt: z.string(),
+  contentPath: z.string(),
+});
+
+export const presignUploadResponseSchema = z.object({
+  attachment: attachmentSchema,
+  uploadUrl: z.string(),
+  method: z.literal("PUT"),
+  headers: z.record(z.string(), z.string()),
+  expiresAt: z.string(),
+});
+
+export const versionSummarySchema = z.object({
+  id: z.uuid(),
+  number: z.number().int(),
+  title: z.string(),
+  submittedAt: z.string(),
+  attachments: z.array(z.object({ attachmentId: z.string(), filename: z.string(), contentType: z.string(), size: z.number(), sha256: z.string() })),
+  counts: z.object({ consistent: z.number().int(), inconsistent: z.number().int(), invalid: z.number().int() }),
+});
+
+export const checkResultSchema = z.object({
+  blockId: z.string(),
+  label: z.string(),
+  kind: z.string(),
+  status: z.enum(["consistent", "inconsistent", "invalid"]),
+  claim: z.record(z.string(), z.unknown()),
+  result: z.record(z.string(), z.unknown()),
+});
