@@ -5,7 +5,7 @@
  */
 import { resolveBody } from "./bodies";
 import { OrbitInputError } from "./errors";
-import { allowedGiven, defaultBodyOf, type Evaluation, Inputs, kindDef, KIND_NAMES } from "./kinds";
+import { allowedGiven, defaultBodyOf, type Evaluation, Inputs, kindDef, KIND_NAMES, usesBody } from "./kinds";
 import { DEFAULT_ABSOLUTE_TOLERANCE, DEFAULT_RELATIVE_TOLERANCE, quantityInfo } from "./quantities";
 import {
   type CheckRow,
@@ -119,7 +119,7 @@ export function evaluateClaim(claim: unknown, tolerance: Tolerance = DEFAULT_TOL
       return invalid(id, kind, [
         `unknown given value(s) for ${kind}: ${unknownGiven.slice(0, 10).join(", ")}; valid names: ${allowed.join(", ") || "(none: this kind uses only body)"}`,
       ]);
-    if (c.body === undefined) messages.push(`no body given: ${defaultBodyOf(kind)} constants are used`);
+    if (c.body === undefined && usesBody(kind)) messages.push(`no body given: ${defaultBodyOf(kind)} constants are used`);
     const body = resolveBody(c.body, defaultBodyOf(kind));
     const ev: Evaluation = def.evaluate(new Inputs(given, kind), body);
     messages.push(...ev.messages);

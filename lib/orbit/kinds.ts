@@ -341,6 +341,8 @@ interface KindDef {
   given: [string, GivenInfo["use"]][];
   computed: string[];
   defaultBody?: BodyName;
+  /** False for kinds whose result does not depend on the body's constants. */
+  usesBody?: false;
   evaluate(g: Inputs, body: Body): Evaluation;
 }
 
@@ -496,6 +498,7 @@ const KIND_DEFS: Record<string, KindDef> = {
   },
 
   kepler: {
+    usesBody: false,
     summary: "Kepler's equation: eccentric (or hyperbolic) and true anomaly from the mean anomaly",
     givenRule: "eccentricity and meanAnomaly (deg; hyperbolic mean anomaly when e > 1, Barker's parabolic mean anomaly in radians expressed as degrees when e = 1)",
     given: [
@@ -685,6 +688,7 @@ const KIND_DEFS: Record<string, KindDef> = {
   },
 
   rocket: {
+    usesBody: false,
     summary: "the rocket equation",
     givenRule: "specificImpulse (s) and exactly two of initialMass, finalMass, deltaV, propellantMass",
     given: [
@@ -708,6 +712,7 @@ const KIND_DEFS: Record<string, KindDef> = {
   },
 
   deltaVBudget: {
+    usesBody: false,
     summary: "Δv budget against the vehicle's rocket-equation capability",
     givenRule: "maneuvers [{ name, deltaV (km/s) }], specificImpulse (s), initialMass and finalMass (kg), optional requiredMargin (fraction)",
     given: [
@@ -953,6 +958,10 @@ export const KIND_NAMES = Object.keys(KIND_DEFS);
 
 export function kindDef(kind: string): KindDef | undefined {
   return Object.prototype.hasOwnProperty.call(KIND_DEFS, kind) ? KIND_DEFS[kind] : undefined;
+}
+
+export function usesBody(kind: string): boolean {
+  return kindDef(kind)?.usesBody !== false;
 }
 
 export function defaultBodyOf(kind: string): BodyName {
