@@ -1,7 +1,7 @@
 // Runs every vitest project against the test profile's services and a production build of
 // the app, then prints one closing line "N passed, N failed, N skipped" and stops what it
 // started. Extra arguments go to vitest (e.g. a file path).
-import { spawn } from "node:child_process";
+import { spawn, spawnSync } from "node:child_process";
 import fs from "node:fs";
 import path from "node:path";
 import { runMigrations } from "../db/migrate";
@@ -25,6 +25,12 @@ async function main(): Promise<number> {
   const started = Date.now();
   let code = 1;
   try {
+    log("type-checking the whole project (tsc --noEmit)...");
+    const typecheck = spawnSync(process.execPath, [require.resolve("typescript/bin/tsc"), "--noEmit", "-p", "tsconfig.json"], { encoding: "utf8" });
+    if (typecheck.status !== 0) {
+      process.stdout.write(typecheck.stdout + typecheck.stderr);
+      throw new Error("type errors (above): fix them first");
+    }
     const environment = await startServices("test");
     await runMigrations(environment.DATABASE_URL!);
     log("migrations applied");
