@@ -1,0 +1,64 @@
+/**
+ * POST /api/v1/orbit-checks — the public, sign-in-free door to the orbit-check engine
+ * (contract: docs/contracts/orbit-checks.md). It reads and stores nothing, so the only
+ * guards are a body-size cap and a per-client rate limit.
+ */
+import { NextResponse } from "next/server";
+import { createRateLimiter, clientKey } from "@/lib/http/rate-limit";
+import { checkOrbitClaims } from "@/lib/orbit";
+
+export const runtime = "nodejs";
+
+const MAX_BODY_BYTES = 256 * 1024;
+const PER_MINUTE = 60;
+const limiter = createRateLimiter({ capacity: PER_MINUTE, refillPerSecond: PER_MINUTE / 60 });
+
+const answer = (body: unknown, status: number, headers: Record<string, string> = {}) =>
+  NextResponse.json(body, { status, headers: { "cache-control": "no-store", ...headers } });
+
+const tooLarge = () => answer({ error: `The request body is larger than ${MAX_BODY_BYTES / 1024} KB; split the claims over several requests.` }, 413);
+
+/** Reads the body as text, stopping as soon as it exceeds the cap; null when it does. */
+async function readCapped(request: Request): Promise<string | null> {
+  if (!request.body) return "";
+  const reader = request.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let size = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    size += value.byteLength;
+    if (size > MAX_BODY_BYTES) {
+      await reader.cancel().catch(() => undefined);
+      return null;
+    }
+    chunks.push(value);
+  }
+  return Buffer.concat(chunks).toString("utf8");
+}
+
+export async function POST(request: Request): Promise<Response> {
+  try {
+    const limit = limiter.take(clientKey(request.headers));
+    if (!limit.ok) {
+      return answer({ error: `Too many orbit-check requests: at most ${PER_MINUTE} per minute. Retry after ${limit.retryAfterSeconds} s.` }, 429, {
+        "retry-after": String(limit.retryAfterSeconds),
+      });
+    }
+    if (Number(request.headers.get("content-length") ?? "0") > MAX_BODY_BYTES) return tooLarge();
+    const text = await readCapped(request);
+    if (text === null) return tooLarge();
+    let body: unknown;
+    try {
+      body = JSON.parse(text);
+    } catch (error) {
+      return answer({ error: "The request body is not valid JSON.", details: { parser: (error as Error).message } }, 400);
+    }
+    const response = checkOrbitClaims(body);
+    if (response.error !== undefined) return answer({ error: response.error, details: response.details, results: [] }, 400);
+    return answer(response, 200, { "x-ratelimit-remaining": String(limit.remaining) });
+  } catch (error) {
+    console.error("[orbit-checks] unexpected error", error);
+    return answer({ error: "The orbit check failed on our side. Try again; if it persists, report the request." }, 500);
+  }
+}
