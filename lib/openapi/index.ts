@@ -2,9 +2,10 @@ import packageJson from "@/package.json";
 import { buildOpenApiDocument, type ApiOperation } from "./registry";
 import { systemOperations } from "./operations/system";
 import { accountOperations } from "./operations/accounts";
+import { dossierOperations } from "./operations/dossiers";
 
 /** Every /api/v1 operation. Each feature area adds its list here. */
-export const apiOperations: ApiOperation[] = [...systemOperations, ...accountOperations];
+export const apiOperations: ApiOperation[] = [...systemOperations, ...accountOperations, ...dossierOperations];
 
 export function openApiDocument() {
   return buildOpenApiDocument(apiOperations, packageJson.version);

@@ -170,3 +170,5 @@ export const checkResultSchema = z.object({
   claim: z.record(z.string(), z.unknown()),
   result: z.record(z.string(), z.unknown()),
 });
+
+export const versionNumberSchema = z.coerce.number("the version number must be a whole number").int("the version number must be a whole number").min(1).max(100000);

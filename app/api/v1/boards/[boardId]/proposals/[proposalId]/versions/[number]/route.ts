@@ -1,0 +1,11 @@
+import { requireUser } from "@/lib/auth/session";
+import { getVersion } from "@/lib/dal/proposals";
+import { json, parseWith, route } from "@/lib/http/api";
+import { versionNumberSchema } from "@/lib/validation/dossier";
+
+export const GET = route(async (_request, { boardId, proposalId, number }) => {
+  const user = await requireUser();
+  const n = parseWith(versionNumberSchema, number, 400);
+  const { documentKey: _documentKey, htmlKey: _htmlKey, ...version } = await getVersion(user, boardId!, proposalId!, n);
+  return json({ version });
+});
