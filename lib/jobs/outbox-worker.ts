@@ -1,11 +1,20 @@
 import "server-only";
 import { processOutbox } from "@/lib/mail/outbox";
+import { enqueueReviewReminders } from "./review-reminders";
 
-const globalForWorker = globalThis as unknown as { visvivaOutboxWorker?: NodeJS.Timeout };
+const globalForWorker = globalThis as unknown as {
+  visvivaOutboxWorker?: NodeJS.Timeout;
+  visvivaReminderJob?: NodeJS.Timeout;
+};
+
+/** How often the reminder job looks for reviews due in 3 or 1 days (idempotent per day). */
+const REMINDER_INTERVAL_MS = 15 * 60_000;
 
 /**
- * Polls the outbox in this app instance. Several instances may run it at once: messages
- * are claimed with SKIP LOCKED. If the mail transport is down, messages wait and retry.
+ * The background work of one app instance, started by instrumentation.ts: the outbox is
+ * polled every second (several instances may do so: rows are claimed with SKIP LOCKED) and
+ * the review-reminder job runs at start and every 15 minutes. If the mail transport or the
+ * database is down, a pass fails, is logged, and the next one tries again.
  */
 export function startOutboxWorker(intervalMs = Number(process.env.OUTBOX_POLL_MS ?? 1000)): void {
   if (globalForWorker.visvivaOutboxWorker) return;
@@ -20,4 +29,17 @@ export function startOutboxWorker(intervalMs = Number(process.env.OUTBOX_POLL_MS
       });
   }, intervalMs);
   globalForWorker.visvivaOutboxWorker.unref?.();
+
+  const reminders = () =>
+    enqueueReviewReminders().catch((error) => console.error("[reminders] pass failed:", error instanceof Error ? error.message : error));
+  void reminders();
+  globalForWorker.visvivaReminderJob = setInterval(reminders, REMINDER_INTERVAL_MS);
+  globalForWorker.visvivaReminderJob.unref?.();
+}
+
+export function stopOutboxWorker(): void {
+  if (globalForWorker.visvivaOutboxWorker) clearInterval(globalForWorker.visvivaOutboxWorker);
+  if (globalForWorker.visvivaReminderJob) clearInterval(globalForWorker.visvivaReminderJob);
+  globalForWorker.visvivaOutboxWorker = undefined;
+  globalForWorker.visvivaReminderJob = undefined;
 }

@@ -5,6 +5,28 @@ import { outboxMessages } from "@/db/schema";
 import { readObject } from "@/storage/object-store";
 import { mailFrom, mailTransport } from "./transport";
 
+/*
+ * The outbox is VisViva's e-mail job queue, kept in PostgreSQL on purpose (pg-boss was
+ * considered): a message is one row written with a plain INSERT inside the transaction of
+ * the write it belongs to (a decision, an invitation), the unique `dedupe_key` makes a
+ * second enqueue of the same message a no-op, and the same row is the record admins see
+ * (status, attempts, last error, "send again"). Workers claim rows with
+ * FOR UPDATE SKIP LOCKED and a lease, so any number of app instances may run one.
+ *
+ * Delivery guarantees (tests/integration/outbox*.test.ts show each):
+ * - nothing is lost: a row leaves `queued`/`sending` only for `sent` (after the SMTP server
+ *   accepted it) or `failed` (permanent refusal, or MAX_ATTEMPTS transient failures), and a
+ *   failed row can be sent again by an admin;
+ * - the transport being down only delays: the row goes back to `queued` with a backoff and
+ *   the error is recorded;
+ * - a claimed row is only retried after its lease ran out (the worker died or lost the
+ *   database), and the result of a send is written with retries so a database restart
+ *   during a send does not lead to a second send;
+ * - every send of one row carries the same SMTP Message-ID, so in the one window no
+ *   queue can close (the worker killed between the server's "250 OK" and the database
+ *   write) a receiving server can still drop the copy.
+ */
+
 export interface OutgoingMail {
   kind: string;
   /** Same key, same message: a second enqueue with this key is ignored (never sent twice). */
@@ -43,45 +65,165 @@ export async function enqueueMail(mail: OutgoingMail, tx: Database | Transaction
 
 export const MAX_ATTEMPTS = 12;
 
+/** How long a claimed message belongs to its worker before another may take it over. */
+export const DEFAULT_LEASE_SECONDS = 5 * 60;
+
 /** Seconds before attempt n+1: 5 s, 10 s, 20 s … capped at 15 minutes. */
 export function backoffSeconds(attempts: number): number {
   return Math.min(15 * 60, 5 * 2 ** Math.max(0, attempts - 1));
 }
 
+/** The part of a nodemailer transport the worker uses (tests pass a wrapped one). */
+export interface MailSender {
+  sendMail(message: {
+    from: string;
+    to: string[];
+    subject: string;
+    html: string;
+    text: string;
+    attachments: { filename: string; contentType: string; content: Buffer }[];
+    messageId: string;
+    headers: Record<string, string>;
+  }): Promise<{ messageId?: string }>;
+}
+
+export interface ProcessOptions {
+  /** Most messages claimed in one pass. */
+  limit?: number;
+  leaseSeconds?: number;
+  transport?: MailSender;
+  /** Only these rows (a test drives its own messages while other workers run). */
+  ids?: string[];
+}
+
+export interface ProcessReport {
+  sent: number;
+  /** Went back to the queue for a later attempt. */
+  retried: number;
+  /** Gave up: permanent refusal or too many attempts. */
+  failed: number;
+}
+
+/** SMTP 5xx answers (mailbox unknown, message refused) will not change on a retry. */
+export function isPermanentFailure(error: unknown): boolean {
+  const e = error as { responseCode?: number; code?: string; permanent?: boolean } | null;
+  if (!e || typeof e !== "object") return false;
+  if (e.permanent === true) return true;
+  return typeof e.responseCode === "number" && e.responseCode >= 500 && e.responseCode < 600;
+}
+
+class PermanentMailError extends Error {
+  readonly permanent = true;
+}
+
+function errorText(error: unknown): string {
+  return (error instanceof Error ? error.message : String(error)).slice(0, 1000);
+}
+
+function sleep(ms: number): Promise<void> {
+  return new Promise((resolve) => setTimeout(resolve, ms));
+}
+
 /**
- * Sends what is due. Each message is claimed by moving it to `sending` under
- * FOR UPDATE SKIP LOCKED, so several workers never send the same one. A message whose
- * worker died mid-send (still `sending` after 5 minutes) is retried; the SMTP Message-ID
- * is fixed per message so a receiving server can drop a duplicate of that rare case.
+ * Writes a send's outcome, retrying while the database is unreachable: the message has
+ * left (or definitely not left) by now, and forgetting that would send it again.
  */
-export async function processOutbox(limit = 20): Promise<{ sent: number; failed: number }> {
-  const claimed = await db().transaction(async (tx) => {
+async function recordOutcome(write: () => Promise<unknown>): Promise<void> {
+  const delays = [250, 500, 1000, 2000, 4000, 8000, 15000, 30000];
+  for (let attempt = 0; ; attempt++) {
+    try {
+      await write();
+      return;
+    } catch (error) {
+      const delay = delays[attempt];
+      if (delay === undefined) throw error;
+      console.error(`[outbox] could not record a send outcome (${errorText(error)}); retrying in ${delay} ms`);
+      await sleep(delay);
+    }
+  }
+}
+
+async function withTimeout<T>(work: Promise<T>, ms: number, what: string): Promise<T> {
+  let timer: NodeJS.Timeout | undefined;
+  try {
+    return await Promise.race([
+      work,
+      new Promise<never>((_, reject) => {
+        timer = setTimeout(() => reject(new Error(`${what} took longer than ${Math.round(ms / 1000)} s`)), ms);
+      }),
+    ]);
+  } finally {
+    if (timer) clearTimeout(timer);
+  }
+}
+
+/** Claims due messages: queued ones whose time came, and claimed ones whose lease ran out. */
+async function claimDue(limit: number, leaseSeconds: number, ids?: string[]) {
+  return db().transaction(async (tx) => {
     const due = await tx
-      .select({ id: outboxMessages.id })
+      .select({ id: outboxMessages.id, status: outboxMessages.status })
       .from(outboxMessages)
       .where(
-        sql`(${outboxMessages.status} = 'queued' and ${outboxMessages.nextAttemptAt} <= now())
-          or (${outboxMessages.status} = 'sending' and ${outboxMessages.nextAttemptAt} <= now() - interval '5 minutes')`,
+        and(
+          sql`((${outboxMessages.status} = 'queued' and ${outboxMessages.nextAttemptAt} <= now())
+            or (${outboxMessages.status} = 'sending' and ${outboxMessages.nextAttemptAt} <= now() - make_interval(secs => ${leaseSeconds})))`,
+          ids ? inArray(outboxMessages.id, ids.length > 0 ? ids : ["00000000-0000-0000-0000-000000000000"]) : undefined,
+        ),
       )
       .orderBy(asc(outboxMessages.nextAttemptAt))
       .limit(limit)
       .for("update", { skipLocked: true });
     if (due.length === 0) return [];
+    const interrupted = due.filter((d) => d.status === "sending").map((d) => d.id);
+    if (interrupted.length > 0) {
+      // Say so on the row: an admin reading it knows why attempts went up without an error.
+      await tx
+        .update(outboxMessages)
+        .set({ lastError: "The previous attempt was interrupted (its worker stopped while sending); sent again with the same Message-ID." })
+        .where(inArray(outboxMessages.id, interrupted));
+    }
     return tx
       .update(outboxMessages)
-      .set({ status: "sending", attempts: sql`${outboxMessages.attempts} + 1`, nextAttemptAt: new Date() })
+      .set({ status: "sending", attempts: sql`${outboxMessages.attempts} + 1`, nextAttemptAt: sql`now()` })
       .where(inArray(outboxMessages.id, due.map((d) => d.id)))
       .returning();
   });
+}
 
-  let sent = 0;
-  let failed = 0;
+/**
+ * Sends what is due, once. Each message is claimed by moving it to `sending` (attempts + 1)
+ * under FOR UPDATE SKIP LOCKED, so concurrent workers never take the same row; the outcome
+ * is written only if the row is still this worker's claim (same attempt number).
+ */
+export async function processOutbox(options: number | ProcessOptions = {}): Promise<ProcessReport> {
+  const opts: ProcessOptions = typeof options === "number" ? { limit: options } : options;
+  const leaseSeconds = opts.leaseSeconds ?? DEFAULT_LEASE_SECONDS;
+  const transport: MailSender = opts.transport ?? (mailTransport() as unknown as MailSender);
+  const claimed = await claimDue(opts.limit ?? 20, leaseSeconds, opts.ids);
+
+  const report: ProcessReport = { sent: 0, retried: 0, failed: 0 };
   for (const message of claimed) {
+    const ours = and(eq(outboxMessages.id, message.id), eq(outboxMessages.status, "sending"), eq(outboxMessages.attempts, message.attempts));
+    let info: { messageId?: string };
     try {
-      const attachments = await Promise.all(
-        message.attachments.map(async (a) => ({ filename: a.filename, contentType: a.contentType, content: await readObject(a.objectKey) })),
+      // Reading attachments happens before any byte goes to the mail server, so a timeout
+      // here can never cause a second copy; the SMTP send has its own socket timeouts.
+      const attachments = await withTimeout(
+        Promise.all(
+          message.attachments.map(async (a) => {
+            try {
+              return { filename: a.filename, contentType: a.contentType, content: await readObject(a.objectKey) };
+            } catch (error) {
+              const code = (error as { code?: string }).code;
+              if (code === "NoSuchKey" || code === "NotFound") throw new PermanentMailError(`The attachment ${a.filename} is missing from the object store.`);
+              throw error;
+            }
+          }),
+        ),
+        Math.max(1000, (leaseSeconds * 1000) / 4),
+        "Reading the attachments",
       );
-      const info = await mailTransport().sendMail({
+      info = await transport.sendMail({
         from: mailFrom(),
         to: message.toAddresses,
         subject: message.subject,
@@ -91,32 +233,36 @@ export async function processOutbox(limit = 20): Promise<{ sent: number; failed:
         messageId: `<${message.id}@visviva.local>`,
         headers: { "X-VisViva-Outbox-Id": message.id, "X-VisViva-Kind": message.kind },
       });
-      await db()
+    } catch (error) {
+      const permanent = isPermanentFailure(error);
+      const exhausted = permanent || message.attempts >= MAX_ATTEMPTS;
+      if (exhausted) report.failed += 1;
+      else report.retried += 1;
+      const nextAttemptAt = new Date(Date.now() + backoffSeconds(message.attempts) * 1000);
+      await recordOutcome(() =>
+        db()
+          .update(outboxMessages)
+          .set({ status: exhausted ? "failed" : "queued", lastError: errorText(error), nextAttemptAt })
+          .where(ours),
+      );
+      continue;
+    }
+    await recordOutcome(() =>
+      db()
         .update(outboxMessages)
         .set({ status: "sent", sentAt: new Date(), lastError: null, providerMessageId: info.messageId ?? null })
-        .where(and(eq(outboxMessages.id, message.id), eq(outboxMessages.status, "sending")));
-      sent += 1;
-    } catch (error) {
-      failed += 1;
-      const exhausted = message.attempts >= MAX_ATTEMPTS;
-      await db()
-        .update(outboxMessages)
-        .set({
-          status: exhausted ? "failed" : "queued",
-          lastError: (error instanceof Error ? error.message : String(error)).slice(0, 1000),
-          nextAttemptAt: new Date(Date.now() + backoffSeconds(message.attempts) * 1000),
-        })
-        .where(eq(outboxMessages.id, message.id));
-    }
+        .where(ours),
+    );
+    report.sent += 1;
   }
-  return { sent, failed };
+  return report;
 }
 
-/** Puts a failed message back in the queue (admins' "send again"). */
+/** Puts a failed message back in the queue (admins' "send again"); false unless it had failed. */
 export async function requeueMessage(id: string): Promise<boolean> {
   const rows = await db()
     .update(outboxMessages)
-    .set({ status: "queued", nextAttemptAt: new Date(), attempts: 0 })
+    .set({ status: "queued", nextAttemptAt: sql`now()`, attempts: 0 })
     .where(and(eq(outboxMessages.id, id), eq(outboxMessages.status, "failed")))
     .returning({ id: outboxMessages.id });
   return rows.length > 0;
@@ -129,4 +275,3 @@ export async function outboxMessageStatus(id: string) {
     .where(eq(outboxMessages.id, id));
   return row ?? null;
 }
-

@@ -7,6 +7,11 @@ export interface MailContent {
   preview: string;
   heading: string;
   paragraphs: string[];
+  /**
+   * Pre-rendered, already escaped HTML placed after the paragraphs (a decision letter body),
+   * with its plain-text twin. Only ever built by our own renderers, never from raw input.
+   */
+  body?: { html: string; text: string };
   action?: { label: string; url: string };
   /** Small print under the body (why the person received this). */
   footnote?: string;
@@ -31,6 +36,11 @@ export function MailLayout({ content }: { content: MailContent }) {
               {p}
             </Text>
           ))}
+          {content.body ? (
+            <Section style={{ fontSize: "16px", lineHeight: "24px", borderLeft: `3px solid ${colours.brand}`, paddingLeft: "16px", margin: "16px 0" }}>
+              <div dangerouslySetInnerHTML={{ __html: content.body.html }} />
+            </Section>
+          ) : null}
           {content.action ? (
             <Section style={{ margin: "24px 0" }}>
               <Button href={content.action.url} style={{ backgroundColor: colours.brand, color: "#ffffff", padding: "12px 20px", borderRadius: "6px", fontWeight: 600 }}>
@@ -53,6 +63,7 @@ export async function renderMail(content: MailContent): Promise<{ subject: strin
     content.heading,
     "",
     ...content.paragraphs.flatMap((p) => [p, ""]),
+    ...(content.body ? [content.body.text, ""] : []),
     ...(content.action ? [`${content.action.label}: ${content.action.url}`, ""] : []),
     "--",
     content.footnote ?? "You receive this because you take part in a review board on VisViva.",
