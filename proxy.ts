@@ -7,6 +7,8 @@ const protectedPrefixes = ["/boards", "/account", "/admin", "/review", "/proposa
 export function proxy(request: NextRequest) {
   const { pathname, search } = request.nextUrl;
   if (!protectedPrefixes.some((p) => pathname === p || pathname.startsWith(`${p}/`))) return NextResponse.next();
+  // Open registration for proposers is for people without an account yet.
+  if (/^\/boards\/[^/]+\/register\/?$/.test(pathname)) return NextResponse.next();
   const hasSession = request.cookies.has("next-auth.session-token") || request.cookies.has("__Secure-next-auth.session-token");
   if (hasSession) return NextResponse.next();
   const url = request.nextUrl.clone();

@@ -147,13 +147,20 @@ export interface BoardCallSummary {
   title: string;
   opensAt: Date;
   closesAt: Date;
+  state: "upcoming" | "open" | "closed";
 }
 
 /** The board's calls, newest first, for the board home page. */
 export async function listBoardCalls(user: SessionUser, boardId: string): Promise<BoardCallSummary[]> {
   await getBoard(user, boardId);
   return db()
-    .select({ id: calls.id, title: calls.title, opensAt: calls.opensAt, closesAt: calls.closesAt })
+    .select({
+      id: calls.id,
+      title: calls.title,
+      opensAt: calls.opensAt,
+      closesAt: calls.closesAt,
+      state: sql<BoardCallSummary["state"]>`case when now() < ${calls.opensAt} then 'upcoming' when now() <= ${calls.closesAt} then 'open' else 'closed' end`,
+    })
     .from(calls)
     .where(eq(calls.boardId, boardId))
     .orderBy(desc(calls.closesAt));

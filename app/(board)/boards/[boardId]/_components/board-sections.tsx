@@ -1,0 +1,62 @@
+// The board home is a stack of sections; each area (calls, dossiers, reviews, decisions)
+// adds its own section component here and to the list in ../page.tsx.
+import Link from "next/link";
+import { Panel } from "@/components/ui/panel";
+import type { BoardCallSummary, BoardView } from "@/lib/dal/boards";
+
+const dateFormat = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeZone: "UTC" });
+
+export function BoardCallsSection({ board, calls }: { board: BoardView; calls: BoardCallSummary[] }) {
+  return (
+    <Panel id="calls" title="Calls" description="Each call collects dossiers until it closes.">
+      {calls.length === 0 ? (
+        <p className="text-ink-600">No calls yet.</p>
+      ) : (
+        <ul className="divide-y divide-ink-100">
+          {calls.map((call) => {
+            const state = { upcoming: "Opens soon", open: "Open", closed: "Closed" }[call.state];
+            return (
+              <li key={call.id} className="flex flex-wrap items-center justify-between gap-2 py-2">
+                <Link href={`/boards/${board.id}/calls/${call.id}`} className="font-semibold text-trajectory-700 hover:underline">
+                  {call.title}
+                </Link>
+                <span className="text-sm text-ink-600">
+                  <span className="mr-2 rounded-chip bg-ink-100 px-2 py-0.5 text-ink-700">{state}</span>
+                  {dateFormat.format(call.opensAt)} – {dateFormat.format(call.closesAt)} (UTC)
+                </span>
+              </li>
+            );
+          })}
+        </ul>
+      )}
+    </Panel>
+  );
+}
+
+export function BoardStewardshipSection({ board }: { board: BoardView }) {
+  return (
+    <Panel id="stewardship" title="Running the board" description="For chairs and administrators.">
+      <ul className="flex flex-wrap gap-3">
+        <li>
+          <Link href={`/boards/${board.id}/members`} className="inline-block rounded-chip border border-ink-300 px-3 py-1.5 font-semibold hover:border-trajectory-500">
+            Members and invitations
+          </Link>
+        </li>
+        <li>
+          <Link href={`/boards/${board.id}/settings`} className="inline-block rounded-chip border border-ink-300 px-3 py-1.5 font-semibold hover:border-trajectory-500">
+            Board settings
+          </Link>
+        </li>
+      </ul>
+      {board.openRegistration ? (
+        <p className="mt-3 text-sm text-ink-600">
+          Open registration is on: proposers can join at{" "}
+          <Link href={`/boards/${board.slug}/register`} className="font-mono text-trajectory-700 underline">
+            /boards/{board.slug}/register
+          </Link>
+          .
+        </p>
+      ) : null}
+    </Panel>
+  );
+}

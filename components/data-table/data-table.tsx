@@ -1,0 +1,189 @@
+"use client";
+// One table for every list in VisViva (members, audit log, queues...). Paging, sorting and
+// search happen on the server: the table writes them into the URL's search parameters
+// (page, pageSize, sort, dir, q) and the page's server component reads them back.
+import { useState } from "react";
+import { usePathname, useRouter, useSearchParams } from "next/navigation";
+import { flexRender, getCoreRowModel, useReactTable, type ColumnDef, type SortingState } from "@tanstack/react-table";
+
+export interface DataTableProps<TRow> {
+  /** Read by screen readers and shown above the table. */
+  caption: string;
+  // TanStack's ColumnDef needs `any` for the value type when columns of different types share a list.
+  // eslint-disable-next-line @typescript-eslint/no-explicit-any
+  columns: ColumnDef<TRow, any>[];
+  rows: TRow[];
+  total: number;
+  page: number;
+  pageSize: number;
+  /** The column id the server sorted by, and the direction. Column ids are the sort keys. */
+  sort?: string;
+  dir?: "asc" | "desc";
+  /** Search box label; leave out for a table without search. */
+  searchLabel?: string;
+  search?: string;
+  getRowId: (row: TRow) => string;
+  emptyText?: string;
+}
+
+export function DataTable<TRow>({ caption, columns, rows, total, page, pageSize, sort, dir = "asc", searchLabel, search, getRowId, emptyText = "Nothing to show." }: DataTableProps<TRow>) {
+  const router = useRouter();
+  const pathname = usePathname();
+  const searchParams = useSearchParams();
+  const [query, setQuery] = useState(search ?? "");
+  const pageCount = Math.max(1, Math.ceil(total / pageSize));
+
+  const navigate = (changes: Record<string, string | undefined>) => {
+    const next = new URLSearchParams(searchParams.toString());
+    for (const [key, value] of Object.entries(changes)) {
+      if (value === undefined || value === "") next.delete(key);
+      else next.set(key, value);
+    }
+    const qs = next.toString();
+    router.push(qs ? `${pathname}?${qs}` : pathname, { scroll: false });
+  };
+
+  const sorting: SortingState = sort ? [{ id: sort, desc: dir === "desc" }] : [];
+  // TanStack Table v8 returns fresh functions each render, so the React Compiler skips this
+  // component; that is expected and harmless here (the table is small and server-paged).
+  // eslint-disable-next-line react-hooks/incompatible-library
+  const table = useReactTable({
+    data: rows,
+    columns,
+    getRowId,
+    getCoreRowModel: getCoreRowModel(),
+    manualPagination: true,
+    manualSorting: true,
+    manualFiltering: true,
+    pageCount,
+    state: { sorting, pagination: { pageIndex: page - 1, pageSize } },
+    onSortingChange: (updater) => {
+      const nextSorting = typeof updater === "function" ? updater(sorting) : updater;
+      const first = nextSorting[0];
+      navigate({ sort: first?.id, dir: first ? (first.desc ? "desc" : "asc") : undefined, page: undefined });
+    },
+  });
+
+  const from = total === 0 ? 0 : (page - 1) * pageSize + 1;
+  const to = Math.min(total, page * pageSize);
+
+  return (
+    <div className="space-y-3">
+      {searchLabel ? (
+        <form
+          role="search"
+          className="flex flex-wrap items-end gap-2"
+          onSubmit={(event) => {
+            event.preventDefault();
+            navigate({ q: query.trim(), page: undefined });
+          }}
+        >
+          <label className="text-sm font-semibold text-ink-800">
+            {searchLabel}
+            <input
+              type="search"
+              value={query}
+              onChange={(e) => setQuery(e.target.value)}
+              maxLength={200}
+              className="mt-1 block w-72 rounded-chip border border-ink-300 bg-white px-3 py-1.5 font-normal"
+            />
+          </label>
+          <button type="submit" className="rounded-chip border border-ink-300 bg-white px-3 py-1.5 text-sm font-semibold hover:border-trajectory-500">
+            Search
+          </button>
+          {search ? (
+            <button
+              type="button"
+              className="px-2 py-1.5 text-sm text-trajectory-700 underline"
+              onClick={() => {
+                setQuery("");
+                navigate({ q: undefined, page: undefined });
+              }}
+            >
+              Clear
+            </button>
+          ) : null}
+        </form>
+      ) : null}
+      <div className="overflow-x-auto rounded-panel border border-ink-200 bg-white">
+        <table className="w-full border-collapse text-left text-sm">
+          <caption className="sr-only">{caption}</caption>
+          <thead className="bg-ink-50 text-ink-700">
+            {table.getHeaderGroups().map((group) => (
+              <tr key={group.id}>
+                {group.headers.map((header) => {
+                  const sorted = header.column.getIsSorted();
+                  const label = header.isPlaceholder ? null : flexRender(header.column.columnDef.header, header.getContext());
+                  return (
+                    <th
+                      key={header.id}
+                      scope="col"
+                      aria-sort={sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : undefined}
+                      className="border-b border-ink-200 px-3 py-2 font-semibold"
+                    >
+                      {header.column.getCanSort() ? (
+                        <button type="button" onClick={header.column.getToggleSortingHandler()} className="inline-flex items-center gap-1 hover:text-trajectory-700">
+                          {label}
+                          <span aria-hidden className="font-mono text-xs text-ink-400">
+                            {sorted === "asc" ? "▲" : sorted === "desc" ? "▼" : "↕"}
+                          </span>
+                        </button>
+                      ) : (
+                        label
+                      )}
+                    </th>
+                  );
+                })}
+              </tr>
+            ))}
+          </thead>
+          <tbody>
+            {table.getRowModel().rows.length === 0 ? (
+              <tr>
+                <td colSpan={columns.length} className="px-3 py-6 text-center text-ink-500">
+                  {emptyText}
+                </td>
+              </tr>
+            ) : (
+              table.getRowModel().rows.map((row) => (
+                <tr key={row.id} className="border-b border-ink-100 last:border-b-0 hover:bg-ink-50/60">
+                  {row.getVisibleCells().map((cell) => (
+                    <td key={cell.id} className="px-3 py-2 align-top">
+                      {flexRender(cell.column.columnDef.cell, cell.getContext())}
+                    </td>
+                  ))}
+                </tr>
+              ))
+            )}
+          </tbody>
+        </table>
+      </div>
+      <nav aria-label={`${caption} pages`} className="flex flex-wrap items-center justify-between gap-2 text-sm text-ink-600">
+        <p>
+          {from}–{to} of {total}
+        </p>
+        <div className="flex items-center gap-2">
+          <button
+            type="button"
+            disabled={page <= 1}
+            onClick={() => navigate({ page: String(page - 1) })}
+            className="rounded-chip border border-ink-300 bg-white px-3 py-1 disabled:opacity-40"
+          >
+            Previous
+          </button>
+          <span>
+            Page {page} of {pageCount}
+          </span>
+          <button
+            type="button"
+            disabled={page >= pageCount}
+            onClick={() => navigate({ page: String(page + 1) })}
+            className="rounded-chip border border-ink-300 bg-white px-3 py-1 disabled:opacity-40"
+          >
+            Next
+          </button>
+        </div>
+      </nav>
+    </div>
+  );
+}
