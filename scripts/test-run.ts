@@ -40,7 +40,7 @@ async function main(): Promise<number> {
     code = await new Promise<number>((resolve) => {
       const child = spawn(
         process.execPath,
-        [require.resolve("vitest/vitest.mjs"), "run", "--reporter=default", "--reporter=json", `--outputFile.json=${reportFile}`, ...process.argv.slice(2)],
+        [path.join(__dirname, "..", "node_modules", "vitest", "vitest.mjs"), "run", "--reporter=default", "--reporter=json", `--outputFile.json=${reportFile}`, ...process.argv.slice(2)],
         { stdio: "inherit", env: { ...process.env, ...appEnvironment(config), VISVIVA_TEST_BASE_URL: url } },
       );
       child.on("exit", (status, signal) => resolve(status ?? (signal ? 1 : 0)));
