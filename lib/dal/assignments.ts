@@ -4,10 +4,8 @@ import { db, type Database, type Transaction } from "@/db/client";
 import { assignments, boardMembers, boards, calls, proposalCoauthors, proposals, proposalVersions, reviews, rubricTemplates, users } from "@/db/schema";
 import { authorize, type BoardRole, type ResourceFacts } from "@/lib/auth/policy";
 import type { SessionUser } from "@/lib/auth/session";
-import { env } from "@/lib/env";
 import { conflict, notFound, unprocessable } from "@/lib/errors";
-import { enqueueMail } from "@/lib/mail/outbox";
-import { renderMail } from "@/lib/mail/templates/layout";
+import { enqueueReviewerAssignment } from "@/lib/mail/notices";
 import { hasHardConflict, type ConflictFinding } from "@/lib/review/conflicts";
 import type { AssignInput } from "@/lib/validation/review";
 import { recordAudit } from "./audit";
@@ -186,7 +184,7 @@ export interface AssignResult {
 /**
  * Assigns each reviewer to each proposal's latest version in one transaction: any conflict
  * (or an unconfirmed likely conflict) refuses the whole request and nothing is written.
- * Each new assignment e-mails the reviewer through the outbox and moves the proposal to
+ * Each new assignment e-mails the reviewer through the outbox (lib/mail/notices) and moves the proposal to
  * in_review.
  */
 export async function assignReviewers(user: SessionUser, boardId: string, input: AssignInput): Promise<AssignResult> {
@@ -196,9 +194,8 @@ export async function assignReviewers(user: SessionUser, boardId: string, input:
   const reviewerIds = [...new Set(input.reviewerIds)];
   return db().transaction(async (tx) => {
     const found = await tx
-      .select({ id: proposals.id, title: proposals.title, status: proposals.status, callId: proposals.callId, versionId: proposalVersions.id, callTitle: calls.title })
+      .select({ id: proposals.id, title: proposals.title, status: proposals.status, callId: proposals.callId, versionId: proposalVersions.id, versionNumber: proposalVersions.number })
       .from(proposals)
-      .innerJoin(calls, eq(calls.id, proposals.callId))
       .leftJoin(proposalVersions, and(eq(proposalVersions.proposalId, proposals.id), eq(proposalVersions.number, proposals.latestVersion)))
       .where(and(eq(proposals.boardId, boardId), inArray(proposals.id, proposalIds)))
       .for("update", { of: proposals });
@@ -235,7 +232,7 @@ export async function assignReviewers(user: SessionUser, boardId: string, input:
       throw conflict(`Confirm the likely conflicts to assign anyway. ${blocked.map((b) => b.message).join(" ")}`, { blocked, needsConfirmation: true });
 
     const result: AssignResult = { created: [], existing: [] };
-    const appUrl = env().APP_URL.replace(/\/$/, "");
+    const [boardName] = await tx.select({ name: boards.name }).from(boards).where(eq(boards.id, boardId));
     for (const p of found)
       for (const r of people) {
         const [row] = await tx
@@ -248,18 +245,17 @@ export async function assignReviewers(user: SessionUser, boardId: string, input:
           continue;
         }
         result.created.push({ assignmentId: row.id, proposalId: p.id, reviewerId: r.id });
-        const mail = await renderMail({
-          subject: `Review requested: ${p.title}`,
-          preview: `Due ${input.dueAt.toUTCString()}`,
-          heading: "A proposal is waiting for your review",
-          paragraphs: [
-            `Hello ${r.name}, you are asked to review "${p.title}" in the call "${p.callTitle}".`,
-            `Please submit your review by ${input.dueAt.toUTCString()}. If you find you have a conflict of interest, declare it on the board instead of reviewing.`,
-          ],
-          action: { label: "Open the review", url: `${appUrl}/boards/${boardId}/proposals/${p.id}/review` },
-          footnote: "You receive this because the chair of a VisViva review board assigned you as a reviewer.",
+        await enqueueReviewerAssignment(tx, {
+          assignmentId: row.id,
+          boardId,
+          proposalId: p.id,
+          boardName: boardName?.name ?? "",
+          proposalTitle: p.title,
+          versionNumber: p.versionNumber ?? 1,
+          dueAt: input.dueAt,
+          to: r.email,
+          resubmission: (p.versionNumber ?? 1) > 1,
         });
-        await enqueueMail({ kind: "review-assignment", dedupeKey: `assignment:${row.id}`, to: [r.email], boardId, ...mail }, tx);
       }
     await tx
       .update(proposals)

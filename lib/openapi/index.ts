@@ -3,9 +3,10 @@ import { buildOpenApiDocument, type ApiOperation } from "./registry";
 import { systemOperations } from "./operations/system";
 import { accountOperations } from "./operations/accounts";
 import { dossierOperations } from "./operations/dossiers";
+import { reviewOperations } from "./operations/review";
 
 /** Every /api/v1 operation. Each feature area adds its list here. */
-export const apiOperations: ApiOperation[] = [...systemOperations, ...accountOperations, ...dossierOperations];
+export const apiOperations: ApiOperation[] = [...systemOperations, ...accountOperations, ...dossierOperations, ...reviewOperations];
 
 export function openApiDocument() {
   return buildOpenApiDocument(apiOperations, packageJson.version);

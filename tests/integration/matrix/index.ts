@@ -1,6 +1,7 @@
 // Each feature area keeps its matrix entries in its own file here; add one line per area.
 import type { ActionCase, RouteCase } from "./types";
+import { reviewRouteCases } from "./review";
 import { dossierRouteCases } from "./dossiers";
 
-export const routeCases: RouteCase[] = [...dossierRouteCases];
+export const routeCases: RouteCase[] = [...dossierRouteCases, ...reviewRouteCases];
 export const actionCases: ActionCase[] = [];
