@@ -37,7 +37,7 @@ function lcg(seed: number) {
   };
 }
 
-describe("period from mean motion, against satellite.js", () => {
+describe("period from mean motion, against satellite.js", { timeout: 60_000 }, () => {
   const rand = lcg(7);
   const sets = Array.from({ length: 2000 }, () => {
     const revPerDay = 1.0 + rand() * 15; // from beyond GEO to very low LEO

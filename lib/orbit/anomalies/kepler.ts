@@ -23,20 +23,36 @@ export function solveKeplerElliptic(M: number, e: number): number {
   }
   const sign = m < 0 ? -1 : 1;
   m *= sign;
-  // Danby (1987) starter for M in [0, π]; e ≥ 0.8 uses the same with the sin term to stay inside [0, π].
+  // Danby (1987) starter for M in [0, π]; e ≥ 0.8 uses M + 0.85e.
   let E = e < 0.8 ? m + e * Math.sin(m) : m + 0.85 * e;
   if (E > PI) E = PI;
+  let sn = Math.sin(E);
+  let cs = Math.cos(E);
   for (let i = 0; i < 12; i++) {
-    const s = e * Math.sin(E);
-    const c = e * Math.cos(E);
+    const s = e * sn;
+    const c = e * cs;
     // Kepler's equation residual and derivatives (Danby & Burkardt 1983 quartic iteration).
     const f0 = E - s - m;
     const f1 = 1 - c;
     const d1 = -f0 / f1;
     const d2 = -f0 / (f1 + 0.5 * d1 * s);
-    const d3 = -f0 / (f1 + 0.5 * d2 * s + (d2 * d2 * c) / 6);
-    E += d3;
-    if (d3 < 1e-15 && d3 > -1e-15) break;
+    const d = -f0 / (f1 + 0.5 * d2 * s + (d2 * d2 * c) / 6);
+    E += d;
+    // Quartic convergence: once a step is below 1e-8 the next one would be far below 1e-16.
+    if (d < 1e-8 && d > -1e-8) break;
+    if (d < 1e-2 && d > -1e-2) {
+      // Small step: rotate sin/cos by d with the angle-addition formulas and Taylor series of
+      // sin d, cos d (truncation below 1e-17), which saves two library calls per iteration.
+      const dd = d * d;
+      const sd = d * (1 - (dd / 6) * (1 - dd / 20));
+      const cd = 1 - (dd / 2) * (1 - (dd / 12) * (1 - dd / 30));
+      const ns = sn * cd + cs * sd;
+      cs = cs * cd - sn * sd;
+      sn = ns;
+    } else {
+      sn = Math.sin(E);
+      cs = Math.cos(E);
+    }
   }
   return sign * E + k * TWO_PI;
 }
