@@ -30,7 +30,7 @@ import { conflict, notFound, unprocessable } from "@/lib/errors";
 import { enqueueMail } from "@/lib/mail/outbox";
 import { renderDecisionMail } from "@/lib/mail/templates/notices";
 import { renderLetterPdf } from "@/lib/pdf/letter";
-import { MIN_OVERRIDE_REASON, type DecisionInput, type DecisionPreviewInput } from "@/lib/validation/decisions";
+import { MIN_OVERRIDE_REASON } from "@/lib/validation/decisions";
 import { deleteObject, presignDownload, writeObject } from "@/storage/object-store";
 import { assignReviewers, proposalAccess, type AssignResult } from "./assignments";
 import { recordAudit } from "./audit";
@@ -39,6 +39,15 @@ import { startRevisionDraft } from "./proposals";
 import { reviewAggregate } from "./reviews";
 
 type Db = Database | Transaction;
+
+/** What the chair sends (validated at the boundary by decisionInput in lib/validation/decisions.ts). */
+export interface DecisionRequest {
+  outcome: DecisionOutcome;
+  /** Tiptap JSON of the letter, with merge fields. */
+  letter: Record<string, unknown>;
+  selectedReviewItemIds?: string[];
+  overrideReason?: string;
+}
 
 export interface DecisionView {
   id: string;
@@ -326,12 +335,12 @@ function checkLetter(letter: unknown): LetterBlock[] {
 async function composeLetter(
   user: SessionUser,
   ctx: Context & { version: NonNullable<Context["version"]> },
-  input: { outcome: DecisionOutcome; letter: unknown; selectedReviewItemIds: string[] },
+  input: DecisionRequest,
   decidedAt: Date,
   tx: Db,
 ): Promise<ComposedLetter> {
   const blocks = checkLetter(input.letter);
-  const selectedIds = [...new Set(input.selectedReviewItemIds)];
+  const selectedIds = [...new Set(input.selectedReviewItemIds ?? [])];
   const selected = selectedIds.length
     ? await tx
         .select({ id: reviewItems.id, severity: reviewItems.severity, title: reviewItems.title, body: reviewItems.body })
@@ -383,7 +392,7 @@ export interface DecisionPreview {
 }
 
 /** The letter and its e-mail as the proposers would receive them; nothing is stored. */
-export async function previewDecision(user: SessionUser, boardId: string, proposalId: string, input: DecisionPreviewInput): Promise<DecisionPreview> {
+export async function previewDecision(user: SessionUser, boardId: string, proposalId: string, input: DecisionRequest): Promise<DecisionPreview> {
   const tx = db();
   await requireChair(user, boardId, proposalId, tx);
   const ctx = await loadContext(boardId, proposalId, tx);
@@ -418,7 +427,7 @@ function isUniqueViolation(error: unknown): boolean {
  * on "revise" seeds the authors' next draft from the decided version. If that transaction
  * fails the PDF is deleted again. A second decision on the same version is 409.
  */
-export async function createDecision(user: SessionUser, boardId: string, proposalId: string, input: DecisionInput): Promise<DecisionView> {
+export async function createDecision(user: SessionUser, boardId: string, proposalId: string, input: DecisionRequest): Promise<DecisionView> {
   await requireChair(user, boardId, proposalId);
   const ctx = await loadContext(boardId, proposalId, db());
   const version = ctx.version;
@@ -429,7 +438,7 @@ export async function createDecision(user: SessionUser, boardId: string, proposa
 
   const submitted = await submittedReviewCount(version.id, db());
   const required = ctx.call.reviewersPerProposal;
-  const overrideReason = input.overrideReason ?? null;
+  const overrideReason = input.overrideReason?.trim() || null;
   if (submitted < required) {
     if (!overrideReason) {
       throw unprocessable(
@@ -471,7 +480,7 @@ export async function createDecision(user: SessionUser, boardId: string, proposa
         proposalId,
         versionId: version.id,
         outcome: input.outcome,
-        letter: input.letter as Record<string, unknown>,
+        letter: input.letter,
         letterHtml: letter.html,
         letterText: letter.text,
         pdfKey,

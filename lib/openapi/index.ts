@@ -4,9 +4,10 @@ import { systemOperations } from "./operations/system";
 import { accountOperations } from "./operations/accounts";
 import { dossierOperations } from "./operations/dossiers";
 import { reviewOperations } from "./operations/review";
+import { decisionOperations } from "./operations/decisions";
 
 /** Every /api/v1 operation. Each feature area adds its list here. */
-export const apiOperations: ApiOperation[] = [...systemOperations, ...accountOperations, ...dossierOperations, ...reviewOperations];
+export const apiOperations: ApiOperation[] = [...systemOperations, ...accountOperations, ...dossierOperations, ...reviewOperations, ...decisionOperations];
 
 export function openApiDocument() {
   return buildOpenApiDocument(apiOperations, packageJson.version);

@@ -43,3 +43,17 @@ export const compareQuery = z.object({
 });
 
 export const MIN_OVERRIDE_REASON = 10;
+
+export const letterDownloadQuery = z.object({
+  redirect: z
+    .enum(["0", "1"], { message: "must be 0 or 1" })
+    .optional()
+    .transform((v) => v === "1"),
+});
+
+export const reassignInput = z.object({
+  boardId: z.uuid(),
+  proposalId: z.uuid(),
+  /** Due date of the new reviews; two weeks from now when left out. */
+  dueAt: z.coerce.date({ message: "must be a date" }).optional(),
+});

@@ -75,8 +75,10 @@ export async function addVersion(
 }
 
 /** A proposal whose version 1 is in review, with `submitted` of two assigned reviews submitted. */
-export async function decisionScenario(options: { submitted?: 0 | 1 | 2; required?: number; callClosesInDays?: number } = {}) {
-  const cast = await createBoardWithCast();
+export async function decisionScenario(
+  options: { submitted?: 0 | 1 | 2; required?: number; callClosesInDays?: number; cast?: Awaited<ReturnType<typeof createBoardWithCast>> } = {},
+) {
+  const cast = options.cast ?? (await createBoardWithCast());
   const { board, chair, reviewer, proposer } = cast;
   const reviewer2 = await createUser({ name: "Second Reviewer" });
   await addMember(board.id, reviewer2.id, "reviewer");
