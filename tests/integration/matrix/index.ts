@@ -2,6 +2,7 @@
 import type { ActionCase, RouteCase } from "./types";
 import { reviewRouteCases } from "./review";
 import { dossierRouteCases } from "./dossiers";
+import { decisionActionCases, decisionRouteCases } from "./decisions";
 
-export const routeCases: RouteCase[] = [...dossierRouteCases, ...reviewRouteCases];
-export const actionCases: ActionCase[] = [];
+export const routeCases: RouteCase[] = [...dossierRouteCases, ...reviewRouteCases, ...decisionRouteCases];
+export const actionCases: ActionCase[] = [...decisionActionCases];
