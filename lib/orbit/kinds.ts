@@ -16,6 +16,7 @@ import {
   period as periodOf,
   periapsisRadius,
   radiusAt,
+  semiMajorAxisFromPeriod,
   type ShapeInput,
   specificEnergy,
   visViva,
@@ -196,7 +197,7 @@ function readShape(g: Inputs, body: Body, allowSingleRadius: boolean): { conic: 
     const only = present[0]!;
     if (allowSingleRadius && only !== "eccentricity" && only !== "semiLatusRectum") {
       let r: number;
-      if (only === "period") r = Math.cbrt(body.mu * (g.num("period", "positive") / (2 * Math.PI)) ** 2);
+      if (only === "period") r = semiMajorAxisFromPeriod(body.mu, g.num("period", "positive"));
       else if (only.endsWith("Altitude")) r = body.radius + g.num(only);
       else r = g.num(only, "positive");
       messages.push(`only ${only} was given: a circular orbit is assumed`);
@@ -254,7 +255,7 @@ function conicValues(c: Conic, body: Body, theta?: number): Pick<Evaluation, "va
   values.periapsisSpeed = visViva(mu, rp, c.a);
   if (closed) {
     const ra = apoapsisRadius(c);
-    // Semi-minor axis b = a√(1 − e²).
+    // Semi-minor axis of an ellipse b = a√(1 − e²) (conic geometry).
     values.semiMinorAxis = c.a * Math.sqrt(1 - c.e * c.e);
     values.apoapsisRadius = ra;
     values.apoapsisAltitude = ra - body.radius;
@@ -268,6 +269,7 @@ function conicValues(c: Conic, body: Body, theta?: number): Pick<Evaluation, "va
       unavailable[q] = `${q} ${BOUND_ONLY}; ${tag}`;
     // v∞ = √(2ε) (energy integral at infinity).
     values.hyperbolicExcessSpeed = Math.sqrt(Math.max(0, 2 * specificEnergy(mu, c.a)));
+    // Hyperbolic mean motion √(μ/|a|³) (hyperbolic Kepler's equation).
     if (type === "hyperbolic") values.meanMotion = Math.sqrt(mu / Math.abs(c.a) ** 3) * RAD;
     else unavailable.meanMotion = `a parabola has no mean motion in this sense (${tag})`;
   }
@@ -301,6 +303,9 @@ function plotOf(label: string, c: Conic, extra: Partial<PlotConic> = {}): PlotCo
 }
 
 const circle = (r: number): Conic => ({ a: r, e: 0, p: r });
+
+/** Ellipse through apse radii r1 and r2: a = (r1 + r2)/2, e = |r2 − r1|/(r1 + r2), p = 2 r1 r2/(r1 + r2). */
+const apseEllipse = (r1: number, r2: number): Conic => ({ a: (r1 + r2) / 2, e: Math.abs(r2 - r1) / (r1 + r2), p: (2 * r1 * r2) / (r1 + r2) });
 
 function radiusOf(g: Inputs, body: Body, prefix: string, label: string): number {
   const alt = `${prefix}Altitude`;
@@ -617,7 +622,7 @@ const KIND_DEFS: Record<string, KindDef> = {
       const r2 = radiusOf(g, body, "final", "final orbit");
       if (r1 === r2) fail("the initial and final orbits are the same; no transfer is needed");
       const h = hohmann(body.mu, r1, r2);
-      const tr = { a: h.transferSemiMajorAxis, e: Math.abs(r2 - r1) / (r1 + r2), p: (2 * r1 * r2) / (r1 + r2) };
+      const tr = apseEllipse(r1, r2);
       const up = r2 > r1;
       return result({ ...h }, body, {
         conics: [
@@ -646,9 +651,9 @@ const KIND_DEFS: Record<string, KindDef> = {
       const r2 = radiusOf(g, body, "final", "final orbit");
       const rb = radiusOf(g, body, "intermediate", "intermediate apoapsis");
       const b = biElliptic(body.mu, r1, r2, rb);
-      const t1 = { a: (r1 + rb) / 2, e: (rb - r1) / (rb + r1), p: (2 * r1 * rb) / (r1 + rb) };
-      const t2 = { a: (r2 + rb) / 2, e: (rb - r2) / (rb + r2), p: (2 * r2 * rb) / (r2 + rb) };
-      const { firstSemiMajorAxis: _a1, secondSemiMajorAxis: _a2, ...values } = b;
+      const t1 = apseEllipse(r1, rb);
+      const t2 = apseEllipse(r2, rb);
+      const values = { deltaV1: b.deltaV1, deltaV2: b.deltaV2, deltaV3: b.deltaV3, deltaVTotal: b.deltaVTotal, transferTime: b.transferTime };
       return result(values, body, {
         conics: [
           plotOf("initial", circle(r1)),
@@ -788,8 +793,14 @@ const KIND_DEFS: Record<string, KindDef> = {
       const arrAlt = g.optNum("arrivalAltitude");
       if (arrAlt !== undefined && !(arrAlt > 0)) fail(`arrivalAltitude must be above the surface of ${to.name} (got ${fmt(arrAlt)} km)`);
       const r = interplanetaryHohmann(central.mu, from, to, depAlt, arrAlt);
-      const { transferSemiMajorAxis: _a, arrivalDeltaV, ...rest } = r;
-      const values: Record<string, ComputedValue> = { ...rest };
+      const { arrivalDeltaV } = r;
+      const values: Record<string, ComputedValue> = {
+        transferTime: r.transferTime,
+        departureExcessSpeed: r.departureExcessSpeed,
+        departureDeltaV: r.departureDeltaV,
+        arrivalExcessSpeed: r.arrivalExcessSpeed,
+        synodicPeriod: r.synodicPeriod,
+      };
       const unavailable: Record<string, string> = {};
       if (arrivalDeltaV !== undefined) values.arrivalDeltaV = arrivalDeltaV;
       else unavailable.arrivalDeltaV = "arrivalDeltaV needs given.arrivalAltitude (km) of the circular capture orbit";
@@ -799,7 +810,7 @@ const KIND_DEFS: Record<string, KindDef> = {
         unavailable,
         conics: [
           plotOf(from.name, circle(r1)),
-          plotOf("transfer", { a: (r1 + r2) / 2, e: Math.abs(r2 - r1) / (r1 + r2), p: (2 * r1 * r2) / (r1 + r2) }, { trueAnomalyRange: r2 > r1 ? [0, 180] : [180, 360] }),
+          plotOf("transfer", apseEllipse(r1, r2), { trueAnomalyRange: r2 > r1 ? [0, 180] : [180, 360] }),
           plotOf(to.name, circle(r2)),
         ],
       });
