@@ -437,7 +437,7 @@ export async function submitProposal(user: SessionUser, boardId: string, proposa
   const written: string[] = [];
   try {
     return await db().transaction(async (tx) => {
-      const { proposal } = await proposalFor(user, boardId, proposalId, "proposal.edit", tx);
+      await proposalFor(user, boardId, proposalId, "proposal.edit", tx);
       // Serialise submissions of one proposal: the second waits here and then sees the new status.
       await tx.execute(sql`select 1 from ${proposals} where ${proposals.id} = ${proposalId} for update`);
       const fresh = (await loadProposal(boardId, proposalId, tx))!;
@@ -636,7 +636,9 @@ export async function versionCheckResults(boardId: string, versionId: string, tx
     .innerJoin(proposalVersions, eq(proposalVersions.id, checkResults.versionId))
     .where(and(eq(checkResults.boardId, boardId), eq(checkResults.versionId, versionId)));
   const order = rows[0] ? extractOrbitChecks(rows[0].document).map((b) => b.blockId) : [];
-  return rows.map(({ document: _d, ...r }) => r).sort((a, b) => order.indexOf(a.blockId) - order.indexOf(b.blockId));
+  return rows
+    .map((r) => ({ blockId: r.blockId, label: r.label, kind: r.kind, status: r.status, claim: r.claim, result: r.result }))
+    .sort((a, b) => order.indexOf(a.blockId) - order.indexOf(b.blockId));
 }
 
 export async function getVersion(user: SessionUser, boardId: string, proposalId: string, n: number): Promise<VersionDetail> {

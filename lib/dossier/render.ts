@@ -106,7 +106,7 @@ function renderOrbitCheck(node: DossierNode, options: RenderOptions): string {
       `</div>`
     : "";
   return (
-    `<figure class="orbit-check" data-orbit-check="" data-block-id="${escapeHtml(blockId)}" data-kind="${escapeHtml(claim.kind)}"${verdict ? attr("data-status", verdict.status) : ""}>` +
+    `<figure class="orbit-check" id="orbit-check-${escapeHtml(blockId)}" data-orbit-check="" data-block-id="${escapeHtml(blockId)}" data-kind="${escapeHtml(claim.kind)}"${verdict ? attr("data-status", verdict.status) : ""}>` +
     `<figcaption><strong>${escapeHtml(label)}</strong> · ${escapeHtml(claim.kind)} · ${escapeHtml(bodyName(claim.body))}</figcaption>` +
     `<table class="orbit-check-values"><tbody>${rows("Given", claim.given)}${rows("Claimed", claim.claimed)}</tbody></table>` +
     verdictHtml +

@@ -6,6 +6,9 @@ import { versionNumberSchema } from "@/lib/validation/dossier";
 export const GET = route(async (_request, { boardId, proposalId, number }) => {
   const user = await requireUser();
   const n = parseWith(versionNumberSchema, number, 400);
-  const { documentKey: _documentKey, htmlKey: _htmlKey, ...version } = await getVersion(user, boardId!, proposalId!, n);
-  return json({ version });
+  const v = await getVersion(user, boardId!, proposalId!, n);
+  // Object keys stay internal; the JSON and HTML are served through this API.
+  return json({
+    version: { id: v.id, proposalId: v.proposalId, number: v.number, title: v.title, submittedAt: v.submittedAt, attachments: v.attachments, counts: v.counts, document: v.document, checkResults: v.checkResults },
+  });
 });

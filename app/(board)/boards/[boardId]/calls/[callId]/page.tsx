@@ -1,0 +1,58 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { CallForm } from "@/components/dossier/call-form";
+import { PageTitle, Panel } from "@/components/ui/panel";
+import { orNotFound, pageUser } from "@/lib/auth/page-guard";
+import { can } from "@/lib/auth/policy";
+import { getBoard } from "@/lib/dal/boards";
+import { getCall } from "@/lib/dal/calls";
+
+export const metadata: Metadata = { title: "Call" };
+
+const dateFormat = new Intl.DateTimeFormat("en-GB", { dateStyle: "full", timeStyle: "short", timeZone: "UTC" });
+const STATE_TEXT = { upcoming: "Opens soon", open: "Open for submissions", closed: "Closed" } as const;
+
+export default async function CallPage({ params }: { params: Promise<{ boardId: string; callId: string }> }) {
+  const { boardId, callId } = await params;
+  const user = await pageUser(`/boards/${boardId}/calls/${callId}`);
+  const board = await orNotFound(getBoard(user, boardId));
+  const call = await orNotFound(getCall(user, boardId, callId));
+  const isChair = can(user, "call.manage", { role: board.myRole });
+  const isProposer = can(user, "proposal.create", { role: board.myRole });
+  const abs = Object.entries(call.tolerance.absolute ?? {});
+  return (
+    <div className="space-y-6">
+      <PageTitle eyebrow={board.name} title={call.title}>
+        <p>
+          <span className="mr-2 rounded-chip bg-ink-100 px-2 py-0.5 text-sm">{STATE_TEXT[call.state]}</span>
+          {dateFormat.format(new Date(call.opensAt))} – {dateFormat.format(new Date(call.closesAt))} (UTC)
+        </p>
+        {call.description ? <p className="mt-2 whitespace-pre-line">{call.description}</p> : null}
+      </PageTitle>
+      <Panel title="What a dossier needs">
+        <dl className="grid gap-2 text-sm sm:grid-cols-[12rem_1fr]">
+          <dt className="font-semibold">Required sections</dt>
+          <dd>{call.requiredSections.length > 0 ? call.requiredSections.join(" · ") : "none"}</dd>
+          <dt className="font-semibold">Orbit-check tolerance</dt>
+          <dd className="font-mono">
+            {(call.tolerance.relative * 100).toFixed(2)} % relative{abs.length > 0 ? `; absolute ${abs.map(([u, v]) => `${v} ${u}`).join(", ")}` : "; default absolute bounds"}
+          </dd>
+          <dt className="font-semibold">Reviewers per proposal</dt>
+          <dd>{call.reviewersPerProposal}</dd>
+        </dl>
+        {isProposer && call.state === "open" ? (
+          <p className="mt-4">
+            <Link href={`/boards/${boardId}/proposals#new-proposal`} className="rounded-chip bg-trajectory-600 px-3 py-1.5 font-semibold text-white hover:bg-trajectory-700">
+              Start a proposal
+            </Link>
+          </p>
+        ) : null}
+      </Panel>
+      {isChair ? (
+        <Panel title="Call settings" description="Changing the tolerance affects submissions from now on; versions already submitted keep their results.">
+          <CallForm boardId={boardId} initial={call} afterSave="refresh" />
+        </Panel>
+      ) : null}
+    </div>
+  );
+}

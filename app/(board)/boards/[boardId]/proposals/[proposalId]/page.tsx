@@ -1,0 +1,105 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { DossierSummary } from "@/components/dossier/dossier-summary";
+import { DossierWorkspace } from "@/components/dossier/dossier-workspace";
+import { ReadOnlyDossier } from "@/components/dossier/read-only-dossier";
+import { AttachmentList } from "@/components/dossier/attachment-list";
+import { PageTitle, Panel } from "@/components/ui/panel";
+import { orNotFound, pageUser } from "@/lib/auth/page-guard";
+import { listAttachments } from "@/lib/dal/attachments";
+import { getDraft, getProposal, getVersion, listVersions } from "@/lib/dal/proposals";
+import { deltaVBudget, evaluateBlocks, extractOrbitChecks } from "@/lib/dossier/claims";
+
+export const metadata: Metadata = { title: "Proposal" };
+
+const STATUS_TEXT = { draft: "Draft", submitted: "Submitted", in_review: "In review", decided: "Decided", withdrawn: "Withdrawn" } as const;
+const dateFormat = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
+
+export default async function ProposalPage({ params }: { params: Promise<{ boardId: string; proposalId: string }> }) {
+  const { boardId, proposalId } = await params;
+  const user = await pageUser(`/boards/${boardId}/proposals/${proposalId}`);
+  const proposal = await orNotFound(getProposal(user, boardId, proposalId));
+  const [versions, attachments] = await Promise.all([listVersions(user, boardId, proposalId), listAttachments(user, boardId, proposalId)]);
+
+  const header = (
+    <PageTitle eyebrow={`${proposal.callTitle} · ${STATUS_TEXT[proposal.status]}`} title={proposal.title}>
+      <p className="text-sm">
+        {proposal.missionType ? `${proposal.missionType.replace(/-/g, " ")} · ` : ""}
+        by {[proposal.owner, ...proposal.coauthors].map((a) => a.name).join(", ")}
+      </p>
+    </PageTitle>
+  );
+
+  const versionList =
+    versions.length > 0 ? (
+      <Panel title="Submitted versions">
+        <ul className="divide-y divide-ink-100 text-sm">
+          {versions.map((v) => (
+            <li key={v.id} className="flex flex-wrap items-center justify-between gap-2 py-1.5">
+              <Link href={`/boards/${boardId}/proposals/${proposalId}/versions/${v.number}`} className="font-semibold text-trajectory-700 hover:underline">
+                Version {v.number}
+              </Link>
+              <span className="text-ink-600">
+                {dateFormat.format(new Date(v.submittedAt))} UTC · server check: {v.counts.consistent} consistent, {v.counts.inconsistent} inconsistent, {v.counts.invalid} cannot be evaluated
+              </span>
+            </li>
+          ))}
+        </ul>
+      </Panel>
+    ) : null;
+
+  if (proposal.canEdit) {
+    const draft = await getDraft(user, boardId, proposalId);
+    return (
+      <div className="space-y-6">
+        {header}
+        {proposal.status === "decided" ? (
+          <p className="rounded-panel border border-drift-500/40 bg-drift-100 p-3 text-sm text-drift-700">The board asked for a revision. Your changes will be submitted as version {proposal.latestVersion + 1}.</p>
+        ) : null}
+        <DossierWorkspace
+          boardId={boardId}
+          proposalId={proposalId}
+          draft={draft}
+          tolerance={proposal.tolerance}
+          requiredSections={proposal.requiredSections}
+          attachments={attachments}
+          nextVersion={proposal.latestVersion + 1}
+          callOpen={proposal.callState === "open"}
+          callClosesAt={proposal.callClosesAt}
+        />
+        {versionList}
+      </div>
+    );
+  }
+
+  if (versions.length === 0) {
+    return (
+      <div className="space-y-6">
+        {header}
+        <Panel title="Not submitted yet">
+          <p className="text-ink-600">{proposal.editBlockedReason ?? "This proposal has no submitted version yet."}</p>
+        </Panel>
+      </div>
+    );
+  }
+
+  const latest = await getVersion(user, boardId, proposalId, versions[0]!.number);
+  const items = latest.checkResults.map((r) => ({ blockId: r.blockId, label: r.label, kind: r.kind, status: r.status }));
+  const budget = deltaVBudget(evaluateBlocks(extractOrbitChecks(latest.document), proposal.tolerance));
+  return (
+    <div className="space-y-6">
+      {header}
+      {proposal.editBlockedReason && proposal.owner.id === user.id ? <p className="text-sm text-ink-600">{proposal.editBlockedReason}</p> : null}
+      <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_18rem]">
+        <Panel title={`Version ${latest.number}`} description={`Submitted ${dateFormat.format(new Date(latest.submittedAt))} UTC; verdicts are the server's own recomputation.`}>
+          <ReadOnlyDossier document={latest.document} boardId={boardId} results={latest.checkResults} />
+        </Panel>
+        <div className="space-y-4">
+          <DossierSummary items={items} budget={budget} source="server" />
+          <AttachmentList attachments={latest.attachments.map((a) => ({ ...a, contentPath: `/api/v1/boards/${boardId}/attachments/${a.attachmentId}/content` }))} />
+        </div>
+      </div>
+      {versionList}
+    </div>
+  );
+}

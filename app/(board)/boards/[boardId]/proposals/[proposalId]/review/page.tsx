@@ -1,0 +1,65 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { PageTitle } from "@/components/ui/panel";
+import { dateTime, formatScore } from "@/components/review/api";
+import { ReviewWorkspace } from "@/components/review/review-workspace";
+import { orNotFound, pageUser } from "@/lib/auth/page-guard";
+import { can } from "@/lib/auth/policy";
+import { proposalAccess } from "@/lib/dal/assignments";
+import { listReviewItems } from "@/lib/dal/review-items";
+import { getReviewScreen, listProposalReviews } from "@/lib/dal/reviews";
+
+export const metadata: Metadata = { title: "Review" };
+
+export default async function ReviewPage({ params, searchParams }: { params: Promise<{ boardId: string; proposalId: string }>; searchParams: Promise<{ assignment?: string }> }) {
+  const { boardId, proposalId } = await params;
+  const { assignment: wanted } = await searchParams;
+  const user = await pageUser(`/boards/${boardId}/proposals/${proposalId}/review`);
+  const access = await orNotFound(proposalAccess(user, boardId, proposalId));
+  const isChair = can(user, "review.view-all", { role: access.role });
+  const reviews = isChair ? await listProposalReviews(user, boardId, proposalId) : [];
+  // Reviewers open their own (newest) assignment; the chair picks one of the proposal's reviews.
+  const assignmentId = wanted ?? access.myAssignments.at(-1)?.id ?? reviews[0]?.assignmentId;
+  if (!assignmentId) {
+    return (
+      <div className="space-y-4">
+        <PageTitle eyebrow="Review" title={access.proposal.title} />
+        <p className="text-ink-700">{isChair ? "No reviewer is assigned to this proposal yet." : "You are not assigned to review this proposal."}</p>
+        {isChair ? (
+          <Link className="text-trajectory-700 underline" href={`/boards/${boardId}/calls/${access.proposal.callId}/assignments`}>
+            Assign reviewers
+          </Link>
+        ) : null}
+      </div>
+    );
+  }
+  const screen = await orNotFound(getReviewScreen(user, boardId, assignmentId));
+  const items = await listReviewItems(user, boardId, proposalId, { versionId: screen.version.id });
+  return (
+    <div className="space-y-6">
+      <PageTitle eyebrow={`Review · ${screen.proposal.callTitle}`} title={screen.proposal.title}>
+        <p>
+          Version {screen.version.number}, submitted {dateTime.format(new Date(screen.version.submittedAt))} UTC
+          {screen.proposal.proposerName ? ` by ${screen.proposal.proposerName}` : ""}. Due {dateTime.format(new Date(screen.assignment.dueAt))} UTC
+          {isChair ? ` · reviewer: ${screen.assignment.reviewerName}` : ""}.
+        </p>
+      </PageTitle>
+      {isChair && reviews.length > 0 ? (
+        <nav aria-label="Reviews of this proposal" className="flex flex-wrap gap-2 text-sm">
+          {reviews.map((r) => (
+            <Link
+              key={r.assignmentId}
+              href={`?assignment=${r.assignmentId}`}
+              aria-current={r.assignmentId === assignmentId ? "page" : undefined}
+              className="rounded-chip border border-ink-300 px-3 py-1 hover:border-trajectory-500 aria-[current=page]:border-trajectory-600 aria-[current=page]:bg-trajectory-100"
+            >
+              {r.reviewerName} · v{r.versionNumber} · {r.status}
+              {r.weightedTotal !== null ? ` · ${formatScore(r.weightedTotal)}` : ""}
+            </Link>
+          ))}
+        </nav>
+      ) : null}
+      <ReviewWorkspace key={assignmentId} boardId={boardId} screen={screen} items={items} canRaise={isChair} />
+    </div>
+  );
+}

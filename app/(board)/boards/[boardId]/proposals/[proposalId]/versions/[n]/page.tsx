@@ -1,0 +1,46 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { AttachmentList } from "@/components/dossier/attachment-list";
+import { DossierSummary } from "@/components/dossier/dossier-summary";
+import { ReadOnlyDossier } from "@/components/dossier/read-only-dossier";
+import { PageTitle, Panel } from "@/components/ui/panel";
+import { orNotFound, pageUser } from "@/lib/auth/page-guard";
+import { getProposal, getVersion } from "@/lib/dal/proposals";
+import { deltaVBudget, evaluateBlocks, extractOrbitChecks } from "@/lib/dossier/claims";
+
+export const metadata: Metadata = { title: "Version" };
+
+const dateFormat = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
+
+export default async function VersionPage({ params }: { params: Promise<{ boardId: string; proposalId: string; n: string }> }) {
+  const { boardId, proposalId, n } = await params;
+  const number = Number(n);
+  if (!Number.isInteger(number) || number < 1) notFound();
+  const user = await pageUser(`/boards/${boardId}/proposals/${proposalId}/versions/${n}`);
+  const proposal = await orNotFound(getProposal(user, boardId, proposalId));
+  const version = await orNotFound(getVersion(user, boardId, proposalId, number));
+  const items = version.checkResults.map((r) => ({ blockId: r.blockId, label: r.label, kind: r.kind, status: r.status }));
+  const budget = deltaVBudget(evaluateBlocks(extractOrbitChecks(version.document), proposal.tolerance));
+  return (
+    <div className="space-y-6">
+      <PageTitle eyebrow={proposal.callTitle} title={`${version.title}: version ${version.number}`}>
+        <p className="text-sm">
+          Submitted {dateFormat.format(new Date(version.submittedAt))} UTC ·{" "}
+          <Link href={`/boards/${boardId}/proposals/${proposalId}`} className="text-trajectory-700 underline">
+            back to the proposal
+          </Link>
+        </p>
+      </PageTitle>
+      <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_18rem]">
+        <Panel title="Dossier" description="Read-only; verdicts are the server's recomputation with the call's tolerance.">
+          <ReadOnlyDossier document={version.document} boardId={boardId} results={version.checkResults} />
+        </Panel>
+        <div className="space-y-4">
+          <DossierSummary items={items} budget={budget} source="server" />
+          <AttachmentList attachments={version.attachments.map((a) => ({ ...a, contentPath: `/api/v1/boards/${boardId}/attachments/${a.attachmentId}/content` }))} />
+        </div>
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,123 @@
+"use client";
+// Chairs open and change calls: dates (UTC), the tolerance policy the server applies to
+// orbit checks, the sections every dossier must have, and reviewers per proposal.
+import { useState } from "react";
+import { useRouter } from "next/navigation";
+import { TextField } from "@/components/ui/form-controls";
+
+export interface CallFormValues {
+  id?: string;
+  title: string;
+  description: string;
+  opensAt: string;
+  closesAt: string;
+  tolerance: { relative: number; absolute?: Record<string, number> };
+  requiredSections: string[];
+  reviewersPerProposal: number;
+}
+
+const toLocalInput = (iso: string) => (iso ? iso.slice(0, 16) : "");
+
+export function CallForm({ boardId, initial, afterSave }: { boardId: string; initial?: CallFormValues; afterSave?: "list" | "refresh" }) {
+  const router = useRouter();
+  const [error, setError] = useState<string | null>(null);
+  const [fieldErrors, setFieldErrors] = useState<Record<string, string>>({});
+  const [saving, setSaving] = useState(false);
+  const [saved, setSaved] = useState(false);
+
+  const onSubmit = async (event: React.FormEvent<HTMLFormElement>) => {
+    event.preventDefault();
+    const form = new FormData(event.currentTarget);
+    const text = (k: string) => String(form.get(k) ?? "").trim();
+    const absolute: Record<string, number> = {};
+    for (const unit of ["km", "km/s", "s", "deg"]) {
+      const v = text(`abs-${unit}`);
+      if (v !== "") absolute[unit] = Number(v);
+    }
+    const body = {
+      title: text("title"),
+      description: text("description"),
+      opensAt: text("opensAt") ? `${text("opensAt")}:00Z` : "",
+      closesAt: text("closesAt") ? `${text("closesAt")}:00Z` : "",
+      tolerance: { relative: Number(text("relative")) / 100, ...(Object.keys(absolute).length ? { absolute } : {}) },
+      requiredSections: text("requiredSections").split("\n").map((s) => s.trim()).filter(Boolean),
+      reviewersPerProposal: Number(text("reviewersPerProposal")),
+    };
+    setSaving(true);
+    setError(null);
+    setFieldErrors({});
+    setSaved(false);
+    try {
+      const response = await fetch(initial?.id ? `/api/v1/boards/${boardId}/calls/${initial.id}` : `/api/v1/boards/${boardId}/calls`, {
+        method: initial?.id ? "PUT" : "POST",
+        headers: { "content-type": "application/json" },
+        body: JSON.stringify(body),
+      });
+      const answer = (await response.json().catch(() => ({}))) as { error?: string; details?: { issues?: { path: string; message: string }[] }; call?: { id: string } };
+      if (!response.ok) {
+        setError(answer.error ?? `Saving failed (${response.status}).`);
+        setFieldErrors(Object.fromEntries((answer.details?.issues ?? []).map((i) => [i.path.split(".")[0]!, i.message])));
+        return;
+      }
+      setSaved(true);
+      if (afterSave === "list" || !initial?.id) router.push(`/boards/${boardId}/calls/${answer.call!.id}`);
+      else router.refresh();
+    } finally {
+      setSaving(false);
+    }
+  };
+
+  const abs = initial?.tolerance.absolute ?? {};
+  return (
+    <form onSubmit={(e) => void onSubmit(e)} className="grid max-w-2xl gap-4" noValidate>
+      <TextField name="title" label="Title" defaultValue={initial?.title} required maxLength={200} error={fieldErrors.title} />
+      <div>
+        <label htmlFor="call-description" className="block text-sm font-semibold text-ink-800">
+          Description
+        </label>
+        <textarea id="call-description" name="description" rows={3} defaultValue={initial?.description} maxLength={5000} className="mt-1 block w-full rounded-chip border border-ink-300 bg-white px-3 py-2" />
+      </div>
+      <div className="grid gap-4 sm:grid-cols-2">
+        <TextField name="opensAt" type="datetime-local" label="Opens (UTC)" defaultValue={toLocalInput(initial?.opensAt ?? "")} required error={fieldErrors.opensAt} />
+        <TextField name="closesAt" type="datetime-local" label="Closes (UTC)" defaultValue={toLocalInput(initial?.closesAt ?? "")} required error={fieldErrors.closesAt} />
+      </div>
+      <fieldset className="grid gap-3 rounded-panel border border-ink-200 p-3 sm:grid-cols-3">
+        <legend className="px-1 text-sm font-semibold text-ink-800">Tolerance for orbit checks (a value passes within either bound)</legend>
+        <TextField name="relative" type="number" step="0.01" min="0" max="50" label="Relative (%)" defaultValue={String((initial?.tolerance.relative ?? 0.01) * 100)} error={fieldErrors.tolerance} />
+        <TextField name="abs-km" type="number" step="any" min="0" label="Absolute, km" defaultValue={abs.km !== undefined ? String(abs.km) : ""} hint="default 1" />
+        <TextField name="abs-km/s" type="number" step="any" min="0" label="Absolute, km/s" defaultValue={abs["km/s"] !== undefined ? String(abs["km/s"]) : ""} hint="default 0.001" />
+        <TextField name="abs-s" type="number" step="any" min="0" label="Absolute, s" defaultValue={abs.s !== undefined ? String(abs.s) : ""} hint="default 1" />
+        <TextField name="abs-deg" type="number" step="any" min="0" label="Absolute, deg" defaultValue={abs.deg !== undefined ? String(abs.deg) : ""} hint="default 0.01" />
+      </fieldset>
+      <div>
+        <label htmlFor="call-sections" className="block text-sm font-semibold text-ink-800">
+          Required sections (one heading per line)
+        </label>
+        <textarea
+          id="call-sections"
+          name="requiredSections"
+          rows={4}
+          defaultValue={initial?.requiredSections.join("\n")}
+          className="mt-1 block w-full rounded-chip border border-ink-300 bg-white px-3 py-2 font-mono text-sm"
+        />
+        {fieldErrors.requiredSections ? <p className="mt-1 text-sm text-void-700">{fieldErrors.requiredSections}</p> : null}
+      </div>
+      <TextField name="reviewersPerProposal" type="number" min="1" max="10" label="Reviewers per proposal" defaultValue={String(initial?.reviewersPerProposal ?? 2)} error={fieldErrors.reviewersPerProposal} />
+      {error ? (
+        <p role="alert" className="rounded-chip bg-void-100 p-2 text-sm text-void-700">
+          {error}
+        </p>
+      ) : null}
+      {saved ? (
+        <p role="status" className="text-sm text-holds-700">
+          Saved.
+        </p>
+      ) : null}
+      <div>
+        <button type="submit" disabled={saving} className="rounded-chip bg-trajectory-600 px-4 py-2 font-semibold text-white hover:bg-trajectory-700 disabled:opacity-50">
+          {saving ? "Saving…" : initial?.id ? "Save call" : "Open call"}
+        </button>
+      </div>
+    </form>
+  );
+}

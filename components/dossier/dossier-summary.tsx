@@ -1,0 +1,88 @@
+// Beside the text: every claim with its verdict, and the Δv budget (maneuver claims against
+// the propulsion claim, with the margin). Works for the live draft and for a stored version.
+import { SCREENING_CAUTION } from "@/lib/orbit";
+import type { DeltaVBudget } from "@/lib/dossier/claims";
+import { VerdictBadge, type Verdict } from "./verdict-badge";
+
+export interface SummaryItem {
+  blockId: string;
+  label: string;
+  kind: string;
+  status: Verdict;
+}
+
+const kms = (v: number) => `${v.toFixed(3)} km/s`;
+
+export function DossierSummary({ items, budget, source }: { items: SummaryItem[]; budget: DeltaVBudget; source: "live" | "server" }) {
+  const counts = { consistent: 0, inconsistent: 0, invalid: 0 };
+  for (const i of items) counts[i.status] += 1;
+  return (
+    <aside aria-labelledby="dossier-summary-heading" className="space-y-4 rounded-panel border border-ink-200 bg-white p-4 shadow-panel">
+      <div>
+        <h2 id="dossier-summary-heading" className="text-base font-semibold text-ink-900">
+          {source === "live" ? "Claims (live check)" : "Claims (server check)"}
+        </h2>
+        <p className="text-xs text-ink-600">
+          {items.length === 0
+            ? "No orbit-check blocks yet."
+            : `${counts.consistent} consistent, ${counts.inconsistent} inconsistent, ${counts.invalid} cannot be evaluated.`}
+        </p>
+      </div>
+      {items.length > 0 ? (
+        <ol className="space-y-1.5 text-sm">
+          {items.map((i) => (
+            <li key={i.blockId} className="flex items-start justify-between gap-2" data-summary-block-id={i.blockId}>
+              <a href={`#orbit-check-${i.blockId}`} className="text-trajectory-700 hover:underline">
+                {i.label || `unnamed ${i.kind} block`}
+                <span className="ml-1 font-mono text-2xs text-ink-500">{i.kind}</span>
+              </a>
+              <VerdictBadge status={i.status} />
+            </li>
+          ))}
+        </ol>
+      ) : null}
+      <section aria-labelledby="dv-budget-heading">
+        <h3 id="dv-budget-heading" className="text-sm font-semibold text-ink-900">
+          Δv budget
+        </h3>
+        {budget.maneuvers.length === 0 && budget.available === null ? (
+          <p className="text-xs text-ink-600">Add maneuver claims (Hohmann, bi-elliptic, plane change, escape) and a propulsion claim (rocket or Δv budget) to see the margin.</p>
+        ) : (
+          <table className="mt-1 w-full text-xs">
+            <tbody>
+              {budget.maneuvers.map((m) => (
+                <tr key={m.blockId} className="border-b border-ink-100">
+                  <th scope="row" className="py-0.5 text-left font-normal">
+                    {m.label}
+                  </th>
+                  <td className="text-right font-mono">{kms(m.deltaV)}</td>
+                </tr>
+              ))}
+              <tr className="border-b border-ink-200 font-semibold">
+                <th scope="row" className="py-0.5 text-left">
+                  Required (recomputed)
+                </th>
+                <td className="text-right font-mono">{kms(budget.required)}</td>
+              </tr>
+              <tr>
+                <th scope="row" className="py-0.5 text-left font-normal">
+                  Available{budget.propulsionLabel ? ` (${budget.propulsionLabel})` : ""}
+                </th>
+                <td className="text-right font-mono">{budget.available !== null ? kms(budget.available) : "no propulsion claim"}</td>
+              </tr>
+              <tr className="font-semibold">
+                <th scope="row" className="py-0.5 text-left">
+                  Margin
+                </th>
+                <td className={`text-right font-mono ${budget.margin === null ? "" : budget.margin >= 0 ? "text-holds-700" : "text-void-700"}`} data-dv-margin>
+                  {budget.margin !== null ? `${(budget.margin * 100).toFixed(1)} %` : "—"}
+                </td>
+              </tr>
+            </tbody>
+          </table>
+        )}
+      </section>
+      <p className="text-2xs text-ink-500">{SCREENING_CAUTION}</p>
+    </aside>
+  );
+}

@@ -1,0 +1,278 @@
+"use client";
+// The author's workspace: the editor, the live summary beside it, attachments, autosave
+// with optimistic concurrency, and submission. Nothing typed is lost: a stale save keeps the
+// text in the editor and offers to reload the latest revision and reapply it.
+import { useEffect, useMemo, useRef, useState } from "react";
+import { useRouter } from "next/navigation";
+import { DossierEditor, useDossierEditor } from "@/components/editor/editor";
+import { AttachmentUploader, type AttachmentItem } from "@/components/upload/attachment-uploader";
+import { deltaVBudget, evaluateBlocks, extractOrbitChecks, type ToleranceInput } from "@/lib/dossier/claims";
+import { renderDossierHtml } from "@/lib/dossier/render";
+import { DossierSummary } from "./dossier-summary";
+
+export const AUTOSAVE_DELAY_MS = 1500;
+
+type SaveState =
+  | { kind: "saved"; at: string | null }
+  | { kind: "dirty" }
+  | { kind: "saving" }
+  | { kind: "conflict"; message: string }
+  | { kind: "error"; message: string };
+
+interface Problem {
+  message: string;
+  blockId?: string;
+}
+
+export interface DossierWorkspaceProps {
+  boardId: string;
+  proposalId: string;
+  draft: { revision: number; document: Record<string, unknown>; updatedAt: string };
+  tolerance: ToleranceInput;
+  requiredSections: string[];
+  attachments: AttachmentItem[];
+  nextVersion: number;
+  callOpen: boolean;
+  callClosesAt: string;
+}
+
+export function DossierWorkspace(props: DossierWorkspaceProps) {
+  const { boardId, proposalId } = props;
+  const router = useRouter();
+  const [doc, setDoc] = useState(props.draft.document);
+  const [saveState, setSaveState] = useState<SaveState>({ kind: "saved", at: props.draft.updatedAt });
+  const [attachments, setAttachments] = useState(props.attachments);
+  const [replaced, setReplaced] = useState<{ revision: number; document: Record<string, unknown> } | null>(null);
+  const [submitting, setSubmitting] = useState(false);
+  const [submitError, setSubmitError] = useState<{ message: string; problems: Problem[] } | null>(null);
+  const revision = useRef(props.draft.revision);
+  const timer = useRef<ReturnType<typeof setTimeout> | null>(null);
+  const inFlight = useRef<Promise<boolean> | null>(null);
+  const dirty = useRef(false);
+  const conflicted = useRef(false);
+  const latestDoc = useRef(props.draft.document);
+
+  // The save and schedule functions read only refs, so the editor's onUpdate (bound once)
+  // always reaches the current ones through saveRef.
+  const saveRef = useRef<() => Promise<boolean>>(async () => false);
+
+  const schedule = () => {
+    if (timer.current) clearTimeout(timer.current);
+    timer.current = setTimeout(() => void saveRef.current(), AUTOSAVE_DELAY_MS);
+  };
+
+  const save = async (): Promise<boolean> => {
+    if (conflicted.current) return false;
+    if (inFlight.current) {
+      await inFlight.current;
+      if (!dirty.current) return true;
+    }
+    const run = (async () => {
+      dirty.current = false;
+      setSaveState({ kind: "saving" });
+      const response = await fetch(`/api/v1/boards/${boardId}/proposals/${proposalId}/draft`, {
+        method: "PUT",
+        headers: { "content-type": "application/json" },
+        body: JSON.stringify({ revision: revision.current, document: latestDoc.current }),
+      }).catch(() => null);
+      if (!response) {
+        dirty.current = true;
+        setSaveState({ kind: "error", message: "Could not reach the server; your text is kept here and will be saved when you edit again or press Save now." });
+        return false;
+      }
+      const body = (await response.json().catch(() => ({}))) as { draft?: { revision: number; updatedAt: string }; error?: string };
+      if (response.ok && body.draft) {
+        revision.current = body.draft.revision;
+        setSaveState(dirty.current ? { kind: "dirty" } : { kind: "saved", at: body.draft.updatedAt });
+        return true;
+      }
+      dirty.current = true;
+      if (response.status === 409 && /changed elsewhere/.test(body.error ?? "")) {
+        conflicted.current = true;
+        setSaveState({ kind: "conflict", message: body.error ?? "This draft was changed elsewhere." });
+      } else {
+        setSaveState({ kind: "error", message: body.error ?? `Saving failed (${response.status}).` });
+      }
+      return false;
+    })();
+    inFlight.current = run;
+    const ok = await run;
+    inFlight.current = null;
+    if (ok && dirty.current) schedule();
+    return ok;
+  };
+
+  useEffect(() => {
+    saveRef.current = save;
+  });
+
+  const onUpdate = (next: Record<string, unknown>) => {
+    latestDoc.current = next;
+    dirty.current = true;
+    setDoc(next);
+    if (!conflicted.current) {
+      setSaveState({ kind: "dirty" });
+      schedule();
+    }
+  };
+
+  const editor = useDossierEditor({ content: props.draft.document, tolerance: props.tolerance, onUpdate });
+
+  useEffect(() => {
+    const warn = (e: BeforeUnloadEvent) => {
+      if (dirty.current) e.preventDefault();
+    };
+    window.addEventListener("beforeunload", warn);
+    return () => {
+      window.removeEventListener("beforeunload", warn);
+      if (timer.current) clearTimeout(timer.current);
+    };
+  }, []);
+
+  /** Takes the latest revision number, keeps the text in the editor and saves it over that revision. */
+  const reloadAndReapply = async () => {
+    const response = await fetch(`/api/v1/boards/${boardId}/proposals/${proposalId}/draft`).catch(() => null);
+    if (!response?.ok) {
+      setSaveState({ kind: "conflict", message: "Could not load the latest revision; your text is still here. Try again." });
+      return;
+    }
+    const { draft } = (await response.json()) as { draft: { revision: number; document: Record<string, unknown> } };
+    setReplaced({ revision: draft.revision, document: draft.document });
+    revision.current = draft.revision;
+    conflicted.current = false;
+    dirty.current = true;
+    await save();
+  };
+
+  const restoreReplaced = () => {
+    if (!replaced || !editor) return;
+    if (!window.confirm("Put the other revision back into the editor? Your own text will be replaced by it.")) return;
+    editor.commands.setContent(replaced.document, { emitUpdate: true });
+    setReplaced(null);
+  };
+
+  const submit = async () => {
+    setSubmitError(null);
+    setSubmitting(true);
+    try {
+      if (timer.current) clearTimeout(timer.current);
+      if (dirty.current && !(await save())) {
+        setSubmitError({ message: "Save the draft first (see the message above the editor).", problems: [] });
+        return;
+      }
+      const response = await fetch(`/api/v1/boards/${boardId}/proposals/${proposalId}/submissions`, {
+        method: "POST",
+        headers: { "content-type": "application/json" },
+        body: JSON.stringify({ revision: revision.current }),
+      }).catch(() => null);
+      if (!response) {
+        setSubmitError({ message: "Could not reach the server. Nothing was submitted; try again.", problems: [] });
+        return;
+      }
+      const body = (await response.json().catch(() => ({}))) as { error?: string; details?: { problems?: Problem[] } };
+      if (!response.ok) {
+        setSubmitError({ message: body.error ?? `Submission failed (${response.status}).`, problems: body.details?.problems ?? [] });
+        return;
+      }
+      router.refresh();
+    } finally {
+      setSubmitting(false);
+    }
+  };
+
+  const evaluations = useMemo(() => evaluateBlocks(extractOrbitChecks(doc), props.tolerance), [doc, props.tolerance]);
+  const items = evaluations.map((e) => ({ blockId: e.block.blockId, label: e.block.label, kind: e.block.claim.kind, status: e.result.status }));
+  const budget = useMemo(() => deltaVBudget(evaluations), [evaluations]);
+  const images = attachments.filter((a) => a.contentType.startsWith("image/")).map((a) => ({ src: a.contentPath, filename: a.filename }));
+
+  return (
+    <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_18rem]">
+      <div className="space-y-3">
+        <SaveStatus state={saveState} onSaveNow={() => void save()} onReapply={() => void reloadAndReapply()} />
+        {replaced ? (
+          <details className="rounded-panel border border-drift-500/40 bg-drift-100 p-3 text-sm">
+            <summary className="cursor-pointer font-semibold text-drift-700">Your text replaced revision {replaced.revision}; its content is kept here</summary>
+            <div className="prose-dossier mt-2 max-h-96 overflow-auto rounded-chip bg-white p-3" dangerouslySetInnerHTML={{ __html: renderDossierHtml(replaced.document) }} />
+            <div className="mt-2 flex gap-2">
+              <button type="button" onClick={restoreReplaced} className="rounded-chip border border-ink-300 bg-white px-3 py-1">
+                Restore that revision instead
+              </button>
+              <button type="button" onClick={() => setReplaced(null)} className="rounded-chip border border-ink-300 bg-white px-3 py-1">
+                Dismiss
+              </button>
+            </div>
+          </details>
+        ) : null}
+        <DossierEditor editor={editor} images={images} />
+      </div>
+      <div className="space-y-4">
+        <DossierSummary items={items} budget={budget} source="live" />
+        <section aria-labelledby="submit-heading" className="space-y-2 rounded-panel border border-ink-200 bg-white p-4 shadow-panel">
+          <h2 id="submit-heading" className="text-base font-semibold text-ink-900">
+            Submit
+          </h2>
+          <p className="text-xs text-ink-600">
+            {props.requiredSections.length > 0 ? `Required sections: ${props.requiredSections.join(", ")}. ` : ""}
+            {props.callOpen ? `The call closes ${new Date(props.callClosesAt).toUTCString()}.` : "The call is not open for submissions."} The server recomputes every claim when you submit.
+          </p>
+          <button
+            type="button"
+            onClick={() => void submit()}
+            disabled={submitting || saveState.kind === "conflict"}
+            className="w-full rounded-chip bg-trajectory-600 px-3 py-2 font-semibold text-white hover:bg-trajectory-700 disabled:opacity-50"
+          >
+            {submitting ? "Submitting…" : `Submit version ${props.nextVersion}`}
+          </button>
+          {submitError ? (
+            <div role="alert" className="space-y-1 rounded-chip border border-void-500/40 bg-void-100 p-2 text-sm text-void-700">
+              <p>{submitError.problems.length > 0 ? "Not submitted yet. Fix these first:" : submitError.message}</p>
+              {submitError.problems.length > 0 ? (
+                <ul className="list-disc pl-5">
+                  {submitError.problems.map((p, i) => (
+                    <li key={i}>{p.blockId ? <a href={`#orbit-check-${p.blockId}`} className="underline">{p.message}</a> : p.message}</li>
+                  ))}
+                </ul>
+              ) : null}
+            </div>
+          ) : null}
+        </section>
+        <AttachmentUploader boardId={boardId} proposalId={proposalId} attachments={attachments} editable onAttachmentsChange={setAttachments} />
+      </div>
+    </div>
+  );
+}
+
+function SaveStatus({ state, onSaveNow, onReapply }: { state: SaveState; onSaveNow: () => void; onReapply: () => void }) {
+  if (state.kind === "conflict") {
+    return (
+      <div role="alert" className="space-y-2 rounded-panel border border-drift-500/50 bg-drift-100 p-3 text-sm text-drift-700">
+        <p>{state.message}</p>
+        <button type="button" onClick={onReapply} className="rounded-chip bg-drift-700 px-3 py-1 font-semibold text-white">
+          Reload the latest and reapply my changes
+        </button>
+      </div>
+    );
+  }
+  const text =
+    state.kind === "saved"
+      ? state.at
+        ? `All changes saved (${new Date(state.at).toLocaleTimeString("en-GB")})`
+        : "All changes saved"
+      : state.kind === "saving"
+        ? "Saving…"
+        : state.kind === "dirty"
+          ? "Unsaved changes"
+          : state.message;
+  return (
+    <div className="flex items-center justify-between gap-2 text-sm">
+      <p role="status" aria-live="polite" data-save-state={state.kind} className={state.kind === "error" ? "text-void-700" : "text-ink-600"}>
+        {text}
+      </p>
+      {state.kind === "error" || state.kind === "dirty" ? (
+        <button type="button" onClick={onSaveNow} className="rounded-chip border border-ink-300 px-2 py-0.5 text-xs">
+          Save now
+        </button>
+      ) : null}
+    </div>
+  );
+}

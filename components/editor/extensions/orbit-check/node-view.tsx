@@ -1,0 +1,393 @@
+"use client";
+// The live orbit-check block: kind, body, given and claimed values with their units, the
+// engine's recomputation (in the browser, the same lib/orbit the server runs), the verdict
+// per quantity and a to-scale plot.
+import { useId, useMemo, useState } from "react";
+import { NodeViewWrapper, useEditorState, type ReactNodeViewProps } from "@tiptap/react";
+import type { Editor } from "@tiptap/core";
+import { BODY_NAMES, ORBIT_CHECK_KINDS, SCREENING_CAUTION, conicForPlot, evaluateClaim, type KindInfo } from "@/lib/orbit";
+import { REFERENCEABLE_KINDS, REFERENCING_KINDS, resolveClaim, type OrbitCheckBlock, type ToleranceInput } from "@/lib/dossier/claims";
+import type { DossierClaim } from "@/lib/dossier/schema";
+import { formatValue } from "@/lib/dossier/render";
+import { OrbitPlot } from "@/components/orbit-plot/orbit-plot";
+import { VerdictBadge } from "@/components/dossier/verdict-badge";
+
+/** All orbit-check blocks of the editor's document, in order. */
+export function blocksOf(editor: Editor): OrbitCheckBlock[] {
+  const out: OrbitCheckBlock[] = [];
+  editor.state.doc.descendants((node) => {
+    if (node.type.name === "orbitCheck") {
+      out.push({ blockId: node.attrs.blockId, label: node.attrs.label ?? "", claim: node.attrs.claim as DossierClaim, initialFrom: node.attrs.initialFrom ?? null });
+      return false;
+    }
+    return true;
+  });
+  return out;
+}
+
+const unitText = (unit: string) => (unit === "1" || unit === "" ? "" : unit);
+const kindInfo = (kind: string): KindInfo | undefined => ORBIT_CHECK_KINDS.find((k) => k.kind === kind);
+
+function parseNumber(text: string): number | undefined {
+  const t = text.trim().replace(/\s/g, "");
+  if (t === "") return undefined;
+  const n = Number(t);
+  return Number.isFinite(n) ? n : undefined;
+}
+
+function NumberInput({ label, unit, value, onChange, describedBy }: { label: string; unit: string; value: unknown; onChange: (v: number | undefined) => void; describedBy?: string }) {
+  const id = useId();
+  const [text, setText] = useState(typeof value === "number" ? String(value) : "");
+  const invalid = text.trim() !== "" && parseNumber(text) === undefined;
+  return (
+    <div className="flex items-center gap-2">
+      <label htmlFor={id} className="w-44 shrink-0 text-xs font-semibold text-ink-700">
+        {label}
+      </label>
+      <input
+        id={id}
+        inputMode="decimal"
+        value={text}
+        aria-invalid={invalid || undefined}
+        aria-describedby={describedBy}
+        onChange={(e) => {
+          setText(e.target.value);
+          onChange(parseNumber(e.target.value));
+        }}
+        className="w-32 rounded-chip border border-ink-300 bg-white px-2 py-1 font-mono text-sm aria-[invalid=true]:border-void-500"
+      />
+      <span className="w-16 text-xs text-ink-500">{unitText(unit)}</span>
+    </div>
+  );
+}
+
+function VectorInput({ label, unit, value, onChange }: { label: string; unit: string; value: unknown; onChange: (v: number[] | undefined) => void }) {
+  const base = useId();
+  const initial = Array.isArray(value) ? value.map((x) => String(x)) : ["", "", ""];
+  const [parts, setParts] = useState<string[]>(initial);
+  return (
+    <fieldset className="flex items-center gap-2">
+      <legend className="sr-only">{label}</legend>
+      <span className="w-44 shrink-0 text-xs font-semibold text-ink-700" aria-hidden>
+        {label}
+      </span>
+      {["x", "y", "z"].map((axis, i) => (
+        <input
+          key={axis}
+          id={`${base}-${axis}`}
+          aria-label={`${label} ${axis}`}
+          inputMode="decimal"
+          value={parts[i] ?? ""}
+          onChange={(e) => {
+            const next = [...parts];
+            next[i] = e.target.value;
+            setParts(next);
+            const nums = next.map(parseNumber);
+            onChange(nums.every((n) => n !== undefined) ? (nums as number[]) : undefined);
+          }}
+          className="w-24 rounded-chip border border-ink-300 bg-white px-2 py-1 font-mono text-sm"
+        />
+      ))}
+      <span className="text-xs text-ink-500">{unit}</span>
+    </fieldset>
+  );
+}
+
+function ManeuversInput({ value, onChange }: { value: unknown; onChange: (v: { name: string; deltaV: number }[] | undefined) => void }) {
+  const id = useId();
+  const initial = Array.isArray(value) ? value.map((m) => `${(m as { name?: string }).name ?? ""}: ${(m as { deltaV?: number }).deltaV ?? ""}`).join("\n") : "";
+  const [text, setText] = useState(initial);
+  return (
+    <div className="flex items-start gap-2">
+      <label htmlFor={id} className="w-44 shrink-0 text-xs font-semibold text-ink-700">
+        maneuvers (one per line, name: Δv km/s)
+      </label>
+      <textarea
+        id={id}
+        rows={3}
+        value={text}
+        onChange={(e) => {
+          setText(e.target.value);
+          const items = e.target.value
+            .split("\n")
+            .map((line) => line.trim())
+            .filter(Boolean)
+            .map((line) => {
+              const i = line.lastIndexOf(":");
+              return { name: (i >= 0 ? line.slice(0, i) : line).trim(), deltaV: parseNumber(i >= 0 ? line.slice(i + 1) : "") };
+            });
+          onChange(items.every((m) => m.deltaV !== undefined) ? (items as { name: string; deltaV: number }[]) : undefined);
+        }}
+        className="w-72 rounded-chip border border-ink-300 bg-white px-2 py-1 font-mono text-sm"
+      />
+    </div>
+  );
+}
+
+function SelectInput({ label, value, options, onChange }: { label: string; value: string; options: readonly string[]; onChange: (v: string) => void }) {
+  const id = useId();
+  return (
+    <div className="flex items-center gap-2">
+      <label htmlFor={id} className="w-44 shrink-0 text-xs font-semibold text-ink-700">
+        {label}
+      </label>
+      <select id={id} value={value} onChange={(e) => onChange(e.target.value)} className="rounded-chip border border-ink-300 bg-white px-2 py-1 text-sm">
+        {options.map((o) => (
+          <option key={o} value={o}>
+            {o}
+          </option>
+        ))}
+      </select>
+    </div>
+  );
+}
+
+export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, extension, selected }: ReactNodeViewProps) {
+  const blockId: string = node.attrs.blockId;
+  const label: string = node.attrs.label ?? "";
+  const claim = (node.attrs.claim ?? { kind: "orbit", given: {} }) as DossierClaim;
+  const initialFrom: string | null = node.attrs.initialFrom ?? null;
+  const tolerance = (extension.options as { tolerance?: ToleranceInput }).tolerance;
+  const info = kindInfo(claim.kind) ?? ORBIT_CHECK_KINDS[0]!;
+  const headingId = useId();
+  const verdictId = useId();
+  // Re-render when any block changes: references and the budget depend on the others.
+  const blocksJson = useEditorState({ editor, selector: ({ editor: e }) => JSON.stringify(blocksOf(e)) });
+  const blocks = useMemo(() => JSON.parse(blocksJson) as OrbitCheckBlock[], [blocksJson]);
+  const self: OrbitCheckBlock = { blockId, label, claim, initialFrom };
+  const { claim: resolved, notes } = resolveClaim(self, blocks.some((b) => b.blockId === blockId) ? blocks : [...blocks, self], tolerance);
+  const result = evaluateClaim(resolved, tolerance);
+  const plot = conicForPlot(resolved);
+  const reference = REFERENCING_KINDS[claim.kind];
+  const referenceable = blocks.filter((b) => b.blockId !== blockId && REFERENCEABLE_KINDS.includes(b.claim.kind));
+  const bodyName = typeof claim.body === "string" ? claim.body : info.defaultBody;
+  const setClaim = (next: Partial<DossierClaim>) => updateAttributes({ claim: { ...claim, ...next } });
+  const setGiven = (name: string, v: unknown) => {
+    const given = { ...claim.given };
+    if (v === undefined) delete given[name];
+    else given[name] = v;
+    setClaim({ given });
+  };
+  const claimed = claim.claimed ?? {};
+  // Rows added but not filled in yet stay local: an empty claim is not a claim.
+  const [pending, setPending] = useState<string[]>([]);
+  const setClaimed = (name: string, v: number | string | undefined | null) => {
+    const next = { ...claimed };
+    if (v === undefined || v === null || v === "") delete next[name];
+    else next[name] = v;
+    setPending((p) => (v === null ? p.filter((n) => n !== name) : p.includes(name) ? p : [...p, name]));
+    setClaim({ claimed: next });
+  };
+  const claimedRows = [...Object.keys(claimed), ...pending.filter((n) => !(n in claimed))];
+  const referenced = reference && initialFrom ? new Set(reference.replaces) : new Set<string>();
+  const unclaimed = info.computed.filter((c) => !claimedRows.includes(c.name));
+  const checks = new Map(result.checks.map((c) => [c.quantity, c]));
+
+  return (
+    <NodeViewWrapper
+      as="section"
+      aria-labelledby={headingId}
+      data-orbit-check-block=""
+      data-block-id={blockId}
+      id={`orbit-check-${blockId}`}
+      contentEditable={false}
+      className={`my-4 rounded-panel border bg-paper p-4 shadow-panel ${selected ? "border-trajectory-500" : "border-ink-200"}`}
+    >
+      <div className="mb-3 flex flex-wrap items-center justify-between gap-2">
+        <h3 id={headingId} className="text-sm font-semibold uppercase tracking-wide text-trajectory-700">
+          Orbit check{label ? `: ${label}` : ""}
+        </h3>
+        <div className="flex items-center gap-2">
+          <VerdictBadge status={result.status} id={verdictId} live />
+          <button type="button" onClick={() => deleteNode()} className="rounded-chip border border-ink-300 px-2 py-0.5 text-xs hover:border-void-500" aria-label={`Remove orbit check ${label}`}>
+            Remove
+          </button>
+        </div>
+      </div>
+      <div className="grid gap-4 lg:grid-cols-[1fr_auto]">
+        <div className="space-y-2">
+          <div className="flex items-center gap-2">
+            <label htmlFor={`${headingId}-name`} className="w-44 shrink-0 text-xs font-semibold text-ink-700">
+              Name in the text
+            </label>
+            <input
+              id={`${headingId}-name`}
+              value={label}
+              maxLength={200}
+              placeholder="e.g. the parking orbit"
+              onChange={(e) => updateAttributes({ label: e.target.value })}
+              className="w-64 rounded-chip border border-ink-300 bg-white px-2 py-1 text-sm"
+            />
+          </div>
+          <SelectInput
+            label="Kind"
+            value={info.kind}
+            options={ORBIT_CHECK_KINDS.map((k) => k.kind)}
+            onChange={(kind) => {
+              setPending([]);
+              updateAttributes({ claim: { kind, body: kindInfo(kind)?.defaultBody ?? "earth", given: {}, claimed: {} }, initialFrom: null });
+            }}
+          />
+          <p className="pl-46 text-xs text-ink-500">{info.summary}</p>
+          <SelectInput label="Central body" value={bodyName} options={BODY_NAMES} onChange={(body) => setClaim({ body })} />
+          {reference ? (
+            <div className="flex items-center gap-2">
+              <label htmlFor={`${headingId}-from`} className="w-44 shrink-0 text-xs font-semibold text-ink-700">
+                Initial orbit from
+              </label>
+              <select
+                id={`${headingId}-from`}
+                value={initialFrom ?? ""}
+                onChange={(e) => updateAttributes({ initialFrom: e.target.value || null })}
+                className="rounded-chip border border-ink-300 bg-white px-2 py-1 text-sm"
+              >
+                <option value="">(enter it below)</option>
+                {referenceable.map((b) => (
+                  <option key={b.blockId} value={b.blockId}>
+                    {b.label || `unnamed ${b.claim.kind} block`}
+                  </option>
+                ))}
+              </select>
+            </div>
+          ) : null}
+
+          <fieldset className="space-y-1.5 rounded-chip border border-ink-200 p-2">
+            <legend className="px-1 text-xs font-semibold text-ink-800">Given ({info.givenRule})</legend>
+            {info.given
+              .filter((g) => !referenced.has(g.name))
+              .map((g) => {
+                const key = `${info.kind}-${g.name}`;
+                if (g.type === "vector") return <VectorInput key={key} label={g.name} unit={g.unit} value={claim.given[g.name]} onChange={(v) => setGiven(g.name, v)} />;
+                if (g.type === "maneuvers") return <ManeuversInput key={key} value={claim.given[g.name]} onChange={(v) => setGiven(g.name, v)} />;
+                if (g.type === "body")
+                  return (
+                    <SelectInput key={key} label={g.name} value={typeof claim.given[g.name] === "string" ? (claim.given[g.name] as string) : ""} options={["", ...BODY_NAMES]} onChange={(v) => setGiven(g.name, v || undefined)} />
+                  );
+                if (g.type === "text")
+                  return <SelectInput key={key} label={g.name} value={typeof claim.given[g.name] === "string" ? (claim.given[g.name] as string) : "prograde"} options={["prograde", "retrograde"]} onChange={(v) => setGiven(g.name, v)} />;
+                return <NumberInput key={key} label={`${g.name}${g.use === "optional" ? " (optional)" : ""}`} unit={g.unit} value={claim.given[g.name]} onChange={(v) => setGiven(g.name, v)} />;
+              })}
+            {notes.length > 0 ? <p className="text-xs text-ink-600">{notes.join("; ")}</p> : null}
+          </fieldset>
+
+          <fieldset className="rounded-chip border border-ink-200 p-2">
+            <legend className="px-1 text-xs font-semibold text-ink-800">Claimed in the dossier</legend>
+            <table className="w-full text-left text-xs">
+              <thead className="text-ink-600">
+                <tr>
+                  <th scope="col" className="py-1">Quantity</th>
+                  <th scope="col">Claimed</th>
+                  <th scope="col">Recomputed</th>
+                  <th scope="col">Error</th>
+                  <th scope="col">
+                    <span className="sr-only">Remove</span>
+                  </th>
+                </tr>
+              </thead>
+              <tbody>
+                {claimedRows.map((name) => {
+                  const unit = info.computed.find((c) => c.name === name)?.unit ?? "";
+                  const row = checks.get(name);
+                  const computed = result.computed[name];
+                  return (
+                    <tr key={`${info.kind}-${name}`} className="border-t border-ink-100">
+                      <th scope="row" className="py-1 pr-2 font-mono font-normal">
+                        {name}
+                      </th>
+                      <td className="pr-2">
+                        {unit === "" && typeof computed === "string" ? (
+                          <input
+                            aria-label={`claimed ${name}`}
+                            value={String(claimed[name] ?? "")}
+                            onChange={(e) => setClaimed(name, e.target.value)}
+                            className="w-28 rounded-chip border border-ink-300 bg-white px-2 py-0.5 font-mono"
+                          />
+                        ) : (
+                          <ClaimedNumber name={name} unit={unit} value={claimed[name]} onChange={(v) => setClaimed(name, v)} />
+                        )}
+                      </td>
+                      <td className="pr-2 font-mono">{computed !== undefined ? `${formatValue(computed)} ${unitText(unit)}` : "—"}</td>
+                      <td className={`pr-2 font-mono ${row ? (row.ok ? "text-holds-700" : "text-drift-700") : "text-ink-500"}`}>
+                        {row ? `${row.relativeError !== null ? `${(row.relativeError * 100).toFixed(2)} %` : "—"} ${row.ok ? "within" : "outside"} tolerance` : "—"}
+                      </td>
+                      <td>
+                        <button type="button" onClick={() => setClaimed(name, null)} aria-label={`Remove claimed ${name}`} className="text-ink-500 hover:text-void-700">
+                          ×
+                        </button>
+                      </td>
+                    </tr>
+                  );
+                })}
+              </tbody>
+            </table>
+            {unclaimed.length > 0 ? (
+              <div className="mt-2 flex items-center gap-2">
+                <label htmlFor={`${headingId}-add`} className="text-xs font-semibold text-ink-700">
+                  Add a claimed value
+                </label>
+                <select
+                  id={`${headingId}-add`}
+                  value=""
+                  onChange={(e) => {
+                    const name = e.target.value;
+                    if (name) setPending((p) => (p.includes(name) ? p : [...p, name]));
+                  }}
+                  className="rounded-chip border border-ink-300 bg-white px-2 py-1 text-xs"
+                >
+                  <option value="">choose a quantity…</option>
+                  {unclaimed.map((c) => (
+                    <option key={c.name} value={c.name}>
+                      {c.name} {unitText(c.unit) ? `(${unitText(c.unit)})` : ""}
+                    </option>
+                  ))}
+                </select>
+              </div>
+            ) : null}
+          </fieldset>
+
+          <div id={verdictId + "-detail"} className="space-y-1 text-xs">
+            {result.messages.map((m, i) => (
+              <p key={i} className={result.status === "invalid" ? "text-void-700" : "text-ink-600"}>
+                {m}
+              </p>
+            ))}
+            <details>
+              <summary className="cursor-pointer text-ink-700">All recomputed values</summary>
+              <dl className="mt-1 grid grid-cols-[auto_1fr] gap-x-3 font-mono">
+                {Object.entries(result.computed).map(([k, v]) => (
+                  <div key={k} className="contents">
+                    <dt className="text-ink-600">{k}</dt>
+                    <dd>
+                      {formatValue(v)} {unitText(info.computed.find((c) => c.name === k)?.unit ?? "")}
+                    </dd>
+                  </div>
+                ))}
+              </dl>
+            </details>
+            <p className="text-2xs text-ink-500">{SCREENING_CAUTION}</p>
+          </div>
+        </div>
+        <OrbitPlot plot={plot} title={`Plot of ${label || `the ${info.kind} claim`}`} />
+      </div>
+    </NodeViewWrapper>
+  );
+}
+
+function ClaimedNumber({ name, unit, value, onChange }: { name: string; unit: string; value: unknown; onChange: (v: number | undefined) => void }) {
+  const [text, setText] = useState(typeof value === "number" ? String(value) : "");
+  return (
+    <span className="flex items-center gap-1">
+      <input
+        aria-label={`claimed ${name}`}
+        inputMode="decimal"
+        value={text}
+        onChange={(e) => {
+          setText(e.target.value);
+          onChange(parseNumber(e.target.value));
+        }}
+        className="w-28 rounded-chip border border-ink-300 bg-white px-2 py-0.5 font-mono"
+      />
+      <span className="text-ink-500">{unitText(unit)}</span>
+    </span>
+  );
+}
