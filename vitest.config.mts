@@ -18,6 +18,8 @@ export default defineConfig({
         resolve: { alias },
         test: {
           name: "unit",
+          // Generous: property tests do real work and the machine is shared; speed lives in `npm run bench`.
+          testTimeout: 60_000,
           include: ["lib/**/*.test.ts", "components/**/*.test.ts", "db/**/*.test.ts", "storage/**/*.test.ts", "scripts/**/*.test.ts"],
           environment: "node",
         },
