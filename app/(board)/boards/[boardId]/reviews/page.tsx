@@ -1,0 +1,86 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { PageTitle } from "@/components/ui/panel";
+import { dateTime } from "@/components/review/api";
+import { orNotFound, pageUser } from "@/lib/auth/page-guard";
+import { getBoard } from "@/lib/dal/boards";
+import { listReviewQueue } from "@/lib/dal/reviews";
+
+export const metadata: Metadata = { title: "My reviews" };
+
+const statusStyle = { "not started": "bg-ink-100 text-ink-700", draft: "bg-drift-100 text-drift-700", submitted: "bg-holds-100 text-holds-700" } as const;
+
+export default async function ReviewQueuePage({ params }: { params: Promise<{ boardId: string }> }) {
+  const { boardId } = await params;
+  const user = await pageUser(`/boards/${boardId}/reviews`);
+  const board = await orNotFound(getBoard(user, boardId));
+  const queue = await listReviewQueue(user, boardId);
+  return (
+    <div className="space-y-6">
+      <PageTitle eyebrow={board.name} title="My reviews">
+        <p>
+          Proposals assigned to you, earliest due first. Found a conflict of interest?{" "}
+          <Link href={`/boards/${boardId}/conflicts`} className="text-trajectory-700 underline">
+            Declare it
+          </Link>{" "}
+          and the proposal is closed to you.
+        </p>
+      </PageTitle>
+      <div className="overflow-x-auto rounded-panel border border-ink-200 bg-white">
+        <table className="w-full border-collapse text-left text-sm">
+          <caption className="sr-only">Your review assignments</caption>
+          <thead className="bg-ink-50 text-ink-700">
+            <tr>
+              <th scope="col" className="px-3 py-2">Proposal</th>
+              <th scope="col" className="px-3 py-2">Call</th>
+              <th scope="col" className="px-3 py-2">Due (UTC)</th>
+              <th scope="col" className="px-3 py-2">Progress</th>
+              <th scope="col" className="px-3 py-2">Status</th>
+            </tr>
+          </thead>
+          <tbody>
+            {queue.length === 0 ? (
+              <tr>
+                <td colSpan={5} className="px-3 py-6 text-center text-ink-500">
+                  Nothing assigned to you on this board.
+                </td>
+              </tr>
+            ) : (
+              queue.map((q) => (
+                <tr key={q.assignmentId} className="border-t border-ink-100">
+                  <td className="px-3 py-2">
+                    {q.conflicted ? (
+                      <span>
+                        {q.title} <span className="text-xs text-void-700">(conflict declared: the chair will reassign it)</span>
+                      </span>
+                    ) : (
+                      <Link href={`/boards/${boardId}/proposals/${q.proposalId}/review?assignment=${q.assignmentId}`} className="font-semibold text-trajectory-700 hover:underline">
+                        {q.title}
+                      </Link>
+                    )}
+                    <span className="ml-1 text-xs text-ink-500">v{q.versionNumber}</span>
+                  </td>
+                  <td className="px-3 py-2">{q.callTitle}</td>
+                  <td className={`px-3 py-2 ${q.overdue ? "font-semibold text-void-700" : ""}`}>
+                    {dateTime.format(new Date(q.dueAt))}
+                    {q.overdue ? " · overdue" : ""}
+                  </td>
+                  <td className="px-3 py-2">
+                    <span className="font-mono">
+                      {q.scored}/{q.criteria}
+                    </span>{" "}
+                    criteria scored
+                    <progress className="ml-2 h-2 w-20 align-middle accent-trajectory-600" max={Math.max(1, q.criteria)} value={q.scored} aria-label={`${q.scored} of ${q.criteria} criteria scored`} />
+                  </td>
+                  <td className="px-3 py-2">
+                    <span className={`rounded-chip px-2 py-0.5 text-xs font-semibold ${statusStyle[q.status]}`}>{q.status}</span>
+                  </td>
+                </tr>
+              ))
+            )}
+          </tbody>
+        </table>
+      </div>
+    </div>
+  );
+}

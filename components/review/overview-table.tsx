@@ -1,0 +1,159 @@
+"use client";
+// The chair's overview of a call: sortable, filterable, with a score-distribution chart per
+// proposal and a CSV export (the server builds the file).
+import { useMemo, useState } from "react";
+import { createColumnHelper, flexRender, getCoreRowModel, getFilteredRowModel, getSortedRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
+import type { CallOverview, OverviewRow } from "@/lib/dal/reviews";
+import { formatScore } from "./api";
+import { ScoreChart } from "./score-chart";
+
+const column = createColumnHelper<OverviewRow>();
+
+export function OverviewTable({ boardId, overview }: { boardId: string; overview: CallOverview }) {
+  const [sorting, setSorting] = useState<SortingState>([{ id: "weightedMean", desc: true }]);
+  const [search, setSearch] = useState("");
+  const [onlyFlagged, setOnlyFlagged] = useState(false);
+  const scale = overview.scale;
+  const data = useMemo(() => (onlyFlagged ? overview.rows.filter((r) => r.checks.inconsistent + r.checks.invalid + r.openItems.major > 0) : overview.rows), [overview.rows, onlyFlagged]);
+  const columns = useMemo(
+    () => [
+      column.accessor("title", {
+        header: "Proposal",
+        cell: (info) => (
+          <a href={`/boards/${boardId}/proposals/${info.row.original.proposalId}/review`} className="font-semibold text-trajectory-700 hover:underline">
+            {info.getValue()}
+            <span className="ml-1 text-xs font-normal text-ink-500">v{info.row.original.versionNumber}</span>
+          </a>
+        ),
+      }),
+      column.accessor("weightedMean", {
+        header: "Weighted mean",
+        sortUndefined: "last",
+        sortingFn: (a, b) => (a.original.weightedMean ?? -Infinity) - (b.original.weightedMean ?? -Infinity),
+        cell: (info) => <span className="font-mono" data-testid="weighted-mean">{formatScore(info.getValue())}</span>,
+      }),
+      column.accessor("spread", {
+        header: () => <span title="Sample standard deviation (divides by n − 1) of the reviewers' weighted totals">Spread (sample s.d.)</span>,
+        sortingFn: (a, b) => (a.original.spread ?? -Infinity) - (b.original.spread ?? -Infinity),
+        cell: (info) => <span className="font-mono">{formatScore(info.getValue())}</span>,
+      }),
+      column.accessor("reviews", {
+        header: "Reviews",
+        cell: (info) => (
+          <span className="font-mono">
+            {info.getValue()} of {info.row.original.assigned}
+            <span className="text-xs text-ink-500"> (target {info.row.original.target})</span>
+          </span>
+        ),
+      }),
+      column.accessor((r) => r.openItems.major * 1e6 + r.openItems.minor * 1e3 + r.openItems.comment, {
+        id: "items",
+        header: "Open items",
+        cell: (info) => {
+          const o = info.row.original.openItems;
+          return (
+            <span className="text-xs">
+              <span className="font-semibold text-void-700">{o.major} major</span> · <span className="text-drift-700">{o.minor} minor</span> · {o.comment} comment
+            </span>
+          );
+        },
+      }),
+      column.accessor((r) => r.checks.inconsistent + r.checks.invalid, {
+        id: "flags",
+        header: "Orbit-check flags",
+        cell: (info) => {
+          const c = info.row.original.checks;
+          return (
+            <span className="text-xs">
+              <span className="text-drift-700">{c.inconsistent} inconsistent</span> · <span className="text-void-700">{c.invalid} invalid</span>
+            </span>
+          );
+        },
+      }),
+      column.display({
+        id: "chart",
+        header: "Distribution",
+        cell: ({ row }) => (scale ? <ScoreChart distribution={row.original.distribution} mean={row.original.weightedMean} scale={scale} label={`Weighted totals for ${row.original.title}`} /> : null),
+      }),
+    ],
+    [boardId, scale],
+  );
+  // eslint-disable-next-line react-hooks/incompatible-library
+  const table = useReactTable({
+    data,
+    columns,
+    getRowId: (r) => r.proposalId,
+    state: { sorting, globalFilter: search },
+    onSortingChange: setSorting,
+    onGlobalFilterChange: setSearch,
+    globalFilterFn: (row, _id, value: string) => row.original.title.toLowerCase().includes(value.toLowerCase()),
+    getCoreRowModel: getCoreRowModel(),
+    getSortedRowModel: getSortedRowModel(),
+    getFilteredRowModel: getFilteredRowModel(),
+  });
+  return (
+    <div className="space-y-3">
+      <div className="flex flex-wrap items-end gap-4">
+        <label className="text-sm font-semibold">
+          Filter by title
+          <input type="search" value={search} onChange={(e) => setSearch(e.target.value)} className="mt-1 block w-64 rounded-chip border border-ink-300 px-3 py-1.5 font-normal" />
+        </label>
+        <label className="flex items-center gap-2 text-sm">
+          <input type="checkbox" checked={onlyFlagged} onChange={(e) => setOnlyFlagged(e.target.checked)} className="accent-trajectory-600" />
+          Only proposals with flags or open major items
+        </label>
+        <a href={`/api/v1/boards/${boardId}/calls/${overview.call.id}/overview/csv`} className="ml-auto rounded-chip border border-ink-300 px-3 py-1.5 text-sm font-semibold hover:border-trajectory-500" download>
+          Export CSV
+        </a>
+      </div>
+      <div className="overflow-x-auto rounded-panel border border-ink-200 bg-white">
+        <table className="w-full border-collapse text-left text-sm">
+          <caption className="sr-only">Scores and flags per proposal</caption>
+          <thead className="bg-ink-50 text-ink-700">
+            {table.getHeaderGroups().map((g) => (
+              <tr key={g.id}>
+                {g.headers.map((h) => (
+                  <th key={h.id} scope="col" className="border-b border-ink-200 px-3 py-2 font-semibold" aria-sort={h.column.getIsSorted() === "asc" ? "ascending" : h.column.getIsSorted() === "desc" ? "descending" : undefined}>
+                    {h.column.getCanSort() ? (
+                      <button type="button" onClick={h.column.getToggleSortingHandler()} className="inline-flex gap-1 text-left hover:text-trajectory-700">
+                        {flexRender(h.column.columnDef.header, h.getContext())}
+                        <span aria-hidden className="font-mono text-xs text-ink-400">
+                          {h.column.getIsSorted() === "asc" ? "▲" : h.column.getIsSorted() === "desc" ? "▼" : "↕"}
+                        </span>
+                      </button>
+                    ) : (
+                      flexRender(h.column.columnDef.header, h.getContext())
+                    )}
+                  </th>
+                ))}
+              </tr>
+            ))}
+          </thead>
+          <tbody>
+            {table.getRowModel().rows.length === 0 ? (
+              <tr>
+                <td colSpan={columns.length} className="px-3 py-6 text-center text-ink-500">
+                  Nothing matches.
+                </td>
+              </tr>
+            ) : (
+              table.getRowModel().rows.map((row) => (
+                <tr key={row.id} data-proposal={row.id} className="border-b border-ink-100 align-middle">
+                  {row.getVisibleCells().map((cell) => (
+                    <td key={cell.id} className="px-3 py-2">
+                      {flexRender(cell.column.columnDef.cell, cell.getContext())}
+                    </td>
+                  ))}
+                </tr>
+              ))
+            )}
+          </tbody>
+        </table>
+      </div>
+      <p className="text-xs text-ink-500">
+        Weighted mean: the mean of the submitted reviews&apos; weighted totals (each Σ weight × score / 100). Spread: their sample standard deviation (n − 1), shown once two
+        reviews are in. The dashed line in each chart marks the mean.
+      </p>
+    </div>
+  );
+}

@@ -1,0 +1,120 @@
+// A review round in a real browser: a reviewer opens their queue, scores the rubric (autosaved),
+// raises a review item on text selected in the dossier and submits; the chair then sees the
+// aggregate on the call overview. Board, call, rubric, proposal, version and assignments are
+// made in the database first.
+import { and, eq } from "drizzle-orm";
+import type { Browser, Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { db } from "@/db/client";
+import { reviewItems, reviews } from "@/db/schema";
+import { assignReviewers } from "@/lib/dal/assignments";
+import { saveReviewDraft, submitReview } from "@/lib/dal/reviews";
+import { appUrl } from "../support/app";
+import { launchBrowser, newPage, signInThroughPage } from "../support/browser";
+import { asSessionUser, TEST_PASSWORD } from "../support/factories";
+import { createReviewRound, inFuture } from "../integration/review-fixtures";
+
+describe("reviewing in the browser", () => {
+  let browser: Browser;
+
+  beforeAll(async () => {
+    await appUrl();
+    browser = await launchBrowser();
+  });
+
+  afterAll(async () => {
+    await browser?.close();
+  });
+
+  async function as(email: string): Promise<Page> {
+    const page = await newPage(browser);
+    await signInThroughPage(page, email, TEST_PASSWORD);
+    return page;
+  }
+
+  it("scores a rubric, raises a review item on selected text, submits, and the chair sees the aggregate", async () => {
+    const round = await createReviewRound();
+    const { created } = await assignReviewers(asSessionUser(round.chair), round.board.id, {
+      proposalIds: [round.proposal.id],
+      reviewerIds: [round.reviewer2.id, round.reviewer3.id],
+      dueAt: inFuture(10),
+      confirmLikelyConflicts: false,
+    });
+    // The other reviewer has already submitted: 50·3 + 30·3 + 20·4 = 320 → 3.20.
+    const other = asSessionUser(round.reviewer3);
+    const draft = await saveReviewDraft(other, round.board.id, created[1]!.assignmentId, {
+      revision: 0,
+      scores: { science: { score: 3, comment: "" }, feasibility: { score: 3, comment: "" }, cost: { score: 4, comment: "" } },
+      summary: "",
+    });
+    await submitReview(other, round.board.id, created[1]!.assignmentId, { revision: draft.revision });
+
+    const page = await as(round.reviewer2.email);
+    await page.goto(`/boards/${round.board.id}/reviews`);
+    await page.getByRole("link", { name: round.proposal.title }).click();
+    await page.getByRole("heading", { name: round.proposal.title }).waitFor();
+    await page.getByTestId("dossier").getByText("95.6 minutes").waitFor();
+    // The server's verdict is beside the flagged orbit-check block.
+    await page.getByRole("heading", { name: "Orbit checks recomputed by the server" }).waitFor();
+    await page.locator(`li[data-check-block]`, { hasText: "Raising transfer" }).getByText("Inconsistent").waitFor();
+
+    // Score each criterion; the running total follows and the review autosaves.
+    const score = async (criterion: string, level: number) => page.locator(`tr[data-criterion="${criterion}"] label`).getByText(String(level), { exact: true }).click();
+    await score("science", 4);
+    await score("feasibility", 3);
+    await expect.poll(async () => page.getByTestId("weighted-total").textContent()).toContain("3.63");
+    await score("cost", 5);
+    // 50·4 + 30·3 + 20·5 = 390 → 3.90
+    await expect.poll(async () => page.getByTestId("weighted-total").textContent()).toContain("3.90");
+    await page.locator('[data-save-state="saved"]').waitFor({ timeout: 20_000 });
+
+    // Select text in the dossier and raise a review item on it.
+    await page.evaluate(() => {
+      const root = document.querySelector('[data-testid="dossier"]')!;
+      const walker = document.createTreeWalker(root, NodeFilter.SHOW_TEXT);
+      for (let node = walker.nextNode(); node; node = walker.nextNode()) {
+        const at = node.nodeValue!.indexOf("95.6 minutes");
+        if (at >= 0) {
+          const range = document.createRange();
+          range.setStart(node, at);
+          range.setEnd(node, at + "95.6 minutes".length);
+          const selection = window.getSelection()!;
+          selection.removeAllRanges();
+          selection.addRange(range);
+          return;
+        }
+      }
+      throw new Error("text not found");
+    });
+    await expect.poll(async () => page.getByTestId("selected-quote").textContent()).toBe("95.6 minutes");
+    await page.getByLabel("Severity").selectOption("major");
+    await page.getByLabel("Title").fill("Period does not match the altitude");
+    await page.getByLabel("What needs attention").fill("At 550 km the two-body period is about 95.7 minutes; state the constants used.");
+    await page.getByRole("button", { name: "Raise item" }).click();
+    await page.locator("li[data-item]", { hasText: "Period does not match the altitude" }).waitFor();
+    await expect.poll(async () => page.getByTestId("dossier").locator("mark[data-item-id]").first().textContent()).toBe("95.6 minutes");
+
+    await page.getByRole("button", { name: "Submit review" }).click();
+    await expect.poll(async () => page.getByTestId("review-status").textContent(), { timeout: 20_000 }).toBe("submitted");
+
+    const [saved] = await db().select().from(reviews).where(eq(reviews.assignmentId, created[0]!.assignmentId));
+    expect(saved).toMatchObject({ status: "submitted", weightedTotal: 3.9 });
+    const [item] = await db().select().from(reviewItems).where(and(eq(reviewItems.proposalId, round.proposal.id), eq(reviewItems.authorId, round.reviewer2.id)));
+    expect(item).toMatchObject({ severity: "major", anchor: expect.objectContaining({ quote: "95.6 minutes" }) });
+
+    // The chair's overview: mean (3.90 + 3.20) / 2 = 3.55; sample s.d. = 0.70 / √2 = 0.4950.
+    const chair = await as(round.chair.email);
+    await chair.goto(`/boards/${round.board.id}/calls/${round.call.id}/overview`);
+    const row = chair.locator(`tr[data-proposal="${round.proposal.id}"]`);
+    await row.waitFor();
+    expect(await row.getByTestId("weighted-mean").textContent()).toBe("3.55");
+    await row.getByText("0.49").waitFor();
+    await row.getByText("2 of 2").waitFor();
+    await row.getByText("1 major").waitFor();
+    await row.getByText("1 inconsistent").waitFor();
+    await row.getByRole("img", { name: /Weighted totals for/ }).waitFor();
+    const csv = await chair.request.get(`/api/v1/boards/${round.board.id}/calls/${round.call.id}/overview/csv`);
+    expect(csv.headers()["content-type"]).toContain("text/csv");
+    expect(await csv.text()).toContain(",3.550,0.495,");
+  });
+});
