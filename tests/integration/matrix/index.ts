@@ -2,7 +2,9 @@
 import type { ActionCase, RouteCase } from "./types";
 import { reviewRouteCases } from "./review";
 import { dossierRouteCases } from "./dossiers";
+import { systemRouteCases } from "./system";
+import { accountActionCases, accountRouteCases } from "./accounts";
 import { decisionActionCases, decisionRouteCases } from "./decisions";
 
-export const routeCases: RouteCase[] = [...dossierRouteCases, ...reviewRouteCases, ...decisionRouteCases];
-export const actionCases: ActionCase[] = [...decisionActionCases];
+export const routeCases: RouteCase[] = [...dossierRouteCases, ...systemRouteCases, ...accountRouteCases, ...reviewRouteCases, ...decisionRouteCases];
+export const actionCases: ActionCase[] = [...accountActionCases, ...decisionActionCases];
