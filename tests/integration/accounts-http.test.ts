@@ -4,7 +4,7 @@ import crypto from "node:crypto";
 import { beforeAll, describe, expect, it } from "vitest";
 import { and, eq } from "drizzle-orm";
 import { db } from "@/db/client";
-import { auditEvents, boardMembers, users } from "@/db/schema";
+import { auditEvents, boardMembers, boards as boardsTable, users } from "@/db/schema";
 import { requestSignInLink } from "@/lib/dal/accounts";
 import { createInvitation } from "@/lib/dal/invitations";
 import { appUrl } from "../support/app";
@@ -181,5 +181,55 @@ describe("the accounts API's answers to bad input", () => {
     const invite = await chair.post(`/api/v1/boards/${cast.board.id}/invitations`, { email: `${unique("api")}@example.org`, role: "proposer" });
     expect(invite.status).toBe(201);
     expect(await invite.json()).not.toHaveProperty("token");
+  });
+});
+
+describe("the accounts pages, rendered on the server", () => {
+  beforeAll(async () => {
+    await appUrl();
+  });
+
+  it("render for the roles they are for, and hide or refuse the rest", async () => {
+    const cast = await createBoardWithCast();
+    const chair = await signedIn(cast.chair.email);
+    const proposer = await signedIn(cast.proposer.email);
+    const outsider = await signedIn(cast.outsider.email);
+    const admin = await signedIn(cast.admin.email);
+    const board = `/boards/${cast.board.id}`;
+
+    const members = await chair.get(`${board}/members?sort=email&dir=desc&q=${encodeURIComponent(cast.reviewer.email)}`);
+    expect(members.status).toBe(200);
+    const membersHtml = await members.text();
+    expect(membersHtml).toContain("Board members");
+    expect(membersHtml).toContain(cast.reviewer.email);
+    expect(membersHtml).not.toContain(cast.proposer.email);
+    expect(await (await chair.get(`${board}/members?page=-4&pageSize=lots`)).text()).toContain(cast.proposer.email);
+    expect(await (await proposer.get(`${board}/members`)).text()).toContain("Not available to your role");
+    expect(await (await proposer.get(`${board}/settings`)).text()).toContain("Not available to your role");
+    expect((await outsider.get(`${board}/members`)).status).toBe(404);
+    expect((await outsider.get(board)).status).toBe(404);
+    expect(await (await chair.get(`${board}/settings`)).text()).toContain("Open registration for proposers");
+
+    const home = await (await chair.get(board)).text();
+    expect(home).toContain("Members and invitations");
+    expect(await (await proposer.get(board)).text()).not.toContain("Members and invitations");
+
+    expect(await (await proposer.get("/account")).text()).toContain(cast.board.name);
+    expect(await (await admin.get("/admin/audit?q=sign-in")).text()).toContain("Audit log");
+    expect(await (await chair.get("/admin/audit")).text()).toContain("for site administrators");
+    expect(await (await admin.get("/boards")).text()).toContain("Create a board");
+    expect(await (await chair.get("/boards")).text()).not.toContain("Create a board");
+
+    const anonymous = new HttpClient();
+    const redirected = await anonymous.get("/account");
+    expect([302, 307]).toContain(redirected.status);
+    expect(redirected.headers.get("location")).toContain("/sign-in?callbackUrl=%2Faccount");
+    expect((await anonymous.get("/sign-in")).status).toBe(200);
+    expect((await anonymous.get(`/boards/${cast.board.slug}/register`)).status).toBe(404);
+    await db().update(boardsTable).set({ openRegistration: true }).where(eq(boardsTable.id, cast.board.id));
+    const register = await anonymous.get(`/boards/${cast.board.slug}/register`);
+    expect(register.status).toBe(200);
+    expect(await register.text()).toContain("Register as a proposer");
+    expect((await anonymous.get("/invitations/not-a-real-token-at-all")).status).toBe(200);
   });
 });
