@@ -86,7 +86,11 @@ export function Toolbar({ editor, images = [] }: { editor: Editor; images?: Imag
       <button
         type="button"
         className="rounded-chip bg-trajectory-600 px-3 py-1 text-sm font-semibold text-white hover:bg-trajectory-700"
-        onClick={() => editor.chain().focus().insertContent({ type: "orbitCheck", attrs: newOrbitCheckAttrs() }).run()}
+        onClick={() => {
+          // After the selection, so a selected block is never replaced by the new one.
+          const at = editor.state.selection.to;
+          editor.chain().insertContentAt(at, { type: "orbitCheck", attrs: newOrbitCheckAttrs() }).run();
+        }}
       >
         Insert orbit check
       </button>

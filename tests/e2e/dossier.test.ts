@@ -1,0 +1,97 @@
+// A proposer in a real browser: writes a dossier with a consistent and an inconsistent
+// orbit-check block (live verdicts), uploads a PDF (progress to 100 %), submits, and sees the
+// server's own flag on the inconsistent claim.
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Browser, Locator, Page } from "playwright-core";
+import { appUrl } from "../support/app";
+import { launchBrowser, newPage, signInThroughPage } from "../support/browser";
+import { createBoardWithCast, TEST_PASSWORD } from "../support/factories";
+import { makeCall } from "../integration/matrix/dossiers";
+
+const PDF = Buffer.from(
+  "%PDF-1.4\n1 0 obj<</Type/Catalog/Pages 2 0 R>>endobj\n2 0 obj<</Type/Pages/Kids[]/Count 0>>endobj\ntrailer<</Root 1 0 R>>\n%%EOF\n" + "%".repeat(200_000),
+  "latin1",
+);
+
+async function fillBlock(page: Page, block: Locator, name: string, altitude: string, period: string) {
+  await block.getByLabel("Name in the text").fill(name);
+  await block.getByLabel("altitude", { exact: true }).fill(altitude);
+  await block.getByLabel("Add a claimed value").selectOption("period");
+  await block.getByLabel("claimed period", { exact: true }).fill(period);
+}
+
+describe("writing and submitting a dossier in the browser", () => {
+  let browser: Browser;
+
+  beforeAll(async () => {
+    await appUrl();
+    browser = await launchBrowser();
+  });
+
+  afterAll(async () => {
+    await browser?.close();
+  });
+
+  it("checks claims live, uploads a PDF, submits, and shows the server's verdicts", async () => {
+    const cast = await createBoardWithCast();
+    const call = await makeCall(cast, { requiredSections: ["Mission design"] });
+    const page = await newPage(browser);
+    const errors: string[] = [];
+    page.on("pageerror", (e) => errors.push(e.message));
+    try {
+      await signInThroughPage(page, cast.proposer.email, TEST_PASSWORD);
+      await page.goto(`/boards/${cast.board.id}/proposals`);
+      await page.getByText("No proposals yet.").waitFor();
+      const form = page.locator("#new-proposal");
+      await form.getByLabel("Title").fill("Lantern lunar pathfinder");
+      await form.getByLabel("Call").selectOption(call.id);
+      await form.getByRole("button", { name: "Start proposal" }).click();
+      await page.waitForURL(/\/proposals\/[0-9a-f-]{36}$/);
+
+      const editor = page.getByRole("textbox", { name: "Dossier text" });
+      await editor.waitFor();
+      await expect(editor.getByRole("heading", { name: "Mission design" }).count()).resolves.toBe(1);
+      await editor.click();
+      await page.keyboard.press("Control+End");
+      await page.keyboard.type("We park in a 500 km circular orbit before the science phase.");
+
+      await page.getByRole("button", { name: "Insert orbit check" }).click();
+      const blocks = page.locator("[data-orbit-check-block]");
+      await blocks.first().waitFor();
+      await fillBlock(page, blocks.nth(0), "the parking orbit", "500", "5677");
+      await blocks.nth(0).getByRole("status").filter({ hasText: "Consistent" }).waitFor();
+
+      await page.getByRole("button", { name: "Insert orbit check" }).click();
+      await expect.poll(() => blocks.count()).toBe(2);
+      await fillBlock(page, blocks.nth(1), "the science orbit", "500", "6100");
+      await blocks.nth(1).getByRole("status").filter({ hasText: "Inconsistent" }).waitFor();
+      // The plot has its text alternative.
+      expect(await blocks.nth(1).getByRole("img", { name: /Plot of the science orbit.*circular/ }).count()).toBe(1);
+      // The summary beside the text lists both claims.
+      const summary = page.getByRole("complementary").filter({ hasText: "Claims (live check)" });
+      await summary.getByText("1 consistent, 1 inconsistent, 0 cannot be evaluated.").waitFor();
+
+      // Upload a PDF straight to the store; the bar reaches 100 %.
+      await page.locator('input[type="file"]').setInputFiles({ name: "lantern-plan.pdf", mimeType: "application/pdf", buffer: PDF });
+      await page.locator('[role="progressbar"][aria-valuenow="100"]').first().waitFor();
+      await page.getByRole("list", { name: "Attached files" }).getByRole("link", { name: "lantern-plan.pdf" }).waitFor();
+
+      await page.locator('[data-save-state="saved"]').waitFor({ timeout: 20_000 });
+      await page.getByRole("button", { name: "Submit version 1" }).click();
+
+      // The page now shows version 1 as the server stored and checked it.
+      await page.getByRole("heading", { name: "Version 1" }).waitFor({ timeout: 30_000 });
+      const flagged = page.locator('figure[data-status="inconsistent"]');
+      await flagged.waitFor();
+      expect(await flagged.getAttribute("data-block-id")).toMatch(/^[0-9a-f-]{36}$/);
+      expect(await flagged.locator("figcaption").innerText()).toContain("the science orbit");
+      expect(await flagged.innerText()).toContain("Server check: Inconsistent");
+      expect(await page.locator('figure[data-status="consistent"] figcaption').innerText()).toContain("the parking orbit");
+      await page.getByRole("complementary").filter({ hasText: "Claims (server check)" }).getByText("1 consistent, 1 inconsistent").waitFor();
+      await page.getByRole("link", { name: "lantern-plan.pdf" }).waitFor();
+      expect(errors).toEqual([]);
+    } finally {
+      await page.close();
+    }
+  });
+});
