@@ -4,6 +4,7 @@ import { orNotFound, pageUser } from "@/lib/auth/page-guard";
 import { can } from "@/lib/auth/policy";
 import { getBoard, listBoardCalls } from "@/lib/dal/boards";
 import { BoardCallsSection, BoardStewardshipSection } from "./_components/board-sections";
+import { BoardReviewSection } from "@/components/review/board-review-section";
 
 export const metadata: Metadata = { title: "Board" };
 
@@ -23,6 +24,7 @@ export default async function BoardHomePage({ params }: { params: Promise<{ boar
       </PageTitle>
       {/* One section per area; each decides from the policy whether it shows. */}
       <BoardCallsSection board={board} calls={calls} />
+      <BoardReviewSection user={user} board={board} calls={calls} />
       {can(user, "members.manage", facts) ? <BoardStewardshipSection board={board} /> : null}
     </div>
   );
