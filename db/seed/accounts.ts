@@ -41,32 +41,56 @@ export interface SeededAccounts {
   users: Record<DemoAccount["key"], { id: string; email: string }>;
 }
 
-export async function seedDemoAccounts(db: Database): Promise<SeededAccounts> {
-  await db.insert(boards).values({ ...DEMO_BOARD }).onConflictDoNothing();
-  const [board] = await db.select({ id: boards.id }).from(boards).where(eq(boards.slug, DEMO_BOARD.slug));
-  if (!board) throw new Error("the demo board could not be created");
+/** The board a seed writes into: the documented demo board, or another one (tests use a fresh slug). */
+export interface SeedBoard {
+  slug: string;
+  name: string;
+  description: string;
+}
 
-  const seeded = {} as SeededAccounts["users"];
-  for (const account of DEMO_ACCOUNTS) {
-    let [user] = await db.select({ id: users.id, email: users.email }).from(users).where(sql`lower(${users.email}) = ${account.email}`);
-    if (!user) {
-      const passwordHash = await hash(account.password, argonOptions);
-      await db
-        .insert(users)
-        .values({ email: account.email, name: account.name, organisation: account.organisation, passwordHash, isAdmin: account.isAdmin })
-        .onConflictDoNothing();
-      [user] = await db.select({ id: users.id, email: users.email }).from(users).where(sql`lower(${users.email}) = ${account.email}`);
-    }
-    if (!user) throw new Error(`the demo account ${account.email} could not be created`);
-    if (account.role) {
-      await db.insert(boardMembers).values({ boardId: board.id, userId: user.id, role: account.role }).onConflictDoNothing();
-      const [membership] = await db
-        .select({ role: boardMembers.role })
-        .from(boardMembers)
-        .where(and(eq(boardMembers.boardId, board.id), eq(boardMembers.userId, user.id)));
-      if (!membership) throw new Error(`the demo membership of ${account.email} could not be created`);
-    }
-    seeded[account.key] = user;
+export interface SeedPerson {
+  email: string;
+  password: string;
+  name: string;
+  organisation: string;
+  isAdmin: boolean;
+  role: BoardRole | null;
+}
+
+/** Creates the board when it is missing and returns its id (an existing board is never changed). */
+export async function ensureBoard(db: Database, board: SeedBoard = DEMO_BOARD): Promise<string> {
+  await db.insert(boards).values({ ...board }).onConflictDoNothing();
+  const [row] = await db.select({ id: boards.id }).from(boards).where(eq(boards.slug, board.slug));
+  if (!row) throw new Error(`the board ${board.slug} could not be created`);
+  return row.id;
+}
+
+/** Creates the person (reused when the address exists) and their membership of the board. */
+export async function ensurePerson(db: Database, boardId: string, person: SeedPerson): Promise<{ id: string; email: string }> {
+  let [user] = await db.select({ id: users.id, email: users.email }).from(users).where(sql`lower(${users.email}) = ${person.email}`);
+  if (!user) {
+    const passwordHash = await hash(person.password, argonOptions);
+    await db
+      .insert(users)
+      .values({ email: person.email, name: person.name, organisation: person.organisation, passwordHash, isAdmin: person.isAdmin })
+      .onConflictDoNothing();
+    [user] = await db.select({ id: users.id, email: users.email }).from(users).where(sql`lower(${users.email}) = ${person.email}`);
   }
-  return { boardId: board.id, users: seeded };
+  if (!user) throw new Error(`the demo account ${person.email} could not be created`);
+  if (person.role) {
+    await db.insert(boardMembers).values({ boardId, userId: user.id, role: person.role }).onConflictDoNothing();
+    const [membership] = await db
+      .select({ role: boardMembers.role })
+      .from(boardMembers)
+      .where(and(eq(boardMembers.boardId, boardId), eq(boardMembers.userId, user.id)));
+    if (!membership) throw new Error(`the demo membership of ${person.email} could not be created`);
+  }
+  return user;
+}
+
+export async function seedDemoAccounts(db: Database, board: SeedBoard = DEMO_BOARD): Promise<SeededAccounts> {
+  const boardId = await ensureBoard(db, board);
+  const seeded = {} as SeededAccounts["users"];
+  for (const account of DEMO_ACCOUNTS) seeded[account.key] = await ensurePerson(db, boardId, account);
+  return { boardId, users: seeded };
 }
