@@ -113,6 +113,15 @@ describe("reviewing in the browser", () => {
     await row.getByText("1 major").waitFor();
     await row.getByText("1 inconsistent").waitFor();
     await row.getByRole("img", { name: /Weighted totals for/ }).waitFor();
+    // The chair opens the proposal's reviews and sees the item with the reviewer named for them.
+    await chair.goto(`/boards/${round.board.id}/proposals/${round.proposal.id}/review?assignment=${created[0]!.assignmentId}`);
+    await chair.locator("li[data-item]", { hasText: "Period does not match the altitude" }).getByText(`Reviewer 1 · ${round.reviewer2.name}`, { exact: false }).waitFor();
+    await chair.getByRole("button", { name: "Reopen" }).waitFor();
+    // An unassigned reviewer cannot open the review screen at all.
+    const stranger = await as(round.reviewer.email);
+    const response = await stranger.goto(`/boards/${round.board.id}/proposals/${round.proposal.id}/review`);
+    expect(response?.status()).toBe(404);
+
     const csv = await chair.request.get(`/api/v1/boards/${round.board.id}/calls/${round.call.id}/overview/csv`);
     expect(csv.headers()["content-type"]).toContain("text/csv");
     expect(await csv.text()).toContain(",3.550,0.495,");

@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { notFound } from "next/navigation";
 import { PageTitle } from "@/components/ui/panel";
 import { dateTime, formatScore } from "@/components/review/api";
 import { ReviewWorkspace } from "@/components/review/review-workspace";
@@ -16,6 +17,8 @@ export default async function ReviewPage({ params, searchParams }: { params: Pro
   const { assignment: wanted } = await searchParams;
   const user = await pageUser(`/boards/${boardId}/proposals/${proposalId}/review`);
   const access = await orNotFound(proposalAccess(user, boardId, proposalId));
+  // Someone who may not open the proposal (an unassigned or conflicted reviewer) learns nothing about it.
+  if (!can(user, "proposal.view", access.facts)) notFound();
   const isChair = can(user, "review.view-all", { role: access.role });
   const reviews = isChair ? await listProposalReviews(user, boardId, proposalId) : [];
   // Reviewers open their own (newest) assignment; the chair picks one of the proposal's reviews.
