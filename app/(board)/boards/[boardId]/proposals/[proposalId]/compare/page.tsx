@@ -136,15 +136,15 @@ export default async function ComparePage({ params, searchParams }: { params: Pr
         </div>
       </Panel>
 
-      <Panel title="Text changes" description={`${cmp.text.wordsAdded} words added, ${cmp.text.wordsRemoved} removed (word by word, on the plain text)`}>
+      <Panel title="Text changes" description={`${cmp.text.wordsAdded} word${cmp.text.wordsAdded === 1 ? "" : "s"} added, ${cmp.text.wordsRemoved} removed (word by word, on the plain text)`}>
         <div className="whitespace-pre-wrap rounded-panel border border-ink-200 bg-paper p-4 font-sans text-sm leading-6 text-ink-900" data-testid="text-diff">
           {cmp.text.changes.map((c, i) =>
             c.kind === "added" ? (
-              <ins key={i} className="bg-holds-100 text-holds-700 no-underline">
+              <ins key={i} className="mx-px bg-holds-100 px-0.5 text-holds-700 no-underline">
                 {c.text}
               </ins>
             ) : c.kind === "removed" ? (
-              <del key={i} className="bg-void-100 text-void-700">
+              <del key={i} className="mx-px bg-void-100 px-0.5 text-void-700">
                 {c.text}
               </del>
             ) : (
