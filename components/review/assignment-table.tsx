@@ -38,7 +38,7 @@ export function AssignmentTable({ boardId, data }: { boardId: string; data: Assi
             <a href={`/boards/${boardId}/proposals/${info.row.original.id}/review`} className="font-semibold text-trajectory-700 hover:underline">
               {info.getValue()}
             </a>
-            <p className="text-xs text-ink-500">
+            <p className="text-xs text-ink-600">
               v{info.row.original.versionNumber} · {info.row.original.status.replace("_", " ")}
               {info.row.original.authorOrganisations.length ? ` · ${info.row.original.authorOrganisations.join(", ")}` : ""}
             </p>
@@ -67,7 +67,7 @@ export function AssignmentTable({ boardId, data }: { boardId: string; data: Assi
               <li key={a.assignmentId} className="flex flex-wrap items-center gap-1 text-xs">
                 <span className="font-semibold">{a.reviewerName}</span>
                 <span className="rounded-chip bg-ink-100 px-1.5">{a.reviewStatus}</span>
-                <span className="text-ink-500">due {dateOnly.format(new Date(a.dueAt))}</span>
+                <span className="text-ink-600">due {dateOnly.format(new Date(a.dueAt))}</span>
                 {data.conflicts[`${a.reviewerId}:${row.original.id}`]?.some((f) => f.strength === "conflict") ? <span className="text-void-700">conflict declared</span> : null}
                 {a.reviewStatus !== "submitted" ? (
                   <button

@@ -164,8 +164,8 @@ export function ReviewWorkspace({ boardId, screen, items: initialItems, canRaise
             <span className="font-semibold">Weighted total</span>
             <span data-testid="weighted-total" className="font-mono text-lg">
               {formatScore(total.value)}
-              {criteria[0] ? <span className="text-sm text-ink-500"> / {criteria[0].scaleMax}</span> : null}
-              <span className="ml-2 text-sm text-ink-500">
+              {criteria[0] ? <span className="text-sm text-ink-600"> / {criteria[0].scaleMax}</span> : null}
+              <span className="ml-2 text-sm text-ink-600">
                 ({total.scored} of {total.total} scored)
               </span>
             </span>
