@@ -33,6 +33,13 @@ export async function BoardReviewSection({ user, board, calls }: { user: Session
         </ul>
       ) : null}
       {isChair ? (
+        <p className="mb-2 text-sm">
+          <Link href={`/boards/${board.id}/conflicts`} className="text-trajectory-700 underline">
+            Declared conflicts of interest
+          </Link>
+        </p>
+      ) : null}
+      {isChair ? (
         calls.length === 0 ? (
           <p className="text-ink-600">No calls yet.</p>
         ) : (

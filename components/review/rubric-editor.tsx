@@ -52,7 +52,7 @@ export function RubricEditor({ boardId, callId, rubric }: { boardId: string; cal
         setPending(false);
         if (res.ok) {
           setFrozen(false);
-          setAnswer({ tone: "success", text: res.data.rubric.createdVersion ? `Saved as version ${res.data.rubric.version}; reviews already started keep the version they began with.` : `Saved (version ${res.data.rubric.version}).` });
+          setAnswer({ tone: "success", text: res.data.rubric.createdVersion && res.data.rubric.version > 1 ? `Saved as version ${res.data.rubric.version}; reviews already started keep the version they began with.` : `Saved (version ${res.data.rubric.version}).` });
         } else setAnswer({ tone: "error", text: res.error, issues: ((res.details as { issues?: { message: string }[] })?.issues ?? []).map((i) => i.message) });
       }}
     >

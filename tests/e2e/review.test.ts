@@ -6,7 +6,7 @@ import { and, eq } from "drizzle-orm";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
-import { reviewItems, reviews } from "@/db/schema";
+import { assignments, reviewItems, reviews } from "@/db/schema";
 import { assignReviewers } from "@/lib/dal/assignments";
 import { saveReviewDraft, submitReview } from "@/lib/dal/reviews";
 import { appUrl } from "../support/app";
@@ -125,5 +125,51 @@ describe("reviewing in the browser", () => {
     const csv = await chair.request.get(`/api/v1/boards/${round.board.id}/calls/${round.call.id}/overview/csv`);
     expect(csv.headers()["content-type"]).toContain("text/csv");
     expect(await csv.text()).toContain(",3.550,0.495,");
+  });
+});
+
+describe("chairing a review round in the browser", () => {
+  let browser: Browser;
+
+  beforeAll(async () => {
+    await appUrl();
+    browser = await launchBrowser();
+  });
+
+  afterAll(async () => {
+    await browser?.close();
+  });
+
+  it("edits the rubric (refused at 90 %), then bulk-assigns after confirming a likely conflict", async () => {
+    const round = await createReviewRound({ rubric: false });
+    const page = await newPage(browser);
+    await signInThroughPage(page, round.chair.email, TEST_PASSWORD);
+
+    await page.goto(`/boards/${round.board.id}/calls/${round.call.id}/rubric`);
+    await page.getByLabel("Criterion 1").fill("Science return");
+    await page.getByLabel("Weight (%)").fill("90");
+    await page.getByText("Weights add up to 90 % (must be 100 %)").waitFor();
+    for (const [i, text] of ["Negligible", "Limited", "Useful", "Significant", "Outstanding"].entries()) await page.getByLabel(String(i + 1), { exact: true }).fill(text);
+    await page.getByRole("button", { name: "Save rubric" }).click();
+    await page.getByRole("alert").getByText("The weights add up to 90 %; they must add up to 100 %.").waitFor();
+    await page.getByLabel("Weight (%)").fill("100");
+    await page.getByRole("button", { name: "Save rubric" }).click();
+    await page.getByRole("status").getByText("Saved (version 1).").waitFor();
+
+    await page.goto(`/boards/${round.board.id}/calls/${round.call.id}/assignments`);
+    await page.getByRole("checkbox", { name: `Select ${round.proposal.title}` }).check();
+    // The cast's reviewer shares the proposer's e-mail domain: a likely conflict to confirm.
+    await page.locator("label", { hasText: round.reviewer.name }).getByText("Likely conflict", { exact: false }).first().waitFor({ state: "attached" });
+    await page.getByRole("checkbox", { name: new RegExp(round.reviewer.name) }).check();
+    await page.getByRole("checkbox", { name: new RegExp(round.reviewer2.name) }).check();
+    await page.getByRole("button", { name: /Assign 2 reviewer\(s\) to 1 proposal\(s\)/ }).click();
+    await page.getByText("Some pairs may have a conflict of interest:").waitFor();
+    await page.getByRole("button", { name: "Assign anyway (recorded)" }).click();
+    await page.getByText("2 assignment(s) made").waitFor();
+    const row = page.locator("tr", { hasText: round.proposal.title });
+    await row.getByText("2/2").waitFor();
+    await row.getByText(round.reviewer2.name).waitFor();
+    const rows = await db().select().from(assignments).where(eq(assignments.proposalId, round.proposal.id));
+    expect(rows).toHaveLength(2);
   });
 });
