@@ -94,6 +94,8 @@ export interface ProcessOptions {
   transport?: MailSender;
   /** Only these rows (a test drives its own messages while other workers run). */
   ids?: string[];
+  /** The clock that decides which queued messages are due (the database's now() when left out); leases always run on the database's clock. */
+  now?: Date;
 }
 
 export interface ProcessReport {
@@ -158,14 +160,15 @@ async function withTimeout<T>(work: Promise<T>, ms: number, what: string): Promi
 }
 
 /** Claims due messages: queued ones whose time came, and claimed ones whose lease ran out. */
-async function claimDue(limit: number, leaseSeconds: number, ids?: string[]) {
+async function claimDue(limit: number, leaseSeconds: number, ids?: string[], now?: Date) {
+  const clock = now ? sql`${now.toISOString()}::timestamptz` : sql`now()`;
   return db().transaction(async (tx) => {
     const due = await tx
       .select({ id: outboxMessages.id, status: outboxMessages.status })
       .from(outboxMessages)
       .where(
         and(
-          sql`((${outboxMessages.status} = 'queued' and ${outboxMessages.nextAttemptAt} <= now())
+          sql`((${outboxMessages.status} = 'queued' and ${outboxMessages.nextAttemptAt} <= ${clock})
             or (${outboxMessages.status} = 'sending' and ${outboxMessages.nextAttemptAt} <= now() - make_interval(secs => ${leaseSeconds})))`,
           ids ? inArray(outboxMessages.id, ids.length > 0 ? ids : ["00000000-0000-0000-0000-000000000000"]) : undefined,
         ),
@@ -199,7 +202,7 @@ export async function processOutbox(options: number | ProcessOptions = {}): Prom
   const opts: ProcessOptions = typeof options === "number" ? { limit: options } : options;
   const leaseSeconds = opts.leaseSeconds ?? DEFAULT_LEASE_SECONDS;
   const transport: MailSender = opts.transport ?? (mailTransport() as unknown as MailSender);
-  const claimed = await claimDue(opts.limit ?? 20, leaseSeconds, opts.ids);
+  const claimed = await claimDue(opts.limit ?? 20, leaseSeconds, opts.ids, opts.now);
 
   const report: ProcessReport = { sent: 0, retried: 0, failed: 0 };
   for (const message of claimed) {
