@@ -7,7 +7,6 @@ import {
   boardMembers,
   calls,
   checkResults,
-  conflicts,
   decisions,
   proposalCoauthors,
   proposalDrafts,
@@ -36,6 +35,7 @@ import { deleteObject, writeObject } from "@/storage/object-store";
 import { recordAudit } from "./audit";
 import { boardRole, isUuid } from "./boards";
 import { callState, loadCall } from "./calls";
+import { isConflicted as reviewerIsConflicted } from "./conflicts";
 
 type Db = Database | Transaction;
 
@@ -98,14 +98,8 @@ export async function proposalFacts(userId: string, proposal: ProposalRecord, tx
       .where(and(eq(assignments.boardId, proposal.boardId), eq(assignments.proposalId, proposal.id), eq(assignments.reviewerId, userId)))
       .limit(1);
     isAssigned = Boolean(a);
-    const [owner] = await tx.select({ organisation: users.organisation }).from(users).where(eq(users.id, proposal.ownerId)).limit(1);
-    const orgCondition = owner?.organisation ? sql`lower(${conflicts.organisation}) = lower(${owner.organisation})` : sql`false`;
-    const [c] = await tx
-      .select({ id: conflicts.id })
-      .from(conflicts)
-      .where(and(eq(conflicts.boardId, proposal.boardId), eq(conflicts.reviewerId, userId), or(eq(conflicts.proposalId, proposal.id), orgCondition)))
-      .limit(1);
-    isConflicted = Boolean(c);
+    // The same conflict rules as assignment: declared (proposal or organisation) or the same organisation as an author.
+    isConflicted = await reviewerIsConflicted(proposal.boardId, userId, proposal.id, tx);
   }
   return { role, isAuthor, isAssigned, isConflicted };
 }
