@@ -3,7 +3,7 @@ import { PageTitle } from "@/components/ui/panel";
 import { orNotFound, pageUser } from "@/lib/auth/page-guard";
 import { can } from "@/lib/auth/policy";
 import { getBoard, listBoardCalls } from "@/lib/dal/boards";
-import { BoardCallsSection, BoardStewardshipSection } from "./_components/board-sections";
+import { BoardCallsSection, BoardDossiersSection, BoardStewardshipSection } from "./_components/board-sections";
 import { BoardReviewSection } from "@/components/review/board-review-section";
 
 export const metadata: Metadata = { title: "Board" };
@@ -24,6 +24,7 @@ export default async function BoardHomePage({ params }: { params: Promise<{ boar
       </PageTitle>
       {/* One section per area; each decides from the policy whether it shows. */}
       <BoardCallsSection board={board} calls={calls} />
+      {board.myRole === "proposer" ? <BoardDossiersSection board={board} /> : null}
       <BoardReviewSection user={user} board={board} calls={calls} />
       {can(user, "members.manage", facts) ? <BoardStewardshipSection board={board} /> : null}
     </div>

@@ -33,10 +33,29 @@ export function BoardCallsSection({ board, calls }: { board: BoardView; calls: B
   );
 }
 
+export function BoardDossiersSection({ board }: { board: BoardView }) {
+  return (
+    <Panel id="dossiers" title="Your dossiers" description="Write a mission dossier for an open call, attach its files and submit it.">
+      <ul className="flex flex-wrap gap-3">
+        <li>
+          <Link href={`/boards/${board.id}/proposals`} className="inline-block rounded-chip bg-trajectory-600 px-3 py-1.5 font-semibold text-white hover:bg-trajectory-700">
+            Your proposals
+          </Link>
+        </li>
+      </ul>
+    </Panel>
+  );
+}
+
 export function BoardStewardshipSection({ board }: { board: BoardView }) {
   return (
     <Panel id="stewardship" title="Running the board" description="For chairs and administrators.">
       <ul className="flex flex-wrap gap-3">
+        <li>
+          <Link href={`/boards/${board.id}/calls`} className="inline-block rounded-chip border border-ink-300 px-3 py-1.5 font-semibold hover:border-trajectory-500">
+            Calls and their settings
+          </Link>
+        </li>
         <li>
           <Link href={`/boards/${board.id}/members`} className="inline-block rounded-chip border border-ink-300 px-3 py-1.5 font-semibold hover:border-trajectory-500">
             Members and invitations
@@ -45,6 +64,11 @@ export function BoardStewardshipSection({ board }: { board: BoardView }) {
         <li>
           <Link href={`/boards/${board.id}/settings`} className="inline-block rounded-chip border border-ink-300 px-3 py-1.5 font-semibold hover:border-trajectory-500">
             Board settings
+          </Link>
+        </li>
+        <li>
+          <Link href={`/boards/${board.id}/settings/letter`} className="inline-block rounded-chip border border-ink-300 px-3 py-1.5 font-semibold hover:border-trajectory-500">
+            Decision letter template
           </Link>
         </li>
       </ul>
