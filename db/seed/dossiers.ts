@@ -498,25 +498,37 @@ function petrel(): DossierSpec {
 function kite(): DossierSpec {
   const orbit = consistent({ label: "the operational orbit", kind: "orbit", body: "earth", given: { altitude: 600 }, claim: { period: 0 } });
   const sso = consistent({ label: "the sun-synchronous inclination", kind: "sunSynchronous", body: "earth", given: { altitude: 600 }, claim: { inclination: 2 } });
-  const phasing = consistent({ label: "the phasing of the second satellite", kind: "hohmann", body: "earth", given: { initialAltitude: 590, finalAltitude: 600 }, initialFrom: null, claim: { deltaVTotal: 3 } });
-  const pass = consistent({ label: "a pass over the Halden station", kind: "groundContact", body: "earth", given: { altitude: 600, minimumElevation: 10 }, claim: { maxPassDuration: 0 } });
+  const dropOff = consistent({ label: "the rideshare drop-off orbit", kind: "orbit", body: "earth", given: { altitude: 480 }, claim: { period: 0 } });
+  const raise = consistent({ label: "the raise to the operational orbit", kind: "hohmann", body: "earth", given: { initialAltitude: 480, finalAltitude: 600 }, initialFrom: dropOff.blockId, claim: { deltaVTotal: 3, transferTime: 0 } });
+  const disposal = consistent({ label: "the disposal burn", kind: "hohmann", body: "earth", given: { initialAltitude: 600, finalAltitude: 330 }, claim: { deltaV1: 3 } });
+  const maneuvers: Maneuver[] = [
+    { name: "raise from the drop-off orbit", deltaV: rounded(value(raise, "deltaVTotal"), 3) },
+    { name: "drag make-up, 7 years", deltaV: 0.05 },
+    { name: "disposal (perigee to 330 km)", deltaV: rounded(value(disposal, "deltaV1"), 3) },
+  ];
+  const dv = budget({ label: "the Δv budget", maneuvers, specificImpulse: 225, initialMass: 74, margin: 0.15, requiredMargin: 0.1 });
   return {
     key: "kite",
     call: "open",
     owner: "nadia",
     title: "Kite Ocean-Colour Pair",
     missionType: "earth-observation",
-    blocks: [orbit, sso, phasing, pass],
+    blocks: [orbit, sso, dropOff, raise, disposal, dv],
     doc: doc({
       "Mission objectives": [p("Kite follows Tern-1 with two satellites half an orbit apart, halving the revisit time of the coastal water products to one day.")],
       "Orbit design": [
-        p(`Both satellites fly at 600 km (period ${minutes(claimed(orbit, "period"))}), sun-synchronous at ${fixed(claimed(sso, "inclination"), 2)}°. The second satellite is released 10 km lower and drifts into place before a ${ms(claimed(phasing, "deltaVTotal"))} raise.`),
+        p(`Both satellites fly at 600 km (period ${minutes(claimed(orbit, "period"))}), sun-synchronous at ${fixed(claimed(sso, "inclination"), 2)}°.`),
         orbit,
         sso,
-        phasing,
-        pass,
+        p(`The only rideshare with a suitable node leaves its passengers at 480 km (period ${minutes(claimed(dropOff, "period"))}). Each satellite raises itself to 600 km with two burns, ${ms(claimed(raise, "deltaVTotal"))} in ${minutes(claimed(raise, "transferTime"))}; the second waits half an orbit before its first burn.`),
+        dropOff,
+        raise,
       ],
-      "Propulsion and Δv budget": [p("To be completed: the budget follows Tern-1's with a longer drag make-up allowance.")],
+      "Propulsion and Δv budget": [
+        p(`Draft: the green monopropellant system of Tern-1 (specific impulse 225 s) with 74 kg at separation gives ${ms(claimed(dv, "deltaVAvailable"))} against ${ms(claimed(dv, "deltaVRequired"))}, including a ${ms(claimed(disposal, "deltaV1"))} disposal burn.`),
+        disposal,
+        dv,
+      ],
       "Operations and risks": [p("Draft: operations reuse the Tern-1 ground segment.")],
     }),
     files: async () => [],
