@@ -2,7 +2,7 @@
 // organisations, addresses under the reserved example domains. Two relationships are on
 // purpose: Runa Halvorsen declares a conflict with one proposal, and Jonas Aberle shares
 // an e-mail domain with a proposer from another part of the same university (a likely
-// conflict the chair is warned about). Listed in docs/demo-accounts.md and the README.
+// conflict the chair is warned about). Listed in the README (section "Demo accounts").
 import type { BoardRole } from "@/db/schema";
 import { DEMO_ACCOUNTS, type SeedPerson } from "./accounts";
 
