@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, desc, eq, sql } from "drizzle-orm";
+import { and, asc, desc, eq, isNotNull, sql } from "drizzle-orm";
 import { db, type Database, type Transaction } from "@/db/client";
 import { boardMembers, boards, calls, type BoardRole } from "@/db/schema";
 import { authorize } from "@/lib/auth/policy";
@@ -69,20 +69,16 @@ export async function getBoard(user: SessionUser, boardId: string, permission: "
 
 /** The boards the caller is an active member of; admins see every board. */
 export async function listBoards(user: SessionUser): Promise<BoardView[]> {
-  // No single-resource permission applies: the membership join is the filter.
-  const myRole = sql<BoardRole | null>`(select ${boardMembers.role} from ${boardMembers}
-    where ${boardMembers.boardId} = ${boards.id} and ${boardMembers.userId} = ${user.id} and ${boardMembers.status} = 'active')`;
+  // No single-resource permission applies: the membership join is the filter. (A column
+  // inside a raw sql subquery renders unqualified, so the role comes from a real join.)
+  const membership = and(eq(boardMembers.boardId, boards.id), eq(boardMembers.userId, user.id), eq(boardMembers.status, "active"));
   const query = db()
-    .select({ ...boardColumns, myRole })
+    .select({ ...boardColumns, myRole: boardMembers.role })
     .from(boards)
+    .leftJoin(boardMembers, membership)
     .orderBy(asc(boards.name));
-  const rows = user.isAdmin
-    ? await query
-    : await query.where(
-        sql`exists (select 1 from ${boardMembers} where ${boardMembers.boardId} = ${boards.id}
-          and ${boardMembers.userId} = ${user.id} and ${boardMembers.status} = 'active')`,
-      );
-  return rows.map((r) => ({ ...r, myRole: r.myRole ?? null }));
+  const rows = user.isAdmin ? await query : await query.where(isNotNull(boardMembers.id));
+  return rows.map((r) => ({ ...r, myRole: (r.myRole as BoardRole | null) ?? null }));
 }
 
 function slugify(name: string): string {

@@ -41,6 +41,7 @@ describe("boards", () => {
     expect((await failure(getBoard(asSessionUser(cast.chair), "not-a-uuid"))).status).toBe(404);
     const mine = await listBoards(asSessionUser(cast.proposer));
     expect(mine.map((b) => b.id)).toEqual([cast.board.id]);
+    expect(mine[0]!.myRole).toBe("proposer");
     expect((await listBoards(asSessionUser(cast.admin))).map((b) => b.id)).toEqual(expect.arrayContaining([cast.board.id, cast.other.id]));
   });
 
