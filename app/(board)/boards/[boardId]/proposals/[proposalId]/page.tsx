@@ -7,6 +7,8 @@ import { AttachmentList } from "@/components/dossier/attachment-list";
 import { PageTitle, Panel } from "@/components/ui/panel";
 import { orNotFound, pageUser } from "@/lib/auth/page-guard";
 import { listAttachments } from "@/lib/dal/attachments";
+import { listReviewItems } from "@/lib/dal/review-items";
+import { ProposalReviewItems } from "@/components/review/proposal-review-items";
 import { getDraft, getProposal, getVersion, listVersions } from "@/lib/dal/proposals";
 import { deltaVBudget, evaluateBlocks, extractOrbitChecks } from "@/lib/dossier/claims";
 
@@ -19,7 +21,13 @@ export default async function ProposalPage({ params }: { params: Promise<{ board
   const { boardId, proposalId } = await params;
   const user = await pageUser(`/boards/${boardId}/proposals/${proposalId}`);
   const proposal = await orNotFound(getProposal(user, boardId, proposalId));
-  const [versions, attachments] = await Promise.all([listVersions(user, boardId, proposalId), listAttachments(user, boardId, proposalId)]);
+  const [versions, attachments, reviewItems] = await Promise.all([
+    listVersions(user, boardId, proposalId),
+    listAttachments(user, boardId, proposalId),
+    // Only the items the policy lets this viewer see: for proposers, none before a decision.
+    proposal.latestVersion > 0 ? listReviewItems(user, boardId, proposalId) : Promise.resolve([]),
+  ]);
+  const reviewItemsPanel = reviewItems.length > 0 ? <ProposalReviewItems boardId={boardId} initialItems={reviewItems} /> : null;
 
   const header = (
     <PageTitle eyebrow={`${proposal.callTitle} · ${STATUS_TEXT[proposal.status]}`} title={proposal.title}>
@@ -67,6 +75,7 @@ export default async function ProposalPage({ params }: { params: Promise<{ board
           callOpen={proposal.callState === "open"}
           callClosesAt={proposal.callClosesAt}
         />
+        {reviewItemsPanel}
         {versionList}
       </div>
     );
@@ -99,6 +108,7 @@ export default async function ProposalPage({ params }: { params: Promise<{ board
           <AttachmentList attachments={latest.attachments.map((a) => ({ ...a, contentPath: `/api/v1/boards/${boardId}/attachments/${a.attachmentId}/content` }))} />
         </div>
       </div>
+      {reviewItemsPanel}
       {versionList}
     </div>
   );

@@ -1,0 +1,17 @@
+"use client";
+// The review items the viewer may see on a proposal page (proposers: once the decision is
+// issued; reviewers' names are already replaced by the server). Replies go through the API.
+import { useState } from "react";
+import type { ReviewItemView } from "@/lib/dal/review-items";
+import { ReviewItemsPanel } from "./review-items-panel";
+
+export function ProposalReviewItems({ boardId, initialItems }: { boardId: string; initialItems: ReviewItemView[] }) {
+  const [items, setItems] = useState(initialItems);
+  return (
+    <ReviewItemsPanel
+      boardId={boardId}
+      items={items}
+      onChange={(changed) => setItems((current) => current.map((item) => (item.id === changed.id ? changed : item)))}
+    />
+  );
+}
