@@ -5,6 +5,7 @@ import {
   assignments,
   attachments,
   boardMembers,
+  boards,
   calls,
   checkResults,
   decisions,
@@ -36,6 +37,7 @@ import { recordAudit } from "./audit";
 import { boardRole, isUuid } from "./boards";
 import { callState, loadCall } from "./calls";
 import { isConflicted as reviewerIsConflicted } from "./conflicts";
+import { enqueueSubmissionReceipt } from "@/lib/mail/notices";
 
 type Db = Database | Transaction;
 
@@ -516,6 +518,23 @@ export async function submitProposal(user: SessionUser, boardId: string, proposa
       const counts = { consistent: 0, inconsistent: 0, invalid: 0 };
       for (const e of evaluations) counts[e.result.status] += 1;
       await recordAudit({ action: "proposal.submit", actorId: user.id, actorEmail: user.email, boardId, target: proposalId, details: { version: number, ...counts } }, tx);
+      // The receipt commits with the version, so every submitted version gets exactly one.
+      const authors = await tx
+        .select({ email: users.email })
+        .from(users)
+        .where(or(eq(users.id, fresh.ownerId), inArray(users.id, tx.select({ id: proposalCoauthors.userId }).from(proposalCoauthors).where(eq(proposalCoauthors.proposalId, proposalId)))));
+      const [board] = await tx.select({ name: boards.name }).from(boards).where(eq(boards.id, boardId)).limit(1);
+      await enqueueSubmissionReceipt(tx, {
+        boardId,
+        proposalId,
+        versionId: version!.id,
+        versionNumber: number,
+        boardName: board?.name ?? "",
+        callTitle: call.title,
+        proposalTitle: fresh.title,
+        submittedAt: new Date(),
+        to: authors.map((a) => a.email),
+      });
       return {
         versionId: version!.id,
         number,

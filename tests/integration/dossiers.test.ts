@@ -3,7 +3,7 @@
 import { describe, expect, it } from "vitest";
 import { and, eq } from "drizzle-orm";
 import { db } from "@/db/client";
-import { checkResults, decisions, proposalDrafts, proposals, proposalVersions } from "@/db/schema";
+import { checkResults, decisions, outboxMessages, proposalDrafts, proposals, proposalVersions } from "@/db/schema";
 import { createCall, listCalls, updateCall } from "@/lib/dal/calls";
 import { createProposal, getDraft, getVersion, getVersionHtml, listProposals, listVersions, saveDraft, startRevisionDraft, submitProposal, versionObjectKey } from "@/lib/dal/proposals";
 import { AppError } from "@/lib/errors";
@@ -174,6 +174,13 @@ describe("submission", () => {
     const result = await submitProposal(proposer, cast.board.id, proposal.id, { revision: saved.revision });
     expect(result.number).toBe(1);
     expect(result.counts).toEqual({ consistent: 2, inconsistent: 1, invalid: 0 });
+    // The authors' receipt is queued with the version, once.
+    const receipts = await db()
+      .select({ to: outboxMessages.toAddresses, subject: outboxMessages.subject })
+      .from(outboxMessages)
+      .where(eq(outboxMessages.dedupeKey, `submission-receipt:${result.versionId}`));
+    expect(receipts).toHaveLength(1);
+    expect(receipts[0]!.to).toEqual([cast.proposer.email]);
 
     const rows = await db()
       .select({ blockId: checkResults.blockId, status: checkResults.status, label: checkResults.label, claim: checkResults.claim, result: checkResults.result })
