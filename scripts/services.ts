@@ -262,15 +262,31 @@ async function startNodeService(config: ServiceConfig, service: NodeService): Pr
   log(`${service.name} started (pid ${child.pid}, log: ${logFile})`);
 }
 
+function sleepSync(ms: number): void {
+  Atomics.wait(new Int32Array(new SharedArrayBuffer(4)), 0, 0, ms);
+}
+
+/** Stops a stand-in and returns only once its process is gone, so its ports are free again. */
 function stopNodeService(config: ServiceConfig, service: NodeService): void {
   const pidFile = path.join(config.runDir, `${service.name}.pid`);
   const pid = readPid(pidFile);
   if (pid && pidAlive(pid)) {
-    try {
-      process.kill(-pid, "SIGTERM");
-    } catch {
-      process.kill(pid, "SIGTERM");
-    }
+    const signal = (name: NodeJS.Signals) => {
+      try {
+        process.kill(-pid, name);
+      } catch {
+        try {
+          process.kill(pid, name);
+        } catch {
+          // already gone
+        }
+      }
+    };
+    signal("SIGTERM");
+    const deadline = Date.now() + 5_000;
+    while (pidAlive(pid) && Date.now() < deadline) sleepSync(50);
+    if (pidAlive(pid)) signal("SIGKILL");
+    while (pidAlive(pid) && Date.now() < deadline + 2_000) sleepSync(50);
     log(`${service.name} stopped`);
   }
   fs.rmSync(pidFile, { force: true });
