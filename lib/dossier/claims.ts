@@ -129,6 +129,30 @@ export const MANEUVER_DELTA_V: Record<string, string> = {
   interplanetaryHohmann: "departureDeltaV",
 };
 
+/** Kinds whose total splits into burns a dossier may use only some of (e.g. a disposal that only lowers periapsis). */
+const SEPARATE_BURNS: Record<string, readonly string[]> = {
+  hohmann: ["deltaV1", "deltaV2"],
+  biElliptic: ["deltaV1", "deltaV2", "deltaV3"],
+};
+
+/**
+ * The Δv a maneuver block contributes: when the dossier claims only some of the burns (and
+ * not the total), those burns; otherwise the kind's total.
+ */
+function maneuverDeltaV(kind: string, quantity: string, claimed: Record<string, unknown> | undefined, computed: Record<string, unknown>): { deltaV: number | null; claimed: number | null } {
+  const burns = (SEPARATE_BURNS[kind] ?? []).filter((b) => claimed && b in claimed);
+  if (burns.length > 0 && !(claimed && quantity in claimed)) {
+    const values = burns.map((b) => num(computed[b]));
+    if (values.some((v) => v === null)) return { deltaV: null, claimed: null };
+    const claimedValues = burns.map((b) => num(claimed?.[b]));
+    return {
+      deltaV: (values as number[]).reduce((a, b) => a + b, 0),
+      claimed: claimedValues.some((v) => v === null) ? null : (claimedValues as number[]).reduce((a, b) => a + b, 0),
+    };
+  }
+  return { deltaV: num(computed[quantity]), claimed: num(claimed?.[quantity]) };
+}
+
 export interface DeltaVBudget {
   maneuvers: { blockId: string; label: string; kind: string; deltaV: number; claimedDeltaV: number | null }[];
   /** Sum of the recomputed maneuver Δv, km/s. */
@@ -153,15 +177,9 @@ export function deltaVBudget(evaluations: readonly BlockEvaluation[]): DeltaVBud
     const kind = ev.block.claim.kind;
     const quantity = MANEUVER_DELTA_V[kind];
     if (quantity) {
-      const dv = num(ev.result.computed[quantity]);
-      if (dv !== null) {
-        maneuvers.push({
-          blockId: ev.block.blockId,
-          label: ev.block.label || kind,
-          kind,
-          deltaV: dv,
-          claimedDeltaV: num(ev.block.claim.claimed?.[quantity]),
-        });
+      const { deltaV, claimed } = maneuverDeltaV(kind, quantity, ev.block.claim.claimed, ev.result.computed);
+      if (deltaV !== null) {
+        maneuvers.push({ blockId: ev.block.blockId, label: ev.block.label || kind, kind, deltaV, claimedDeltaV: claimed });
       }
     }
     if (available === null && (kind === "rocket" || kind === "deltaVBudget")) {

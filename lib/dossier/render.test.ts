@@ -77,4 +77,19 @@ describe("dossier sanitizer and renderer", () => {
     expect(budget.required).toBeCloseTo(budget.maneuvers[0]!.deltaV + budget.maneuvers[1]!.deltaV, 9);
     expect(budget.margin).toBeCloseTo((budget.available! - budget.required) / budget.required, 9);
   });
+
+  it("counts only the burns a maneuver block claims, when it does not claim the total", () => {
+    const disposal = (claimed: Record<string, number>) => ({
+      type: "doc",
+      content: [{ type: "orbitCheck", attrs: { blockId: "00000000-0000-4000-8000-000000000005", label: "disposal", claim: { kind: "hohmann", body: "earth", given: { initialAltitude: 600, finalAltitude: 200 }, claimed } } }],
+    });
+    const firstBurnOnly = deltaVBudget(evaluateBlocks(extractOrbitChecks(disposal({ deltaV1: 0.1 }))));
+    const total = deltaVBudget(evaluateBlocks(extractOrbitChecks(disposal({ deltaVTotal: 0.2 }))));
+    const both = deltaVBudget(evaluateBlocks(extractOrbitChecks(disposal({ deltaV1: 0.1, deltaVTotal: 0.2 }))));
+    // A Hohmann transfer's two burns are never equal between different radii, so the first alone is less than the total.
+    expect(firstBurnOnly.required).toBeLessThan(total.required);
+    expect(firstBurnOnly.required).toBeGreaterThan(0);
+    expect(firstBurnOnly.maneuvers[0]!.claimedDeltaV).toBe(0.1);
+    expect(both.required).toBeCloseTo(total.required, 12);
+  });
 });
