@@ -4,7 +4,8 @@
 // (page, pageSize, sort, dir, q) and the page's server component reads them back.
 import { useState } from "react";
 import { usePathname, useRouter, useSearchParams } from "next/navigation";
-import { flexRender, getCoreRowModel, useReactTable, type ColumnDef, type SortingState } from "@tanstack/react-table";
+import { getCoreRowModel, useReactTable, type ColumnDef, type SortingState } from "@tanstack/react-table";
+import { TableView } from "./table-view";
 
 export interface DataTableProps<TRow> {
   /** Read by screen readers and shown above the table. */
@@ -106,57 +107,7 @@ export function DataTable<TRow>({ caption, columns, rows, total, page, pageSize,
         </form>
       ) : null}
       <div className="overflow-x-auto rounded-panel border border-ink-200 bg-white">
-        <table className="w-full border-collapse text-left text-sm">
-          <caption className="sr-only">{caption}</caption>
-          <thead className="bg-ink-50 text-ink-700">
-            {table.getHeaderGroups().map((group) => (
-              <tr key={group.id}>
-                {group.headers.map((header) => {
-                  const sorted = header.column.getIsSorted();
-                  const label = header.isPlaceholder ? null : flexRender(header.column.columnDef.header, header.getContext());
-                  return (
-                    <th
-                      key={header.id}
-                      scope="col"
-                      aria-sort={sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : undefined}
-                      className="border-b border-ink-200 px-3 py-2 font-semibold"
-                    >
-                      {header.column.getCanSort() ? (
-                        <button type="button" onClick={header.column.getToggleSortingHandler()} className="inline-flex items-center gap-1 hover:text-trajectory-700">
-                          {label}
-                          <span aria-hidden className="font-mono text-xs text-ink-400">
-                            {sorted === "asc" ? "▲" : sorted === "desc" ? "▼" : "↕"}
-                          </span>
-                        </button>
-                      ) : (
-                        label
-                      )}
-                    </th>
-                  );
-                })}
-              </tr>
-            ))}
-          </thead>
-          <tbody>
-            {table.getRowModel().rows.length === 0 ? (
-              <tr>
-                <td colSpan={columns.length} className="px-3 py-6 text-center text-ink-500">
-                  {emptyText}
-                </td>
-              </tr>
-            ) : (
-              table.getRowModel().rows.map((row) => (
-                <tr key={row.id} className="border-b border-ink-100 last:border-b-0 hover:bg-ink-50/60">
-                  {row.getVisibleCells().map((cell) => (
-                    <td key={cell.id} className="px-3 py-2 align-top">
-                      {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                    </td>
-                  ))}
-                </tr>
-              ))
-            )}
-          </tbody>
-        </table>
+        <TableView table={table} caption={caption} emptyText={emptyText} rowClassName={() => "hover:bg-ink-50/60"} />
       </div>
       <nav aria-label={`${caption} pages`} className="flex flex-wrap items-center justify-between gap-2 text-sm text-ink-600">
         <p>

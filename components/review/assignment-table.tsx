@@ -3,7 +3,8 @@
 // row checkboxes for bulk assignment, and the board's reviewers with their current load.
 import { useMemo, useState } from "react";
 import { useRouter } from "next/navigation";
-import { createColumnHelper, flexRender, getCoreRowModel, getSortedRowModel, useReactTable, type RowSelectionState, type SortingState } from "@tanstack/react-table";
+import { createColumnHelper, getCoreRowModel, getSortedRowModel, useReactTable, type RowSelectionState, type SortingState } from "@tanstack/react-table";
+import { TableView } from "@/components/data-table/table-view";
 import type { AssignmentBoard } from "@/lib/dal/assignments";
 import { callApi, dateOnly } from "./api";
 
@@ -129,48 +130,7 @@ export function AssignmentTable({ boardId, data }: { boardId: string; data: Assi
   return (
     <div className="grid gap-6 xl:grid-cols-[minmax(0,1fr)_22rem]">
       <div className="overflow-x-auto rounded-panel border border-ink-200 bg-white">
-        <table className="w-full border-collapse text-left text-sm">
-          <caption className="sr-only">Submitted proposals and their reviewers</caption>
-          <thead className="bg-ink-50 text-ink-700">
-            {table.getHeaderGroups().map((g) => (
-              <tr key={g.id}>
-                {g.headers.map((h) => (
-                  <th key={h.id} scope="col" className="border-b border-ink-200 px-3 py-2 font-semibold" aria-sort={h.column.getIsSorted() === "asc" ? "ascending" : h.column.getIsSorted() === "desc" ? "descending" : undefined}>
-                    {h.column.getCanSort() ? (
-                      <button type="button" onClick={h.column.getToggleSortingHandler()} className="inline-flex gap-1 hover:text-trajectory-700">
-                        {flexRender(h.column.columnDef.header, h.getContext())}
-                        <span aria-hidden className="font-mono text-xs text-ink-400">
-                          {h.column.getIsSorted() === "asc" ? "▲" : h.column.getIsSorted() === "desc" ? "▼" : "↕"}
-                        </span>
-                      </button>
-                    ) : (
-                      flexRender(h.column.columnDef.header, h.getContext())
-                    )}
-                  </th>
-                ))}
-              </tr>
-            ))}
-          </thead>
-          <tbody>
-            {table.getRowModel().rows.length === 0 ? (
-              <tr>
-                <td colSpan={columns.length} className="px-3 py-6 text-center text-ink-500">
-                  No submitted proposals in this call yet.
-                </td>
-              </tr>
-            ) : (
-              table.getRowModel().rows.map((row) => (
-                <tr key={row.id} className={`border-b border-ink-100 align-top ${row.getIsSelected() ? "bg-trajectory-100/50" : ""}`}>
-                  {row.getVisibleCells().map((cell) => (
-                    <td key={cell.id} className="px-3 py-2">
-                      {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                    </td>
-                  ))}
-                </tr>
-              ))
-            )}
-          </tbody>
-        </table>
+        <TableView table={table} caption="Submitted proposals and their reviewers" emptyText="No submitted proposals in this call yet." rowClassName={(row) => (row.getIsSelected() ? "bg-trajectory-100/50" : "")} />
       </div>
       <aside aria-labelledby="assign-heading" className="space-y-3 rounded-panel border border-ink-200 bg-white p-4 shadow-panel">
         <h2 id="assign-heading" className="text-lg font-semibold">

@@ -2,7 +2,8 @@
 // The chair's overview of a call: sortable, filterable, with a score-distribution chart per
 // proposal and a CSV export (the server builds the file).
 import { useMemo, useState } from "react";
-import { createColumnHelper, flexRender, getCoreRowModel, getFilteredRowModel, getSortedRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
+import { createColumnHelper, getCoreRowModel, getFilteredRowModel, getSortedRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
+import { TableView } from "@/components/data-table/table-view";
 import type { CallOverview, OverviewRow } from "@/lib/dal/reviews";
 import { formatScore } from "./api";
 import { ScoreChart } from "./score-chart";
@@ -107,48 +108,7 @@ export function OverviewTable({ boardId, overview }: { boardId: string; overview
         </a>
       </div>
       <div className="overflow-x-auto rounded-panel border border-ink-200 bg-white">
-        <table className="w-full border-collapse text-left text-sm">
-          <caption className="sr-only">Scores and flags per proposal</caption>
-          <thead className="bg-ink-50 text-ink-700">
-            {table.getHeaderGroups().map((g) => (
-              <tr key={g.id}>
-                {g.headers.map((h) => (
-                  <th key={h.id} scope="col" className="border-b border-ink-200 px-3 py-2 font-semibold" aria-sort={h.column.getIsSorted() === "asc" ? "ascending" : h.column.getIsSorted() === "desc" ? "descending" : undefined}>
-                    {h.column.getCanSort() ? (
-                      <button type="button" onClick={h.column.getToggleSortingHandler()} className="inline-flex gap-1 text-left hover:text-trajectory-700">
-                        {flexRender(h.column.columnDef.header, h.getContext())}
-                        <span aria-hidden className="font-mono text-xs text-ink-400">
-                          {h.column.getIsSorted() === "asc" ? "▲" : h.column.getIsSorted() === "desc" ? "▼" : "↕"}
-                        </span>
-                      </button>
-                    ) : (
-                      flexRender(h.column.columnDef.header, h.getContext())
-                    )}
-                  </th>
-                ))}
-              </tr>
-            ))}
-          </thead>
-          <tbody>
-            {table.getRowModel().rows.length === 0 ? (
-              <tr>
-                <td colSpan={columns.length} className="px-3 py-6 text-center text-ink-500">
-                  Nothing matches.
-                </td>
-              </tr>
-            ) : (
-              table.getRowModel().rows.map((row) => (
-                <tr key={row.id} data-proposal={row.id} className="border-b border-ink-100 align-middle">
-                  {row.getVisibleCells().map((cell) => (
-                    <td key={cell.id} className="px-3 py-2">
-                      {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                    </td>
-                  ))}
-                </tr>
-              ))
-            )}
-          </tbody>
-        </table>
+        <TableView table={table} caption="Scores and flags per proposal" emptyText="Nothing matches." rowData={(row) => ({ "data-proposal": row.id })} />
       </div>
       <p className="text-xs text-ink-500">
         Weighted mean: the mean of the submitted reviews&apos; weighted totals (each Σ weight × score / 100). Spread: their sample standard deviation (n − 1), shown once two

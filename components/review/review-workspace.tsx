@@ -3,7 +3,8 @@
 // rubric as an editable table. Scores autosave with the review's revision; a stale save is
 // refused by the server (409) and what the reviewer typed stays on screen.
 import { useCallback, useEffect, useMemo, useRef, useState } from "react";
-import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from "@tanstack/react-table";
+import { createColumnHelper, getCoreRowModel, useReactTable } from "@tanstack/react-table";
+import { TableView } from "@/components/data-table/table-view";
 import { VerdictBadge } from "@/components/dossier/verdict-badge";
 import type { CheckRow, ReviewScreen, ReviewState } from "@/lib/dal/reviews";
 import type { ReviewItemView } from "@/lib/dal/review-items";
@@ -351,31 +352,7 @@ function RubricTable({
   const table = useReactTable({ data: criteria, columns, getRowId: (c) => c.id, getCoreRowModel: getCoreRowModel() });
   return (
     <div className="overflow-x-auto">
-      <table className="w-full border-collapse text-left text-sm">
-        <caption className="sr-only">Rubric criteria with your scores and comments</caption>
-        <thead className="bg-ink-50 text-ink-700">
-          {table.getHeaderGroups().map((group) => (
-            <tr key={group.id}>
-              {group.headers.map((header) => (
-                <th key={header.id} scope="col" className="border-b border-ink-200 px-2 py-1.5 font-semibold">
-                  {flexRender(header.column.columnDef.header, header.getContext())}
-                </th>
-              ))}
-            </tr>
-          ))}
-        </thead>
-        <tbody>
-          {table.getRowModel().rows.map((row) => (
-            <tr key={row.id} data-criterion={row.id} className="border-b border-ink-100 align-top">
-              {row.getVisibleCells().map((cell) => (
-                <td key={cell.id} className="px-2 py-2">
-                  {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                </td>
-              ))}
-            </tr>
-          ))}
-        </tbody>
-      </table>
+      <TableView table={table} caption="Rubric criteria with your scores and comments" dense rowData={(row) => ({ "data-criterion": row.id })} />
     </div>
   );
 }
