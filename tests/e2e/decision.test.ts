@@ -4,35 +4,17 @@
 // the two versions and asks the same reviewers again, and an admin sees the mail as sent.
 import { createRequire } from "node:module";
 import { eq } from "drizzle-orm";
-import type { Browser, Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { db } from "@/db/client";
 import { assignments, proposalVersions } from "@/db/schema";
-import { appUrl } from "../support/app";
-import { launchBrowser, newPage, signInThroughPage } from "../support/browser";
-import { TEST_PASSWORD } from "../support/factories";
+import { browserSession } from "../support/browser";
 import { decisionScenario } from "../integration/decision-fixtures";
 import { caughtMessages, waitFor } from "../integration/outbox-support";
 
 const pdfParse = createRequire(import.meta.url)("pdf-parse/lib/pdf-parse.js") as (data: Buffer) => Promise<{ text: string }>;
 
 describe("deciding, resubmitting and comparing in the browser", () => {
-  let browser: Browser;
-
-  beforeAll(async () => {
-    await appUrl();
-    browser = await launchBrowser();
-  });
-
-  afterAll(async () => {
-    await browser?.close();
-  });
-
-  async function as(email: string): Promise<Page> {
-    const page = await newPage(browser);
-    await signInThroughPage(page, email, TEST_PASSWORD);
-    return page;
-  }
+  const { as } = browserSession();
 
   it("runs a revise-and-resubmit round end to end", async () => {
     const s = await decisionScenario();

@@ -1,30 +1,19 @@
 // Two tabs edit the same draft: the stale one is refused (409), keeps its text, and the
 // author reloads the latest revision and reapplies their changes; nothing typed is lost.
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { Browser } from "playwright-core";
+import { describe, expect, it } from "vitest";
 import { asSessionUser } from "../support/factories";
-import { appUrl } from "../support/app";
-import { launchBrowser, newPage, signInThroughPage } from "../support/browser";
+import { signInThroughPage, browserSession } from "../support/browser";
 import { TEST_PASSWORD } from "../support/factories";
 import { getDraft } from "@/lib/dal/proposals";
 import { makeProposal } from "../integration/matrix/dossiers";
 
 describe("autosave conflicts in the browser", () => {
-  let browser: Browser;
-
-  beforeAll(async () => {
-    await appUrl();
-    browser = await launchBrowser();
-  });
-
-  afterAll(async () => {
-    await browser?.close();
-  });
+  const { page: openPage } = browserSession();
 
   it("refuses the stale tab's save and recovers without losing its text", async () => {
     const { cast, proposal } = await makeProposal();
-    const first = await newPage(browser);
-    const second = await newPage(browser);
+    const first = await openPage();
+    const second = await openPage();
     try {
       for (const page of [first, second]) {
         await signInThroughPage(page, cast.proposer.email, TEST_PASSWORD);

@@ -1,10 +1,9 @@
 // A proposer in a real browser: writes a dossier with a consistent and an inconsistent
 // orbit-check block (live verdicts), uploads a PDF (progress to 100 %), submits, and sees the
 // server's own flag on the inconsistent claim.
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { Browser, Locator, Page } from "playwright-core";
-import { appUrl } from "../support/app";
-import { launchBrowser, newPage, signInThroughPage } from "../support/browser";
+import { describe, expect, it } from "vitest";
+import type { Locator, Page } from "playwright-core";
+import { signInThroughPage, browserSession } from "../support/browser";
 import { createBoardWithCast, TEST_PASSWORD } from "../support/factories";
 import { makeCall } from "../integration/matrix/dossiers";
 
@@ -21,21 +20,12 @@ async function fillBlock(page: Page, block: Locator, name: string, altitude: str
 }
 
 describe("writing and submitting a dossier in the browser", () => {
-  let browser: Browser;
-
-  beforeAll(async () => {
-    await appUrl();
-    browser = await launchBrowser();
-  });
-
-  afterAll(async () => {
-    await browser?.close();
-  });
+  const { page: openPage } = browserSession();
 
   it("checks claims live, uploads a PDF, submits, and shows the server's verdicts", async () => {
     const cast = await createBoardWithCast();
     const call = await makeCall(cast, { requiredSections: ["Mission design"] });
-    const page = await newPage(browser);
+    const page = await openPage();
     const errors: string[] = [];
     page.on("pageerror", (e) => errors.push(e.message));
     try {

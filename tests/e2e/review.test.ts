@@ -3,34 +3,17 @@
 // aggregate on the call overview. Board, call, rubric, proposal, version and assignments are
 // made in the database first.
 import { and, eq } from "drizzle-orm";
-import type { Browser, Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { db } from "@/db/client";
 import { assignments, reviewItems, reviews } from "@/db/schema";
 import { assignReviewers } from "@/lib/dal/assignments";
 import { saveReviewDraft, submitReview } from "@/lib/dal/reviews";
-import { appUrl } from "../support/app";
-import { launchBrowser, newPage, signInThroughPage } from "../support/browser";
+import { signInThroughPage, browserSession } from "../support/browser";
 import { asSessionUser, TEST_PASSWORD } from "../support/factories";
 import { createReviewRound, inFuture } from "../integration/review-fixtures";
 
 describe("reviewing in the browser", () => {
-  let browser: Browser;
-
-  beforeAll(async () => {
-    await appUrl();
-    browser = await launchBrowser();
-  });
-
-  afterAll(async () => {
-    await browser?.close();
-  });
-
-  async function as(email: string): Promise<Page> {
-    const page = await newPage(browser);
-    await signInThroughPage(page, email, TEST_PASSWORD);
-    return page;
-  }
+  const { as } = browserSession();
 
   it("scores a rubric, raises a review item on selected text, submits, and the chair sees the aggregate", async () => {
     const round = await createReviewRound();
@@ -129,20 +112,11 @@ describe("reviewing in the browser", () => {
 });
 
 describe("chairing a review round in the browser", () => {
-  let browser: Browser;
-
-  beforeAll(async () => {
-    await appUrl();
-    browser = await launchBrowser();
-  });
-
-  afterAll(async () => {
-    await browser?.close();
-  });
+  const { page: openPage } = browserSession();
 
   it("edits the rubric (refused at 90 %), then bulk-assigns after confirming a likely conflict", async () => {
     const round = await createReviewRound({ rubric: false });
-    const page = await newPage(browser);
+    const page = await openPage();
     await signInThroughPage(page, round.chair.email, TEST_PASSWORD);
 
     await page.goto(`/boards/${round.board.id}/calls/${round.call.id}/rubric`);

@@ -1,22 +1,11 @@
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { Browser } from "playwright-core";
-import { appUrl } from "../support/app";
-import { launchBrowser, newPage } from "../support/browser";
+import { describe, expect, it } from "vitest";
+import { browserSession } from "../support/browser";
 
 describe("smoke: the landing page in a real browser", () => {
-  let browser: Browser;
-
-  beforeAll(async () => {
-    await appUrl();
-    browser = await launchBrowser();
-  });
-
-  afterAll(async () => {
-    await browser?.close();
-  });
+  const { page: openPage } = browserSession();
 
   it("says what VisViva does and reports every service ok", async () => {
-    const page = await newPage(browser);
+    const page = await openPage();
     await page.goto("/");
     await expect(page.getByRole("heading", { level: 1 }).textContent()).resolves.toMatch(/mission proposals/i);
     await expect(page.getByText(/recomputes every orbit and Δv claim/i).count()).resolves.toBe(1);

@@ -1,5 +1,8 @@
 // Debian's chromium driven by playwright-core (no browser download).
 import { chromium, type Browser, type Page } from "playwright-core";
+import { afterAll, beforeAll } from "vitest";
+import { appUrl } from "./app";
+import { TEST_PASSWORD } from "./factories";
 import { baseUrl } from "./http";
 
 export const CHROMIUM_PATH = process.env.CHROMIUM_PATH ?? "/usr/bin/chromium";
@@ -24,4 +27,33 @@ export async function signInThroughPage(page: Page, email: string, password: str
   await page.getByLabel("Password", { exact: true }).fill(password);
   await page.getByRole("button", { name: /^sign in$/i }).click();
   await page.waitForURL((url) => !url.pathname.startsWith("/sign-in"), { timeout: 30_000 });
+}
+
+/**
+ * One browser for a describe block: launched (after the app is up) in beforeAll and closed in
+ * afterAll. `page()` opens a fresh page; `as(email)` opens one signed in through /sign-in.
+ */
+export function browserSession(options: { onPage?: (page: Page, email: string | null) => void } = {}) {
+  let browser: Browser | undefined;
+  beforeAll(async () => {
+    await appUrl();
+    browser = await launchBrowser();
+  });
+  afterAll(async () => {
+    await browser?.close();
+  });
+  const page = async (): Promise<Page> => {
+    if (!browser) throw new Error("the browser is not up yet: call page() inside a test");
+    const opened = await newPage(browser);
+    options.onPage?.(opened, null);
+    return opened;
+  };
+  const as = async (email: string, password = TEST_PASSWORD): Promise<Page> => {
+    if (!browser) throw new Error("the browser is not up yet: call as() inside a test");
+    const opened = await newPage(browser);
+    options.onPage?.(opened, email);
+    await signInThroughPage(opened, email, password);
+    return opened;
+  };
+  return { page, as };
 }
