@@ -22,7 +22,7 @@ describe("parseEnv", () => {
 
   it("lists every missing required variable at once", () => {
     expect(() => parseEnv({})).toThrow(REQUIRED_VARIABLES.join(", "));
-    const { SMTP_URL: _smtp, S3_BUCKET: _bucket, ...rest } = complete;
+    const rest: Record<string, string | undefined> = { ...complete, SMTP_URL: undefined, S3_BUCKET: undefined };
     expect(() => parseEnv(rest)).toThrow("missing environment variables: S3_BUCKET, SMTP_URL");
   });
 
