@@ -3,7 +3,7 @@ import type { NextConfig } from "next";
 const nextConfig: NextConfig = {
   // The test suite builds into its own folder so it can run while the demo is served.
   distDir: process.env.NEXT_DIST_DIR ?? ".next",
-  serverExternalPackages: ["pg", "@node-rs/argon2", "pg-boss", "minio", "nodemailer"],
+  serverExternalPackages: ["pg", "@node-rs/argon2", "minio", "nodemailer"],
   poweredByHeader: false,
   // The build type-checks the application only; tests and scripts are checked by `npm test`.
   typescript: { tsconfigPath: "tsconfig.build.json" },
