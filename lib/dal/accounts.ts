@@ -4,14 +4,14 @@ import { db } from "@/db/client";
 import { accountTokens, boardMembers, boards, rateLimitBuckets, users, userSessions } from "@/db/schema";
 import { hashPassword, verifyPassword } from "@/lib/auth/passwords";
 import { newToken } from "@/lib/auth/tokens";
-import { revokeOtherSessions, type SessionUser } from "@/lib/dal/sessions";
+import { consumeAccountToken, revokeOtherSessions, type SessionUser } from "@/lib/dal/sessions";
 import { recordAudit } from "@/lib/dal/audit";
 import { boardOpenForRegistration } from "@/lib/dal/boards";
 import { env } from "@/lib/env";
 import { conflict, notFound, tooManyRequests, unauthenticated, unprocessable } from "@/lib/errors";
 import { enqueueMail } from "@/lib/mail/outbox";
 import { renderMail } from "@/lib/mail/templates/layout";
-import type { changePasswordSchema, registerProposerSchema, signInLinkRequestSchema } from "@/lib/validation/accounts";
+import type { changePasswordSchema, passwordResetRequestSchema, passwordResetSchema, registerProposerSchema, signInLinkRequestSchema } from "@/lib/validation/accounts";
 import type { z } from "zod";
 
 // Account functions act on the caller's own account only: the session user IS the
@@ -148,6 +148,77 @@ export async function requestSignInLink(input: z.infer<typeof signInLinkRequestS
     await recordAudit({ action: "sign-in-link.requested", actorId: account.id, actorEmail: account.email, ipAddress, details: { sent: true } }, tx);
   });
   return { message: SIGN_IN_LINK_SENT };
+}
+
+export const PASSWORD_RESET_MINUTES = 30;
+
+export const PASSWORD_RESET_SENT =
+  "If that address belongs to an active VisViva account, a link to choose a new password is on its way. It works once, for 30 minutes.";
+
+export function passwordResetUrl(token: string): string {
+  return `${env().APP_URL.replace(/\/$/, "")}/sign-in/reset?token=${encodeURIComponent(token)}`;
+}
+
+/**
+ * Mails a single-use link to choose a new password, under the same rules as sign-in links:
+ * the same answer whether or not the address has an account, limited per address and client.
+ */
+export async function requestPasswordReset(input: z.infer<typeof passwordResetRequestSchema>, meta: { ipAddress?: string | null } = {}): Promise<{ message: string }> {
+  const ipAddress = meta.ipAddress ?? "local";
+  await consumeRateLimit(`password-reset:client:${ipAddress}`, SIGN_IN_LINKS_PER_CLIENT, LINK_WINDOW_SECONDS, "Too many password resets were asked for from this network.");
+  await consumeRateLimit(`password-reset:address:${input.email}`, SIGN_IN_LINKS_PER_ADDRESS, LINK_WINDOW_SECONDS, "Too many password resets were asked for this address.");
+  const [account] = await db()
+    .select({ id: users.id, email: users.email, name: users.name })
+    .from(users)
+    .where(and(sql`lower(${users.email}) = ${input.email}`, eq(users.status, "active")));
+  if (!account) {
+    await recordAudit({ action: "password-reset.requested", actorEmail: input.email, ipAddress, details: { sent: false } });
+    return { message: PASSWORD_RESET_SENT };
+  }
+  const { token, tokenHash } = newToken();
+  await db().transaction(async (tx) => {
+    const [row] = await tx
+      .insert(accountTokens)
+      .values({ purpose: "password-reset", email: account.email, tokenHash, expiresAt: new Date(Date.now() + PASSWORD_RESET_MINUTES * 60_000) })
+      .returning({ id: accountTokens.id });
+    const mail = await renderMail({
+      subject: "Choose a new VisViva password",
+      preview: `Choose a new password; the link works once, for ${PASSWORD_RESET_MINUTES} minutes.`,
+      heading: "Choose a new password",
+      paragraphs: [
+        `Hello ${account.name}, use the button below to choose a new password. The link works once and expires in ${PASSWORD_RESET_MINUTES} minutes.`,
+        "Choosing a new password signs you out of every browser.",
+      ],
+      action: { label: "Choose a new password", url: passwordResetUrl(token) },
+      footnote: "You receive this because someone asked to reset the password of this address. If it was not you, ignore this message; your password stays as it is.",
+    });
+    await enqueueMail({ kind: "password-reset", dedupeKey: `password-reset:${row!.id}`, to: [account.email], ...mail }, tx);
+    await recordAudit({ action: "password-reset.requested", actorId: account.id, actorEmail: account.email, ipAddress, details: { sent: true } }, tx);
+  });
+  return { message: PASSWORD_RESET_SENT };
+}
+
+/** Sets a new password from a reset link (single use) and signs the account out everywhere. */
+export async function resetPassword(input: z.infer<typeof passwordResetSchema>, meta: { ipAddress?: string | null } = {}): Promise<{ email: string }> {
+  const passwordHash = await hashPassword(input.password);
+  return db().transaction(async (tx) => {
+    const email = await consumeAccountToken("password-reset", input.token, tx);
+    const [account] = email
+      ? await tx
+          .select({ id: users.id, email: users.email })
+          .from(users)
+          .where(and(sql`lower(${users.email}) = lower(${email})`, eq(users.status, "active")))
+      : [];
+    if (!account) throw unprocessable("This reset link is invalid, already used or expired. Ask for a new one on the sign-in page.");
+    await tx.update(users).set({ passwordHash, updatedAt: new Date() }).where(eq(users.id, account.id));
+    const revoked = await tx
+      .update(userSessions)
+      .set({ revokedAt: new Date() })
+      .where(and(eq(userSessions.userId, account.id), isNull(userSessions.revokedAt)))
+      .returning({ id: userSessions.id });
+    await recordAudit({ action: "password.reset", actorId: account.id, actorEmail: account.email, target: `user:${account.id}`, details: { revokedSessions: revoked.length }, ipAddress: meta.ipAddress }, tx);
+    return { email: account.email };
+  });
 }
 
 export const REGISTRATIONS_PER_CLIENT = 10;

@@ -1,6 +1,6 @@
 import "server-only";
 import { and, eq, gt, isNull, sql } from "drizzle-orm";
-import { db } from "@/db/client";
+import { db, type Database, type Transaction } from "@/db/client";
 import { accountTokens, signInAttempts, users, userSessions } from "@/db/schema";
 import { hashToken } from "@/lib/auth/tokens";
 
@@ -95,8 +95,8 @@ export async function recordSignInAttempt(email: string, ipAddress: string, succ
 }
 
 /** Uses a single-use account token; returns its e-mail, or null when unknown, used or expired. */
-export async function consumeAccountToken(purpose: "sign-in-link" | "password-reset", token: string): Promise<string | null> {
-  const [row] = await db()
+export async function consumeAccountToken(purpose: "sign-in-link" | "password-reset", token: string, tx: Database | Transaction = db()): Promise<string | null> {
+  const [row] = await tx
     .update(accountTokens)
     .set({ usedAt: new Date() })
     .where(

@@ -36,6 +36,16 @@ const formBoolean = z.preprocess((v) => (v === "on" || v === "true" ? true : v =
 
 export const signInLinkRequestSchema = z.object({ email: emailSchema });
 
+export const passwordResetRequestSchema = z.object({ email: emailSchema });
+
+export const passwordResetSchema = z
+  .object({
+    token: z.string().min(10, "This reset link is incomplete: open it again from the e-mail.").max(200),
+    password: newPasswordSchema,
+    confirmPassword: z.string().max(MAX_PASSWORD_LENGTH),
+  })
+  .refine((v) => v.password === v.confirmPassword, { path: ["confirmPassword"], message: "The two passwords differ." });
+
 export const changePasswordSchema = z
   .object({
     currentPassword: z.string({ error: "Enter your current password." }).min(1, "Enter your current password.").max(MAX_PASSWORD_LENGTH),

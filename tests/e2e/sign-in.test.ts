@@ -5,6 +5,7 @@ import type { Browser } from "playwright-core";
 import { appUrl } from "../support/app";
 import { launchBrowser, newPage } from "../support/browser";
 import { createBoardWithCast, TEST_PASSWORD } from "../support/factories";
+import { linkIn, waitForMail } from "../support/mail";
 
 describe("signing in in the browser", () => {
   let browser: Browser;
@@ -49,6 +50,40 @@ describe("signing in in the browser", () => {
       await page.getByRole("link", { name: "Sign in", exact: true }).first().waitFor();
       await page.goto(`${base}/boards`);
       await page.waitForURL(/\/sign-in/);
+    } finally {
+      await page.close();
+    }
+  });
+
+  it("resets a forgotten password from the e-mailed link, then signs in with the new one", async () => {
+    const cast = await createBoardWithCast();
+    const page = await newPage(browser);
+    const fresh = "a brand new pass phrase for the board";
+    try {
+      await page.goto(`${base}/sign-in`);
+      await page.getByText("Forgot your password?").click();
+      const request = page.getByRole("form", { name: "E-mail me a link to choose a new password" });
+      await request.getByLabel("Account e-mail").fill(cast.proposer.email);
+      await request.getByRole("button", { name: "E-mail me a reset link" }).click();
+      await request.getByText("a link to choose a new password is on its way").waitFor();
+
+      const mail = await waitForMail(cast.proposer.email, /new VisViva password/);
+      await page.goto(linkIn(mail, "/sign-in/reset"));
+      const reset = page.getByRole("form", { name: "Choose a new password" });
+      await reset.getByLabel("New password").fill(fresh);
+      await reset.getByLabel("The same again").fill("not the same at all, sorry");
+      await reset.getByRole("button", { name: "Set the new password" }).click();
+      await page.getByText("The two passwords differ.").waitFor();
+      await reset.getByLabel("The same again").fill(fresh);
+      await reset.getByRole("button", { name: "Set the new password" }).click();
+      await page.getByText("every browser is signed out").waitFor();
+
+      await page.getByRole("link", { name: "Sign in with the new password" }).click();
+      const form = page.getByRole("form", { name: "Sign in with e-mail and password" });
+      await form.getByLabel("E-mail").fill(cast.proposer.email);
+      await form.getByLabel("Password").fill(fresh);
+      await form.getByRole("button", { name: "Sign in" }).click();
+      await page.getByRole("button", { name: "Sign out" }).waitFor();
     } finally {
       await page.close();
     }

@@ -3,6 +3,7 @@ import { redirect } from "next/navigation";
 import { currentUser } from "@/lib/auth/session";
 import { PasswordSignInForm } from "./_components/password-sign-in-form";
 import { LinkRequestForm } from "./_components/link-request-form";
+import { PasswordResetRequestForm } from "./_components/password-reset-request-form";
 import { safeCallback } from "./_components/safe-callback";
 
 export const metadata: Metadata = { title: "Sign in" };
@@ -37,6 +38,12 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
           With your password
         </h2>
         <PasswordSignInForm callbackUrl={callbackUrl} initialError={errorText(typeof params.error === "string" ? params.error : undefined)} />
+        <details className="mt-6 border-t border-ink-100 pt-4">
+          <summary className="cursor-pointer text-sm font-semibold text-trajectory-700">Forgot your password?</summary>
+          <div className="mt-3">
+            <PasswordResetRequestForm />
+          </div>
+        </details>
       </section>
       <section aria-labelledby="link-heading" className="rounded-panel border border-ink-200 bg-white p-6 shadow-panel">
         <h2 id="link-heading" className="mb-1 text-lg font-semibold">

@@ -7,7 +7,7 @@ import { boards, invitations } from "@/db/schema";
 import { newToken } from "@/lib/auth/tokens";
 import { unauthenticated } from "@/lib/errors";
 import type { SessionUser } from "@/lib/auth/session";
-import { changePassword, registerProposer, requestSignInLink, signOutOtherSessions } from "@/lib/dal/accounts";
+import { changePassword, registerProposer, requestPasswordReset, requestSignInLink, resetPassword, signOutOtherSessions } from "@/lib/dal/accounts";
 import { createBoard, updateBoard } from "@/lib/dal/boards";
 import { acceptInvitation, createInvitation, revokeInvitation } from "@/lib/dal/invitations";
 import { updateMember } from "@/lib/dal/members";
@@ -96,6 +96,27 @@ function signedInUser(user: SessionUser | null): SessionUser {
 const someAddress = () => `10.77.${crypto.randomInt(0, 255)}.${crypto.randomInt(1, 255)}`;
 
 export const accountActionCases: ActionCase[] = [
+  {
+    action: "app/(auth)/sign-in/actions.ts#requestPasswordResetAction",
+    run: async (user) => requestPasswordReset({ email: user?.email ?? `${unique("anon")}@example.org` }, { ipAddress: someAddress() }),
+    expect: everyone<Outcome>("allow"),
+  },
+  {
+    // Open to anyone holding a valid reset link; a made-up link is refused the same way for everyone.
+    action: "app/(auth)/sign-in/reset/actions.ts#resetPasswordAction",
+    run: async () => {
+      const password = "matrix reset passphrase";
+      await resetPassword({ token: newToken().token, password, confirmPassword: password }).then(
+        () => {
+          throw new Error("a made-up reset link was accepted");
+        },
+        (error: { status?: number }) => {
+          if (error.status !== 422) throw error;
+        },
+      );
+    },
+    expect: everyone<Outcome>("allow"),
+  },
   {
     action: "app/(auth)/sign-in/actions.ts#requestSignInLinkAction",
     run: async (user) => requestSignInLink({ email: user?.email ?? `${unique("anon")}@example.org` }, { ipAddress: someAddress() }),
