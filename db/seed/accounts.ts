@@ -25,7 +25,7 @@ export interface DemoAccount {
   role: BoardRole | null;
 }
 
-// Listed in docs/demo-accounts.md; keep the two in step.
+// Listed in README.md ("Demo accounts"); keep the two in step.
 export const DEMO_ACCOUNTS: readonly DemoAccount[] = [
   { key: "admin", email: "admin@halden.example.org", password: "halden-admin-demo", name: "Oskar Vennberg", organisation: "Halden Institute of Space Technology", isAdmin: true, role: null },
   { key: "chair", email: "chair@halden.example.org", password: "kestrel-chair-demo", name: "Ilona Brask", organisation: "Halden Institute of Space Technology", isAdmin: false, role: "chair" },
