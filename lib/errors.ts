@@ -27,3 +27,14 @@ export const tooManyRequests = (message: string, retryAfterSeconds: number) =>
 export function isAppError(error: unknown): error is AppError {
   return error instanceof AppError;
 }
+
+/**
+ * A malformed identifier that reached the database (PostgreSQL "invalid text
+ * representation", e.g. a non-UUID id) is the caller's mistake: answer 404 like any unknown
+ * resource rather than 500. Data-access functions check ids first; this is the safety net.
+ */
+export function fromDatabaseInputError(error: unknown): AppError | null {
+  const codeOf = (e: unknown) => (typeof e === "object" && e !== null ? (e as { code?: unknown }).code : undefined);
+  const code = codeOf(error) ?? codeOf((error as { cause?: unknown } | null)?.cause);
+  return code === "22P02" ? notFound("That resource") : null;
+}

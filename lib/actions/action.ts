@@ -1,6 +1,6 @@
 import "server-only";
 import type { z } from "zod";
-import { isAppError } from "@/lib/errors";
+import { fromDatabaseInputError, isAppError } from "@/lib/errors";
 import { requireUser, type SessionUser } from "@/lib/auth/session";
 
 export type ActionResult<T> =
@@ -30,7 +30,8 @@ export function action<S extends z.ZodType, T>(schema: S, handler: (input: z.inf
         return { ok: false, error: "Some fields need attention.", fieldErrors: fieldErrorsOf(parsed.error), status: 422 };
       }
       return { ok: true, data: await handler(parsed.data, user) };
-    } catch (error) {
+    } catch (caught) {
+      const error = fromDatabaseInputError(caught) ?? caught;
       if (isAppError(error)) return { ok: false, error: error.message, status: error.status };
       console.error("[action] unexpected error", error);
       return { ok: false, error: "Something went wrong on our side; nothing was saved. Try again.", status: 500 };
@@ -48,7 +49,8 @@ export function publicAction<S extends z.ZodType, T>(schema: S, handler: (input:
         return { ok: false, error: "Some fields need attention.", fieldErrors: fieldErrorsOf(parsed.error), status: 422 };
       }
       return { ok: true, data: await handler(parsed.data) };
-    } catch (error) {
+    } catch (caught) {
+      const error = fromDatabaseInputError(caught) ?? caught;
       if (isAppError(error)) return { ok: false, error: error.message, status: error.status };
       console.error("[action] unexpected error", error);
       return { ok: false, error: "Something went wrong on our side; nothing was saved. Try again.", status: 500 };

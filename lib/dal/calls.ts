@@ -63,6 +63,7 @@ export async function loadCall(boardId: string, callId: string, tx: Database | T
 
 /** Calls of a board, newest closing date first; any member may see them. */
 export async function listCalls(user: SessionUser, boardId: string): Promise<CallView[]> {
+  if (!isUuid(boardId)) throw notFound("That board");
   const role = await boardRole(user.id, boardId);
   authorize(user, "board.view", { role }, "That board");
   const rows = await db().select(callColumns).from(calls).where(eq(calls.boardId, boardId)).orderBy(desc(calls.closesAt), asc(calls.title));

@@ -174,6 +174,7 @@ const escapeLike = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`);
 
 /** Proposals of a board the caller may see: all of them for chairs, their own and co-authored ones for others. */
 export async function listProposals(user: SessionUser, boardId: string, query: ProposalListQuery): Promise<{ rows: ProposalRow[]; total: number; page: number; pageSize: number }> {
+  if (!isUuid(boardId)) throw notFound("That board");
   const role = await boardRole(user.id, boardId);
   authorize(user, "board.view", { role }, "That board");
   const conditions: SQL[] = [eq(proposals.boardId, boardId)];

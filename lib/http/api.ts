@@ -1,7 +1,7 @@
 import "server-only";
 import { NextResponse } from "next/server";
 import type { z } from "zod";
-import { AppError, badRequest, isAppError } from "@/lib/errors";
+import { AppError, badRequest, fromDatabaseInputError, isAppError } from "@/lib/errors";
 
 export interface ErrorBody {
   error: string;
@@ -12,7 +12,8 @@ export function json<T>(data: T, init?: number | ResponseInit): NextResponse<T> 
   return NextResponse.json(data, typeof init === "number" ? { status: init } : init);
 }
 
-export function errorResponse(error: unknown): NextResponse<ErrorBody> {
+export function errorResponse(caught: unknown): NextResponse<ErrorBody> {
+  const error = fromDatabaseInputError(caught) ?? caught;
   if (isAppError(error)) {
     return NextResponse.json(
       { error: error.message, ...(error.details === undefined ? {} : { details: error.details }) },
