@@ -34,7 +34,7 @@ export default function LandingPage() {
             items and decision letters — and recomputes every orbit and Δv claim a dossier makes on the server.
           </p>
           <div className="flex gap-3 pt-2">
-            <Link href="/sign-in" className="rounded-chip bg-trajectory-500 px-4 py-2 font-semibold text-white hover:bg-trajectory-600">
+            <Link href="/sign-in" className="rounded-chip bg-trajectory-600 px-4 py-2 font-semibold text-white hover:bg-trajectory-700">
               Sign in to your board
             </Link>
             <Link href="/tools/orbit-check" className="rounded-chip border border-ink-500 px-4 py-2 font-semibold hover:border-trajectory-400">

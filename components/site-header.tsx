@@ -31,7 +31,7 @@ export async function SiteHeader() {
               <SignOutButton />
             </>
           ) : (
-            <Link href="/sign-in" className="rounded-chip bg-trajectory-500 px-3 py-1.5 font-semibold text-white hover:bg-trajectory-600">
+            <Link href="/sign-in" className="rounded-chip bg-trajectory-600 px-3 py-1.5 font-semibold text-white hover:bg-trajectory-700">
               Sign in
             </Link>
           )}
