@@ -8,7 +8,7 @@ import { appEnvironment, serviceConfig, type Profile } from "./service-config";
 
 const log = (message: string) => process.stderr.write(`[app] ${message}\n`);
 
-const SOURCE_DIRS = ["app", "components", "lib", "db", "storage", "types"];
+const SOURCE_DIRS = ["app", "components", "lib", "db", "storage"];
 const SOURCE_FILES = ["next.config.ts", "tailwind.config.ts", "postcss.config.mjs", "proxy.ts", "package.json", "tsconfig.json"];
 
 function newestSourceTime(root: string): number {

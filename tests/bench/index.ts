@@ -6,8 +6,8 @@
  *  2. A request of 200 mixed claims checked in-process: median wall time.
  */
 import { kepler2b, kepler3 } from "astronomia/kepler";
-import { solveKeplerElliptic } from "../lib/orbit/anomalies/kepler";
-import { checkOrbitClaims } from "../lib/orbit";
+import { solveKeplerElliptic } from "../../lib/orbit/anomalies/kepler";
+import { checkOrbitClaims } from "../../lib/orbit";
 
 function lcg(seed: number) {
   let s = seed >>> 0;
