@@ -28,6 +28,9 @@ export default defineConfig({
         resolve: { alias },
         test: {
           name: "integration",
+          // Projects run one after another: the outbox fault tests stop the shared mail
+          // catcher, which must never overlap a browser test waiting for a letter.
+          sequence: { groupOrder: 1 },
           include: ["tests/integration/**/*.test.ts"],
           environment: "node",
           globalSetup: ["tests/support/global-setup.ts"],
@@ -40,6 +43,7 @@ export default defineConfig({
         resolve: { alias },
         test: {
           name: "e2e",
+          sequence: { groupOrder: 2 },
           include: ["tests/e2e/**/*.test.ts"],
           environment: "node",
           globalSetup: ["tests/support/global-setup.ts"],
