@@ -21,8 +21,8 @@ function formatValue(value: unknown): string {
 }
 
 /** A request editor with live results, for proposers checking their numbers before they submit. */
-export function OrbitCheckConsole({ initialRequest }: { initialRequest: string }) {
-  const [text, setText] = useState(initialRequest);
+export function OrbitCheckConsole({ examples }: { examples: { name: string; request: string }[] }) {
+  const [text, setText] = useState(examples[0]?.request ?? '{ "claims": [] }');
   const deferred = useDeferredValue(text);
   const outcome = useMemo(() => {
     try {
@@ -35,9 +35,25 @@ export function OrbitCheckConsole({ initialRequest }: { initialRequest: string }
   return (
     <div className="grid gap-6 lg:grid-cols-[minmax(0,5fr)_minmax(0,7fr)]">
       <div className="space-y-2">
-        <label htmlFor="orbit-check-request" className="text-sm font-semibold">
-          Request (JSON)
-        </label>
+        <div className="flex flex-wrap items-end justify-between gap-2">
+          <label htmlFor="orbit-check-request" className="text-sm font-semibold">
+            Request (JSON)
+          </label>
+          <label className="text-sm">
+            Start from{" "}
+            <select
+              className="rounded-chip border border-ink-300 bg-white px-2 py-1"
+              defaultValue={examples[0]?.name}
+              onChange={(event) => setText(examples.find((e) => e.name === event.target.value)?.request ?? text)}
+            >
+              {examples.map((e) => (
+                <option key={e.name} value={e.name}>
+                  {e.name}
+                </option>
+              ))}
+            </select>
+          </label>
+        </div>
         <textarea
           id="orbit-check-request"
           value={text}
@@ -70,7 +86,7 @@ export function OrbitCheckConsole({ initialRequest }: { initialRequest: string }
               <table className="mt-3 w-full text-sm">
                 <caption className="sr-only">Claimed against recomputed values for {result.id}</caption>
                 <thead>
-                  <tr className="text-left text-xs text-ink-500">
+                  <tr className="text-left text-xs text-ink-600 [&>th]:px-2 [&>th]:py-1">
                     <th scope="col">quantity</th>
                     <th scope="col" className="text-right">claimed</th>
                     <th scope="col" className="text-right">recomputed</th>
@@ -81,8 +97,8 @@ export function OrbitCheckConsole({ initialRequest }: { initialRequest: string }
                 </thead>
                 <tbody className="font-mono">
                   {result.checks.map((row) => (
-                    <tr key={row.quantity} className="border-t border-ink-100">
-                      <td className="py-1 font-sans">{row.quantity}</td>
+                    <tr key={row.quantity} className="border-t border-ink-100 [&>td]:px-2 [&>td]:py-1">
+                      <td className="font-sans">{row.quantity}</td>
                       <td className="text-right">{formatValue(row.claimed)}</td>
                       <td className="text-right">{formatValue(row.computed)}</td>
                       <td className="font-sans text-ink-600">{row.unit}</td>

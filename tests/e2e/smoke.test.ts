@@ -14,4 +14,14 @@ describe("smoke: the landing page in a real browser", () => {
     const body = JSON.parse((await page.textContent("body")) ?? "{}");
     expect(body.services).toEqual({ database: "ok", objectStore: "ok", mail: "ok" });
   });
+
+  it("recomputes a pasted request live on the public orbit-check page", async () => {
+    const page = await openPage();
+    await page.goto("/tools/orbit-check");
+    await page.getByText("consistent — holds").first().waitFor();
+    await page.getByLabel("Start from").selectOption("a claim off by more than the tolerance");
+    await page.getByText("inconsistent — off by more than the tolerance").first().waitFor();
+    await page.getByLabel("Request (JSON)").fill("{ not json");
+    await page.getByText("The request is not valid JSON").waitFor();
+  });
 });

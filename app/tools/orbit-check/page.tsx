@@ -1,5 +1,15 @@
 import { OrbitCheckConsole } from "@/components/orbit-check-console/orbit-check-console";
-import example from "@/lib/orbit/examples/mission-dossier.json";
+import contractExample from "@/lib/orbit/examples/contract-example.json";
+import invalidClaim from "@/lib/orbit/examples/invalid-claim.json";
+import missionDossier from "@/lib/orbit/examples/mission-dossier.json";
+import wrongClaim from "@/lib/orbit/examples/wrong-claim.json";
+
+const examples = [
+  { name: "an invented dossier's claims", request: missionDossier },
+  { name: "the contract's example", request: contractExample },
+  { name: "a claim off by more than the tolerance", request: wrongClaim },
+  { name: "a claim that cannot be evaluated", request: invalidClaim },
+].map((e) => ({ name: e.name, request: JSON.stringify(e.request, null, 2) }));
 
 export const metadata = { title: "Orbit check" };
 
@@ -15,7 +25,7 @@ export default function OrbitCheckToolPage() {
           dossier submission. Nothing you type here leaves your browser.
         </p>
       </header>
-      <OrbitCheckConsole initialRequest={JSON.stringify(example, null, 2)} />
+      <OrbitCheckConsole examples={examples} />
     </div>
   );
 }
