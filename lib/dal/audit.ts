@@ -29,26 +29,6 @@ export async function recordAudit(entry: AuditEntry, tx: Database | Transaction 
   });
 }
 
-export async function listAuditEvents(options: { limit: number; offset: number }) {
-  const rows = await db()
-    .select({
-      id: auditEvents.id,
-      occurredAt: auditEvents.occurredAt,
-      actorEmail: auditEvents.actorEmail,
-      boardId: auditEvents.boardId,
-      action: auditEvents.action,
-      target: auditEvents.target,
-      details: auditEvents.details,
-      ipAddress: auditEvents.ipAddress,
-    })
-    .from(auditEvents)
-    .orderBy(desc(auditEvents.occurredAt))
-    .limit(options.limit)
-    .offset(options.offset);
-  const [count] = await db().select({ n: sql<number>`count(*)::int` }).from(auditEvents);
-  return { rows, total: count?.n ?? 0 };
-}
-
 /** The audit log for site admins: searched by actor, target or action, newest first by default. */
 export async function listAuditLog(user: SessionUser, query: AuditQuery) {
   authorize(user, "site.admin", { role: null });

@@ -2,8 +2,8 @@ import type { Metadata } from "next";
 import { redirect } from "next/navigation";
 import { currentUser } from "@/lib/auth/session";
 import { PasswordSignInForm } from "./_components/password-sign-in-form";
-import { LinkRequestForm } from "./_components/link-request-form";
-import { PasswordResetRequestForm } from "./_components/password-reset-request-form";
+import { requestPasswordResetAction, requestSignInLinkAction } from "./actions";
+import { EmailRequestForm } from "./_components/email-request-form";
 import { safeCallback } from "./_components/safe-callback";
 
 export const metadata: Metadata = { title: "Sign in" };
@@ -41,7 +41,7 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
         <details className="mt-6 border-t border-ink-100 pt-4">
           <summary className="cursor-pointer text-sm font-semibold text-trajectory-700">Forgot your password?</summary>
           <div className="mt-3">
-            <PasswordResetRequestForm />
+            <EmailRequestForm action={requestPasswordResetAction} formLabel="E-mail me a link to choose a new password" fieldLabel="Account e-mail" buttonLabel="E-mail me a reset link" />
           </div>
         </details>
       </section>
@@ -50,7 +50,7 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
           With a link by e-mail
         </h2>
         <p className="mb-4 text-sm text-ink-600">The link works once, for 15 minutes.</p>
-        <LinkRequestForm />
+        <EmailRequestForm action={requestSignInLinkAction} formLabel="E-mail me a sign-in link" fieldLabel="E-mail" buttonLabel="E-mail me a sign-in link" />
       </section>
     </div>
   );
