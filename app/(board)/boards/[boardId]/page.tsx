@@ -3,6 +3,8 @@ import { PageTitle } from "@/components/ui/panel";
 import { orNotFound, pageUser } from "@/lib/auth/page-guard";
 import { can } from "@/lib/auth/policy";
 import { getBoard, listBoardCalls } from "@/lib/dal/boards";
+import { listProposals } from "@/lib/dal/proposals";
+import { proposalListQuerySchema } from "@/lib/validation/dossier";
 import { BoardCallsSection, BoardDossiersSection, BoardStewardshipSection } from "./_components/board-sections";
 import { BoardReviewSection } from "@/components/review/board-review-section";
 
@@ -16,6 +18,7 @@ export default async function BoardHomePage({ params }: { params: Promise<{ boar
   const board = await orNotFound(getBoard(user, boardId));
   const calls = await listBoardCalls(user, boardId);
   const facts = { role: board.myRole };
+  const mine = board.myRole === "proposer" ? await listProposals(user, boardId, proposalListQuerySchema.parse({ pageSize: 5 })) : null;
   return (
     <div className="space-y-6">
       <PageTitle eyebrow="Review board" title={board.name}>
@@ -24,7 +27,7 @@ export default async function BoardHomePage({ params }: { params: Promise<{ boar
       </PageTitle>
       {/* One section per area; each decides from the policy whether it shows. */}
       <BoardCallsSection board={board} calls={calls} />
-      {board.myRole === "proposer" ? <BoardDossiersSection board={board} /> : null}
+      {mine ? <BoardDossiersSection board={board} proposals={mine.rows} total={mine.total} /> : null}
       <BoardReviewSection user={user} board={board} calls={calls} />
       {can(user, "members.manage", facts) ? <BoardStewardshipSection board={board} /> : null}
     </div>

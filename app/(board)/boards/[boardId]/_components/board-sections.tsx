@@ -3,6 +3,7 @@
 import Link from "next/link";
 import { Panel } from "@/components/ui/panel";
 import type { BoardCallSummary, BoardView } from "@/lib/dal/boards";
+import type { ProposalRow } from "@/lib/dal/proposals";
 
 const dateFormat = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeZone: "UTC" });
 
@@ -33,13 +34,41 @@ export function BoardCallsSection({ board, calls }: { board: BoardView; calls: B
   );
 }
 
-export function BoardDossiersSection({ board }: { board: BoardView }) {
+const proposalStatusText = { draft: "Draft", submitted: "Submitted", in_review: "In review", decided: "Decided", withdrawn: "Withdrawn" } as const;
+
+export function BoardDossiersSection({ board, proposals, total }: { board: BoardView; proposals: ProposalRow[]; total: number }) {
   return (
     <Panel id="dossiers" title="Your dossiers" description="Write a mission dossier for an open call, attach its files and submit it.">
+      {proposals.length > 0 ? (
+        <ul className="mb-4 divide-y divide-ink-100">
+          {proposals.map((p) => (
+            <li key={p.id} className="flex flex-wrap items-center justify-between gap-2 py-2">
+              <Link href={`/boards/${board.id}/proposals/${p.id}`} className="font-semibold text-trajectory-700 hover:underline">
+                {p.title}
+              </Link>
+              <span className="text-sm text-ink-600">
+                {p.callTitle} · <span className="rounded-chip bg-ink-100 px-2 py-0.5 text-ink-700">{proposalStatusText[p.status]}</span>
+                {p.latestVersion > 0 ? ` · version ${p.latestVersion}` : ""}
+                {p.status === "decided" ? (
+                  <>
+                    {" · "}
+                    <Link href={`/boards/${board.id}/proposals/${p.id}/decision`} className="text-trajectory-700 underline">
+                      the decision
+                    </Link>
+                  </>
+                ) : null}
+              </span>
+            </li>
+          ))}
+        </ul>
+      ) : (
+        <p className="mb-4 text-ink-600">No dossiers yet.</p>
+      )}
+      {total > proposals.length ? <p className="mb-3 text-sm text-ink-600">Showing the {proposals.length} most recently changed of {total}.</p> : null}
       <ul className="flex flex-wrap gap-3">
         <li>
           <Link href={`/boards/${board.id}/proposals`} className="inline-block rounded-chip bg-trajectory-600 px-3 py-1.5 font-semibold text-white hover:bg-trajectory-700">
-            Your proposals
+            All your proposals, or start one
           </Link>
         </li>
       </ul>
