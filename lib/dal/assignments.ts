@@ -11,6 +11,7 @@ import type { AssignInput } from "@/lib/validation/review";
 import { recordAudit } from "./audit";
 import { boardRole, isUuid } from "./boards";
 import { authorsOf, conflictMatrix, isConflicted } from "./conflicts";
+import { loadCall } from "./calls";
 
 type Db = Database | Transaction;
 
@@ -99,11 +100,7 @@ async function requireAssign(user: SessionUser, boardId: string, tx: Db = db()) 
 /** The submitted proposals of a call (latest version) against the board's reviewers and their load. */
 export async function getAssignmentBoard(user: SessionUser, boardId: string, callId: string): Promise<AssignmentBoard> {
   await requireAssign(user, boardId);
-  if (!isUuid(callId)) throw notFound("That call");
-  const [call] = await db()
-    .select({ id: calls.id, title: calls.title, reviewersPerProposal: calls.reviewersPerProposal, rubricTemplateId: calls.rubricTemplateId })
-    .from(calls)
-    .where(and(eq(calls.id, callId), eq(calls.boardId, boardId)));
+  const call = await loadCall(boardId, callId);
   if (!call) throw notFound("That call");
   const rows = await db()
     .select({

@@ -27,6 +27,7 @@ import { recordAudit } from "./audit";
 import { boardRole, isUuid } from "./boards";
 import { isConflicted } from "./conflicts";
 import { freezeTemplate, loadTemplate, type RubricView } from "./rubrics";
+import { loadCall } from "./calls";
 
 type Db = Database | Transaction;
 
@@ -520,11 +521,7 @@ export async function getCallOverview(user: SessionUser, boardId: string, callId
   if (!isUuid(boardId)) throw notFound("That board");
   const role = await boardRole(user.id, boardId);
   authorize(user, "review.view-all", { role }, "That board");
-  if (!isUuid(callId)) throw notFound("That call");
-  const [call] = await db()
-    .select({ id: calls.id, title: calls.title, reviewersPerProposal: calls.reviewersPerProposal, rubricTemplateId: calls.rubricTemplateId })
-    .from(calls)
-    .where(and(eq(calls.id, callId), eq(calls.boardId, boardId)));
+  const call = await loadCall(boardId, callId);
   if (!call) throw notFound("That call");
   const rows = await db()
     .select({ proposalId: proposals.id, title: proposals.title, status: proposals.status, versionId: proposalVersions.id, versionNumber: proposalVersions.number })
