@@ -36,6 +36,26 @@ function Values({ side }: { side: QuantityRow["before"] }) {
   );
 }
 
+/** One version's side of a claim: its verdict and each quantity's claimed and recomputed value. */
+function ClaimSide({ claim, side, className }: { claim: ClaimComparison; side: "before" | "after"; className: string }) {
+  return (
+    <td className={className}>
+      <Verdict status={claim[side]?.status} />
+      <ul className="mt-1 space-y-0.5">
+        {claim.quantities.map((q) => (
+          <li key={q.quantity}>
+            <span className="text-xs text-ink-600">
+              {q.quantity}
+              {q.unit ? ` [${q.unit}]` : ""}:
+            </span>{" "}
+            <Values side={q[side]} />
+          </li>
+        ))}
+      </ul>
+    </td>
+  );
+}
+
 export default async function ComparePage({ params, searchParams }: { params: Promise<{ boardId: string; proposalId: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const { boardId, proposalId } = await params;
   const user = await pageUser(`/boards/${boardId}/proposals/${proposalId}/compare`);
@@ -94,34 +114,8 @@ export default async function ComparePage({ params, searchParams }: { params: Pr
                     <span className="font-semibold text-ink-900">{c.label}</span> <span className="text-xs text-ink-500">({c.kind})</span>
                   </td>
                   <td className="py-2 pr-3 text-ink-700">{changeText[c.change]}</td>
-                  <td className="py-2 pr-3">
-                    <Verdict status={c.before?.status} />
-                    <ul className="mt-1 space-y-0.5">
-                      {c.quantities.map((q) => (
-                        <li key={q.quantity}>
-                          <span className="text-xs text-ink-600">
-                            {q.quantity}
-                            {q.unit ? ` [${q.unit}]` : ""}:
-                          </span>{" "}
-                          <Values side={q.before} />
-                        </li>
-                      ))}
-                    </ul>
-                  </td>
-                  <td className="py-2">
-                    <Verdict status={c.after?.status} />
-                    <ul className="mt-1 space-y-0.5">
-                      {c.quantities.map((q) => (
-                        <li key={q.quantity}>
-                          <span className="text-xs text-ink-600">
-                            {q.quantity}
-                            {q.unit ? ` [${q.unit}]` : ""}:
-                          </span>{" "}
-                          <Values side={q.after} />
-                        </li>
-                      ))}
-                    </ul>
-                  </td>
+                  <ClaimSide claim={c} side="before" className="py-2 pr-3" />
+                  <ClaimSide claim={c} side="after" className="py-2" />
                 </tr>
               ))}
               {cmp.claims.length === 0 ? (
