@@ -48,10 +48,15 @@ describe("deciding, resubmitting and comparing in the browser", () => {
     const attached = await pdfParse(Buffer.from(mail.attachments[0]!.contentBase64, "base64"));
     expect(attached.text).toContain(s.proposal.title);
     expect(attached.text.replace(/\s+/g, " ")).toContain("two-body screening estimates");
-    await chair.getByText(/Letter e-mail: sent/).waitFor({ timeout: 30_000 }).catch(async () => {
-      await chair.reload();
-      await chair.getByText(/Letter e-mail: sent/).waitFor();
-    });
+    // The decision page reads the outbox status when rendered: reload until it shows "sent".
+    await waitFor(
+      async () => {
+        await chair.reload();
+        return (await chair.getByText(/Letter e-mail: sent/).count()) > 0 || undefined;
+      },
+      30_000,
+      "the decision page showing the letter as sent",
+    );
     expect((await caughtMessages()).filter((m) => m.to.includes(s.proposer.email) && m.subject.includes("revise and resubmit"))).toHaveLength(1);
 
     // The proposer reads the decision, downloads the PDF, revises the dossier and submits version 2.
@@ -85,6 +90,9 @@ describe("deciding, resubmitting and comparing in the browser", () => {
     expect(await diff.locator("ins").allTextContents()).toEqual(expect.arrayContaining([expect.stringContaining("ten percent margin")]));
     await chair.getByRole("button", { name: "Ask the same reviewers to review version 2" }).click();
     await chair.getByText("2 reviewers asked to review version 2").waitFor();
+    await chair.reload();
+    await chair.getByText("Every reviewer still on the board is assigned to version 2.").waitFor();
+    expect(await chair.getByRole("button", { name: "Ask the same reviewers to review version 2" }).count()).toBe(0);
     const onV2 = await db().select({ reviewerId: assignments.reviewerId }).from(assignments).where(eq(assignments.versionId, v2!.id));
     expect(onV2.map((a) => a.reviewerId).sort()).toEqual([s.reviewer.id, s.reviewer2.id].sort());
 

@@ -73,7 +73,9 @@ export default async function ComparePage({ params, searchParams }: { params: Pr
   }
   const cmp = await orNotFound(compareVersions(user, boardId, proposalId, parsed.data.from, parsed.data.to));
   const reassignable = cmp.reviewers?.filter((r) => r.active && !r.onLaterVersion) ?? [];
-  const canReassign = cmp.reviewers !== null && cmp.to.number === cmp.proposal.latestVersion && cmp.to.number > cmp.from.number && !cmp.to.decision && reassignable.length > 0;
+  // Shown while the later version is open for review, even once everyone is assigned, so the
+  // result of a reassignment stays on screen after the page refreshes.
+  const canReassign = cmp.reviewers !== null && cmp.to.number === cmp.proposal.latestVersion && cmp.to.number > cmp.from.number && !cmp.to.decision;
 
   return (
     <div className="space-y-6">
