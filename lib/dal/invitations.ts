@@ -12,7 +12,7 @@ import { env } from "@/lib/env";
 import { AppError, conflict, notFound, unprocessable } from "@/lib/errors";
 import { enqueueMail } from "@/lib/mail/outbox";
 import { renderMail } from "@/lib/mail/templates/layout";
-import { INVITATION_DAYS, type acceptInvitationSchema, type createInvitationSchema } from "@/lib/validation/accounts";
+import { INVITATION_DAYS, type acceptInvitationSchema, type createInvitationSchema, type InvitationListQuery } from "@/lib/validation/accounts";
 import type { z } from "zod";
 
 export type InvitationStatus = "pending" | "accepted" | "revoked" | "expired";
@@ -46,27 +46,61 @@ export function invitationUrl(token: string): string {
 
 const roleWords = { proposer: "a proposer", reviewer: "a reviewer", chair: "a chair" } as const;
 
-/** The board's invitations, newest first (chairs and admins). */
-export async function listInvitations(user: SessionUser, boardId: string): Promise<InvitationRow[]> {
+export interface InvitationPage {
+  invitations: InvitationRow[];
+  total: number;
+  pendingTotal: number;
+  page: number;
+  pageSize: number;
+}
+
+/**
+ * The board's invitations, newest first, one page at a time (chairs and admins). Pending
+ * ones by default: links that were neither accepted nor withdrawn and have not expired.
+ */
+export async function listInvitations(
+  user: SessionUser,
+  boardId: string,
+  query: Partial<InvitationListQuery> = {},
+): Promise<InvitationPage> {
   await requireMembersPermission(user, boardId, "members.view");
-  const rows = await db()
-    .select({
-      id: invitations.id,
-      email: invitations.email,
-      name: invitations.name,
-      role: invitations.role,
-      expiresAt: invitations.expiresAt,
-      acceptedAt: invitations.acceptedAt,
-      revokedAt: invitations.revokedAt,
-      createdAt: invitations.createdAt,
-      invitedBy: users.email,
-    })
-    .from(invitations)
-    .leftJoin(users, eq(users.id, invitations.invitedBy))
-    .where(eq(invitations.boardId, boardId))
-    .orderBy(desc(invitations.createdAt))
-    .limit(500);
-  return rows.map(({ acceptedAt, revokedAt, ...r }) => ({ ...r, status: statusOf({ acceptedAt, revokedAt, expiresAt: r.expiresAt }) }));
+  const { show = "pending", page = 1, pageSize = 25 } = query;
+  const pendingWhere = and(isNull(invitations.acceptedAt), isNull(invitations.revokedAt), gt(invitations.expiresAt, sql`now()`));
+  const where = show === "pending" ? and(eq(invitations.boardId, boardId), pendingWhere) : eq(invitations.boardId, boardId);
+  const [rows, [counts]] = await Promise.all([
+    db()
+      .select({
+        id: invitations.id,
+        email: invitations.email,
+        name: invitations.name,
+        role: invitations.role,
+        expiresAt: invitations.expiresAt,
+        acceptedAt: invitations.acceptedAt,
+        revokedAt: invitations.revokedAt,
+        createdAt: invitations.createdAt,
+        invitedBy: users.email,
+      })
+      .from(invitations)
+      .leftJoin(users, eq(users.id, invitations.invitedBy))
+      .where(where)
+      .orderBy(desc(invitations.createdAt), desc(invitations.id))
+      .limit(pageSize)
+      .offset((page - 1) * pageSize),
+    db()
+      .select({
+        all: sql<number>`count(*)::int`,
+        pending: sql<number>`(count(*) filter (where ${pendingWhere}))::int`,
+      })
+      .from(invitations)
+      .where(eq(invitations.boardId, boardId)),
+  ]);
+  return {
+    invitations: rows.map(({ acceptedAt, revokedAt, ...r }) => ({ ...r, status: statusOf({ acceptedAt, revokedAt, expiresAt: r.expiresAt }) })),
+    total: show === "pending" ? (counts?.pending ?? 0) : (counts?.all ?? 0),
+    pendingTotal: counts?.pending ?? 0,
+    page,
+    pageSize,
+  };
 }
 
 /**

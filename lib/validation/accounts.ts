@@ -192,7 +192,23 @@ export const invitationSchema = z.object({
   invitedBy: z.string().nullable(),
 });
 
-export const invitationListSchema = z.object({ invitations: z.array(invitationSchema) });
+export const invitationListQuerySchema = z.object({
+  /** `pending` (default): links that still work; `all`: accepted, withdrawn and expired too. */
+  show: z.enum(["pending", "all"], { error: "show is pending or all" }).default("pending"),
+  page: pageNumber,
+  pageSize,
+});
+export type InvitationListQuery = z.infer<typeof invitationListQuerySchema>;
+
+export const invitationListSchema = z.object({
+  invitations: z.array(invitationSchema),
+  /** Invitations matching `show` in all pages. */
+  total: z.number().int(),
+  /** Pending invitations of the board, whatever `show` is. */
+  pendingTotal: z.number().int(),
+  page: z.number().int(),
+  pageSize: z.number().int(),
+});
 
 // ---------- my account ----------
 

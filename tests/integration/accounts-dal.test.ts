@@ -218,8 +218,10 @@ describe("invitations", () => {
     await revokeInvitation(chair, cast.board.id, withdrawn.id);
     expect((await failure(acceptInvitation({ token: withdrawn.token, name: "Gone", password: "withdrawn passphrase" }))).message).toMatch(/withdrawn/);
     expect((await failure(acceptInvitation({ token: "x".repeat(43), name: "Nobody", password: "unknown passphrase" }))).status).toBe(404);
-    const statuses = (await listInvitations(chair, cast.board.id)).map((i) => i.status).sort();
-    expect(statuses).toEqual(["expired", "revoked"]);
+    const all = await listInvitations(chair, cast.board.id, { show: "all" });
+    expect(all.invitations.map((i) => i.status).sort()).toEqual(["expired", "revoked"]);
+    expect(all).toMatchObject({ total: 2, pendingTotal: 0 });
+    expect((await listInvitations(chair, cast.board.id)).invitations).toEqual([]);
   });
 
   it("withdraws the older link when the same address is invited again", async () => {

@@ -182,6 +182,40 @@ describe("the accounts API's answers to bad input", () => {
     expect(invite.status).toBe(201);
     expect(await invite.json()).not.toHaveProperty("token");
   });
+
+  it("lists invitations newest first in pages, pending only unless asked for all", async () => {
+    const cast = await createBoardWithCast();
+    const chair = await signedIn(cast.chair.email);
+    const base = `/api/v1/boards/${cast.board.id}/invitations`;
+    const emails: string[] = [];
+    for (let i = 0; i < 7; i++) {
+      const email = `${unique(`page${i}`)}@example.org`;
+      emails.push(email);
+      expect((await chair.post(base, { email, role: "reviewer" })).status).toBe(201);
+    }
+    const withdrawn = await createInvitation(asSessionUser(cast.chair), cast.board.id, { email: `${unique("gone")}@example.org`, role: "proposer" });
+    expect((await chair.request(`${base}/${withdrawn.id}`, { method: "DELETE" })).status).toBe(200);
+
+    const first = await (await chair.get(`${base}?pageSize=5`)).json();
+    expect(first).toMatchObject({ total: 7, pendingTotal: 7, page: 1, pageSize: 5 });
+    expect(first.invitations.map((i: { email: string }) => i.email)).toEqual(emails.slice(2).reverse());
+    const second = await (await chair.get(`${base}?pageSize=5&page=2`)).json();
+    expect(second.invitations.map((i: { email: string }) => i.email)).toEqual(emails.slice(0, 2).reverse());
+    const all = await (await chair.get(`${base}?show=all&pageSize=5`)).json();
+    expect(all).toMatchObject({ total: 8, pendingTotal: 7 });
+    expect(all.invitations[0]).toMatchObject({ id: withdrawn.id, status: "revoked" });
+
+    const bad = await chair.get(`${base}?show=everything&page=0`);
+    expect(bad.status).toBe(400);
+    expect((await bad.json()).error).toBeTruthy();
+
+    const pendingPage = await (await chair.get(`/boards/${cast.board.id}/members`)).text();
+    expect(pendingPage).toContain("7 pending, newest first");
+    expect(pendingPage).not.toContain(withdrawn.email);
+    const allPage = await (await chair.get(`/boards/${cast.board.id}/members?invitations=all`)).text();
+    expect(allPage).toContain("8 in all, newest first");
+    expect(allPage).toContain(withdrawn.email);
+  });
 });
 
 describe("the accounts pages, rendered on the server", () => {

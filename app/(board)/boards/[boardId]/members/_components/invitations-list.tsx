@@ -12,11 +12,11 @@ const statusStyle = {
   expired: "bg-drift-100 text-drift-700",
 } as const;
 
-export function InvitationsList({ boardId, invitations }: { boardId: string; invitations: InvitationRow[] }) {
+export function InvitationsList({ boardId, invitations, empty }: { boardId: string; invitations: InvitationRow[]; empty: string }) {
   const router = useRouter();
   const [error, setError] = useState<string | null>(null);
   const [pending, startTransition] = useTransition();
-  if (invitations.length === 0) return <p className="text-ink-600">No invitations yet.</p>;
+  if (invitations.length === 0) return <p className="text-ink-600">{empty}</p>;
   return (
     <div className="space-y-3">
       {error ? <FormNotice tone="error">{error}</FormNotice> : null}

@@ -1,12 +1,13 @@
 import { requireUser } from "@/lib/auth/session";
 import { clientAddress } from "@/lib/auth/options";
 import { createInvitation, listInvitations } from "@/lib/dal/invitations";
-import { json, readJson, route } from "@/lib/http/api";
-import { createInvitationSchema } from "@/lib/validation/accounts";
+import { json, parseWith, readJson, route, searchParamsObject } from "@/lib/http/api";
+import { createInvitationSchema, invitationListQuerySchema } from "@/lib/validation/accounts";
 
-export const GET = route(async (_request, params) => {
+export const GET = route(async (request, params) => {
   const user = await requireUser();
-  return json({ invitations: await listInvitations(user, params.boardId ?? "") });
+  const query = parseWith(invitationListQuerySchema, searchParamsObject(request), 400);
+  return json(await listInvitations(user, params.boardId ?? "", query));
 });
 
 export const POST = route(async (request, params) => {
