@@ -47,6 +47,24 @@ describe("dossier sanitizer and renderer", () => {
     expect(renderDossierHtml("not a document")).toBe("<p></p>");
   });
 
+  it("states every recomputed quantity of a block, within or outside tolerance", () => {
+    const html = renderDossierHtml(hostile, {
+      boardId: BOARD,
+      verdicts: {
+        [BLOCK]: {
+          status: "inconsistent",
+          checks: [
+            { quantity: "period", claimed: 5677, computed: 5676.98, unit: "s", relativeError: 4e-6, ok: true },
+            { quantity: "apoapsisAltitude", claimed: 700, computed: 500, unit: "km", relativeError: 0.4, ok: false },
+          ],
+          messages: [],
+        },
+      },
+    });
+    expect(html).toContain('<div data-check-ok="true">period: claimed 5677 s, recomputed 5676.98 s (0.0004 % off), within tolerance</div>');
+    expect(html).toContain('<div data-check-ok="false">apoapsisAltitude: claimed 700 km, recomputed 500 km (40 % off), outside tolerance</div>');
+  });
+
   it("refuses structures the editor cannot hold", () => {
     const result = validateDossier({ type: "doc", content: [{ type: "tableRow", content: [{ type: "paragraph" }] }] });
     expect(result.ok).toBe(false);

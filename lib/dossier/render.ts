@@ -82,6 +82,18 @@ const STATUS_TEXT: Record<BlockVerdict["status"], string> = {
   invalid: "Cannot be evaluated",
 };
 
+/** "period: claimed 6052 s, recomputed 6052.3 s (0.005 % off), within tolerance" */
+function checkLine(c: NonNullable<BlockVerdict["checks"]>[number]): string {
+  const unit = c.unit && c.unit !== "1" ? ` ${c.unit}` : "";
+  const off = typeof c.relativeError === "number" && Number.isFinite(c.relativeError) ? ` (${formatPercent(c.relativeError)} off)` : "";
+  return `${c.quantity}: claimed ${formatValue(c.claimed)}${unit}, recomputed ${formatValue(c.computed)}${unit}${off}, ${c.ok ? "within tolerance" : "outside tolerance"}`;
+}
+
+function formatPercent(fraction: number): string {
+  const pct = fraction * 100;
+  return `${pct >= 10 ? pct.toFixed(0) : pct >= 0.1 ? pct.toFixed(2) : pct.toPrecision(1)} %`;
+}
+
 function renderOrbitCheck(node: DossierNode, options: RenderOptions): string {
   const a = node.attrs ?? {};
   const blockId = String(a.blockId ?? "");
@@ -98,10 +110,7 @@ function renderOrbitCheck(node: DossierNode, options: RenderOptions): string {
   const verdict = options.verdicts?.[blockId];
   const verdictHtml = verdict
     ? `<div class="orbit-check-verdict" data-status="${escapeHtml(verdict.status)}"><strong>Server check: ${escapeHtml(STATUS_TEXT[verdict.status])}</strong>` +
-      (verdict.checks ?? [])
-        .filter((c) => !c.ok)
-        .map((c) => `<div>${escapeHtml(c.quantity)}: claimed ${escapeHtml(formatValue(c.claimed))}, computed ${escapeHtml(formatValue(c.computed))} ${escapeHtml(c.unit)}</div>`)
-        .join("") +
+      (verdict.checks ?? []).map((c) => `<div data-check-ok="${c.ok}">${escapeHtml(checkLine(c))}</div>`).join("") +
       (verdict.messages ?? []).map((m) => `<div>${escapeHtml(m)}</div>`).join("") +
       `</div>`
     : "";

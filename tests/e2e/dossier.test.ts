@@ -76,6 +76,8 @@ describe("writing and submitting a dossier in the browser", () => {
       expect(await flagged.getAttribute("data-block-id")).toMatch(/^[0-9a-f-]{36}$/);
       expect(await flagged.locator("figcaption").innerText()).toContain("the science orbit");
       expect(await flagged.innerText()).toContain("Server check: Inconsistent");
+      expect(await flagged.innerText()).toMatch(/period: claimed [\d.]+ s, recomputed [\d.]+ s \([\d.]+ % off\), outside tolerance/);
+      expect(await page.locator('figure[data-status="consistent"]').first().innerText()).toContain("within tolerance");
       expect(await page.locator('figure[data-status="consistent"] figcaption').innerText()).toContain("the parking orbit");
       await page.getByRole("complementary").filter({ hasText: "Claims (server check)" }).getByText("1 consistent, 1 inconsistent").waitFor();
       await page.getByRole("link", { name: "lantern-plan.pdf" }).waitFor();
