@@ -1,14 +1,15 @@
 import "server-only";
 import { and, asc, eq, gt, isNull, sql } from "drizzle-orm";
 import { db } from "@/db/client";
-import { accountTokens, boardMembers, boards, rateLimitBuckets, users, userSessions } from "@/db/schema";
+import { accountTokens, boardMembers, boards, users, userSessions } from "@/db/schema";
 import { hashPassword, verifyPassword } from "@/lib/auth/passwords";
 import { newToken } from "@/lib/auth/tokens";
 import { consumeAccountToken, revokeOtherSessions, type SessionUser } from "@/lib/dal/sessions";
 import { recordAudit } from "@/lib/dal/audit";
+import { consumeRateLimit } from "@/lib/dal/rate-limits";
 import { boardOpenForRegistration } from "@/lib/dal/boards";
 import { env } from "@/lib/env";
-import { conflict, notFound, tooManyRequests, unauthenticated, unprocessable } from "@/lib/errors";
+import { conflict, notFound, unauthenticated, unprocessable } from "@/lib/errors";
 import { enqueueMail } from "@/lib/mail/outbox";
 import { renderMail } from "@/lib/mail/templates/layout";
 import type { changePasswordSchema, passwordResetRequestSchema, passwordResetSchema, registerProposerSchema, signInLinkRequestSchema } from "@/lib/validation/accounts";
@@ -82,23 +83,6 @@ export async function signOutOtherSessions(user: SessionUser, meta: { ipAddress?
   const revoked = await revokeOtherSessions(user.id, user.sessionId);
   await recordAudit({ action: "sessions.revoked-others", actorId: user.id, actorEmail: user.email, target: `user:${user.id}`, details: { revoked }, ipAddress: meta.ipAddress });
   return { revoked };
-}
-
-// ---------- fixed-window rate limits in PostgreSQL (hold across app instances) ----------
-
-/** Counts one request against `key`; throws 429 with a retry-after when over `max` in the window. */
-export async function consumeRateLimit(key: string, max: number, windowSeconds: number, message: string): Promise<void> {
-  const result = await db().execute<{ count: number; window_start: Date }>(sql`
-    insert into ${rateLimitBuckets} (key, window_start, count) values (${key}, now(), 1)
-    on conflict (key) do update set
-      count = case when ${rateLimitBuckets.windowStart} <= now() - make_interval(secs => ${windowSeconds}) then 1 else ${rateLimitBuckets.count} + 1 end,
-      window_start = case when ${rateLimitBuckets.windowStart} <= now() - make_interval(secs => ${windowSeconds}) then now() else ${rateLimitBuckets.windowStart} end
-    returning count, window_start`);
-  const row = result.rows[0];
-  if (row && Number(row.count) > max) {
-    const retryAfter = Math.max(1, Math.ceil((new Date(row.window_start).getTime() + windowSeconds * 1000 - Date.now()) / 1000));
-    throw tooManyRequests(`${message} Try again in ${Math.ceil(retryAfter / 60)} minute${retryAfter > 60 ? "s" : ""} (retry after ${retryAfter} s).`, retryAfter);
-  }
 }
 
 export const SIGN_IN_LINK_MINUTES = 15;

@@ -2,7 +2,10 @@
  * POST /api/v1/orbit-checks against the running app: the contract example, a wrong claim,
  * malformed and oversized bodies, a request without claims, and the rate limit.
  */
+import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
+import { db } from "@/db/client";
+import { rateLimitBuckets } from "@/db/schema";
 import { appUrl } from "../support/app";
 
 let base = "";
@@ -90,5 +93,20 @@ describe("POST /api/v1/orbit-checks", () => {
     expect((await limited!.json()).error).toMatch(/Too many orbit-check requests/);
     // Another client is unaffected.
     expect((await post(JSON.stringify(CONTRACT), "192.0.2.15")).status).toBe(200);
+  });
+
+  it("counts the limit in PostgreSQL, so every app instance sees the same window", async () => {
+    const client = `203.0.113.${Math.floor(Math.random() * 200) + 20}`;
+    const key = `orbit-check:client:${client}`;
+    await db().delete(rateLimitBuckets).where(eq(rateLimitBuckets.key, key));
+    for (let i = 0; i < 60; i++) expect((await post(JSON.stringify({ claims: [] }), client)).status).toBe(200);
+    expect((await post(JSON.stringify({ claims: [] }), client)).status).toBe(429);
+    const [row] = await db().select({ count: rateLimitBuckets.count }).from(rateLimitBuckets).where(eq(rateLimitBuckets.key, key));
+    expect(row?.count).toBe(61);
+    // The decision is the database's: closing the window there lets the client in at once.
+    await db().update(rateLimitBuckets).set({ windowStart: new Date(Date.now() - 120_000) }).where(eq(rateLimitBuckets.key, key));
+    const again = await post(JSON.stringify(CONTRACT), client);
+    expect(again.status).toBe(200);
+    expect(again.headers.get("x-ratelimit-remaining")).toBe("59");
   });
 });

@@ -1,6 +1,7 @@
 // A real PostgreSQL restart (pg_ctl stop, then start) with mail waiting in the outbox: the
 // queued message survives, is sent exactly once afterwards, and the running app recovers its
-// connections on its own (health back to ok) without a restart of its own.
+// connections on its own (health back to ok) without a restart of its own. Meanwhile the
+// public orbit check, which needs no database, keeps answering.
 import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
@@ -40,6 +41,14 @@ describe("the outbox across a database restart", () => {
       const down = await fetch(`${baseUrl()}/api/health`);
       expect(down.status).toBe(503);
       expect((await down.json()).services.database).not.toBe("ok");
+      // The public orbit check needs no database: it keeps answering, limited per instance.
+      const check = await fetch(`${baseUrl()}/api/v1/orbit-checks`, {
+        method: "POST",
+        headers: { "content-type": "application/json", "x-forwarded-for": "192.0.2.77" },
+        body: JSON.stringify({ claims: [{ kind: "orbit", body: "earth", given: { altitude: 500 }, claimed: { period: 5677 } }] }),
+      });
+      expect(check.status).toBe(200);
+      expect((await check.json()).results[0].status).toBe("consistent");
     } finally {
       await startOneService("test", "postgres");
     }

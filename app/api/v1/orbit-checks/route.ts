@@ -1,9 +1,12 @@
 /**
  * POST /api/v1/orbit-checks — the public, sign-in-free door to the orbit-check engine
  * (contract: docs/contracts/orbit-checks.md). It reads and stores nothing, so the only
- * guards are a body-size cap and a per-client rate limit.
+ * guards are a body-size cap and a per-client rate limit. The limit is counted in PostgreSQL
+ * so it holds across app instances; if the database cannot answer, each instance falls back
+ * to its own in-memory bucket rather than refusing a request that needs no database.
  */
 import { NextResponse } from "next/server";
+import { takeRateLimit } from "@/lib/dal/rate-limits";
 import { createRateLimiter, clientKey } from "@/lib/http/rate-limit";
 import { checkOrbitClaims } from "@/lib/orbit";
 
@@ -11,7 +14,20 @@ export const runtime = "nodejs";
 
 const MAX_BODY_BYTES = 256 * 1024;
 const PER_MINUTE = 60;
-const limiter = createRateLimiter({ capacity: PER_MINUTE, refillPerSecond: PER_MINUTE / 60 });
+const fallback = createRateLimiter({ capacity: PER_MINUTE, refillPerSecond: PER_MINUTE / 60 });
+let warnedFallback = false;
+
+async function takeToken(client: string): Promise<{ ok: boolean; remaining: number; retryAfterSeconds: number }> {
+  try {
+    const decision = await takeRateLimit(`orbit-check:client:${client}`, PER_MINUTE, 60);
+    warnedFallback = false;
+    return decision;
+  } catch (error) {
+    if (!warnedFallback) console.warn("[orbit-checks] shared rate limit unavailable, limiting per instance:", error instanceof Error ? error.message : error);
+    warnedFallback = true;
+    return fallback.take(client);
+  }
+}
 
 const answer = (body: unknown, status: number, headers: Record<string, string> = {}) =>
   NextResponse.json(body, { status, headers: { "cache-control": "no-store", ...headers } });
@@ -39,7 +55,7 @@ async function readCapped(request: Request): Promise<string | null> {
 
 export async function POST(request: Request): Promise<Response> {
   try {
-    const limit = limiter.take(clientKey(request.headers));
+    const limit = await takeToken(clientKey(request.headers));
     if (!limit.ok) {
       return answer({ error: `Too many orbit-check requests: at most ${PER_MINUTE} per minute. Retry after ${limit.retryAfterSeconds} s.` }, 429, {
         "retry-after": String(limit.retryAfterSeconds),

@@ -1,0 +1,50 @@
+import "server-only";
+import { lt, sql } from "drizzle-orm";
+import { db } from "@/db/client";
+import { rateLimitBuckets } from "@/db/schema";
+import { tooManyRequests } from "@/lib/errors";
+
+// Fixed-window rate limits in PostgreSQL: one row per key, so a limit holds across every app
+// instance behind the load balancer. A window opens with the first request after the last
+// one closed; a request in an open window adds one to its count.
+
+export interface WindowDecision {
+  ok: boolean;
+  /** Requests left in this window after this one. */
+  remaining: number;
+  /** Whole seconds until the window closes (0 when ok). */
+  retryAfterSeconds: number;
+}
+
+/** Counts one request against `key` and says whether it is within `max` per `windowSeconds`. */
+export async function takeRateLimit(key: string, max: number, windowSeconds: number): Promise<WindowDecision> {
+  const result = await db().execute<{ count: number; window_start: Date }>(sql`
+    insert into ${rateLimitBuckets} (key, window_start, count) values (${key}, now(), 1)
+    on conflict (key) do update set
+      count = case when ${rateLimitBuckets.windowStart} <= now() - make_interval(secs => ${windowSeconds}) then 1 else ${rateLimitBuckets.count} + 1 end,
+      window_start = case when ${rateLimitBuckets.windowStart} <= now() - make_interval(secs => ${windowSeconds}) then now() else ${rateLimitBuckets.windowStart} end
+    returning count, window_start`);
+  const row = result.rows[0];
+  const count = Number(row?.count ?? 1);
+  if (count <= max) return { ok: true, remaining: max - count, retryAfterSeconds: 0 };
+  const closes = new Date(row!.window_start).getTime() + windowSeconds * 1000;
+  return { ok: false, remaining: 0, retryAfterSeconds: Math.max(1, Math.ceil((closes - Date.now()) / 1000)) };
+}
+
+/** As takeRateLimit, but throws 429 with the message and a retry-after when over the limit. */
+export async function consumeRateLimit(key: string, max: number, windowSeconds: number, message: string): Promise<void> {
+  const decision = await takeRateLimit(key, max, windowSeconds);
+  if (!decision.ok) {
+    const retryAfter = decision.retryAfterSeconds;
+    throw tooManyRequests(`${message} Try again in ${Math.ceil(retryAfter / 60)} minute${retryAfter > 60 ? "s" : ""} (retry after ${retryAfter} s).`, retryAfter);
+  }
+}
+
+/** Deletes windows that closed more than a day ago (none of the limits spans longer). */
+export async function pruneRateLimits(): Promise<number> {
+  const deleted = await db()
+    .delete(rateLimitBuckets)
+    .where(lt(rateLimitBuckets.windowStart, sql`now() - interval '1 day'`))
+    .returning({ key: rateLimitBuckets.key });
+  return deleted.length;
+}
