@@ -62,7 +62,13 @@ export default async function MembersPage({ params, searchParams }: { params: Pr
       <Panel
         id="invitations"
         title="Invitations"
-        description={invQuery.show === "pending" ? `${invitations.pendingTotal} pending, newest first` : `${invitations.total} in all, newest first`}
+        description={
+          invQuery.show === "pending"
+            ? invitations.pendingTotal === 0
+              ? "None pending"
+              : `${invitations.pendingTotal} pending, newest first`
+            : `${invitations.total} in all, newest first`
+        }
       >
         <nav aria-label="Which invitations" className="mb-3 flex gap-3 text-sm">
           <Link

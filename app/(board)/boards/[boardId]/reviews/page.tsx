@@ -70,7 +70,16 @@ export default async function ReviewQueuePage({ params }: { params: Promise<{ bo
                       {q.scored}/{q.criteria}
                     </span>{" "}
                     criteria scored
-                    <progress className="ml-2 h-2 w-20 align-middle accent-trajectory-600" max={Math.max(1, q.criteria)} value={q.scored} aria-label={`${q.scored} of ${q.criteria} criteria scored`} />
+                    <span
+                      role="progressbar"
+                      aria-valuemin={0}
+                      aria-valuemax={Math.max(1, q.criteria)}
+                      aria-valuenow={q.scored}
+                      aria-label={`${q.scored} of ${q.criteria} criteria scored`}
+                      className="ml-2 inline-block h-2 w-20 overflow-hidden rounded-chip bg-ink-200 align-middle"
+                    >
+                      <span className="block h-full bg-trajectory-600" style={{ width: `${(100 * q.scored) / Math.max(1, q.criteria)}%` }} />
+                    </span>
                   </td>
                   <td className="px-3 py-2">
                     <span className={`rounded-chip px-2 py-0.5 text-xs font-semibold ${statusStyle[q.status]}`}>{q.status}</span>
