@@ -13,6 +13,7 @@ import { assignReviewers } from "@/lib/dal/assignments";
 import { confirmAttachment, presignAttachmentUpload } from "@/lib/dal/attachments";
 import { createCall, updateCall } from "@/lib/dal/calls";
 import { declareConflict } from "@/lib/dal/conflicts";
+import { createInvitation, revokeInvitation } from "@/lib/dal/invitations";
 import { createDecision, getLetterTemplate, reassignPreviousReviewers } from "@/lib/dal/decisions";
 import { createProposal, getDraft, saveDraft, submitProposal } from "@/lib/dal/proposals";
 import { createReviewItem, listReviewItems } from "@/lib/dal/review-items";
@@ -426,6 +427,13 @@ export async function seedScenario(database: Database, options: { board?: SeedBo
   await submitProposal(tobias, boardId, proposals["skiff-ep"]!);
   await reassignPreviousReviewers(chair, boardId, proposals["skiff-ep"]!, { dueAt: new Date(now + 14 * DAY) });
   log("Skiff-EP version 2 resubmitted and reassigned");
+
+  // Two invitations still out and one the chair withdrew (invented people, reserved domain).
+  await createInvitation(chair, boardId, { email: "saoirse.vantongeren@lumenfjord.example.com", name: "Saoirse van Tongeren", role: "proposer" });
+  await createInvitation(chair, boardId, { email: "emeka.lindqvist@tarn-propulsion.example.net", name: "Emeka Lindqvist", role: "reviewer" });
+  const withdrawn = await createInvitation(chair, boardId, { email: "h.okafor@vellum-astro.example.com", name: "Hana Okafor", role: "reviewer" });
+  await revokeInvitation(chair, boardId, withdrawn.id);
+  log("invitations");
 
   // Submissions and the resubmission above needed the call open; now the chair closes it
   // by moving its closing date into the past (the call form allows any closing date).

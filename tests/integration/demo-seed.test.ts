@@ -3,6 +3,7 @@ import { describe, expect, it } from "vitest";
 import { db } from "@/db/client";
 import { attachments, boardMembers, boards, calls, checkResults, conflicts, decisions, outboxMessages, proposals, proposalVersions, reviewItems, reviews, users } from "@/db/schema";
 import { verifyPassword } from "@/lib/auth/passwords";
+import { listInvitations } from "@/lib/dal/invitations";
 import { getAssignmentBoard } from "@/lib/dal/assignments";
 import { dossierPlainText } from "@/lib/dossier";
 import { DEMO_ACCOUNTS, seedDemoAccounts } from "@/db/seed/accounts";
@@ -111,6 +112,11 @@ describe("demo scenario", () => {
     expect(files.length).toBe(s.attachments);
     expect(files.every((f) => f.status === "confirmed" && f.sha256?.length === 64)).toBe(true);
     expect(new Set(files.map((f) => f.detectedType))).toEqual(new Set(["application/pdf", "text/csv", "text/plain"]));
+
+    // Invitations: two still out, one withdrawn.
+    const invites = await listInvitations(s.people.chair, boardId, { show: "all" });
+    expect(invites).toMatchObject({ total: 3, pendingTotal: 2 });
+    expect(invites.invitations.map((i) => i.status).sort()).toEqual(["pending", "pending", "revoked"]);
 
     // A declared conflict, and the same-domain flag the chair sees on the assignment page.
     expect(await db().select({ id: conflicts.id }).from(conflicts).where(eq(conflicts.boardId, boardId))).toHaveLength(1);
