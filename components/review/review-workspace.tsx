@@ -132,7 +132,7 @@ export function ReviewWorkspace({ boardId, screen, items: initialItems, canRaise
   const total = weightedTotal(criteria, scores);
 
   return (
-    <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,34rem)]">
+    <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,38rem)]">
       <DossierPane
         boardId={boardId}
         proposalId={screen.proposal.id}
@@ -288,7 +288,7 @@ function RubricTable({
         return (
           <fieldset>
             <legend className="sr-only">Score for {c.title}</legend>
-            <div className="flex flex-wrap gap-1">
+            <div className={`flex gap-1 ${levels.length > 6 ? "flex-wrap" : "flex-nowrap"}`}>
               {levels.map((level) => (
                 <label
                   key={level}
