@@ -1,20 +1,45 @@
 import { NextResponse, type NextRequest } from "next/server";
+import { contentSecurityPolicy } from "@/lib/http/csp";
 
-// Only a redirect for pages behind sign-in when there is no session cookie at all; every
-// route handler, action and data read still checks the session and the policy itself.
+// Two jobs, for pages only (route handlers answer JSON and check sessions themselves):
+// 1. A redirect to /sign-in for pages behind sign-in when there is no session cookie at all;
+//    every route handler, action and data read still checks the session and the policy.
+// 2. A Content-Security-Policy with a fresh nonce per request. Next.js reads the nonce from
+//    the request's policy header and puts it on its own scripts; 'strict-dynamic' lets those
+//    load the rest. Dossiers and letters are rendered from stored documents, so the policy is
+//    the second line behind the sanitizer: no script the page did not bring can run.
 const protectedPrefixes = ["/boards", "/account", "/admin", "/review", "/proposals"];
+
+/** The object store's origin: uploads go there by presigned PUT, downloads and images by GET. */
+function objectStoreOrigin(): string {
+  try {
+    return process.env.S3_ENDPOINT ? new URL(process.env.S3_ENDPOINT).origin : "";
+  } catch {
+    return "";
+  }
+}
 
 export function proxy(request: NextRequest) {
   const { pathname, search } = request.nextUrl;
-  if (!protectedPrefixes.some((p) => pathname === p || pathname.startsWith(`${p}/`))) return NextResponse.next();
+  const isProtected = protectedPrefixes.some((p) => pathname === p || pathname.startsWith(`${p}/`));
   // Open registration for proposers is for people without an account yet.
-  if (/^\/boards\/[^/]+\/register\/?$/.test(pathname)) return NextResponse.next();
+  const isRegistration = /^\/boards\/[^/]+\/register\/?$/.test(pathname);
   const hasSession = request.cookies.has("next-auth.session-token") || request.cookies.has("__Secure-next-auth.session-token");
-  if (hasSession) return NextResponse.next();
-  const url = request.nextUrl.clone();
-  url.pathname = "/sign-in";
-  url.search = `?callbackUrl=${encodeURIComponent(pathname + search)}`;
-  return NextResponse.redirect(url);
+  if (isProtected && !isRegistration && !hasSession) {
+    const url = request.nextUrl.clone();
+    url.pathname = "/sign-in";
+    url.search = `?callbackUrl=${encodeURIComponent(pathname + search)}`;
+    return NextResponse.redirect(url);
+  }
+
+  const nonce = btoa(crypto.randomUUID());
+  const policy = contentSecurityPolicy(nonce, { development: process.env.NODE_ENV === "development", objectStore: objectStoreOrigin() });
+  const requestHeaders = new Headers(request.headers);
+  requestHeaders.set("x-nonce", nonce);
+  requestHeaders.set("content-security-policy", policy);
+  const response = NextResponse.next({ request: { headers: requestHeaders } });
+  response.headers.set("content-security-policy", policy);
+  return response;
 }
 
 export const config = { matcher: ["/((?!api|_next|favicon.ico).*)"] };

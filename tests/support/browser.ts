@@ -14,10 +14,17 @@ export async function launchBrowser(): Promise<Browser> {
   });
 }
 
+/** Every Content-Security-Policy refusal the browser reported, with the page it happened on. */
+export const cspViolations: string[] = [];
+
 /** A fresh page at a fixed viewport (screenshots compare across runs). */
 export async function newPage(browser: Browser): Promise<Page> {
   const context = await browser.newContext({ viewport: { width: 1360, height: 900 }, baseURL: baseUrl() });
-  return context.newPage();
+  const page = await context.newPage();
+  page.on("console", (message) => {
+    if (message.type() === "error" && /Content Security Policy/i.test(message.text())) cspViolations.push(`${page.url()}: ${message.text()}`);
+  });
+  return page;
 }
 
 /** Signs in through the real sign-in page with e-mail and password. */
@@ -41,6 +48,9 @@ export function browserSession(options: { onPage?: (page: Page, email: string | 
   });
   afterAll(async () => {
     await browser?.close();
+    // The pages must work under their own policy: nothing the app needs may be refused.
+    const refused = cspViolations.splice(0);
+    if (refused.length > 0) throw new Error(`the Content-Security-Policy refused ${refused.length} load(s):\n${refused.join("\n")}`);
   });
   const page = async (): Promise<Page> => {
     if (!browser) throw new Error("the browser is not up yet: call page() inside a test");
