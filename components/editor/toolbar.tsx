@@ -89,7 +89,15 @@ export function Toolbar({ editor, images = [] }: { editor: Editor; images?: Imag
         onClick={() => {
           // After the selection, so a selected block is never replaced by the new one.
           const at = editor.state.selection.to;
-          editor.chain().insertContentAt(at, { type: "orbitCheck", attrs: newOrbitCheckAttrs() }).run();
+          const attrs = newOrbitCheckAttrs();
+          editor.chain().insertContentAt(at, { type: "orbitCheck", attrs }).run();
+          // Keyboard users continue in the new block's first field (its view mounts a frame later).
+          const focusNewBlock = (frames: number) => {
+            const input = editor.view.dom.querySelector<HTMLInputElement>(`[data-block-id="${attrs.blockId}"] input`);
+            if (input) input.focus();
+            else if (frames > 0) requestAnimationFrame(() => focusNewBlock(frames - 1));
+          };
+          requestAnimationFrame(() => focusNewBlock(30));
         }}
       >
         Insert orbit check

@@ -16,7 +16,29 @@ async function fillBlock(page: Page, block: Locator, name: string, altitude: str
   await block.getByLabel("Name in the text").fill(name);
   await block.getByLabel("altitude", { exact: true }).fill(altitude);
   await block.getByLabel("Add a claimed value").selectOption("period");
+  await block.getByRole("button", { name: "Add claim" }).click();
   await block.getByLabel("claimed period", { exact: true }).fill(period);
+}
+
+/** The label of the focused element when it lies inside `scope`, else null. */
+function focusedLabelIn(scope: Locator): Promise<string | null> {
+  return scope.evaluate((root) => {
+    const el = document.activeElement as HTMLElement | null;
+    if (!el || !root.contains(el)) return null;
+    const byFor = el.id ? document.querySelector(`label[for="${CSS.escape(el.id)}"]`)?.textContent : null;
+    return (el.getAttribute("aria-label") ?? byFor ?? el.textContent ?? "").trim();
+  });
+}
+
+/** Presses Tab, never leaving `scope`, until the focused element's label is `label`. */
+async function tabTo(page: Page, scope: Locator, label: string) {
+  for (let i = 0; i < 40; i++) {
+    await page.keyboard.press("Tab");
+    const focused = await focusedLabelIn(scope);
+    if (focused === null) throw new Error(`Tab left the block before reaching "${label}"`);
+    if (focused === label) return;
+  }
+  throw new Error(`Tab never reached "${label}"`);
 }
 
 describe("writing and submitting a dossier in the browser", () => {
@@ -51,9 +73,24 @@ describe("writing and submitting a dossier in the browser", () => {
       await fillBlock(page, blocks.nth(0), "the parking orbit", "500", "5677");
       await blocks.nth(0).getByRole("status").filter({ hasText: "Consistent" }).waitFor();
 
-      await page.getByRole("button", { name: "Insert orbit check" }).click();
+      // The second block by keyboard only: the button takes Enter, focus lands in the new
+      // block's name, and every field is reached with Tab.
+      await page.getByRole("button", { name: "Insert orbit check" }).focus();
+      await page.keyboard.press("Enter");
       await expect.poll(() => blocks.count()).toBe(2);
-      await fillBlock(page, blocks.nth(1), "the science orbit", "500", "6100");
+      const name = blocks.nth(1).getByLabel("Name in the text");
+      await expect.poll(() => name.evaluate((el) => el === document.activeElement)).toBe(true);
+      await page.keyboard.type("the science orbit");
+      const second = blocks.nth(1);
+      await tabTo(page, second, "altitude");
+      await page.keyboard.type("500");
+      await tabTo(page, second, "Add a claimed value");
+      await page.keyboard.type("period"); // the select's type-ahead: only chooses
+      await expect.poll(() => second.getByLabel("claimed period").count()).toBe(0);
+      await tabTo(page, second, "Add claim");
+      await page.keyboard.press("Enter");
+      await expect.poll(() => focusedLabelIn(second)).toBe("claimed period");
+      await page.keyboard.type("6100");
       await blocks.nth(1).getByRole("status").filter({ hasText: "Inconsistent" }).waitFor();
       // The plot has its text alternative.
       expect(await blocks.nth(1).getByRole("img", { name: /Plot of the science orbit.*circular/ }).count()).toBe(1);

@@ -25,6 +25,7 @@ async function fillBlock(block: Locator, name: string, altitude: number, period:
   await block.getByLabel("Name in the text").fill(name);
   await block.getByLabel("altitude", { exact: true }).fill(String(altitude));
   await block.getByLabel("Add a claimed value").selectOption("period");
+  await block.getByRole("button", { name: "Add claim" }).click();
   await block.getByRole("textbox", { name: "claimed period", exact: true }).fill(String(period));
 }
 

@@ -171,6 +171,7 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
   const claimed = claim.claimed ?? {};
   // Rows added but not filled in yet stay local: an empty claim is not a claim.
   const [pending, setPending] = useState<string[]>([]);
+  const [choice, setChoice] = useState("");
   const setClaimed = (name: string, v: number | string | undefined | null) => {
     const next = { ...claimed };
     if (v === undefined || v === null || v === "") delete next[name];
@@ -179,6 +180,14 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
     setClaim({ claimed: next });
   };
   const claimedRows = [...Object.keys(claimed), ...pending.filter((n) => !(n in claimed))];
+  const addChoice = () => {
+    const name = choice;
+    if (!name) return;
+    setPending((p) => (p.includes(name) ? p : [...p, name]));
+    setChoice("");
+    // The new row's input takes the focus once it is rendered.
+    requestAnimationFrame(() => document.getElementById(`orbit-check-${blockId}`)?.querySelector<HTMLInputElement>(`input[aria-label="claimed ${name}"]`)?.focus());
+  };
   const referenced = reference && initialFrom ? new Set(reference.replaces) : new Set<string>();
   const unclaimed = info.computed.filter((c) => !claimedRows.includes(c.name));
   const checks = new Map(result.checks.map((c) => [c.quantity, c]));
@@ -325,12 +334,17 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
                 <label htmlFor={`${headingId}-add`} className="text-xs font-semibold text-ink-700">
                   Add a claimed value
                 </label>
+                {/* Choosing only selects; the button (or Enter) adds the row, so moving through
+                    the options with the keyboard adds nothing by accident. */}
                 <select
                   id={`${headingId}-add`}
-                  value=""
-                  onChange={(e) => {
-                    const name = e.target.value;
-                    if (name) setPending((p) => (p.includes(name) ? p : [...p, name]));
+                  value={choice}
+                  onChange={(e) => setChoice(e.target.value)}
+                  onKeyDown={(e) => {
+                    if (e.key === "Enter") {
+                      e.preventDefault();
+                      addChoice();
+                    }
                   }}
                   className="rounded-chip border border-ink-300 bg-white px-2 py-1 text-xs"
                 >
@@ -341,6 +355,14 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
                     </option>
                   ))}
                 </select>
+                <button
+                  type="button"
+                  onClick={addChoice}
+                  disabled={!choice}
+                  className="rounded-chip border border-ink-300 bg-white px-2 py-1 text-xs font-semibold disabled:opacity-50"
+                >
+                  Add claim
+                </button>
               </div>
             ) : null}
           </fieldset>
