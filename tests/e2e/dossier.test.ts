@@ -72,6 +72,15 @@ describe("writing and submitting a dossier in the browser", () => {
       await blocks.first().waitFor();
       await fillBlock(page, blocks.nth(0), "the parking orbit", "500", "5677");
       await blocks.nth(0).getByRole("status").filter({ hasText: "Consistent" }).waitFor();
+      // Arrowing through the kinds and back keeps what was typed for the orbit.
+      await blocks.nth(0).getByLabel("Kind").focus();
+      await page.keyboard.press("ArrowDown");
+      await expect.poll(() => blocks.nth(0).getByLabel("Kind").inputValue()).not.toBe("orbit");
+      await page.keyboard.press("ArrowUp");
+      await expect.poll(() => blocks.nth(0).getByLabel("Kind").inputValue()).toBe("orbit");
+      expect(await blocks.nth(0).getByLabel("altitude", { exact: true }).inputValue()).toBe("500");
+      expect(await blocks.nth(0).getByLabel("claimed period", { exact: true }).inputValue()).toBe("5677");
+      await blocks.nth(0).getByRole("status").filter({ hasText: "Consistent" }).waitFor();
 
       // The second block by keyboard only: the button takes Enter, focus lands in the new
       // block's name, and every field is reached with Tab.

@@ -2,7 +2,7 @@
 // The live orbit-check block: kind, body, given and claimed values with their units, the
 // engine's recomputation (in the browser, the same lib/orbit the server runs), the verdict
 // per quantity and a to-scale plot.
-import { useId, useMemo, useState } from "react";
+import { useId, useMemo, useRef, useState } from "react";
 import { NodeViewWrapper, useEditorState, type ReactNodeViewProps } from "@tiptap/react";
 import type { Editor } from "@tiptap/core";
 import { BODY_NAMES, ORBIT_CHECK_KINDS, SCREENING_CAUTION, conicForPlot, evaluateClaim, type KindInfo } from "@/lib/orbit";
@@ -172,6 +172,7 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
   // Rows added but not filled in yet stay local: an empty claim is not a claim.
   const [pending, setPending] = useState<string[]>([]);
   const [choice, setChoice] = useState("");
+  const stash = useRef<Record<string, { claim: DossierClaim; initialFrom: string | null }>>({});
   const setClaimed = (name: string, v: number | string | undefined | null) => {
     const next = { ...claimed };
     if (v === undefined || v === null || v === "") delete next[name];
@@ -233,8 +234,12 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
             value={info.kind}
             options={ORBIT_CHECK_KINDS.map((k) => k.kind)}
             onChange={(kind) => {
+              // Each kind keeps what was typed for it while the block is open, so moving
+              // through the kinds with the arrow keys and back loses nothing.
+              stash.current[claim.kind] = { claim, initialFrom };
+              const back = stash.current[kind];
               setPending([]);
-              updateAttributes({ claim: { kind, body: kindInfo(kind)?.defaultBody ?? "earth", given: {}, claimed: {} }, initialFrom: null });
+              updateAttributes(back ?? { claim: { kind, body: kindInfo(kind)?.defaultBody ?? "earth", given: {}, claimed: {} }, initialFrom: null });
             }}
           />
           <p className="pl-46 text-xs text-ink-500">{info.summary}</p>
