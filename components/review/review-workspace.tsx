@@ -8,7 +8,7 @@ import { TableView } from "@/components/data-table/table-view";
 import { VerdictBadge } from "@/components/dossier/verdict-badge";
 import type { CheckRow, ReviewScreen, ReviewState } from "@/lib/dal/reviews";
 import type { ReviewItemView } from "@/lib/dal/review-items";
-import { makeAnchor, resolveAnchor, type Anchor } from "@/lib/review/anchors";
+import { anchorForTypedQuote, makeAnchor, resolveAnchor, type Anchor } from "@/lib/review/anchors";
 import { weightedTotal, type CriterionScore, type RubricCriterion } from "@/lib/review/rubric";
 import { callApi, dateTime, formatScore } from "./api";
 import { domText, highlight, offsetOf } from "./dossier-text";
@@ -527,6 +527,8 @@ function DossierPane({
           boardId={boardId}
           proposalId={proposalId}
           selection={selection}
+          serverText={serverText}
+          onTyped={setSelection}
           onRaised={(item) => {
             onRaised(item);
             setSelection(null);
@@ -538,8 +540,24 @@ function DossierPane({
   );
 }
 
-function RaiseItemForm({ boardId, proposalId, selection, onRaised }: { boardId: string; proposalId: string; selection: { anchor: Anchor | null; quote: string } | null; onRaised: (item: ReviewItemView) => void }) {
+function RaiseItemForm({
+  boardId,
+  proposalId,
+  selection,
+  serverText,
+  onTyped,
+  onRaised,
+}: {
+  boardId: string;
+  proposalId: string;
+  selection: { anchor: Anchor | null; quote: string } | null;
+  serverText: string;
+  onTyped: (selection: { anchor: Anchor | null; quote: string } | null) => void;
+  onRaised: (item: ReviewItemView) => void;
+}) {
   const [severity, setSeverity] = useState<"major" | "minor" | "comment">("minor");
+  const [typed, setTyped] = useState("");
+  const [typedMessage, setTypedMessage] = useState<string | null>(null);
   const [title, setTitle] = useState("");
   const [body, setBody] = useState("");
   const [error, setError] = useState<string | null>(null);
@@ -560,6 +578,8 @@ function RaiseItemForm({ boardId, proposalId, selection, onRaised }: { boardId: 
         setPending(false);
         if (answer.ok) {
           onRaised(answer.data.item);
+          setTyped("");
+          setTypedMessage(null);
           setTitle("");
           setBody("");
           setError(null);
@@ -575,8 +595,32 @@ function RaiseItemForm({ boardId, proposalId, selection, onRaised }: { boardId: 
           {!selection.anchor ? <span className="block text-void-700">This selection cannot be anchored in the text; select words within the prose.</span> : null}
         </p>
       ) : (
-        <p className="text-sm text-ink-600">Select text in the dossier to anchor an item to it.</p>
+        <p className="text-sm text-ink-600">Select text in the dossier to anchor an item to it, or type the words below.</p>
       )}
+      <label className="block text-sm font-semibold">
+        Or type the words to anchor to
+        <input
+          value={typed}
+          onChange={(e) => {
+            const value = e.target.value;
+            setTyped(value);
+            if (!value.trim()) {
+              setTypedMessage(null);
+              onTyped(null);
+              return;
+            }
+            const found = anchorForTypedQuote(serverText, value);
+            setTypedMessage(found.ok ? null : found.message);
+            onTyped(found.ok ? { anchor: found.anchor, quote: found.anchor.quote } : null);
+          }}
+          aria-describedby="typed-quote-help"
+          maxLength={500}
+          className="mt-1 block w-full rounded-chip border border-ink-300 bg-white px-2 py-1.5 font-normal"
+        />
+        <span id="typed-quote-help" className="mt-1 block text-xs font-normal text-ink-600" aria-live="polite">
+          {typedMessage ?? "Words that occur once in the dossier, copied or typed."}
+        </span>
+      </label>
       <div className="grid gap-2 sm:grid-cols-[10rem_1fr]">
         <label className="text-sm font-semibold">
           Severity

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { anchorInBounds, makeAnchor, resolveAnchor } from "./anchors";
+import { anchorForTypedQuote, anchorInBounds, makeAnchor, resolveAnchor } from "./anchors";
 import { indexDocument, plainText, type DocNode } from "./plain-text";
 
 const text = "The transfer burn at perigee raises apogee to 35786 km. The second burn at apogee circularises the orbit.";
@@ -81,5 +81,27 @@ describe("dossier plain text", () => {
     const { starts, text: t } = indexDocument(doc);
     expect(starts.get("1.1")).toBe(t.indexOf("500 km"));
     expect(starts.get("3.0.0.0")).toBe(t.indexOf("Δv"));
+  });
+});
+
+describe("anchorForTypedQuote", () => {
+  const text = "The relay parks at 500 km.\nIts period is 95.6 minutes, and the Period of the drift orbit is longer.";
+
+  it("anchors words that occur once, as typed or ignoring case and spacing", () => {
+    const exact = anchorForTypedQuote(text, "95.6 minutes");
+    expect(exact).toMatchObject({ ok: true, anchor: { quote: "95.6 minutes", from: text.indexOf("95.6") } });
+    const loose = anchorForTypedQuote(text, "  parks   AT 500 km ");
+    expect(loose).toMatchObject({ ok: true, anchor: { quote: "parks at 500 km" } });
+    const acrossLines = anchorForTypedQuote(text, "500 km. Its period");
+    expect(acrossLines).toMatchObject({ ok: true, anchor: { quote: "500 km.\nIts period" } });
+  });
+
+  it("says when the words are ambiguous, missing or too short", () => {
+    // "period" occurs once as typed in lower case, twice ignoring case: the exact match wins.
+    expect(anchorForTypedQuote(text, "period")).toMatchObject({ ok: true });
+    expect(anchorForTypedQuote(text, "the")).toEqual({ ok: false, message: expect.stringMatching(/occur 2 times/) });
+    expect(anchorForTypedQuote(text, "apoapsis")).toEqual({ ok: false, message: expect.stringMatching(/do not occur/) });
+    expect(anchorForTypedQuote(text, " a ")).toEqual({ ok: false, message: expect.stringMatching(/at least three/) });
+    expect(anchorForTypedQuote(text, "(km")).toEqual({ ok: false, message: expect.stringMatching(/do not occur/) });
   });
 });

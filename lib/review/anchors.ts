@@ -115,3 +115,29 @@ export function clipRange(range: { from: number; to: number }, runStart: number,
   const to = Math.min(range.to, runEnd);
   return to > from ? { from: from - runStart, to: to - runStart } : null;
 }
+
+export type TypedQuoteResult = { ok: true; anchor: Anchor } | { ok: false; message: string };
+
+/**
+ * Anchors an item to words the reviewer typed instead of selecting them (keyboard and
+ * screen-reader users): the words must occur exactly once in the text, matched first as
+ * typed, then ignoring case; runs of white space count as one space.
+ */
+export function anchorForTypedQuote(text: string, typed: string): TypedQuoteResult {
+  const wanted = typed.trim().replace(/\s+/g, " ");
+  if (wanted.length < 3) return { ok: false, message: "Type at least three characters of the passage." };
+  // Escape the words for a pattern in which any white space matches any run of white space.
+  const source = wanted
+    .split(" ")
+    .map((w) => w.replace(/[.*+?^${}()|[\]\\]/g, "\\$&"))
+    .join("\\s+");
+  for (const flags of ["g", "gi"]) {
+    const hits = [...text.matchAll(new RegExp(source, flags))];
+    if (hits.length === 1) {
+      const from = hits[0]!.index;
+      return { ok: true, anchor: makeAnchor(text, from, from + hits[0]![0].length) };
+    }
+    if (hits.length > 1) return { ok: false, message: `Those words occur ${hits.length} times in the dossier; type a few more around them.` };
+  }
+  return { ok: false, message: "Those words do not occur in the dossier's text." };
+}
