@@ -1,12 +1,14 @@
 "use client";
 // The author's workspace: the editor, the live summary beside it, attachments, autosave
 // with optimistic concurrency, and submission. Nothing typed is lost: a stale save keeps the
-// text in the editor and offers to reload the latest revision and reapply it.
+// text in the editor and offers to reload the latest revision and reapply it, merging block by
+// block when the two edits touched different parts (lib/dossier/merge.ts).
 import { useEffect, useMemo, useRef, useState } from "react";
 import { useRouter } from "next/navigation";
 import { DossierEditor, useDossierEditor } from "@/components/editor/editor";
 import { AttachmentUploader, type AttachmentItem } from "@/components/upload/attachment-uploader";
 import { deltaVBudget, evaluateBlocks, extractOrbitChecks, type ToleranceInput } from "@/lib/dossier/claims";
+import { mergeDocuments } from "@/lib/dossier/merge";
 import { renderDossierHtml } from "@/lib/dossier/render";
 import { DossierSummary } from "./dossier-summary";
 
@@ -51,6 +53,9 @@ export function DossierWorkspace(props: DossierWorkspaceProps) {
   const dirty = useRef(false);
   const conflicted = useRef(false);
   const latestDoc = useRef(props.draft.document);
+  // The last revision this tab knows the server holds: the base of a three-way merge.
+  const baseDoc = useRef(props.draft.document);
+  const [mergedWith, setMergedWith] = useState<number | null>(null);
 
   // The save and schedule functions read only refs, so the editor's onUpdate (bound once)
   // always reaches the current ones through saveRef.
@@ -70,10 +75,11 @@ export function DossierWorkspace(props: DossierWorkspaceProps) {
     const run = (async () => {
       dirty.current = false;
       setSaveState({ kind: "saving" });
+      const sent = latestDoc.current;
       const response = await fetch(`/api/v1/boards/${boardId}/proposals/${proposalId}/draft`, {
         method: "PUT",
         headers: { "content-type": "application/json" },
-        body: JSON.stringify({ revision: revision.current, document: latestDoc.current }),
+        body: JSON.stringify({ revision: revision.current, document: sent }),
       }).catch(() => null);
       if (!response) {
         dirty.current = true;
@@ -83,6 +89,7 @@ export function DossierWorkspace(props: DossierWorkspaceProps) {
       const body = (await response.json().catch(() => ({}))) as { draft?: { revision: number; updatedAt: string }; error?: string };
       if (response.ok && body.draft) {
         revision.current = body.draft.revision;
+        baseDoc.current = sent;
         setSaveState(dirty.current ? { kind: "dirty" } : { kind: "saved", at: body.draft.updatedAt });
         return true;
       }
@@ -129,7 +136,11 @@ export function DossierWorkspace(props: DossierWorkspaceProps) {
     };
   }, []);
 
-  /** Takes the latest revision number, keeps the text in the editor and saves it over that revision. */
+  /**
+   * Loads the latest revision and merges this tab's changes into it block by block. When both
+   * changed the same block, this tab's text is saved over the latest revision, which stays
+   * readable (and restorable) on the page.
+   */
   const reloadAndReapply = async () => {
     const response = await fetch(`/api/v1/boards/${boardId}/proposals/${proposalId}/draft`).catch(() => null);
     if (!response?.ok) {
@@ -137,9 +148,20 @@ export function DossierWorkspace(props: DossierWorkspaceProps) {
       return;
     }
     const { draft } = (await response.json()) as { draft: { revision: number; document: Record<string, unknown> } };
-    setReplaced({ revision: draft.revision, document: draft.document });
+    const merge = mergeDocuments(baseDoc.current, latestDoc.current, draft.document);
     revision.current = draft.revision;
+    baseDoc.current = draft.document;
     conflicted.current = false;
+    if (merge.ok && editor) {
+      setMergedWith(draft.revision);
+      setReplaced(null);
+      latestDoc.current = merge.document;
+      editor.commands.setContent(merge.document as Record<string, unknown>, { emitUpdate: false });
+      setDoc(merge.document);
+    } else {
+      setMergedWith(null);
+      setReplaced({ revision: draft.revision, document: draft.document });
+    }
     dirty.current = true;
     await save();
   };
@@ -189,6 +211,14 @@ export function DossierWorkspace(props: DossierWorkspaceProps) {
     <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_18rem]">
       <div className="space-y-3">
         <SaveStatus state={saveState} onSaveNow={() => void save()} onReapply={() => void reloadAndReapply()} />
+        {mergedWith !== null ? (
+          <p role="status" className="flex items-center justify-between gap-2 rounded-panel border border-holds-500/40 bg-holds-100 p-3 text-sm text-holds-700">
+            Merged with revision {mergedWith}: the other changes and yours were in different parts of the text, so both are kept.
+            <button type="button" onClick={() => setMergedWith(null)} className="rounded-chip border border-holds-500/50 bg-white px-2 py-0.5 text-xs">
+              Dismiss
+            </button>
+          </p>
+        ) : null}
         {replaced ? (
           <details className="rounded-panel border border-drift-500/40 bg-drift-100 p-3 text-sm">
             <summary className="cursor-pointer font-semibold text-drift-700">Your text replaced revision {replaced.revision}; its content is kept here</summary>
