@@ -66,4 +66,23 @@ describe("bad input never causes a server error", () => {
     await sendAll(chair, requests, failures);
     expect(failures).toEqual([]);
   }, 300_000);
+
+  it("answers paths that are no API route with a JSON 404 pointing at the route list", async () => {
+    const anonymous = new HttpClient();
+    for (const [method, path] of [
+      ["GET", "/api/v1/nope"],
+      ["POST", "/api/v1/boards/not-a-board/nothing-here"],
+      ["DELETE", "/api/v2/anything"],
+      ["GET", "/api"],
+    ] as const) {
+      const res = await anonymous.request(path, { method });
+      expect(res.status, `${method} ${path}`).toBe(404);
+      expect(res.headers.get("content-type")).toContain("application/json");
+      expect((await res.json()).error).toBe(`There is no API route ${method} ${path}. The routes are listed at /api/v1/openapi.json.`);
+    }
+    // The real routes still answer.
+    expect((await anonymous.request("/api/health")).status).toBe(200);
+    expect((await anonymous.request("/api/v1/openapi.json")).status).toBe(200);
+    expect((await anonymous.request("/api/auth/providers")).status).toBe(200);
+  });
 });
