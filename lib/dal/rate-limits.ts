@@ -42,9 +42,6 @@ export async function consumeRateLimit(key: string, max: number, windowSeconds: 
 
 /** Deletes windows that closed more than a day ago (none of the limits spans longer). */
 export async function pruneRateLimits(): Promise<number> {
-  const deleted = await db()
-    .delete(rateLimitBuckets)
-    .where(lt(rateLimitBuckets.windowStart, sql`now() - interval '1 day'`))
-    .returning({ key: rateLimitBuckets.key });
-  return deleted.length;
+  const deleted = await db().delete(rateLimitBuckets).where(lt(rateLimitBuckets.windowStart, sql`now() - interval '1 day'`));
+  return deleted.rowCount ?? 0;
 }

@@ -1,5 +1,5 @@
 import "server-only";
-import { and, eq, gt, isNull, sql } from "drizzle-orm";
+import { and, eq, gt, isNull, lt, or, sql } from "drizzle-orm";
 import { db, type Database, type Transaction } from "@/db/client";
 import { accountTokens, signInAttempts, users, userSessions } from "@/db/schema";
 import { hashToken } from "@/lib/auth/tokens";
@@ -109,4 +109,27 @@ export async function consumeAccountToken(purpose: "sign-in-link" | "password-re
     )
     .returning({ email: accountTokens.email });
   return row?.email ?? null;
+}
+
+// ---------- housekeeping (run by lib/jobs/housekeeping.ts) ----------
+
+const DAY_MS = 86_400_000;
+
+/**
+ * Deletes what no longer serves anyone: failed and successful sign-in attempts older than 30
+ * days (the limits look back 15 minutes; the audit log keeps sign-ins for good), sign-in link
+ * and reset tokens used or expired more than a week ago, and sessions that ended (expired or
+ * signed out) more than 30 days ago.
+ */
+export async function pruneAccountRecords(now = new Date()): Promise<{ signInAttempts: number; accountTokens: number; sessions: number }> {
+  const monthAgo = new Date(now.getTime() - 30 * DAY_MS);
+  const weekAgo = new Date(now.getTime() - 7 * DAY_MS);
+  const attempts = await db().delete(signInAttempts).where(lt(signInAttempts.attemptedAt, monthAgo));
+  const tokens = await db()
+    .delete(accountTokens)
+    .where(or(lt(accountTokens.expiresAt, weekAgo), lt(accountTokens.usedAt, weekAgo)));
+  const sessions = await db()
+    .delete(userSessions)
+    .where(or(lt(userSessions.expiresAt, monthAgo), lt(userSessions.revokedAt, monthAgo)));
+  return { signInAttempts: attempts.rowCount ?? 0, accountTokens: tokens.rowCount ?? 0, sessions: sessions.rowCount ?? 0 };
 }

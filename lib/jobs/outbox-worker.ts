@@ -1,6 +1,6 @@
 import "server-only";
 import { processOutbox } from "@/lib/mail/outbox";
-import { pruneRateLimits } from "@/lib/dal/rate-limits";
+import { housekeeping } from "./housekeeping";
 import { enqueueReviewReminders } from "./review-reminders";
 
 const globalForWorker = globalThis as unknown as {
@@ -14,7 +14,7 @@ const REMINDER_INTERVAL_MS = 15 * 60_000;
 /**
  * The background work of one app instance, started by instrumentation.ts: the outbox is
  * polled every second (several instances may do so: rows are claimed with SKIP LOCKED) and
- * the review-reminder job (with the pruning of closed rate-limit windows) runs at start and
+ * the review-reminder job and the housekeeping (lib/jobs/housekeeping.ts) run at start and
  * every 15 minutes. If the mail transport or the
  * database is down, a pass fails, is logged, and the next one tries again.
  */
@@ -35,7 +35,7 @@ export function startOutboxWorker(intervalMs = Number(process.env.OUTBOX_POLL_MS
   const reminders = () =>
     Promise.all([
       enqueueReviewReminders().catch((error) => console.error("[reminders] pass failed:", error instanceof Error ? error.message : error)),
-      pruneRateLimits().catch((error) => console.error("[rate limits] prune failed:", error instanceof Error ? error.message : error)),
+      housekeeping().catch((error) => console.error("[housekeeping] pass failed:", error instanceof Error ? error.message : error)),
     ]);
   void reminders();
   globalForWorker.visvivaReminderJob = setInterval(reminders, REMINDER_INTERVAL_MS);
