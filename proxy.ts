@@ -1,7 +1,11 @@
 import { NextResponse, type NextRequest } from "next/server";
+import { methodTable } from "@/lib/http/allowed-methods";
 import { contentSecurityPolicy } from "@/lib/http/csp";
+import { apiOperations } from "@/lib/openapi";
 
-// Two jobs, for pages only (route handlers answer JSON and check sessions themselves):
+// For /api/v1: a method the path does not allow gets a JSON 405 with an Allow header (Next's
+// own 405 has no body). Everything else there is the route handlers' business.
+// Two jobs for pages (route handlers answer JSON and check sessions themselves):
 // 1. A redirect to /sign-in for pages behind sign-in when there is no session cookie at all;
 //    every route handler, action and data read still checks the session and the policy.
 // 2. A Content-Security-Policy with a fresh nonce per request. Next.js reads the nonce from
@@ -9,6 +13,7 @@ import { contentSecurityPolicy } from "@/lib/http/csp";
 //    load the rest. Dossiers and letters are rendered from stored documents, so the policy is
 //    the second line behind the sanitizer: no script the page did not bring can run.
 const protectedPrefixes = ["/boards", "/account", "/admin", "/review", "/proposals"];
+const apiMethods = methodTable(apiOperations);
 
 /** The object store's origin: uploads go there by presigned PUT, downloads and images by GET. */
 function objectStoreOrigin(): string {
@@ -21,6 +26,17 @@ function objectStoreOrigin(): string {
 
 export function proxy(request: NextRequest) {
   const { pathname, search } = request.nextUrl;
+  if (pathname.startsWith("/api/")) {
+    const allowed = apiMethods.allowed(pathname);
+    if (allowed && !allowed.includes(request.method)) {
+      const use = allowed.filter((m) => m !== "HEAD" && m !== "OPTIONS").join(", ");
+      return NextResponse.json(
+        { error: `${request.method} is not allowed on ${pathname}; this route answers ${use}. The routes are listed at /api/v1/openapi.json.` },
+        { status: 405, headers: { allow: allowed.join(", "), "cache-control": "no-store" } },
+      );
+    }
+    return NextResponse.next();
+  }
   const isProtected = protectedPrefixes.some((p) => pathname === p || pathname.startsWith(`${p}/`));
   // Open registration for proposers is for people without an account yet.
   const isRegistration = /^\/boards\/[^/]+\/register\/?$/.test(pathname);
@@ -42,4 +58,4 @@ export function proxy(request: NextRequest) {
   return response;
 }
 
-export const config = { matcher: ["/((?!api|_next|favicon.ico).*)"] };
+export const config = { matcher: ["/((?!api|_next|favicon.ico).*)", "/api/v1/:path*"] };

@@ -67,7 +67,7 @@ describe("bad input never causes a server error", () => {
     expect(failures).toEqual([]);
   }, 300_000);
 
-  it("answers paths that are no API route with a JSON 404 pointing at the route list", async () => {
+  it("answers paths that are no API route with a JSON 404, and wrong methods with a JSON 405", async () => {
     const anonymous = new HttpClient();
     for (const [method, path] of [
       ["GET", "/api/v1/nope"],
@@ -79,6 +79,17 @@ describe("bad input never causes a server error", () => {
       expect(res.status, `${method} ${path}`).toBe(404);
       expect(res.headers.get("content-type")).toContain("application/json");
       expect((await res.json()).error).toBe(`There is no API route ${method} ${path}. The routes are listed at /api/v1/openapi.json.`);
+    }
+    // A method the route does not answer: a JSON 405 with the methods it does answer.
+    for (const [method, path, allow] of [
+      ["PATCH", "/api/v1/me", "GET, HEAD, OPTIONS"],
+      ["GET", "/api/v1/orbit-checks", "OPTIONS, POST"],
+      ["PUT", `/api/v1/boards/${crypto.randomUUID()}/members`, "GET, HEAD, OPTIONS"],
+    ] as const) {
+      const res = await anonymous.request(path, { method });
+      expect(res.status, `${method} ${path}`).toBe(405);
+      expect(res.headers.get("allow")).toBe(allow);
+      expect((await res.json()).error).toMatch(new RegExp(`^${method} is not allowed on .*; this route answers`));
     }
     // The real routes still answer.
     expect((await anonymous.request("/api/health")).status).toBe(200);
