@@ -94,20 +94,24 @@ export async function createCall(user: SessionUser, boardId: string, input: Call
   return db().transaction(async (tx) => {
     const [row] = await tx
       .insert(calls)
-      .values({
-        boardId,
-        title: input.title,
-        description: input.description,
-        opensAt: input.opensAt,
-        closesAt: input.closesAt,
-        tolerance: input.tolerance,
-        requiredSections: uniqueSections(input.requiredSections),
-        reviewersPerProposal: input.reviewersPerProposal,
-      })
+      .values({ boardId, ...callValues(input) })
       .returning(callColumns);
     await recordAudit({ action: "call.create", actorId: user.id, actorEmail: user.email, boardId, target: row!.id, details: { title: input.title } }, tx);
     return toView(row!);
   });
+}
+
+/** The columns a call form sets, on create and on update alike. */
+function callValues(input: CallInput) {
+  return {
+    title: input.title,
+    description: input.description,
+    opensAt: input.opensAt,
+    closesAt: input.closesAt,
+    tolerance: input.tolerance,
+    requiredSections: uniqueSections(input.requiredSections),
+    reviewersPerProposal: input.reviewersPerProposal,
+  };
 }
 
 export async function updateCall(user: SessionUser, boardId: string, callId: string, input: CallInput): Promise<CallView> {
@@ -116,15 +120,7 @@ export async function updateCall(user: SessionUser, boardId: string, callId: str
   return db().transaction(async (tx) => {
     const [row] = await tx
       .update(calls)
-      .set({
-        title: input.title,
-        description: input.description,
-        opensAt: input.opensAt,
-        closesAt: input.closesAt,
-        tolerance: input.tolerance,
-        requiredSections: uniqueSections(input.requiredSections),
-        reviewersPerProposal: input.reviewersPerProposal,
-      })
+      .set(callValues(input))
       .where(and(eq(calls.boardId, boardId), eq(calls.id, callId)))
       .returning(callColumns);
     if (!row) throw notFound("That call");

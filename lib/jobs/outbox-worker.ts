@@ -32,13 +32,13 @@ export function startOutboxWorker(intervalMs = Number(process.env.OUTBOX_POLL_MS
   }, intervalMs);
   globalForWorker.visvivaOutboxWorker.unref?.();
 
-  const reminders = () =>
+  const periodic = () =>
     Promise.all([
       enqueueReviewReminders().catch((error) => console.error("[reminders] pass failed:", error instanceof Error ? error.message : error)),
       housekeeping().catch((error) => console.error("[housekeeping] pass failed:", error instanceof Error ? error.message : error)),
     ]);
-  void reminders();
-  globalForWorker.visvivaReminderJob = setInterval(reminders, REMINDER_INTERVAL_MS);
+  void periodic();
+  globalForWorker.visvivaReminderJob = setInterval(periodic, REMINDER_INTERVAL_MS);
   globalForWorker.visvivaReminderJob.unref?.();
 }
 
