@@ -13,7 +13,10 @@ const config = [
         "error",
         {
           patterns: [
-            { group: ["next", "next/*", "react", "react-dom", "@/db/*", "@/storage/*", "@/lib/dal/*", "node:*", "pg", "minio"], message: "lib/orbit stays free of framework, database, storage and Node imports." },
+            {
+              group: ["next", "next/*", "react", "react-dom", "@/db/*", "@/storage/*", "@/lib/dal/*", "node:*", "pg", "minio"],
+              message: "lib/orbit stays free of framework, database, storage and Node imports.",
+            },
           ],
         },
       ],

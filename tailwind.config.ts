@@ -7,7 +7,19 @@ const config: Config = {
     extend: {
       colors: {
         // Night-sky ink for text and chrome, a paper white for reading surfaces.
-        ink: { 950: "#0b1020", 900: "#121a30", 800: "#1d2742", 700: "#2c3858", 600: "#45537a", 500: "#65729a", 400: "#8d98ba", 300: "#b7bfd6", 200: "#d9deeb", 100: "#edf0f7", 50: "#f7f8fc" },
+        ink: {
+          950: "#0b1020",
+          900: "#121a30",
+          800: "#1d2742",
+          700: "#2c3858",
+          600: "#45537a",
+          500: "#65729a",
+          400: "#8d98ba",
+          300: "#b7bfd6",
+          200: "#d9deeb",
+          100: "#edf0f7",
+          50: "#f7f8fc",
+        },
         paper: "#fdfcf8",
         // The brand hue: a cool periwinkle "trajectory" blue.
         trajectory: { 700: "#3a3fb0", 600: "#4b52d1", 500: "#6269e6", 400: "#8a8ff0", 100: "#e6e7fc" },

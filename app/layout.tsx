@@ -24,8 +24,8 @@ export default function RootLayout({ children }: { children: React.ReactNode }) 
           {children}
         </main>
         <footer className="mx-auto max-w-7xl px-gutter pb-10 pt-6 text-xs text-ink-500">
-          Orbit checks are two-body screening estimates, not a substitute for high-fidelity analysis. Debris and licensing
-          rules are those of the operator&apos;s own authority.
+          Orbit checks are two-body screening estimates, not a substitute for high-fidelity analysis. Debris and licensing rules are those of the
+          operator&apos;s own authority.
         </footer>
       </body>
     </html>

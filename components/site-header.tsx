@@ -15,19 +15,35 @@ export async function SiteHeader() {
         <nav aria-label="Main" className="flex flex-1 items-center gap-4 text-sm">
           {user ? (
             <>
-              <Link href="/boards" className="hover:text-trajectory-400">Boards</Link>
-              <Link href="/tools/orbit-check" className="hover:text-trajectory-400">Orbit check</Link>
-              {user.isAdmin ? <Link href="/admin/audit" className="hover:text-trajectory-400">Audit log</Link> : null}
-              {user.isAdmin ? <Link href="/admin/outbox" className="hover:text-trajectory-400">Outbox</Link> : null}
+              <Link href="/boards" className="hover:text-trajectory-400">
+                Boards
+              </Link>
+              <Link href="/tools/orbit-check" className="hover:text-trajectory-400">
+                Orbit check
+              </Link>
+              {user.isAdmin ? (
+                <Link href="/admin/audit" className="hover:text-trajectory-400">
+                  Audit log
+                </Link>
+              ) : null}
+              {user.isAdmin ? (
+                <Link href="/admin/outbox" className="hover:text-trajectory-400">
+                  Outbox
+                </Link>
+              ) : null}
             </>
           ) : (
-            <Link href="/tools/orbit-check" className="hover:text-trajectory-400">Orbit check</Link>
+            <Link href="/tools/orbit-check" className="hover:text-trajectory-400">
+              Orbit check
+            </Link>
           )}
         </nav>
         <div className="flex items-center gap-3 text-sm">
           {user ? (
             <>
-              <Link href="/account" className="hover:text-trajectory-400">{user.name}</Link>
+              <Link href="/account" className="hover:text-trajectory-400">
+                {user.name}
+              </Link>
               <SignOutButton />
             </>
           ) : (

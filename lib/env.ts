@@ -17,7 +17,11 @@ const schema = z.object({
   MAIL_CATCHER_URL: z.string().url().optional(),
   APP_URL: z.string().url(),
   NEXTAUTH_SECRET: z.string().min(16),
-  UPLOAD_MAX_BYTES: z.coerce.number().int().positive().default(100 * 1024 * 1024),
+  UPLOAD_MAX_BYTES: z.coerce
+    .number()
+    .int()
+    .positive()
+    .default(100 * 1024 * 1024),
 });
 
 export type AppEnv = z.infer<typeof schema>;

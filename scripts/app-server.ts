@@ -79,7 +79,12 @@ export async function ensureApp(profile: Profile, extraEnv: Record<string, strin
   stopApp(profile);
   if (stale) {
     log(`building into ${distDir} (takes a minute or two)...`);
-    const build = spawnSync(process.execPath, [require.resolve("next/dist/bin/next"), "build"], { cwd: root, env, stdio: ["ignore", "pipe", "pipe"], encoding: "utf8" });
+    const build = spawnSync(process.execPath, [require.resolve("next/dist/bin/next"), "build"], {
+      cwd: root,
+      env,
+      stdio: ["ignore", "pipe", "pipe"],
+      encoding: "utf8",
+    });
     if (build.status !== 0) throw new Error(`next build failed:\n${(build.stdout + build.stderr).slice(-4000)}`);
     log("build done");
   }

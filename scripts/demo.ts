@@ -29,7 +29,11 @@ async function main() {
 
   log("building the app (a minute or two on first start)...");
   const nextBin = require.resolve("next/dist/bin/next");
-  const build = spawnSync(process.execPath, [nextBin, "build"], { cwd: config.root, env: { ...env, NEXT_DIST_DIR: ".next" }, stdio: ["ignore", "inherit", "inherit"] });
+  const build = spawnSync(process.execPath, [nextBin, "build"], {
+    cwd: config.root,
+    env: { ...env, NEXT_DIST_DIR: ".next" },
+    stdio: ["ignore", "inherit", "inherit"],
+  });
   if (build.status !== 0) throw new ServiceError("next build failed (see above)");
 
   const logFile = path.join(config.logDir, "app.log");

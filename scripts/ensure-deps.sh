@@ -20,7 +20,7 @@ if [ "$need_chromium" = "--with-browser" ] && [ ! -x /usr/bin/chromium ]; then
   if [ "$(id -u)" = "0" ]; then
     echo "[deps] installing Debian's chromium for the browser tests..." >&2
     apt-get update -qq >&2
-    DEBIAN_FRONTEND=noninteractive apt-get install -y -qq chromium >&2
+    DEBIAN_FRONTEND=noninteractive apt-get install -y -qq --no-install-recommends chromium >&2
   else
     echo "[deps] the browser tests need Debian's chromium: run 'sudo apt-get install -y chromium' and start again." >&2
     exit 1

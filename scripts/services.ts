@@ -130,7 +130,18 @@ async function startPostgres(config: ServiceConfig): Promise<void> {
     log(`initdb into ${dataDir}`);
     const init = run(
       path.join(bin, "initdb"),
-      ["-D", dataDir, "-U", "postgres", "--auth-local=scram-sha-256", "--auth-host=scram-sha-256", `--pwfile=${superPasswordFile}`, "-E", "UTF8", "--locale=C.UTF-8"],
+      [
+        "-D",
+        dataDir,
+        "-U",
+        "postgres",
+        "--auth-local=scram-sha-256",
+        "--auth-host=scram-sha-256",
+        `--pwfile=${superPasswordFile}`,
+        "-E",
+        "UTF8",
+        "--locale=C.UTF-8",
+      ],
       { asUser },
     );
     if (!init.ok) throw new ServiceError(`initdb failed:\n${init.output.slice(-2000)}`);

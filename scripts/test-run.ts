@@ -25,6 +25,18 @@ async function main(): Promise<number> {
   const started = Date.now();
   let code = 1;
   try {
+    log("checking formatting (prettier --check)...");
+    const format = spawnSync(process.execPath, [path.join(__dirname, "..", "node_modules", "prettier", "bin", "prettier.cjs"), "--check", "--log-level", "warn", "."], { encoding: "utf8" });
+    if (format.status !== 0) {
+      process.stdout.write(format.stdout + format.stderr);
+      throw new Error("files not formatted (above): run `npx prettier --write .`");
+    }
+    log("linting (eslint, any finding fails)...");
+    const lint = spawnSync(process.execPath, [path.join(__dirname, "..", "node_modules", "eslint", "bin", "eslint.js"), "--max-warnings", "0", "."], { encoding: "utf8" });
+    if (lint.status !== 0) {
+      process.stdout.write(lint.stdout + lint.stderr);
+      throw new Error("lint findings (above): fix them first");
+    }
     log("type-checking the whole project (tsc --noEmit)...");
     const typecheck = spawnSync(process.execPath, [require.resolve("typescript/bin/tsc"), "--noEmit", "-p", "tsconfig.json"], { encoding: "utf8" });
     if (typecheck.status !== 0) {
@@ -40,7 +52,14 @@ async function main(): Promise<number> {
     code = await new Promise<number>((resolve) => {
       const child = spawn(
         process.execPath,
-        [path.join(__dirname, "..", "node_modules", "vitest", "vitest.mjs"), "run", "--reporter=default", "--reporter=json", `--outputFile.json=${reportFile}`, ...process.argv.slice(2)],
+        [
+          path.join(__dirname, "..", "node_modules", "vitest", "vitest.mjs"),
+          "run",
+          "--reporter=default",
+          "--reporter=json",
+          `--outputFile.json=${reportFile}`,
+          ...process.argv.slice(2),
+        ],
         { stdio: "inherit", env: { ...process.env, ...appEnvironment(config), VISVIVA_TEST_BASE_URL: url } },
       );
       child.on("exit", (status, signal) => resolve(status ?? (signal ? 1 : 0)));

@@ -27,7 +27,20 @@ export interface DataTableProps<TRow> {
   emptyText?: string;
 }
 
-export function DataTable<TRow>({ caption, columns, rows, total, page, pageSize, sort, dir = "asc", searchLabel, search, getRowId, emptyText = "Nothing to show." }: DataTableProps<TRow>) {
+export function DataTable<TRow>({
+  caption,
+  columns,
+  rows,
+  total,
+  page,
+  pageSize,
+  sort,
+  dir = "asc",
+  searchLabel,
+  search,
+  getRowId,
+  emptyText = "Nothing to show.",
+}: DataTableProps<TRow>) {
   const router = useRouter();
   const pathname = usePathname();
   const searchParams = useSearchParams();

@@ -36,7 +36,11 @@ export function TableView<T>({ table, caption, emptyText = "Nothing to show.", r
                   className={`border-b border-ink-200 font-semibold ${cellPadding}`}
                 >
                   {header.column.getCanSort() ? (
-                    <button type="button" onClick={header.column.getToggleSortingHandler()} className="inline-flex items-center gap-1 text-left hover:text-trajectory-700">
+                    <button
+                      type="button"
+                      onClick={header.column.getToggleSortingHandler()}
+                      className="inline-flex items-center gap-1 text-left hover:text-trajectory-700"
+                    >
                       {label}
                       <span aria-hidden className="font-mono text-xs text-ink-400">
                         {sorted === "asc" ? "▲" : sorted === "desc" ? "▼" : "↕"}

@@ -40,7 +40,10 @@ export function CallForm({ boardId, initial, afterSave }: { boardId: string; ini
       opensAt: text("opensAt") ? `${text("opensAt")}:00Z` : "",
       closesAt: text("closesAt") ? `${text("closesAt")}:00Z` : "",
       tolerance: { relative: Number(text("relative")) / 100, ...(Object.keys(absolute).length ? { absolute } : {}) },
-      requiredSections: text("requiredSections").split("\n").map((s) => s.trim()).filter(Boolean),
+      requiredSections: text("requiredSections")
+        .split("\n")
+        .map((s) => s.trim())
+        .filter(Boolean),
       reviewersPerProposal: Number(text("reviewersPerProposal")),
     };
     setSaving(true);
@@ -53,7 +56,11 @@ export function CallForm({ boardId, initial, afterSave }: { boardId: string; ini
         headers: { "content-type": "application/json" },
         body: JSON.stringify(body),
       });
-      const answer = (await response.json().catch(() => ({}))) as { error?: string; details?: { issues?: { path: string; message: string }[] }; call?: { id: string } };
+      const answer = (await response.json().catch(() => ({}))) as {
+        error?: string;
+        details?: { issues?: { path: string; message: string }[] };
+        call?: { id: string };
+      };
       if (!response.ok) {
         setError(answer.error ?? `Saving failed (${response.status}).`);
         setFieldErrors(Object.fromEntries((answer.details?.issues ?? []).map((i) => [i.path.split(".")[0]!, i.message])));
@@ -75,19 +82,73 @@ export function CallForm({ boardId, initial, afterSave }: { boardId: string; ini
         <label htmlFor="call-description" className="block text-sm font-semibold text-ink-800">
           Description
         </label>
-        <textarea id="call-description" name="description" rows={3} defaultValue={initial?.description} maxLength={5000} className="mt-1 block w-full rounded-chip border border-ink-300 bg-white px-3 py-2" />
+        <textarea
+          id="call-description"
+          name="description"
+          rows={3}
+          defaultValue={initial?.description}
+          maxLength={5000}
+          className="mt-1 block w-full rounded-chip border border-ink-300 bg-white px-3 py-2"
+        />
       </div>
       <div className="grid gap-4 sm:grid-cols-2">
-        <TextField name="opensAt" type="datetime-local" label="Opens (UTC)" defaultValue={toLocalInput(initial?.opensAt ?? "")} required error={fieldErrors.opensAt} />
-        <TextField name="closesAt" type="datetime-local" label="Closes (UTC)" defaultValue={toLocalInput(initial?.closesAt ?? "")} required error={fieldErrors.closesAt} />
+        <TextField
+          name="opensAt"
+          type="datetime-local"
+          label="Opens (UTC)"
+          defaultValue={toLocalInput(initial?.opensAt ?? "")}
+          required
+          error={fieldErrors.opensAt}
+        />
+        <TextField
+          name="closesAt"
+          type="datetime-local"
+          label="Closes (UTC)"
+          defaultValue={toLocalInput(initial?.closesAt ?? "")}
+          required
+          error={fieldErrors.closesAt}
+        />
       </div>
       <fieldset className="grid gap-3 rounded-panel border border-ink-200 p-3 sm:grid-cols-3">
         <legend className="px-1 text-sm font-semibold text-ink-800">Tolerance for orbit checks (a value passes within either bound)</legend>
-        <TextField name="relative" type="number" step="0.01" min="0" max="50" label="Relative (%)" defaultValue={String((initial?.tolerance.relative ?? 0.01) * 100)} error={fieldErrors.tolerance} />
-        <TextField name="abs-km" type="number" step="any" min="0" label="Absolute, km" defaultValue={abs.km !== undefined ? String(abs.km) : ""} hint="default 1" />
-        <TextField name="abs-km/s" type="number" step="any" min="0" label="Absolute, km/s" defaultValue={abs["km/s"] !== undefined ? String(abs["km/s"]) : ""} hint="default 0.001" />
+        <TextField
+          name="relative"
+          type="number"
+          step="0.01"
+          min="0"
+          max="50"
+          label="Relative (%)"
+          defaultValue={String((initial?.tolerance.relative ?? 0.01) * 100)}
+          error={fieldErrors.tolerance}
+        />
+        <TextField
+          name="abs-km"
+          type="number"
+          step="any"
+          min="0"
+          label="Absolute, km"
+          defaultValue={abs.km !== undefined ? String(abs.km) : ""}
+          hint="default 1"
+        />
+        <TextField
+          name="abs-km/s"
+          type="number"
+          step="any"
+          min="0"
+          label="Absolute, km/s"
+          defaultValue={abs["km/s"] !== undefined ? String(abs["km/s"]) : ""}
+          hint="default 0.001"
+        />
         <TextField name="abs-s" type="number" step="any" min="0" label="Absolute, s" defaultValue={abs.s !== undefined ? String(abs.s) : ""} hint="default 1" />
-        <TextField name="abs-deg" type="number" step="any" min="0" label="Absolute, deg" defaultValue={abs.deg !== undefined ? String(abs.deg) : ""} hint="default 0.01" />
+        <TextField
+          name="abs-deg"
+          type="number"
+          step="any"
+          min="0"
+          label="Absolute, deg"
+          defaultValue={abs.deg !== undefined ? String(abs.deg) : ""}
+          hint="default 0.01"
+        />
       </fieldset>
       <div>
         <label htmlFor="call-sections" className="block text-sm font-semibold text-ink-800">
@@ -102,7 +163,15 @@ export function CallForm({ boardId, initial, afterSave }: { boardId: string; ini
         />
         {fieldErrors.requiredSections ? <p className="mt-1 text-sm text-void-700">{fieldErrors.requiredSections}</p> : null}
       </div>
-      <TextField name="reviewersPerProposal" type="number" min="1" max="10" label="Reviewers per proposal" defaultValue={String(initial?.reviewersPerProposal ?? 2)} error={fieldErrors.reviewersPerProposal} />
+      <TextField
+        name="reviewersPerProposal"
+        type="number"
+        min="1"
+        max="10"
+        label="Reviewers per proposal"
+        defaultValue={String(initial?.reviewersPerProposal ?? 2)}
+        error={fieldErrors.reviewersPerProposal}
+      />
       {error ? (
         <p role="alert" className="rounded-chip bg-void-100 p-2 text-sm text-void-700">
           {error}
@@ -114,7 +183,11 @@ export function CallForm({ boardId, initial, afterSave }: { boardId: string; ini
         </p>
       ) : null}
       <div>
-        <button type="submit" disabled={saving} className="rounded-chip bg-trajectory-600 px-4 py-2 font-semibold text-white hover:bg-trajectory-700 disabled:opacity-50">
+        <button
+          type="submit"
+          disabled={saving}
+          className="rounded-chip bg-trajectory-600 px-4 py-2 font-semibold text-white hover:bg-trajectory-700 disabled:opacity-50"
+        >
           {saving ? "Saving…" : initial?.id ? "Save call" : "Open call"}
         </button>
       </div>

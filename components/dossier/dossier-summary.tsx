@@ -46,7 +46,9 @@ export function DossierSummary({ items, budget, source }: { items: SummaryItem[]
           Δv budget
         </h3>
         {budget.maneuvers.length === 0 && budget.available === null ? (
-          <p className="text-xs text-ink-600">Add maneuver claims (Hohmann, bi-elliptic, plane change, escape) and a propulsion claim (rocket or Δv budget) to see the margin.</p>
+          <p className="text-xs text-ink-600">
+            Add maneuver claims (Hohmann, bi-elliptic, plane change, escape) and a propulsion claim (rocket or Δv budget) to see the margin.
+          </p>
         ) : (
           <table className="mt-1 w-full text-xs">
             <tbody>

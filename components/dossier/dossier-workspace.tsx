@@ -15,11 +15,7 @@ import { DossierSummary } from "./dossier-summary";
 export const AUTOSAVE_DELAY_MS = 1500;
 
 type SaveState =
-  | { kind: "saved"; at: string | null }
-  | { kind: "dirty" }
-  | { kind: "saving" }
-  | { kind: "conflict"; message: string }
-  | { kind: "error"; message: string };
+  { kind: "saved"; at: string | null } | { kind: "dirty" } | { kind: "saving" } | { kind: "conflict"; message: string } | { kind: "error"; message: string };
 
 interface Problem {
   message: string;
@@ -222,7 +218,10 @@ export function DossierWorkspace(props: DossierWorkspaceProps) {
         {replaced ? (
           <details className="rounded-panel border border-drift-500/40 bg-drift-100 p-3 text-sm">
             <summary className="cursor-pointer font-semibold text-drift-700">Your text replaced revision {replaced.revision}; its content is kept here</summary>
-            <div className="prose-dossier mt-2 max-h-96 overflow-auto rounded-chip bg-white p-3" dangerouslySetInnerHTML={{ __html: renderDossierHtml(replaced.document) }} />
+            <div
+              className="prose-dossier mt-2 max-h-96 overflow-auto rounded-chip bg-white p-3"
+              dangerouslySetInnerHTML={{ __html: renderDossierHtml(replaced.document) }}
+            />
             <div className="mt-2 flex gap-2">
               <button type="button" onClick={restoreReplaced} className="rounded-chip border border-ink-300 bg-white px-3 py-1">
                 Restore that revision instead
@@ -243,7 +242,8 @@ export function DossierWorkspace(props: DossierWorkspaceProps) {
           </h2>
           <p className="text-xs text-ink-600">
             {props.requiredSections.length > 0 ? `Required sections: ${props.requiredSections.join(", ")}. ` : ""}
-            {props.callOpen ? `The call closes ${new Date(props.callClosesAt).toUTCString()}.` : "The call is not open for submissions."} The server recomputes every claim when you submit.
+            {props.callOpen ? `The call closes ${new Date(props.callClosesAt).toUTCString()}.` : "The call is not open for submissions."} The server recomputes
+            every claim when you submit.
           </p>
           <button
             type="button"
@@ -259,7 +259,15 @@ export function DossierWorkspace(props: DossierWorkspaceProps) {
               {submitError.problems.length > 0 ? (
                 <ul className="list-disc pl-5">
                   {submitError.problems.map((p, i) => (
-                    <li key={i}>{p.blockId ? <a href={`#orbit-check-${p.blockId}`} className="underline">{p.message}</a> : p.message}</li>
+                    <li key={i}>
+                      {p.blockId ? (
+                        <a href={`#orbit-check-${p.blockId}`} className="underline">
+                          {p.message}
+                        </a>
+                      ) : (
+                        p.message
+                      )}
+                    </li>
                   ))}
                 </ul>
               ) : null}

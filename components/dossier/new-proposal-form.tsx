@@ -5,7 +5,15 @@ import { useRouter } from "next/navigation";
 import { SelectField, TextField } from "@/components/ui/form-controls";
 import { MISSION_TYPES } from "@/lib/validation/dossier";
 
-export function NewProposalForm({ boardId, calls, candidates }: { boardId: string; calls: { id: string; title: string }[]; candidates: { id: string; name: string; email: string }[] }) {
+export function NewProposalForm({
+  boardId,
+  calls,
+  candidates,
+}: {
+  boardId: string;
+  calls: { id: string; title: string }[];
+  candidates: { id: string; name: string; email: string }[];
+}) {
   const router = useRouter();
   const [error, setError] = useState<string | null>(null);
   const [saving, setSaving] = useState(false);
@@ -72,7 +80,11 @@ export function NewProposalForm({ boardId, calls, candidates }: { boardId: strin
         </p>
       ) : null}
       <div>
-        <button type="submit" disabled={saving} className="rounded-chip bg-trajectory-600 px-4 py-2 font-semibold text-white hover:bg-trajectory-700 disabled:opacity-50">
+        <button
+          type="submit"
+          disabled={saving}
+          className="rounded-chip bg-trajectory-600 px-4 py-2 font-semibold text-white hover:bg-trajectory-700 disabled:opacity-50"
+        >
           {saving ? "Creating…" : "Start proposal"}
         </button>
       </div>

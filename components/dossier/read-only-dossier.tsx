@@ -21,7 +21,17 @@ export interface StoredCheckResult {
   result: Record<string, unknown>;
 }
 
-export function ReadOnlyDossier({ document, boardId, results, className }: { document: unknown; boardId?: string; results?: StoredCheckResult[]; className?: string }) {
+export function ReadOnlyDossier({
+  document,
+  boardId,
+  results,
+  className,
+}: {
+  document: unknown;
+  boardId?: string;
+  results?: StoredCheckResult[];
+  className?: string;
+}) {
   const verdicts = results ? Object.fromEntries(results.map((r) => [r.blockId, { ...(r.result as unknown as BlockVerdict), status: r.status }])) : undefined;
   const html = renderDossierHtml(document, { boardId, verdicts });
   return (

@@ -42,7 +42,8 @@ const EDITOR_PROPS = {
 };
 
 export function DossierEditor({ editor, images }: { editor: Editor | null; images?: ImageChoice[] }) {
-  if (!editor) return <div className="min-h-[24rem] animate-pulse rounded-panel border border-ink-200 bg-white" aria-busy="true" aria-label="Loading the editor" />;
+  if (!editor)
+    return <div className="min-h-[24rem] animate-pulse rounded-panel border border-ink-200 bg-white" aria-busy="true" aria-label="Loading the editor" />;
   return (
     <div className="rounded-panel border border-ink-200 bg-white">
       <Toolbar editor={editor} images={images} />

@@ -88,10 +88,16 @@ export function OrbitCheckConsole({ examples }: { examples: { name: string; requ
                 <thead>
                   <tr className="text-left text-xs text-ink-600 [&>th]:px-2 [&>th]:py-1">
                     <th scope="col">quantity</th>
-                    <th scope="col" className="text-right">claimed</th>
-                    <th scope="col" className="text-right">recomputed</th>
+                    <th scope="col" className="text-right">
+                      claimed
+                    </th>
+                    <th scope="col" className="text-right">
+                      recomputed
+                    </th>
                     <th scope="col">unit</th>
-                    <th scope="col" className="text-right">rel. error</th>
+                    <th scope="col" className="text-right">
+                      rel. error
+                    </th>
                     <th scope="col">verdict</th>
                   </tr>
                 </thead>

@@ -110,12 +110,26 @@ export function OrbitPlot({ plot, title, size = 260 }: { plot: ConicPlot; title:
         <circle cx={0} cy={0} r={Math.max(plot.bodyRadius, stroke)} fill="#2c3858" stroke="#8d98ba" strokeWidth={stroke / 2} />
         {paths.map((p, i) => (
           <g key={`${p.conic.label}-${i}`}>
-            <path d={p.d} fill="none" stroke={STROKES[i % STROKES.length]} strokeWidth={stroke} strokeDasharray={p.conic.label.includes("transfer") ? `${stroke * 4} ${stroke * 3}` : undefined} />
+            <path
+              d={p.d}
+              fill="none"
+              stroke={STROKES[i % STROKES.length]}
+              strokeWidth={stroke}
+              strokeDasharray={p.conic.label.includes("transfer") ? `${stroke * 4} ${stroke * 3}` : undefined}
+            />
             <circle cx={p.periapsis[0]} cy={p.periapsis[1]} r={dot} fill={STROKES[i % STROKES.length]}>
               <title>{`${p.conic.label} periapsis`}</title>
             </circle>
             {p.apoapsis && p.conic.e > 1e-6 ? (
-              <rect x={p.apoapsis[0] - dot} y={p.apoapsis[1] - dot} width={dot * 2} height={dot * 2} fill="none" stroke={STROKES[i % STROKES.length]} strokeWidth={stroke}>
+              <rect
+                x={p.apoapsis[0] - dot}
+                y={p.apoapsis[1] - dot}
+                width={dot * 2}
+                height={dot * 2}
+                fill="none"
+                stroke={STROKES[i % STROKES.length]}
+                strokeWidth={stroke}
+              >
                 <title>{`${p.conic.label} apoapsis`}</title>
               </rect>
             ) : null}

@@ -28,9 +28,23 @@ export function AssignmentTable({ boardId, data }: { boardId: string; data: Assi
       column.display({
         id: "select",
         header: ({ table }) => (
-          <input type="checkbox" aria-label="Select every proposal" checked={table.getIsAllRowsSelected()} onChange={table.getToggleAllRowsSelectedHandler()} className="accent-trajectory-600" />
+          <input
+            type="checkbox"
+            aria-label="Select every proposal"
+            checked={table.getIsAllRowsSelected()}
+            onChange={table.getToggleAllRowsSelectedHandler()}
+            className="accent-trajectory-600"
+          />
         ),
-        cell: ({ row }) => <input type="checkbox" aria-label={`Select ${row.original.title}`} checked={row.getIsSelected()} onChange={row.getToggleSelectedHandler()} className="accent-trajectory-600" />,
+        cell: ({ row }) => (
+          <input
+            type="checkbox"
+            aria-label={`Select ${row.original.title}`}
+            checked={row.getIsSelected()}
+            onChange={row.getToggleSelectedHandler()}
+            className="accent-trajectory-600"
+          />
+        ),
       }),
       column.accessor("title", {
         header: "Proposal",
@@ -69,7 +83,9 @@ export function AssignmentTable({ boardId, data }: { boardId: string; data: Assi
                 <span className="font-semibold">{a.reviewerName}</span>
                 <span className="rounded-chip bg-ink-100 px-1.5">{a.reviewStatus}</span>
                 <span className="text-ink-600">due {dateOnly.format(new Date(a.dueAt))}</span>
-                {data.conflicts[`${a.reviewerId}:${row.original.id}`]?.some((f) => f.strength === "conflict") ? <span className="text-void-700">conflict declared</span> : null}
+                {data.conflicts[`${a.reviewerId}:${row.original.id}`]?.some((f) => f.strength === "conflict") ? (
+                  <span className="text-void-700">conflict declared</span>
+                ) : null}
                 {a.reviewStatus !== "submitted" ? (
                   <button
                     type="button"
@@ -107,7 +123,9 @@ export function AssignmentTable({ boardId, data }: { boardId: string; data: Assi
   const selectedIds = Object.keys(selection).filter((k) => selection[k]);
 
   const flagsFor = (reviewerId: string) =>
-    selectedIds.flatMap((p) => (data.conflicts[`${reviewerId}:${p}`] ?? []).map((f) => ({ ...f, proposal: data.proposals.find((x) => x.id === p)?.title ?? "" })));
+    selectedIds.flatMap((p) =>
+      (data.conflicts[`${reviewerId}:${p}`] ?? []).map((f) => ({ ...f, proposal: data.proposals.find((x) => x.id === p)?.title ?? "" })),
+    );
 
   const assign = async (confirm: boolean) => {
     setPending(true);
@@ -117,20 +135,32 @@ export function AssignmentTable({ boardId, data }: { boardId: string; data: Assi
     });
     setPending(false);
     if (res.ok) {
-      setAnswer({ tone: "success", text: `${res.data.created.length} assignment(s) made${res.data.existing.length ? `, ${res.data.existing.length} already existed` : ""}. Reviewers are e-mailed.` });
+      setAnswer({
+        tone: "success",
+        text: `${res.data.created.length} assignment(s) made${res.data.existing.length ? `, ${res.data.existing.length} already existed` : ""}. Reviewers are e-mailed.`,
+      });
       setSelection({});
       setReviewers(new Set());
       router.refresh();
       return;
     }
     const details = res.details as { blocked?: { message: string }[]; needsConfirmation?: boolean } | undefined;
-    setAnswer({ tone: details?.needsConfirmation ? "confirm" : "error", text: details?.needsConfirmation ? "Some pairs may have a conflict of interest:" : res.error, lines: details?.blocked?.map((b) => b.message) });
+    setAnswer({
+      tone: details?.needsConfirmation ? "confirm" : "error",
+      text: details?.needsConfirmation ? "Some pairs may have a conflict of interest:" : res.error,
+      lines: details?.blocked?.map((b) => b.message),
+    });
   };
 
   return (
     <div className="grid gap-6 xl:grid-cols-[minmax(0,1fr)_22rem]">
       <div className="overflow-x-auto rounded-panel border border-ink-200 bg-white">
-        <TableView table={table} caption="Submitted proposals and their reviewers" emptyText="No submitted proposals in this call yet." rowClassName={(row) => (row.getIsSelected() ? "bg-trajectory-100/50" : "")} />
+        <TableView
+          table={table}
+          caption="Submitted proposals and their reviewers"
+          emptyText="No submitted proposals in this call yet."
+          rowClassName={(row) => (row.getIsSelected() ? "bg-trajectory-100/50" : "")}
+        />
       </div>
       <aside aria-labelledby="assign-heading" className="space-y-3 rounded-panel border border-ink-200 bg-white p-4 shadow-panel">
         <h2 id="assign-heading" className="text-lg font-semibold">
@@ -176,10 +206,19 @@ export function AssignmentTable({ boardId, data }: { boardId: string; data: Assi
         </fieldset>
         <label className="block text-sm font-semibold">
           Due date (end of day, UTC)
-          <input type="date" value={due} onChange={(e) => setDue(e.target.value)} required className="mt-1 block w-full rounded-chip border border-ink-300 px-2 py-1.5 font-normal" />
+          <input
+            type="date"
+            value={due}
+            onChange={(e) => setDue(e.target.value)}
+            required
+            className="mt-1 block w-full rounded-chip border border-ink-300 px-2 py-1.5 font-normal"
+          />
         </label>
         {answer ? (
-          <div role={answer.tone === "success" ? "status" : "alert"} className={`rounded-chip border px-3 py-2 text-sm ${answer.tone === "success" ? "border-holds-500/50 bg-holds-100 text-holds-700" : answer.tone === "confirm" ? "border-drift-500/50 bg-drift-100 text-drift-700" : "border-void-500/50 bg-void-100 text-void-700"}`}>
+          <div
+            role={answer.tone === "success" ? "status" : "alert"}
+            className={`rounded-chip border px-3 py-2 text-sm ${answer.tone === "success" ? "border-holds-500/50 bg-holds-100 text-holds-700" : answer.tone === "confirm" ? "border-drift-500/50 bg-drift-100 text-drift-700" : "border-void-500/50 bg-void-100 text-void-700"}`}
+          >
             <p>{answer.text}</p>
             {answer.lines?.length ? (
               <ul className="mt-1 list-disc pl-4">

@@ -17,7 +17,11 @@ export async function BoardReviewSection({ user, board, calls }: { user: Session
   const queue = isReviewer ? await listReviewQueue(user, board.id) : [];
   const open = queue.filter((q) => q.status !== "submitted" && !q.conflicted).length;
   return (
-    <Panel id="reviews" title="Reviews" description={isChair ? "Rubrics, reviewer assignment and the scores of each call." : "Your assigned proposals and declared conflicts."}>
+    <Panel
+      id="reviews"
+      title="Reviews"
+      description={isChair ? "Rubrics, reviewer assignment and the scores of each call." : "Your assigned proposals and declared conflicts."}
+    >
       {isReviewer ? (
         <ul className="flex flex-wrap gap-3">
           <li>

@@ -36,13 +36,19 @@ export function ConflictDeclarations({ boardId, conflicts, candidates }: { board
             <input type="radio" name="kind" checked={kind === "proposal"} onChange={() => setKind("proposal")} className="accent-trajectory-600" /> one proposal
           </label>
           <label className="flex items-center gap-1">
-            <input type="radio" name="kind" checked={kind === "organisation"} onChange={() => setKind("organisation")} className="accent-trajectory-600" /> an organisation
+            <input type="radio" name="kind" checked={kind === "organisation"} onChange={() => setKind("organisation")} className="accent-trajectory-600" /> an
+            organisation
           </label>
         </fieldset>
         {kind === "proposal" ? (
           <label className="block text-sm font-semibold">
             Proposal
-            <select value={proposalId} onChange={(e) => setProposalId(e.target.value)} required className="mt-1 block w-full rounded-chip border border-ink-300 bg-white px-2 py-1.5 font-normal">
+            <select
+              value={proposalId}
+              onChange={(e) => setProposalId(e.target.value)}
+              required
+              className="mt-1 block w-full rounded-chip border border-ink-300 bg-white px-2 py-1.5 font-normal"
+            >
               <option value="">Choose…</option>
               {candidates.map((c) => (
                 <option key={c.id} value={c.id}>
@@ -57,12 +63,26 @@ export function ConflictDeclarations({ boardId, conflicts, candidates }: { board
         ) : (
           <label className="block text-sm font-semibold">
             Organisation
-            <input value={organisation} onChange={(e) => setOrganisation(e.target.value)} required maxLength={200} className="mt-1 block w-full rounded-chip border border-ink-300 px-2 py-1.5 font-normal" />
+            <input
+              value={organisation}
+              onChange={(e) => setOrganisation(e.target.value)}
+              required
+              maxLength={200}
+              className="mt-1 block w-full rounded-chip border border-ink-300 px-2 py-1.5 font-normal"
+            />
           </label>
         )}
         <label className="block text-sm font-semibold">
           Reason
-          <textarea value={reason} onChange={(e) => setReason(e.target.value)} required minLength={3} maxLength={2000} rows={3} className="mt-1 block w-full rounded-chip border border-ink-300 px-2 py-1.5 font-normal" />
+          <textarea
+            value={reason}
+            onChange={(e) => setReason(e.target.value)}
+            required
+            minLength={3}
+            maxLength={2000}
+            rows={3}
+            className="mt-1 block w-full rounded-chip border border-ink-300 px-2 py-1.5 font-normal"
+          />
         </label>
         {answer ? (
           <p role={answer.ok ? "status" : "alert"} className={`text-sm ${answer.ok ? "text-holds-700" : "text-void-700"}`}>

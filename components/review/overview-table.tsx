@@ -15,7 +15,10 @@ export function OverviewTable({ boardId, overview }: { boardId: string; overview
   const [search, setSearch] = useState("");
   const [onlyFlagged, setOnlyFlagged] = useState(false);
   const scale = overview.scale;
-  const data = useMemo(() => (onlyFlagged ? overview.rows.filter((r) => r.checks.inconsistent + r.checks.invalid + r.openItems.major > 0) : overview.rows), [overview.rows, onlyFlagged]);
+  const data = useMemo(
+    () => (onlyFlagged ? overview.rows.filter((r) => r.checks.inconsistent + r.checks.invalid + r.openItems.major > 0) : overview.rows),
+    [overview.rows, onlyFlagged],
+  );
   const columns = useMemo(
     () => [
       column.accessor("title", {
@@ -31,7 +34,11 @@ export function OverviewTable({ boardId, overview }: { boardId: string; overview
         header: "Weighted mean",
         sortUndefined: "last",
         sortingFn: (a, b) => (a.original.weightedMean ?? -Infinity) - (b.original.weightedMean ?? -Infinity),
-        cell: (info) => <span className="font-mono" data-testid="weighted-mean">{formatScore(info.getValue())}</span>,
+        cell: (info) => (
+          <span className="font-mono" data-testid="weighted-mean">
+            {formatScore(info.getValue())}
+          </span>
+        ),
       }),
       column.accessor("spread", {
         header: () => <span title="Sample standard deviation (divides by n − 1) of the reviewers' weighted totals">Spread (sample s.d.)</span>,
@@ -54,7 +61,8 @@ export function OverviewTable({ boardId, overview }: { boardId: string; overview
           const o = info.row.original.openItems;
           return (
             <span className="text-xs">
-              <span className="font-semibold text-void-700">{o.major} major</span> · <span className="text-drift-700">{o.minor} minor</span> · {o.comment} comment
+              <span className="font-semibold text-void-700">{o.major} major</span> · <span className="text-drift-700">{o.minor} minor</span> · {o.comment}{" "}
+              comment
             </span>
           );
         },
@@ -74,7 +82,15 @@ export function OverviewTable({ boardId, overview }: { boardId: string; overview
       column.display({
         id: "chart",
         header: "Distribution",
-        cell: ({ row }) => (scale ? <ScoreChart distribution={row.original.distribution} mean={row.original.weightedMean} scale={scale} label={`Weighted totals for ${row.original.title}`} /> : null),
+        cell: ({ row }) =>
+          scale ? (
+            <ScoreChart
+              distribution={row.original.distribution}
+              mean={row.original.weightedMean}
+              scale={scale}
+              label={`Weighted totals for ${row.original.title}`}
+            />
+          ) : null,
       }),
     ],
     [boardId, scale],
@@ -97,13 +113,22 @@ export function OverviewTable({ boardId, overview }: { boardId: string; overview
       <div className="flex flex-wrap items-end gap-4">
         <label className="text-sm font-semibold">
           Filter by title
-          <input type="search" value={search} onChange={(e) => setSearch(e.target.value)} className="mt-1 block w-64 rounded-chip border border-ink-300 px-3 py-1.5 font-normal" />
+          <input
+            type="search"
+            value={search}
+            onChange={(e) => setSearch(e.target.value)}
+            className="mt-1 block w-64 rounded-chip border border-ink-300 px-3 py-1.5 font-normal"
+          />
         </label>
         <label className="flex items-center gap-2 text-sm">
           <input type="checkbox" checked={onlyFlagged} onChange={(e) => setOnlyFlagged(e.target.checked)} className="accent-trajectory-600" />
           Only proposals with flags or open major items
         </label>
-        <a href={`/api/v1/boards/${boardId}/calls/${overview.call.id}/overview/csv`} className="ml-auto rounded-chip border border-ink-300 px-3 py-1.5 text-sm font-semibold hover:border-trajectory-500" download>
+        <a
+          href={`/api/v1/boards/${boardId}/calls/${overview.call.id}/overview/csv`}
+          className="ml-auto rounded-chip border border-ink-300 px-3 py-1.5 text-sm font-semibold hover:border-trajectory-500"
+          download
+        >
           Export CSV
         </a>
       </div>
@@ -111,8 +136,8 @@ export function OverviewTable({ boardId, overview }: { boardId: string; overview
         <TableView table={table} caption="Scores and flags per proposal" emptyText="Nothing matches." rowData={(row) => ({ "data-proposal": row.id })} />
       </div>
       <p className="text-xs text-ink-500">
-        Weighted mean: the mean of the submitted reviews&apos; weighted totals (each Σ weight × score / 100). Spread: their sample standard deviation (n − 1), shown once two
-        reviews are in. The dashed line in each chart marks the mean.
+        Weighted mean: the mean of the submitted reviews&apos; weighted totals (each Σ weight × score / 100). Spread: their sample standard deviation (n − 1),
+        shown once two reviews are in. The dashed line in each chart marks the mean.
       </p>
     </div>
   );

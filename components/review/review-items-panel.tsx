@@ -32,7 +32,11 @@ export function ReviewItemsPanel({
         </h2>
         <label className="text-sm">
           Show{" "}
-          <select value={filter} onChange={(e) => setFilter(e.target.value as "all" | "open")} className="rounded-chip border border-ink-300 bg-white px-2 py-1">
+          <select
+            value={filter}
+            onChange={(e) => setFilter(e.target.value as "all" | "open")}
+            className="rounded-chip border border-ink-300 bg-white px-2 py-1"
+          >
             <option value="all">all</option>
             <option value="open">open only</option>
           </select>
@@ -41,7 +45,15 @@ export function ReviewItemsPanel({
       {shown.length === 0 ? <p className="text-sm text-ink-600">No review items you can see yet.</p> : null}
       <ol className="space-y-3">
         {shown.map((item) => (
-          <ItemCard key={item.id} boardId={boardId} item={item} active={activeItem === item.id} onActivate={onActivate} onChange={onChange} canModerate={canModerate} />
+          <ItemCard
+            key={item.id}
+            boardId={boardId}
+            item={item}
+            active={activeItem === item.id}
+            onActivate={onActivate}
+            onChange={onChange}
+            canModerate={canModerate}
+          />
         ))}
       </ol>
     </section>
@@ -67,7 +79,10 @@ function ItemCard({
   const [error, setError] = useState<string | null>(null);
   const url = `/api/v1/boards/${boardId}/review-items/${item.id}`;
   return (
-    <li data-item={item.id} className={`rounded-chip border p-3 ${active ? "border-trajectory-500" : "border-ink-100"} ${item.status === "resolved" ? "opacity-75" : ""}`}>
+    <li
+      data-item={item.id}
+      className={`rounded-chip border p-3 ${active ? "border-trajectory-500" : "border-ink-100"} ${item.status === "resolved" ? "opacity-75" : ""}`}
+    >
       <div className="flex flex-wrap items-center gap-2">
         <SeverityChip severity={item.severity} />
         <button
@@ -111,7 +126,15 @@ function ItemCard({
         <label className="sr-only" htmlFor={`reply-${item.id}`}>
           Reply to {item.title}
         </label>
-        <input id={`reply-${item.id}`} value={reply} onChange={(e) => setReply(e.target.value)} required maxLength={20000} placeholder="Reply…" className="min-w-0 flex-1 rounded-chip border border-ink-300 px-2 py-1 text-sm" />
+        <input
+          id={`reply-${item.id}`}
+          value={reply}
+          onChange={(e) => setReply(e.target.value)}
+          required
+          maxLength={20000}
+          placeholder="Reply…"
+          className="min-w-0 flex-1 rounded-chip border border-ink-300 px-2 py-1 text-sm"
+        />
         <button type="submit" className="rounded-chip border border-ink-300 px-2 py-1 text-sm font-semibold hover:border-trajectory-500">
           Reply
         </button>

@@ -229,7 +229,11 @@ export function ReviewWorkspace({ boardId, screen, items: initialItems, canRaise
           ) : null}
           <div className="mt-4 flex flex-wrap items-center gap-3">
             {canEdit ? (
-              <button type="button" onClick={() => void submit()} className="rounded-chip bg-trajectory-600 px-4 py-2 font-semibold text-white hover:bg-trajectory-700">
+              <button
+                type="button"
+                onClick={() => void submit()}
+                className="rounded-chip bg-trajectory-600 px-4 py-2 font-semibold text-white hover:bg-trajectory-700"
+              >
                 Submit review
               </button>
             ) : null}
@@ -334,7 +338,9 @@ function RubricTable({
               onChange={(e) => onChange(c.id, { comment: e.target.value })}
               className="block w-full min-w-40 rounded-chip border border-ink-300 px-2 py-1 text-sm aria-[invalid=true]:border-void-500 disabled:bg-ink-50"
             />
-            {c.commentRequiredBelow !== null ? <p className={`text-xs ${missing ? "text-void-700" : "text-ink-500"}`}>Required below {c.commentRequiredBelow}</p> : null}
+            {c.commentRequiredBelow !== null ? (
+              <p className={`text-xs ${missing ? "text-void-700" : "text-ink-500"}`}>Required below {c.commentRequiredBelow}</p>
+            ) : null}
           </div>
         );
       },
@@ -375,9 +381,20 @@ function ReopenForm({ base, onReopened }: { base: string; onReopened: (r: Review
     >
       <label className="block text-sm font-semibold">
         Reopen this review (recorded in the audit log)
-        <input value={reason} onChange={(e) => setReason(e.target.value)} required minLength={3} placeholder="Why it is reopened" className="mt-1 block w-full rounded-chip border border-ink-300 px-3 py-1.5 font-normal" />
+        <input
+          value={reason}
+          onChange={(e) => setReason(e.target.value)}
+          required
+          minLength={3}
+          placeholder="Why it is reopened"
+          className="mt-1 block w-full rounded-chip border border-ink-300 px-3 py-1.5 font-normal"
+        />
       </label>
-      {error ? <p role="alert" className="text-sm text-void-700">{error}</p> : null}
+      {error ? (
+        <p role="alert" className="text-sm text-void-700">
+          {error}
+        </p>
+      ) : null}
       <button type="submit" className="rounded-chip border border-ink-300 px-3 py-1.5 text-sm font-semibold hover:border-trajectory-500">
         Reopen
       </button>
@@ -402,7 +419,11 @@ function ChecksPanel({ base, checks, editable, onRevision }: { base: string; che
         {checks.map((c) => (
           <li key={c.id} data-check-block={c.blockId} className="rounded-chip border border-ink-100 p-3">
             <div className="flex flex-wrap items-center justify-between gap-2">
-              <a href={`#check-${c.blockId}`} onClick={() => document.querySelector(`[data-block-id="${CSS.escape(c.blockId)}"]`)?.scrollIntoView({ behavior: "smooth", block: "center" })} className="font-semibold text-trajectory-700 hover:underline">
+              <a
+                href={`#check-${c.blockId}`}
+                onClick={() => document.querySelector(`[data-block-id="${CSS.escape(c.blockId)}"]`)?.scrollIntoView({ behavior: "smooth", block: "center" })}
+                className="font-semibold text-trajectory-700 hover:underline"
+              >
                 {c.label || c.kind}
               </a>
               <VerdictBadge status={c.status} prefix="Server:" />
@@ -411,7 +432,8 @@ function ChecksPanel({ base, checks, editable, onRevision }: { base: string; che
               .filter((q) => !q.ok)
               .map((q) => (
                 <p key={q.quantity} className="mt-1 font-mono text-xs text-ink-700">
-                  {q.quantity}: claimed {String(q.claimed)}, computed {typeof q.computed === "number" ? Number(q.computed.toPrecision(6)) : String(q.computed)} {q.unit}
+                  {q.quantity}: claimed {String(q.claimed)}, computed {typeof q.computed === "number" ? Number(q.computed.toPrecision(6)) : String(q.computed)}{" "}
+                  {q.unit}
                 </p>
               ))}
             {(c.verdict.messages ?? []).map((m) => (
@@ -521,7 +543,9 @@ function DossierPane({
         }}
         dangerouslySetInnerHTML={{ __html: html }}
       />
-      {unplaced.length ? <p className="mt-2 text-sm text-ink-600">{unplaced.length} review item(s) could not be placed in the text; they are listed on the right.</p> : null}
+      {unplaced.length ? (
+        <p className="mt-2 text-sm text-ink-600">{unplaced.length} review item(s) could not be placed in the text; they are listed on the right.</p>
+      ) : null}
       {canRaise ? (
         <RaiseItemForm
           boardId={boardId}
@@ -591,8 +615,13 @@ function RaiseItemForm({
       </h3>
       {selection ? (
         <p className="text-sm">
-          On: <q data-testid="selected-quote" className="italic">{selection.quote.length > 160 ? `${selection.quote.slice(0, 160)}…` : selection.quote}</q>
-          {!selection.anchor ? <span className="block text-void-700">This selection cannot be anchored in the text; select words within the prose.</span> : null}
+          On:{" "}
+          <q data-testid="selected-quote" className="italic">
+            {selection.quote.length > 160 ? `${selection.quote.slice(0, 160)}…` : selection.quote}
+          </q>
+          {!selection.anchor ? (
+            <span className="block text-void-700">This selection cannot be anchored in the text; select words within the prose.</span>
+          ) : null}
         </p>
       ) : (
         <p className="text-sm text-ink-600">Select text in the dossier to anchor an item to it, or type the words below.</p>
@@ -624,7 +653,11 @@ function RaiseItemForm({
       <div className="grid gap-2 sm:grid-cols-[10rem_1fr]">
         <label className="text-sm font-semibold">
           Severity
-          <select value={severity} onChange={(e) => setSeverity(e.target.value as typeof severity)} className="mt-1 block w-full rounded-chip border border-ink-300 bg-white px-2 py-1.5 font-normal">
+          <select
+            value={severity}
+            onChange={(e) => setSeverity(e.target.value as typeof severity)}
+            className="mt-1 block w-full rounded-chip border border-ink-300 bg-white px-2 py-1.5 font-normal"
+          >
             <option value="major">Major</option>
             <option value="minor">Minor</option>
             <option value="comment">Comment</option>
@@ -632,19 +665,36 @@ function RaiseItemForm({
         </label>
         <label className="text-sm font-semibold">
           Title
-          <input value={title} onChange={(e) => setTitle(e.target.value)} required maxLength={200} className="mt-1 block w-full rounded-chip border border-ink-300 bg-white px-2 py-1.5 font-normal" />
+          <input
+            value={title}
+            onChange={(e) => setTitle(e.target.value)}
+            required
+            maxLength={200}
+            className="mt-1 block w-full rounded-chip border border-ink-300 bg-white px-2 py-1.5 font-normal"
+          />
         </label>
       </div>
       <label className="block text-sm font-semibold">
         What needs attention
-        <textarea value={body} onChange={(e) => setBody(e.target.value)} required rows={3} maxLength={20000} className="mt-1 block w-full rounded-chip border border-ink-300 bg-white px-2 py-1.5 font-normal" />
+        <textarea
+          value={body}
+          onChange={(e) => setBody(e.target.value)}
+          required
+          rows={3}
+          maxLength={20000}
+          className="mt-1 block w-full rounded-chip border border-ink-300 bg-white px-2 py-1.5 font-normal"
+        />
       </label>
       {error ? (
         <p role="alert" className="text-sm text-void-700">
           {error}
         </p>
       ) : null}
-      <button type="submit" disabled={!selection?.anchor || pending} className="rounded-chip bg-trajectory-600 px-3 py-1.5 text-sm font-semibold text-white hover:bg-trajectory-700 disabled:opacity-50">
+      <button
+        type="submit"
+        disabled={!selection?.anchor || pending}
+        className="rounded-chip bg-trajectory-600 px-3 py-1.5 text-sm font-semibold text-white hover:bg-trajectory-700 disabled:opacity-50"
+      >
         {pending ? "Raising…" : "Raise item"}
       </button>
     </form>

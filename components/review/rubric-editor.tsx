@@ -10,7 +10,12 @@ import { callApi } from "./api";
 const defaultLevels = (min: number, max: number, old: string[] = []) => Array.from({ length: max - min + 1 }, (_, i) => old[i] ?? "");
 
 const slug = (title: string, taken: Set<string>) => {
-  const base = title.toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-|-$/g, "").slice(0, 50) || "criterion";
+  const base =
+    title
+      .toLowerCase()
+      .replace(/[^a-z0-9]+/g, "-")
+      .replace(/^-|-$/g, "")
+      .slice(0, 50) || "criterion";
   let id = base;
   for (let n = 2; taken.has(id); n++) id = `${base}-${n}`;
   return id;
@@ -20,7 +25,18 @@ export function RubricEditor({ boardId, callId, rubric }: { boardId: string; cal
   const [name, setName] = useState(rubric?.name ?? "Review rubric");
   const [scale, setScale] = useState({ min: rubric?.criteria[0]?.scaleMin ?? 1, max: rubric?.criteria[0]?.scaleMax ?? 5 });
   const [criteria, setCriteria] = useState<RubricCriterion[]>(
-    rubric?.criteria ?? [{ id: "science-return", title: "Science return", description: "", weight: 100, scaleMin: 1, scaleMax: 5, levels: defaultLevels(1, 5), commentRequiredBelow: 3 }],
+    rubric?.criteria ?? [
+      {
+        id: "science-return",
+        title: "Science return",
+        description: "",
+        weight: 100,
+        scaleMin: 1,
+        scaleMax: 5,
+        levels: defaultLevels(1, 5),
+        commentRequiredBelow: 3,
+      },
+    ],
   );
   const [answer, setAnswer] = useState<{ tone: "error" | "success"; text: string; issues?: string[] } | null>(null);
   const [frozen, setFrozen] = useState(Boolean(rubric?.frozenAt));
@@ -48,11 +64,20 @@ export function RubricEditor({ boardId, callId, rubric }: { boardId: string; cal
           return { ...c, id };
         });
         setCriteria(prepared);
-        const res = await callApi<{ rubric: RubricView & { createdVersion: boolean } }>(`/api/v1/boards/${boardId}/rubrics/${callId}`, { method: "PUT", body: { name, criteria: prepared } });
+        const res = await callApi<{ rubric: RubricView & { createdVersion: boolean } }>(`/api/v1/boards/${boardId}/rubrics/${callId}`, {
+          method: "PUT",
+          body: { name, criteria: prepared },
+        });
         setPending(false);
         if (res.ok) {
           setFrozen(false);
-          setAnswer({ tone: "success", text: res.data.rubric.createdVersion && res.data.rubric.version > 1 ? `Saved as version ${res.data.rubric.version}; reviews already started keep the version they began with.` : `Saved (version ${res.data.rubric.version}).` });
+          setAnswer({
+            tone: "success",
+            text:
+              res.data.rubric.createdVersion && res.data.rubric.version > 1
+                ? `Saved as version ${res.data.rubric.version}; reviews already started keep the version they began with.`
+                : `Saved (version ${res.data.rubric.version}).`,
+          });
         } else setAnswer({ tone: "error", text: res.error, issues: ((res.details as { issues?: { message: string }[] })?.issues ?? []).map((i) => i.message) });
       }}
     >
@@ -64,15 +89,35 @@ export function RubricEditor({ boardId, callId, rubric }: { boardId: string; cal
       <div className="grid gap-4 sm:grid-cols-3">
         <label className="text-sm font-semibold sm:col-span-1">
           Rubric name
-          <input value={name} onChange={(e) => setName(e.target.value)} required maxLength={200} className="mt-1 block w-full rounded-chip border border-ink-300 px-3 py-1.5 font-normal" />
+          <input
+            value={name}
+            onChange={(e) => setName(e.target.value)}
+            required
+            maxLength={200}
+            className="mt-1 block w-full rounded-chip border border-ink-300 px-3 py-1.5 font-normal"
+          />
         </label>
         <label className="text-sm font-semibold">
           Scale from
-          <input type="number" min={0} max={9} value={scale.min} onChange={(e) => changeScale(Number(e.target.value), scale.max)} className="mt-1 block w-full rounded-chip border border-ink-300 px-3 py-1.5 font-normal" />
+          <input
+            type="number"
+            min={0}
+            max={9}
+            value={scale.min}
+            onChange={(e) => changeScale(Number(e.target.value), scale.max)}
+            className="mt-1 block w-full rounded-chip border border-ink-300 px-3 py-1.5 font-normal"
+          />
         </label>
         <label className="text-sm font-semibold">
           to
-          <input type="number" min={1} max={10} value={scale.max} onChange={(e) => changeScale(scale.min, Number(e.target.value))} className="mt-1 block w-full rounded-chip border border-ink-300 px-3 py-1.5 font-normal" />
+          <input
+            type="number"
+            min={1}
+            max={10}
+            value={scale.max}
+            onChange={(e) => changeScale(scale.min, Number(e.target.value))}
+            className="mt-1 block w-full rounded-chip border border-ink-300 px-3 py-1.5 font-normal"
+          />
         </label>
       </div>
       <ol className="space-y-4">
@@ -81,11 +126,25 @@ export function RubricEditor({ boardId, callId, rubric }: { boardId: string; cal
             <div className="grid gap-3 sm:grid-cols-[1fr_8rem_10rem]">
               <label className="text-sm font-semibold">
                 Criterion {i + 1}
-                <input value={c.title} onChange={(e) => update(i, { title: e.target.value })} required maxLength={200} className="mt-1 block w-full rounded-chip border border-ink-300 px-3 py-1.5 font-normal" />
+                <input
+                  value={c.title}
+                  onChange={(e) => update(i, { title: e.target.value })}
+                  required
+                  maxLength={200}
+                  className="mt-1 block w-full rounded-chip border border-ink-300 px-3 py-1.5 font-normal"
+                />
               </label>
               <label className="text-sm font-semibold">
                 Weight (%)
-                <input type="number" step="any" min={0} max={100} value={c.weight} onChange={(e) => update(i, { weight: Number(e.target.value) })} className="mt-1 block w-full rounded-chip border border-ink-300 px-3 py-1.5 font-mono font-normal" />
+                <input
+                  type="number"
+                  step="any"
+                  min={0}
+                  max={100}
+                  value={c.weight}
+                  onChange={(e) => update(i, { weight: Number(e.target.value) })}
+                  className="mt-1 block w-full rounded-chip border border-ink-300 px-3 py-1.5 font-mono font-normal"
+                />
               </label>
               <label className="text-sm font-semibold">
                 Comment required below
@@ -105,7 +164,13 @@ export function RubricEditor({ boardId, callId, rubric }: { boardId: string; cal
             </div>
             <label className="mt-3 block text-sm font-semibold">
               Description
-              <textarea value={c.description} onChange={(e) => update(i, { description: e.target.value })} rows={2} maxLength={4000} className="mt-1 block w-full rounded-chip border border-ink-300 px-3 py-1.5 font-normal" />
+              <textarea
+                value={c.description}
+                onChange={(e) => update(i, { description: e.target.value })}
+                rows={2}
+                maxLength={4000}
+                className="mt-1 block w-full rounded-chip border border-ink-300 px-3 py-1.5 font-normal"
+              />
             </label>
             <fieldset className="mt-3">
               <legend className="text-sm font-semibold">Level descriptors</legend>
@@ -124,7 +189,12 @@ export function RubricEditor({ boardId, callId, rubric }: { boardId: string; cal
                 ))}
               </div>
             </fieldset>
-            <button type="button" onClick={() => setCriteria((cs) => cs.filter((_, j) => j !== i))} disabled={criteria.length === 1} className="mt-3 text-sm text-void-700 underline disabled:opacity-40">
+            <button
+              type="button"
+              onClick={() => setCriteria((cs) => cs.filter((_, j) => j !== i))}
+              disabled={criteria.length === 1}
+              className="mt-3 text-sm text-void-700 underline disabled:opacity-40"
+            >
               Remove this criterion
             </button>
           </li>
@@ -137,7 +207,16 @@ export function RubricEditor({ boardId, callId, rubric }: { boardId: string; cal
           onClick={() =>
             setCriteria((cs) => [
               ...cs,
-              { id: slug(`criterion ${cs.length + 1}`, new Set(cs.map((x) => x.id))), title: "", description: "", weight: 0, scaleMin: scale.min, scaleMax: scale.max, levels: defaultLevels(scale.min, scale.max), commentRequiredBelow: null },
+              {
+                id: slug(`criterion ${cs.length + 1}`, new Set(cs.map((x) => x.id))),
+                title: "",
+                description: "",
+                weight: 0,
+                scaleMin: scale.min,
+                scaleMax: scale.max,
+                levels: defaultLevels(scale.min, scale.max),
+                commentRequiredBelow: null,
+              },
             ])
           }
         >
@@ -148,7 +227,10 @@ export function RubricEditor({ boardId, callId, rubric }: { boardId: string; cal
         </p>
       </div>
       {answer ? (
-        <div role={answer.tone === "error" ? "alert" : "status"} className={`rounded-chip border px-3 py-2 text-sm ${answer.tone === "error" ? "border-void-500/50 bg-void-100 text-void-700" : "border-holds-500/50 bg-holds-100 text-holds-700"}`}>
+        <div
+          role={answer.tone === "error" ? "alert" : "status"}
+          className={`rounded-chip border px-3 py-2 text-sm ${answer.tone === "error" ? "border-void-500/50 bg-void-100 text-void-700" : "border-holds-500/50 bg-holds-100 text-holds-700"}`}
+        >
           {answer.text}
         </div>
       ) : null}
@@ -159,7 +241,9 @@ export function RubricEditor({ boardId, callId, rubric }: { boardId: string; cal
       >
         {pending ? "Saving…" : "Save rubric"}
       </button>
-      {localProblems.length && !answer ? <p className="text-xs text-ink-500">{localProblems.length} thing(s) to fix before saving; the server checks them too.</p> : null}
+      {localProblems.length && !answer ? (
+        <p className="text-xs text-ink-500">{localProblems.length} thing(s) to fix before saving; the server checks them too.</p>
+      ) : null}
     </form>
   );
 }

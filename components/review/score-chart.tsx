@@ -1,5 +1,15 @@
 // A small SVG bar chart of reviewers' weighted totals, binned to the rubric's levels.
-export function ScoreChart({ distribution, mean, scale, label }: { distribution: { level: number; count: number }[]; mean: number | null; scale: { min: number; max: number }; label: string }) {
+export function ScoreChart({
+  distribution,
+  mean,
+  scale,
+  label,
+}: {
+  distribution: { level: number; count: number }[];
+  mean: number | null;
+  scale: { min: number; max: number };
+  label: string;
+}) {
   const width = 120;
   const height = 36;
   const max = Math.max(1, ...distribution.map((d) => d.count));
@@ -7,7 +17,13 @@ export function ScoreChart({ distribution, mean, scale, label }: { distribution:
   const x = (value: number) => ((value - scale.min + 0.5) / (scale.max - scale.min + 1)) * width;
   const description = distribution.map((d) => `${d.count} at ${d.level}`).join(", ");
   return (
-    <svg width={width} height={height + 12} viewBox={`0 0 ${width} ${height + 12}`} role="img" aria-label={`${label}: ${description}${mean !== null ? `; mean ${mean.toFixed(2)}` : ""}`}>
+    <svg
+      width={width}
+      height={height + 12}
+      viewBox={`0 0 ${width} ${height + 12}`}
+      role="img"
+      aria-label={`${label}: ${description}${mean !== null ? `; mean ${mean.toFixed(2)}` : ""}`}
+    >
       {distribution.map((d, i) => {
         const h = (d.count / max) * height;
         return <rect key={d.level} x={i * bar + 2} y={height - h} width={bar - 4} height={h} rx={1.5} className="fill-trajectory-400" />;

@@ -25,7 +25,12 @@ export function useActionForm<T>(run: (input: FormData) => Promise<ActionAnswer<
 const inputClass =
   "mt-1 block w-full rounded-chip border border-ink-300 bg-white px-3 py-2 text-ink-900 shadow-sm placeholder:text-ink-400 focus:border-trajectory-500 aria-[invalid=true]:border-void-500";
 
-export function TextField({ label, hint, error, ...input }: InputHTMLAttributes<HTMLInputElement> & { label: string; hint?: string; error?: string; name: string }) {
+export function TextField({
+  label,
+  hint,
+  error,
+  ...input
+}: InputHTMLAttributes<HTMLInputElement> & { label: string; hint?: string; error?: string; name: string }) {
   const id = useId();
   const hintId = hint ? `${id}-hint` : undefined;
   const errorId = error ? `${id}-error` : undefined;
@@ -39,7 +44,13 @@ export function TextField({ label, hint, error, ...input }: InputHTMLAttributes<
           {hint}
         </p>
       ) : null}
-      <input id={id} aria-invalid={error ? true : undefined} aria-describedby={[hintId, errorId].filter(Boolean).join(" ") || undefined} className={inputClass} {...input} />
+      <input
+        id={id}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={[hintId, errorId].filter(Boolean).join(" ") || undefined}
+        className={inputClass}
+        {...input}
+      />
       {error ? (
         <p id={errorId} className="mt-1 text-sm text-void-700">
           {error}
@@ -49,7 +60,12 @@ export function TextField({ label, hint, error, ...input }: InputHTMLAttributes<
   );
 }
 
-export function SelectField({ label, error, children, ...select }: SelectHTMLAttributes<HTMLSelectElement> & { label: string; error?: string; name: string; children: ReactNode }) {
+export function SelectField({
+  label,
+  error,
+  children,
+  ...select
+}: SelectHTMLAttributes<HTMLSelectElement> & { label: string; error?: string; name: string; children: ReactNode }) {
   const id = useId();
   return (
     <div>
@@ -68,7 +84,13 @@ export function CheckboxField({ label, hint, ...input }: InputHTMLAttributes<HTM
   const id = useId();
   return (
     <div className="flex items-start gap-3">
-      <input id={id} type="checkbox" className="mt-1 h-4 w-4 rounded border-ink-300 accent-trajectory-600" aria-describedby={hint ? `${id}-hint` : undefined} {...input} />
+      <input
+        id={id}
+        type="checkbox"
+        className="mt-1 h-4 w-4 rounded border-ink-300 accent-trajectory-600"
+        aria-describedby={hint ? `${id}-hint` : undefined}
+        {...input}
+      />
       <div>
         <label htmlFor={id} className="font-semibold text-ink-800">
           {label}

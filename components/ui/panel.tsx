@@ -1,7 +1,19 @@
 import type { ReactNode } from "react";
 
 /** A titled section of a page; areas add their own panels to shared pages this way. */
-export function Panel({ title, description, actions, children, id }: { title: string; description?: ReactNode; actions?: ReactNode; children: ReactNode; id?: string }) {
+export function Panel({
+  title,
+  description,
+  actions,
+  children,
+  id,
+}: {
+  title: string;
+  description?: ReactNode;
+  actions?: ReactNode;
+  children: ReactNode;
+  id?: string;
+}) {
   const headingId = id ? `${id}-heading` : undefined;
   return (
     <section aria-labelledby={headingId} id={id} className="rounded-panel border border-ink-200 bg-white p-5 shadow-panel">

@@ -181,7 +181,11 @@ export function AttachmentUploader({
                       </button>
                     ) : null}
                     {["failed", "cancelled"].includes(u.status) ? (
-                      <button type="button" onClick={() => setUploads((all) => all.filter((x) => x.key !== u.key))} className="rounded-chip border border-ink-300 px-2 text-xs">
+                      <button
+                        type="button"
+                        onClick={() => setUploads((all) => all.filter((x) => x.key !== u.key))}
+                        className="rounded-chip border border-ink-300 px-2 text-xs"
+                      >
                         Dismiss
                       </button>
                     ) : null}
@@ -198,11 +202,13 @@ export function AttachmentUploader({
             ))}
         </ul>
       ) : null}
-      {uploads.filter((u) => u.status === "done").map((u) => (
-        <div key={u.key} className="space-y-1">
-          <UploadBar upload={u} />
-        </div>
-      ))}
+      {uploads
+        .filter((u) => u.status === "done")
+        .map((u) => (
+          <div key={u.key} className="space-y-1">
+            <UploadBar upload={u} />
+          </div>
+        ))}
       {attachments.length === 0 ? (
         <p className="text-sm text-ink-600">No attachments yet.</p>
       ) : (
@@ -230,7 +236,9 @@ export function AttachmentUploader({
 }
 
 function UploadBar({ upload }: { upload: Upload }) {
-  const label = { starting: "Starting", uploading: "Uploading", confirming: "Checking", done: "Uploaded", failed: "Failed", cancelled: "Cancelled" }[upload.status];
+  const label = { starting: "Starting", uploading: "Uploading", confirming: "Checking", done: "Uploaded", failed: "Failed", cancelled: "Cancelled" }[
+    upload.status
+  ];
   return (
     <div className="flex items-center gap-2">
       <div

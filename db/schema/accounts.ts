@@ -10,7 +10,9 @@ export const users = pgTable(
     organisation: text("organisation"),
     passwordHash: text("password_hash"),
     isAdmin: boolean("is_admin").notNull().default(false),
-    status: text("status", { enum: ["active", "deactivated"] }).notNull().default("active"),
+    status: text("status", { enum: ["active", "deactivated"] })
+      .notNull()
+      .default("active"),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
   },
@@ -22,7 +24,9 @@ export const userSessions = pgTable(
   "user_sessions",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    userId: uuid("user_id").notNull().references(() => users.id, { onDelete: "cascade" }),
+    userId: uuid("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
     lastSeenAt: timestamp("last_seen_at", { withTimezone: true }).notNull().defaultNow(),
     expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
@@ -58,10 +62,7 @@ export const signInAttempts = pgTable(
     succeeded: boolean("succeeded").notNull(),
     attemptedAt: timestamp("attempted_at", { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [
-    index("sign_in_attempts_email_idx").on(t.email, t.attemptedAt),
-    index("sign_in_attempts_ip_idx").on(t.ipAddress, t.attemptedAt),
-  ],
+  (t) => [index("sign_in_attempts_email_idx").on(t.email, t.attemptedAt), index("sign_in_attempts_ip_idx").on(t.ipAddress, t.attemptedAt)],
 );
 
 export const auditEvents = pgTable(
@@ -86,4 +87,3 @@ export const rateLimitBuckets = pgTable("rate_limit_buckets", {
   windowStart: timestamp("window_start", { withTimezone: true }).notNull(),
   count: integer("count").notNull().default(0),
 });
-

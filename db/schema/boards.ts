@@ -29,10 +29,16 @@ export const boardMembers = pgTable(
   "board_members",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    boardId: uuid("board_id").notNull().references(() => boards.id, { onDelete: "cascade" }),
-    userId: uuid("user_id").notNull().references(() => users.id, { onDelete: "cascade" }),
+    boardId: uuid("board_id")
+      .notNull()
+      .references(() => boards.id, { onDelete: "cascade" }),
+    userId: uuid("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
     role: text("role", { enum: boardRoles }).notNull(),
-    status: text("status", { enum: ["active", "deactivated"] }).notNull().default("active"),
+    status: text("status", { enum: ["active", "deactivated"] })
+      .notNull()
+      .default("active"),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [uniqueIndex("board_members_board_user_key").on(t.boardId, t.userId), index("board_members_user_idx").on(t.userId)],
@@ -42,7 +48,9 @@ export const invitations = pgTable(
   "invitations",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    boardId: uuid("board_id").notNull().references(() => boards.id, { onDelete: "cascade" }),
+    boardId: uuid("board_id")
+      .notNull()
+      .references(() => boards.id, { onDelete: "cascade" }),
     email: text("email").notNull(),
     name: text("name"),
     role: text("role", { enum: boardRoles }).notNull(),

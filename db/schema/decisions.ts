@@ -11,9 +11,15 @@ export const decisions = pgTable(
   "decisions",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    boardId: uuid("board_id").notNull().references(() => boards.id, { onDelete: "cascade" }),
-    proposalId: uuid("proposal_id").notNull().references(() => proposals.id, { onDelete: "cascade" }),
-    versionId: uuid("version_id").notNull().references(() => proposalVersions.id, { onDelete: "cascade" }),
+    boardId: uuid("board_id")
+      .notNull()
+      .references(() => boards.id, { onDelete: "cascade" }),
+    proposalId: uuid("proposal_id")
+      .notNull()
+      .references(() => proposals.id, { onDelete: "cascade" }),
+    versionId: uuid("version_id")
+      .notNull()
+      .references(() => proposalVersions.id, { onDelete: "cascade" }),
     outcome: text("outcome", { enum: decisionOutcomes }).notNull(),
     letter: jsonb("letter").$type<Record<string, unknown>>().notNull(),
     letterHtml: text("letter_html").notNull(),
@@ -54,4 +60,3 @@ export const outboxMessages = pgTable(
   },
   (t) => [uniqueIndex("outbox_messages_dedupe_key").on(t.dedupeKey), index("outbox_messages_status_idx").on(t.status, t.nextAttemptAt)],
 );
-

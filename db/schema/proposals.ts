@@ -13,7 +13,9 @@ export const calls = pgTable(
   "calls",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    boardId: uuid("board_id").notNull().references(() => boards.id, { onDelete: "cascade" }),
+    boardId: uuid("board_id")
+      .notNull()
+      .references(() => boards.id, { onDelete: "cascade" }),
     title: text("title").notNull(),
     description: text("description").notNull().default(""),
     opensAt: timestamp("opens_at", { withTimezone: true }).notNull(),
@@ -36,9 +38,15 @@ export const proposals = pgTable(
   "proposals",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    boardId: uuid("board_id").notNull().references(() => boards.id, { onDelete: "cascade" }),
-    callId: uuid("call_id").notNull().references(() => calls.id, { onDelete: "cascade" }),
-    ownerId: uuid("owner_id").notNull().references(() => users.id),
+    boardId: uuid("board_id")
+      .notNull()
+      .references(() => boards.id, { onDelete: "cascade" }),
+    callId: uuid("call_id")
+      .notNull()
+      .references(() => calls.id, { onDelete: "cascade" }),
+    ownerId: uuid("owner_id")
+      .notNull()
+      .references(() => users.id),
     title: text("title").notNull(),
     missionType: text("mission_type").notNull().default(""),
     status: text("status", { enum: proposalStatuses }).notNull().default("draft"),
@@ -53,8 +61,12 @@ export const proposals = pgTable(
 export const proposalCoauthors = pgTable(
   "proposal_coauthors",
   {
-    proposalId: uuid("proposal_id").notNull().references(() => proposals.id, { onDelete: "cascade" }),
-    userId: uuid("user_id").notNull().references(() => users.id, { onDelete: "cascade" }),
+    proposalId: uuid("proposal_id")
+      .notNull()
+      .references(() => proposals.id, { onDelete: "cascade" }),
+    userId: uuid("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
   },
   (t) => [primaryKey({ columns: [t.proposalId, t.userId] })],
 );
@@ -85,8 +97,12 @@ export const proposalVersions = pgTable(
   "proposal_versions",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    proposalId: uuid("proposal_id").notNull().references(() => proposals.id, { onDelete: "cascade" }),
-    boardId: uuid("board_id").notNull().references(() => boards.id, { onDelete: "cascade" }),
+    proposalId: uuid("proposal_id")
+      .notNull()
+      .references(() => proposals.id, { onDelete: "cascade" }),
+    boardId: uuid("board_id")
+      .notNull()
+      .references(() => boards.id, { onDelete: "cascade" }),
     number: integer("number").notNull(),
     title: text("title").notNull(),
     document: jsonb("document").$type<Record<string, unknown>>().notNull(),
@@ -104,8 +120,12 @@ export const checkResults = pgTable(
   "check_results",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    versionId: uuid("version_id").notNull().references(() => proposalVersions.id, { onDelete: "cascade" }),
-    boardId: uuid("board_id").notNull().references(() => boards.id, { onDelete: "cascade" }),
+    versionId: uuid("version_id")
+      .notNull()
+      .references(() => proposalVersions.id, { onDelete: "cascade" }),
+    boardId: uuid("board_id")
+      .notNull()
+      .references(() => boards.id, { onDelete: "cascade" }),
     blockId: text("block_id").notNull(),
     label: text("label").notNull().default(""),
     kind: text("kind").notNull(),
@@ -121,8 +141,12 @@ export const attachments = pgTable(
   "attachments",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    proposalId: uuid("proposal_id").notNull().references(() => proposals.id, { onDelete: "cascade" }),
-    boardId: uuid("board_id").notNull().references(() => boards.id, { onDelete: "cascade" }),
+    proposalId: uuid("proposal_id")
+      .notNull()
+      .references(() => proposals.id, { onDelete: "cascade" }),
+    boardId: uuid("board_id")
+      .notNull()
+      .references(() => boards.id, { onDelete: "cascade" }),
     objectKey: text("object_key").notNull(),
     filename: text("filename").notNull(),
     declaredType: text("declared_type").notNull(),
@@ -130,7 +154,9 @@ export const attachments = pgTable(
     declaredSize: bigint("declared_size", { mode: "number" }).notNull(),
     size: bigint("size", { mode: "number" }),
     sha256: text("sha256"),
-    status: text("status", { enum: ["pending", "confirmed", "removed"] }).notNull().default("pending"),
+    status: text("status", { enum: ["pending", "confirmed", "removed"] })
+      .notNull()
+      .default("pending"),
     uploadedBy: uuid("uploaded_by").references(() => users.id, { onDelete: "set null" }),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
     confirmedAt: timestamp("confirmed_at", { withTimezone: true }),

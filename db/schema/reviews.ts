@@ -22,8 +22,12 @@ export const rubricTemplates = pgTable(
   "rubric_templates",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    boardId: uuid("board_id").notNull().references(() => boards.id, { onDelete: "cascade" }),
-    callId: uuid("call_id").notNull().references(() => calls.id, { onDelete: "cascade" }),
+    boardId: uuid("board_id")
+      .notNull()
+      .references(() => boards.id, { onDelete: "cascade" }),
+    callId: uuid("call_id")
+      .notNull()
+      .references(() => calls.id, { onDelete: "cascade" }),
     version: integer("version").notNull(),
     name: text("name").notNull(),
     criteria: jsonb("criteria").$type<RubricCriterion[]>().notNull(),
@@ -38,8 +42,12 @@ export const conflicts = pgTable(
   "conflicts",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    boardId: uuid("board_id").notNull().references(() => boards.id, { onDelete: "cascade" }),
-    reviewerId: uuid("reviewer_id").notNull().references(() => users.id, { onDelete: "cascade" }),
+    boardId: uuid("board_id")
+      .notNull()
+      .references(() => boards.id, { onDelete: "cascade" }),
+    reviewerId: uuid("reviewer_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
     proposalId: uuid("proposal_id").references(() => proposals.id, { onDelete: "cascade" }),
     organisation: text("organisation"),
     reason: text("reason").notNull(),
@@ -52,10 +60,18 @@ export const assignments = pgTable(
   "assignments",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    boardId: uuid("board_id").notNull().references(() => boards.id, { onDelete: "cascade" }),
-    proposalId: uuid("proposal_id").notNull().references(() => proposals.id, { onDelete: "cascade" }),
-    versionId: uuid("version_id").notNull().references(() => proposalVersions.id, { onDelete: "cascade" }),
-    reviewerId: uuid("reviewer_id").notNull().references(() => users.id, { onDelete: "cascade" }),
+    boardId: uuid("board_id")
+      .notNull()
+      .references(() => boards.id, { onDelete: "cascade" }),
+    proposalId: uuid("proposal_id")
+      .notNull()
+      .references(() => proposals.id, { onDelete: "cascade" }),
+    versionId: uuid("version_id")
+      .notNull()
+      .references(() => proposalVersions.id, { onDelete: "cascade" }),
+    reviewerId: uuid("reviewer_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
     dueAt: timestamp("due_at", { withTimezone: true }).notNull(),
     assignedBy: uuid("assigned_by").references(() => users.id, { onDelete: "set null" }),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
@@ -72,17 +88,31 @@ export const reviews = pgTable(
   "reviews",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    assignmentId: uuid("assignment_id").notNull().references(() => assignments.id, { onDelete: "cascade" }),
-    boardId: uuid("board_id").notNull().references(() => boards.id, { onDelete: "cascade" }),
-    proposalId: uuid("proposal_id").notNull().references(() => proposals.id, { onDelete: "cascade" }),
-    versionId: uuid("version_id").notNull().references(() => proposalVersions.id, { onDelete: "cascade" }),
-    reviewerId: uuid("reviewer_id").notNull().references(() => users.id, { onDelete: "cascade" }),
-    rubricTemplateId: uuid("rubric_template_id").notNull().references(() => rubricTemplates.id),
+    assignmentId: uuid("assignment_id")
+      .notNull()
+      .references(() => assignments.id, { onDelete: "cascade" }),
+    boardId: uuid("board_id")
+      .notNull()
+      .references(() => boards.id, { onDelete: "cascade" }),
+    proposalId: uuid("proposal_id")
+      .notNull()
+      .references(() => proposals.id, { onDelete: "cascade" }),
+    versionId: uuid("version_id")
+      .notNull()
+      .references(() => proposalVersions.id, { onDelete: "cascade" }),
+    reviewerId: uuid("reviewer_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    rubricTemplateId: uuid("rubric_template_id")
+      .notNull()
+      .references(() => rubricTemplates.id),
     scores: jsonb("scores").$type<Record<string, CriterionScore>>().notNull().default({}),
     summary: text("summary").notNull().default(""),
     weightedTotal: numeric("weighted_total", { precision: 8, scale: 4, mode: "number" }),
     revision: integer("revision").notNull().default(1),
-    status: text("status", { enum: ["draft", "submitted"] }).notNull().default("draft"),
+    status: text("status", { enum: ["draft", "submitted"] })
+      .notNull()
+      .default("draft"),
     submittedAt: timestamp("submitted_at", { withTimezone: true }),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
   },
@@ -94,8 +124,12 @@ export const checkNotes = pgTable(
   "check_notes",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    reviewId: uuid("review_id").notNull().references(() => reviews.id, { onDelete: "cascade" }),
-    checkResultId: uuid("check_result_id").notNull().references(() => checkResults.id, { onDelete: "cascade" }),
+    reviewId: uuid("review_id")
+      .notNull()
+      .references(() => reviews.id, { onDelete: "cascade" }),
+    checkResultId: uuid("check_result_id")
+      .notNull()
+      .references(() => checkResults.id, { onDelete: "cascade" }),
     note: text("note").notNull(),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
   },
@@ -115,15 +149,25 @@ export const reviewItems = pgTable(
   "review_items",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    boardId: uuid("board_id").notNull().references(() => boards.id, { onDelete: "cascade" }),
-    proposalId: uuid("proposal_id").notNull().references(() => proposals.id, { onDelete: "cascade" }),
-    versionId: uuid("version_id").notNull().references(() => proposalVersions.id, { onDelete: "cascade" }),
-    authorId: uuid("author_id").notNull().references(() => users.id, { onDelete: "cascade" }),
+    boardId: uuid("board_id")
+      .notNull()
+      .references(() => boards.id, { onDelete: "cascade" }),
+    proposalId: uuid("proposal_id")
+      .notNull()
+      .references(() => proposals.id, { onDelete: "cascade" }),
+    versionId: uuid("version_id")
+      .notNull()
+      .references(() => proposalVersions.id, { onDelete: "cascade" }),
+    authorId: uuid("author_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
     severity: text("severity", { enum: ["major", "minor", "comment"] }).notNull(),
     title: text("title").notNull(),
     body: text("body").notNull(),
     anchor: jsonb("anchor").$type<ReviewItemAnchor>().notNull(),
-    status: text("status", { enum: ["open", "resolved"] }).notNull().default("open"),
+    status: text("status", { enum: ["open", "resolved"] })
+      .notNull()
+      .default("open"),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [index("review_items_version_idx").on(t.versionId)],
@@ -133,8 +177,12 @@ export const reviewItemReplies = pgTable(
   "review_item_replies",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    reviewItemId: uuid("review_item_id").notNull().references(() => reviewItems.id, { onDelete: "cascade" }),
-    authorId: uuid("author_id").notNull().references(() => users.id, { onDelete: "cascade" }),
+    reviewItemId: uuid("review_item_id")
+      .notNull()
+      .references(() => reviewItems.id, { onDelete: "cascade" }),
+    authorId: uuid("author_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
     body: text("body").notNull(),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },

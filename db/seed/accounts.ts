@@ -27,10 +27,42 @@ export interface DemoAccount {
 
 // Listed in README.md ("Demo accounts"); keep the two in step.
 export const DEMO_ACCOUNTS: readonly DemoAccount[] = [
-  { key: "admin", email: "admin@halden.example.org", password: "halden-admin-demo", name: "Oskar Vennberg", organisation: "Halden Institute of Space Technology", isAdmin: true, role: null },
-  { key: "chair", email: "chair@halden.example.org", password: "kestrel-chair-demo", name: "Ilona Brask", organisation: "Halden Institute of Space Technology", isAdmin: false, role: "chair" },
-  { key: "reviewer", email: "reviewer@halden.example.org", password: "kestrel-review-demo", name: "Teodor Amsel", organisation: "Halden Institute of Space Technology", isAdmin: false, role: "reviewer" },
-  { key: "proposer", email: "proposer@corvid-orbital.example.com", password: "kestrel-propose-demo", name: "Nadia Ferrow", organisation: "Corvid Orbital Works", isAdmin: false, role: "proposer" },
+  {
+    key: "admin",
+    email: "admin@halden.example.org",
+    password: "halden-admin-demo",
+    name: "Oskar Vennberg",
+    organisation: "Halden Institute of Space Technology",
+    isAdmin: true,
+    role: null,
+  },
+  {
+    key: "chair",
+    email: "chair@halden.example.org",
+    password: "kestrel-chair-demo",
+    name: "Ilona Brask",
+    organisation: "Halden Institute of Space Technology",
+    isAdmin: false,
+    role: "chair",
+  },
+  {
+    key: "reviewer",
+    email: "reviewer@halden.example.org",
+    password: "kestrel-review-demo",
+    name: "Teodor Amsel",
+    organisation: "Halden Institute of Space Technology",
+    isAdmin: false,
+    role: "reviewer",
+  },
+  {
+    key: "proposer",
+    email: "proposer@corvid-orbital.example.com",
+    password: "kestrel-propose-demo",
+    name: "Nadia Ferrow",
+    organisation: "Corvid Orbital Works",
+    isAdmin: false,
+    role: "proposer",
+  },
 ];
 
 // Same cost as lib/auth/passwords.ts (argon2id, 19 MiB, 2 iterations, 1 lane).
@@ -59,7 +91,10 @@ export interface SeedPerson {
 
 /** Creates the board when it is missing and returns its id (an existing board is never changed). */
 export async function ensureBoard(db: Database, board: SeedBoard = DEMO_BOARD): Promise<string> {
-  await db.insert(boards).values({ ...board }).onConflictDoNothing();
+  await db
+    .insert(boards)
+    .values({ ...board })
+    .onConflictDoNothing();
   const [row] = await db.select({ id: boards.id }).from(boards).where(eq(boards.slug, board.slug));
   if (!row) throw new Error(`the board ${board.slug} could not be created`);
   return row.id;
@@ -67,14 +102,20 @@ export async function ensureBoard(db: Database, board: SeedBoard = DEMO_BOARD): 
 
 /** Creates the person (reused when the address exists) and their membership of the board. */
 export async function ensurePerson(db: Database, boardId: string, person: SeedPerson): Promise<{ id: string; email: string }> {
-  let [user] = await db.select({ id: users.id, email: users.email }).from(users).where(sql`lower(${users.email}) = ${person.email}`);
+  let [user] = await db
+    .select({ id: users.id, email: users.email })
+    .from(users)
+    .where(sql`lower(${users.email}) = ${person.email}`);
   if (!user) {
     const passwordHash = await hash(person.password, argonOptions);
     await db
       .insert(users)
       .values({ email: person.email, name: person.name, organisation: person.organisation, passwordHash, isAdmin: person.isAdmin })
       .onConflictDoNothing();
-    [user] = await db.select({ id: users.id, email: users.email }).from(users).where(sql`lower(${users.email}) = ${person.email}`);
+    [user] = await db
+      .select({ id: users.id, email: users.email })
+      .from(users)
+      .where(sql`lower(${users.email}) = ${person.email}`);
   }
   if (!user) throw new Error(`the demo account ${person.email} could not be created`);
   if (person.role) {

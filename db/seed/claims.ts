@@ -55,7 +55,9 @@ export function claimedFrom(values: Record<string, unknown>, rounding: Record<st
 function check(block: Omit<SeedBlock, "expected" | "mistake" | "computed">, expected: Verdict): ClaimResult {
   const result = evaluateClaim({ id: block.blockId, ...block.claim });
   if (result.status !== expected) {
-    throw new Error(`demo block "${block.label}" was meant to be ${expected} but the engine says ${result.status}: ${JSON.stringify(result.checks)} ${result.messages.join("; ")}`);
+    throw new Error(
+      `demo block "${block.label}" was meant to be ${expected} but the engine says ${result.status}: ${JSON.stringify(result.checks)} ${result.messages.join("; ")}`,
+    );
   }
   return result;
 }
@@ -100,11 +102,9 @@ function mistaken(input: BlockInput, mistake: Mistake, wrong: Record<string, unk
  */
 export function periodFromAltitude(input: { label: string; body: string; altitude: number; decimals?: number }): SeedBlock {
   const wrong = engine("orbit", { name: input.body, radius: 0 }, { altitude: input.altitude });
-  return mistaken(
-    { label: input.label, kind: "orbit", body: input.body, given: { altitude: input.altitude } },
-    "period-from-altitude",
-    { period: rounded(numberOf(wrong, "period"), input.decimals ?? 1) },
-  );
+  return mistaken({ label: input.label, kind: "orbit", body: input.body, given: { altitude: input.altitude } }, "period-from-altitude", {
+    period: rounded(numberOf(wrong, "period"), input.decimals ?? 1),
+  });
 }
 
 /**
@@ -154,13 +154,26 @@ export interface Maneuver {
  * A Δv budget whose propellant was sized with `margin` on top of the maneuvers (from the
  * engine's rocket equation), claiming the margin and that it meets `requiredMargin`.
  */
-export function budget(input: { label: string; maneuvers: Maneuver[]; specificImpulse: number; initialMass: number; margin: number; requiredMargin: number }): SeedBlock {
+export function budget(input: {
+  label: string;
+  maneuvers: Maneuver[];
+  specificImpulse: number;
+  initialMass: number;
+  margin: number;
+  requiredMargin: number;
+}): SeedBlock {
   const required = input.maneuvers.reduce((s, m) => s + m.deltaV, 0);
   const finalMass = rounded(finalMassFor(input.specificImpulse, input.initialMass, required * (1 + input.margin)), 1);
   return consistent({
     label: input.label,
     kind: "deltaVBudget",
-    given: { maneuvers: input.maneuvers, specificImpulse: input.specificImpulse, initialMass: input.initialMass, finalMass, requiredMargin: input.requiredMargin },
+    given: {
+      maneuvers: input.maneuvers,
+      specificImpulse: input.specificImpulse,
+      initialMass: input.initialMass,
+      finalMass,
+      requiredMargin: input.requiredMargin,
+    },
     claim: { deltaVRequired: 3, deltaVAvailable: 3, margin: 3, marginOk: true },
   });
 }
@@ -169,10 +182,23 @@ export function budget(input: { label: string; maneuvers: Maneuver[]; specificIm
  * A Δv budget whose propellant covers the maneuvers exactly (the margin was left out when
  * the tanks were sized) while the dossier still claims the margin it meant to carry.
  */
-export function budgetWithoutMargin(input: { label: string; maneuvers: Maneuver[]; specificImpulse: number; initialMass: number; claimedMargin: number; requiredMargin: number }): SeedBlock {
+export function budgetWithoutMargin(input: {
+  label: string;
+  maneuvers: Maneuver[];
+  specificImpulse: number;
+  initialMass: number;
+  claimedMargin: number;
+  requiredMargin: number;
+}): SeedBlock {
   const required = input.maneuvers.reduce((s, m) => s + m.deltaV, 0);
   const finalMass = rounded(finalMassFor(input.specificImpulse, input.initialMass, required), 1);
-  const given = { maneuvers: input.maneuvers, specificImpulse: input.specificImpulse, initialMass: input.initialMass, finalMass, requiredMargin: input.requiredMargin };
+  const given = {
+    maneuvers: input.maneuvers,
+    specificImpulse: input.specificImpulse,
+    initialMass: input.initialMass,
+    finalMass,
+    requiredMargin: input.requiredMargin,
+  };
   return mistaken({ label: input.label, kind: "deltaVBudget", given }, "budget-without-margin", {
     deltaVRequired: rounded(required, 3),
     margin: input.claimedMargin,

@@ -42,7 +42,9 @@ export interface DossierSpec {
 type Part = string | { b: string };
 
 function text(parts: Part[]): DossierNode[] {
-  return parts.filter((x) => (typeof x === "string" ? x.length > 0 : x.b.length > 0)).map((x) => (typeof x === "string" ? { type: "text", text: x } : { type: "text", text: x.b, marks: [{ type: "bold" }] }));
+  return parts
+    .filter((x) => (typeof x === "string" ? x.length > 0 : x.b.length > 0))
+    .map((x) => (typeof x === "string" ? { type: "text", text: x } : { type: "text", text: x.b, marks: [{ type: "bold" }] }));
 }
 
 const h = (title: string): DossierNode => ({ type: "heading", attrs: { level: 2 }, content: [{ type: "text", text: title }] });
@@ -69,11 +71,41 @@ const pct = (fraction: number) => `${Math.round(fraction * 100)} %`;
 
 function tern1(): DossierSpec {
   const orbit = consistent({ label: "the operational orbit", kind: "orbit", body: "earth", given: { altitude: 540 }, claim: { period: 0, orbitType: true } });
-  const sso = consistent({ label: "the sun-synchronous inclination", kind: "sunSynchronous", body: "earth", given: { altitude: 540 }, claim: { inclination: 2 } });
-  const eclipse = consistent({ label: "the longest eclipse", kind: "eclipse", body: "earth", given: { altitude: 540, betaAngle: 0 }, claim: { eclipseDuration: 0 } });
-  const pass = consistent({ label: "a pass over the Halden station", kind: "groundContact", body: "earth", given: { altitude: 540, minimumElevation: 10 }, claim: { maxPassDuration: 0 } });
-  const trim = consistent({ label: "the insertion trim", kind: "hohmann", body: "earth", given: { initialAltitude: 515, finalAltitude: 540 }, claim: { deltaVTotal: 3 } });
-  const disposal = consistent({ label: "the disposal burn", kind: "hohmann", body: "earth", given: { initialAltitude: 540, finalAltitude: 330 }, claim: { deltaV1: 3 } });
+  const sso = consistent({
+    label: "the sun-synchronous inclination",
+    kind: "sunSynchronous",
+    body: "earth",
+    given: { altitude: 540 },
+    claim: { inclination: 2 },
+  });
+  const eclipse = consistent({
+    label: "the longest eclipse",
+    kind: "eclipse",
+    body: "earth",
+    given: { altitude: 540, betaAngle: 0 },
+    claim: { eclipseDuration: 0 },
+  });
+  const pass = consistent({
+    label: "a pass over the Halden station",
+    kind: "groundContact",
+    body: "earth",
+    given: { altitude: 540, minimumElevation: 10 },
+    claim: { maxPassDuration: 0 },
+  });
+  const trim = consistent({
+    label: "the insertion trim",
+    kind: "hohmann",
+    body: "earth",
+    given: { initialAltitude: 515, finalAltitude: 540 },
+    claim: { deltaVTotal: 3 },
+  });
+  const disposal = consistent({
+    label: "the disposal burn",
+    kind: "hohmann",
+    body: "earth",
+    given: { initialAltitude: 540, finalAltitude: 330 },
+    claim: { deltaV1: 3 },
+  });
   const maneuvers: Maneuver[] = [
     { name: "insertion trim", deltaV: rounded(value(trim, "deltaVTotal"), 3) },
     { name: "drag make-up, 5 years", deltaV: 0.035 },
@@ -91,22 +123,34 @@ function tern1(): DossierSpec {
     blocks,
     doc: doc({
       "Mission objectives": [
-        p("Tern-1 maps turbidity and chlorophyll along the fjord coasts of the northern seaboard every two days, at 18 m ground sampling in six visible and near-infrared bands. The data feed the regional aquaculture monitoring service run by Corvid Orbital Works' partners."),
+        p(
+          "Tern-1 maps turbidity and chlorophyll along the fjord coasts of the northern seaboard every two days, at 18 m ground sampling in six visible and near-infrared bands. The data feed the regional aquaculture monitoring service run by Corvid Orbital Works' partners.",
+        ),
         p("The satellite is a 68 kg smallsat with a pushbroom imager, a green monopropellant thruster and an S-band downlink."),
       ],
       "Orbit design": [
-        p(`The operational orbit is circular at 540 km, a ${minutes(claimed(orbit, "period"))} period that repeats the ground track every two days. It is sun-synchronous at `, { b: `${fixed(claimed(sso, "inclination"), 2)}°` }, " inclination with a 10:30 descending node, so the illumination of the coast stays the same through the year."),
+        p(
+          `The operational orbit is circular at 540 km, a ${minutes(claimed(orbit, "period"))} period that repeats the ground track every two days. It is sun-synchronous at `,
+          { b: `${fixed(claimed(sso, "inclination"), 2)}°` },
+          " inclination with a 10:30 descending node, so the illumination of the coast stays the same through the year.",
+        ),
         orbit,
         sso,
-        p(`The longest eclipse lasts ${minutes(claimed(eclipse, "eclipseDuration"))} (beta angle 0°), which sizes the battery; a pass over the Halden station above 10° elevation lasts up to ${minutes(claimed(pass, "maxPassDuration"))}.`),
+        p(
+          `The longest eclipse lasts ${minutes(claimed(eclipse, "eclipseDuration"))} (beta angle 0°), which sizes the battery; a pass over the Halden station above 10° elevation lasts up to ${minutes(claimed(pass, "maxPassDuration"))}.`,
+        ),
         eclipse,
         pass,
       ],
       "Propulsion and Δv budget": [
-        p(`The rideshare releases Tern-1 at 515 km; a trim of ${ms(claimed(trim, "deltaVTotal"))} raises it to 540 km. At the end of the mission a ${ms(claimed(disposal, "deltaV1"))} burn lowers the perigee to 330 km so the satellite re-enters well within the 25-year guideline.`),
+        p(
+          `The rideshare releases Tern-1 at 515 km; a trim of ${ms(claimed(trim, "deltaVTotal"))} raises it to 540 km. At the end of the mission a ${ms(claimed(disposal, "deltaV1"))} burn lowers the perigee to 330 km so the satellite re-enters well within the 25-year guideline.`,
+        ),
         trim,
         disposal,
-        p(`With a specific impulse of 225 s and 68 kg at separation, the tanks provide ${ms(claimed(dv, "deltaVAvailable"))} against ${ms(claimed(dv, "deltaVRequired"))} required: a margin of ${pct(claimed(dv, "margin"))}.`),
+        p(
+          `With a specific impulse of 225 s and 68 kg at separation, the tanks provide ${ms(claimed(dv, "deltaVAvailable"))} against ${ms(claimed(dv, "deltaVRequired"))} required: a margin of ${pct(claimed(dv, "margin"))}.`,
+        ),
         dv,
       ],
       "Operations and risks": [
@@ -125,16 +169,41 @@ function tern1(): DossierSpec {
         "Payload: six-band pushbroom imager, 18 m ground sampling, 2-day revisit of the northern coast.",
       ]),
       ledgerCsv("tern-1-delta-v-ledger.csv", maneuvers, "specific impulse 225 s, 68 kg at separation"),
-      elementSet("tern-1-planned.tle", "TERN-1 (PLANNED)", { semiMajorAxis: value(orbit, "semiMajorAxis"), eccentricity: 0.0001, inclination: value(sso, "inclination"), raan: 112.5, argPeriapsis: 90, meanAnomaly: 0 }),
+      elementSet("tern-1-planned.tle", "TERN-1 (PLANNED)", {
+        semiMajorAxis: value(orbit, "semiMajorAxis"),
+        eccentricity: 0.0001,
+        inclination: value(sso, "inclination"),
+        raan: 112.5,
+        argPeriapsis: 90,
+        meanAnomaly: 0,
+      }),
     ],
   };
 }
 
 /** Skiff-EP, version 1 (the propellant was sized without the margin) or version 2 (sized with 12 %). */
 export function skiffEp(version: 1 | 2 = 1): DossierSpec {
-  const gto = consistent({ label: "the rideshare transfer orbit", kind: "orbit", body: "earth", given: { periapsisAltitude: 250, apoapsisAltitude: 35786 }, claim: { period: 0, apoapsisSpeed: 3 } });
-  const raise = consistent({ label: "the impulsive equivalent of the raise", kind: "hohmann", body: "earth", given: { initialAltitude: 250, finalAltitude: 35786 }, claim: { deltaV2: 3, transferTime: 0 } });
-  const reorbit = consistent({ label: "the end-of-life re-orbit", kind: "hohmann", body: "earth", given: { initialAltitude: 35786, finalAltitude: 36086 }, claim: { deltaVTotal: 3 } });
+  const gto = consistent({
+    label: "the rideshare transfer orbit",
+    kind: "orbit",
+    body: "earth",
+    given: { periapsisAltitude: 250, apoapsisAltitude: 35786 },
+    claim: { period: 0, apoapsisSpeed: 3 },
+  });
+  const raise = consistent({
+    label: "the impulsive equivalent of the raise",
+    kind: "hohmann",
+    body: "earth",
+    given: { initialAltitude: 250, finalAltitude: 35786 },
+    claim: { deltaV2: 3, transferTime: 0 },
+  });
+  const reorbit = consistent({
+    label: "the end-of-life re-orbit",
+    kind: "hohmann",
+    body: "earth",
+    given: { initialAltitude: 35786, finalAltitude: 36086 },
+    claim: { deltaVTotal: 3 },
+  });
   const lowThrustFactor = 1.35;
   const maneuvers: Maneuver[] = [
     { name: "orbit raising to GEO (low thrust, 1.35 x impulsive)", deltaV: rounded(value(raise, "deltaV2") * lowThrustFactor, 3) },
@@ -146,13 +215,24 @@ export function skiffEp(version: 1 | 2 = 1): DossierSpec {
       ? budgetWithoutMargin({ label: "the xenon budget", maneuvers, specificImpulse: 1450, initialMass: 180, claimedMargin: 0.1, requiredMargin: 0.1 })
       : budget({ label: "the xenon budget", maneuvers, specificImpulse: 1450, initialMass: 180, margin: 0.12, requiredMargin: 0.1 });
   const finalMass = dv.claim.given.finalMass as number;
-  const xenon = consistent({ label: "the xenon load", kind: "rocket", given: { specificImpulse: 1450, initialMass: 180, finalMass }, claim: { propellantMass: 1 } });
+  const xenon = consistent({
+    label: "the xenon load",
+    kind: "rocket",
+    given: { specificImpulse: 1450, initialMass: 180, finalMass },
+    claim: { propellantMass: 1 },
+  });
   const blocks = [gto, raise, reorbit, dv, xenon];
   const required = maneuvers.reduce((s, m) => s + m.deltaV, 0);
   const budgetProse =
     version === 1
-      ? p(`The Hall thruster (specific impulse 1450 s) carries ${fixed(claimed(xenon, "propellantMass"), 1)} kg of xenon for ${ms(required)} of manoeuvres, `, { b: "which includes the 10 % margin the call asks for" }, ".")
-      : p(`Version 2 resizes the tank: ${fixed(claimed(xenon, "propellantMass"), 1)} kg of xenon give ${ms(claimed(dv, "deltaVAvailable"))} against ${ms(required)} required, a margin of ${pct(claimed(dv, "margin"))} above the call's 10 %.`);
+      ? p(
+          `The Hall thruster (specific impulse 1450 s) carries ${fixed(claimed(xenon, "propellantMass"), 1)} kg of xenon for ${ms(required)} of manoeuvres, `,
+          { b: "which includes the 10 % margin the call asks for" },
+          ".",
+        )
+      : p(
+          `Version 2 resizes the tank: ${fixed(claimed(xenon, "propellantMass"), 1)} kg of xenon give ${ms(claimed(dv, "deltaVAvailable"))} against ${ms(required)} required, a margin of ${pct(claimed(dv, "margin"))} above the call's 10 %.`,
+        );
   return {
     key: "skiff-ep",
     call: "decided",
@@ -162,13 +242,19 @@ export function skiffEp(version: 1 | 2 = 1): DossierSpec {
     blocks,
     doc: doc({
       "Mission objectives": [
-        p("Skiff-EP demonstrates that a 180 kg hosted-payload carrier can ride a geostationary transfer rideshare and raise itself to GEO with its own electric propulsion, freeing small operators from the price of a dedicated GEO launch."),
+        p(
+          "Skiff-EP demonstrates that a 180 kg hosted-payload carrier can ride a geostationary transfer rideshare and raise itself to GEO with its own electric propulsion, freeing small operators from the price of a dedicated GEO launch.",
+        ),
         p("The demonstration payload is a Ka-band beacon for propagation experiments with three university ground stations."),
       ],
       "Orbit design": [
-        p(`The rideshare leaves Skiff-EP in a 250 × 35 786 km transfer orbit with a period of ${minutes(claimed(gto, "period"))}. At apogee it moves at ${fixed(claimed(gto, "apoapsisSpeed"), 3)} km/s; geostationary speed is higher, and the thruster makes up the difference over about five months.`),
+        p(
+          `The rideshare leaves Skiff-EP in a 250 × 35 786 km transfer orbit with a period of ${minutes(claimed(gto, "period"))}. At apogee it moves at ${fixed(claimed(gto, "apoapsisSpeed"), 3)} km/s; geostationary speed is higher, and the thruster makes up the difference over about five months.`,
+        ),
         gto,
-        p(`The impulsive equivalent of the raise is the apogee burn of the transfer, ${ms(claimed(raise, "deltaV2"))}; we budget ${lowThrustFactor}× that figure for the losses of a low-thrust spiral (common practice for a first estimate).`),
+        p(
+          `The impulsive equivalent of the raise is the apogee burn of the transfer, ${ms(claimed(raise, "deltaV2"))}; we budget ${lowThrustFactor}× that figure for the losses of a low-thrust spiral (common practice for a first estimate).`,
+        ),
         raise,
       ],
       "Propulsion and Δv budget": [
@@ -179,7 +265,9 @@ export function skiffEp(version: 1 | 2 = 1): DossierSpec {
         reorbit,
       ],
       "Operations and risks": [
-        p("The raise runs autonomously between weekly ground contacts; the thruster fires around apogee and the attitude system keeps the arrays on the sun otherwise."),
+        p(
+          "The raise runs autonomously between weekly ground contacts; the thruster fires around apogee and the attitude system keeps the arrays on the sun otherwise.",
+        ),
         list(
           "Radiation dose through the belts during the five-month raise: the avionics are rated for 30 krad behind 3 mm aluminium.",
           "Thruster lifetime: the raise needs 2 900 hours of the 8 000 hours qualified.",
@@ -206,9 +294,20 @@ function wisp(): DossierSpec {
     claim: { transferTime: -3, departureExcessSpeed: 3 },
   });
   const vInf = rounded(value(transfer, "departureExcessSpeed"), 3);
-  const escape = consistent({ label: "the departure hyperbola", kind: "escape", body: "earth", given: { parkingAltitude: 300, hyperbolicExcessSpeed: vInf }, claim: { c3: 2, deltaV: 3 } });
+  const escape = consistent({
+    label: "the departure hyperbola",
+    kind: "escape",
+    body: "earth",
+    given: { parkingAltitude: 300, hyperbolicExcessSpeed: vInf },
+    claim: { c3: 2, deltaV: 3 },
+  });
   const correction = planeChangeRadiansAsDegrees({ label: "the flyby plane correction", body: "sun", angle: 2, speed: vInf });
-  const thruster = consistent({ label: "the cubesat's propulsion", kind: "rocket", given: { specificImpulse: 220, initialMass: 14, finalMass: 13.6 }, claim: { deltaV: 3 } });
+  const thruster = consistent({
+    label: "the cubesat's propulsion",
+    kind: "rocket",
+    given: { specificImpulse: 220, initialMass: 14, finalMass: 13.6 },
+    claim: { deltaV: 3 },
+  });
   const blocks = [transfer, escape, correction, thruster];
   return {
     key: "wisp",
@@ -219,21 +318,33 @@ function wisp(): DossierSpec {
     blocks,
     doc: doc({
       "Mission objectives": [
-        p("Wisp is a 12U cubesat that flies past Mars and images the night side in the thermal infrared during the closest approach, as a pathfinder for student-built deep-space missions at Sorrel University."),
+        p(
+          "Wisp is a 12U cubesat that flies past Mars and images the night side in the thermal infrared during the closest approach, as a pathfinder for student-built deep-space missions at Sorrel University.",
+        ),
       ],
       "Orbit design": [
-        p(`Wisp is released from the upper stage of a Mars-bound primary mission on its departure hyperbola. The minimum-energy transfer takes ${days(claimed(transfer, "transferTime"))} and leaves Earth with a hyperbolic excess speed of ${fixed(claimed(transfer, "departureExcessSpeed"), 3)} km/s (C3 ${fixed(claimed(escape, "c3"), 2)} km²/s²).`),
+        p(
+          `Wisp is released from the upper stage of a Mars-bound primary mission on its departure hyperbola. The minimum-energy transfer takes ${days(claimed(transfer, "transferTime"))} and leaves Earth with a hyperbolic excess speed of ${fixed(claimed(transfer, "departureExcessSpeed"), 3)} km/s (C3 ${fixed(claimed(escape, "c3"), 2)} km²/s²).`,
+        ),
         transfer,
         escape,
-        p(`Our flyby geometry needs the arrival plane turned by 2°. `, { b: `At ${fixed(vInf, 3)} km/s this plane correction costs only ${fixed(claimed(correction, "deltaV") * 1000, 1)} m/s` }, ", well inside the cubesat's capability."),
+        p(
+          `Our flyby geometry needs the arrival plane turned by 2°. `,
+          { b: `At ${fixed(vInf, 3)} km/s this plane correction costs only ${fixed(claimed(correction, "deltaV") * 1000, 1)} m/s` },
+          ", well inside the cubesat's capability.",
+        ),
         correction,
       ],
       "Propulsion and Δv budget": [
-        p(`A green monopropellant module (specific impulse 220 s) takes the cubesat from 14 kg to 13.6 kg for ${ms(claimed(thruster, "deltaV"))} of corrections.`),
+        p(
+          `A green monopropellant module (specific impulse 220 s) takes the cubesat from 14 kg to 13.6 kg for ${ms(claimed(thruster, "deltaV"))} of corrections.`,
+        ),
         thruster,
       ],
       "Operations and risks": [
-        p("Tracking uses the primary mission's deep-space network time, two passes a week during cruise. The flyby images are stored and downlinked over the following month."),
+        p(
+          "Tracking uses the primary mission's deep-space network time, two passes a week during cruise. The flyby images are stored and downlinked over the following month.",
+        ),
         list("The cubesat's X-band radio has not flown beyond lunar distance.", "Thermal design for cruise is based on analysis only."),
       ],
     }),
@@ -259,8 +370,20 @@ function lantern(): DossierSpec {
     initialFrom: parking.blockId,
     claim: { deltaV1: 3, transferTime: 0 },
   });
-  const lunar = consistent({ label: "the lunar science orbit", kind: "orbit", body: "moon", given: { altitude: 100 }, claim: { period: 0, periapsisSpeed: 3 } });
-  const loi = consistent({ label: "lunar orbit insertion", kind: "escape", body: "moon", given: { parkingAltitude: 100, hyperbolicExcessSpeed: 0.8 }, claim: { deltaV: 3 } });
+  const lunar = consistent({
+    label: "the lunar science orbit",
+    kind: "orbit",
+    body: "moon",
+    given: { altitude: 100 },
+    claim: { period: 0, periapsisSpeed: 3 },
+  });
+  const loi = consistent({
+    label: "lunar orbit insertion",
+    kind: "escape",
+    body: "moon",
+    given: { parkingAltitude: 100, hyperbolicExcessSpeed: 0.8 },
+    claim: { deltaV: 3 },
+  });
   const maneuvers: Maneuver[] = [
     { name: "trajectory corrections", deltaV: 0.03 },
     { name: "lunar orbit insertion", deltaV: rounded(value(loi, "deltaV"), 3) },
@@ -276,24 +399,35 @@ function lantern(): DossierSpec {
     blocks: [parking, tli, lunar, loi, dv],
     doc: doc({
       "Mission objectives": [
-        p("Lantern maps hydrogen in the permanently shadowed craters near the lunar south pole with a collimated neutron spectrometer, at 100 km altitude, for twelve months."),
+        p(
+          "Lantern maps hydrogen in the permanently shadowed craters near the lunar south pole with a collimated neutron spectrometer, at 100 km altitude, for twelve months.",
+        ),
         p("It also carries a laser retroreflector for the ranging stations of three partner observatories."),
       ],
       "Orbit design": [
-        p(`The launcher leaves Lantern in a 200 km parking orbit (period ${minutes(claimed(parking, "period"))}). The translunar injection of ${ms(claimed(tli, "deltaV1"))} is done by the launcher's upper stage; the coast to lunar distance takes ${days(claimed(tli, "transferTime"))}.`),
+        p(
+          `The launcher leaves Lantern in a 200 km parking orbit (period ${minutes(claimed(parking, "period"))}). The translunar injection of ${ms(claimed(tli, "deltaV1"))} is done by the launcher's upper stage; the coast to lunar distance takes ${days(claimed(tli, "transferTime"))}.`,
+        ),
         parking,
         tli,
-        p(`At the Moon, Lantern circles at 100 km in ${minutes(claimed(lunar, "period"))} at ${fixed(claimed(lunar, "periapsisSpeed"), 3)} km/s. Arriving with 0.8 km/s of excess speed, the insertion burn is ${ms(claimed(loi, "deltaV"))}.`),
+        p(
+          `At the Moon, Lantern circles at 100 km in ${minutes(claimed(lunar, "period"))} at ${fixed(claimed(lunar, "periapsisSpeed"), 3)} km/s. Arriving with 0.8 km/s of excess speed, the insertion burn is ${ms(claimed(loi, "deltaV"))}.`,
+        ),
         lunar,
         loi,
       ],
       "Propulsion and Δv budget": [
-        p(`A bipropellant module with a specific impulse of 230 s gives ${ms(claimed(dv, "deltaVAvailable"))} against ${ms(claimed(dv, "deltaVRequired"))} required, a margin of ${pct(claimed(dv, "margin"))}.`),
+        p(
+          `A bipropellant module with a specific impulse of 230 s gives ${ms(claimed(dv, "deltaVAvailable"))} against ${ms(claimed(dv, "deltaVRequired"))} required, a margin of ${pct(claimed(dv, "margin"))}.`,
+        ),
         dv,
       ],
       "Operations and risks": [
         p("Greywing Lunar Systems operates Lantern from its control centre with leased deep-space antenna time, three passes a day during the science phase."),
-        list("Orbit maintenance at 100 km depends on the lunar gravity field; the 60 m/s allowance covers twelve months with weekly trims.", "The spectrometer's collimator has flight heritage from an earlier orbiter."),
+        list(
+          "Orbit maintenance at 100 km depends on the lunar gravity field; the 60 m/s allowance covers twelve months with weekly trims.",
+          "The spectrometer's collimator has flight heritage from an earlier orbiter.",
+        ),
       ],
     }),
     files: async () => [
@@ -340,21 +474,38 @@ function aurora(): DossierSpec {
     blocks: [science, outbound, position, drift],
     doc: doc({
       "Mission objectives": [
-        p("Two identical 45 kg probes fly the same eccentric orbit half an orbit apart and measure the magnetic field and energetic particles of the outer radiation belt on every pass, separating changes in time from changes in space."),
+        p(
+          "Two identical 45 kg probes fly the same eccentric orbit half an orbit apart and measure the magnetic field and energetic particles of the outer radiation belt on every pass, separating changes in time from changes in space.",
+        ),
       ],
       "Orbit design": [
-        p(`The science orbit runs from 600 km to 38 000 km (eccentricity ${fixed(claimed(science, "eccentricity"), 4)}), with a period of ${minutes(claimed(science, "period"))}. Each probe spends ${minutes(claimed(outbound, "time"))} climbing from periapsis to apoapsis, where it slows to ${fixed(claimed(science, "apoapsisSpeed"), 3)} km/s.`),
+        p(
+          `The science orbit runs from 600 km to 38 000 km (eccentricity ${fixed(claimed(science, "eccentricity"), 4)}), with a period of ${minutes(claimed(science, "period"))}. Each probe spends ${minutes(claimed(outbound, "time"))} climbing from periapsis to apoapsis, where it slows to ${fixed(claimed(science, "apoapsisSpeed"), 3)} km/s.`,
+        ),
         science,
         outbound,
-        p(`For the instrument timeline we need the position one hour after periapsis: a mean anomaly of ${fixed(meanAnomaly, 2)}°, `, { b: `which gives a true anomaly of ${fixed(claimed(position, "trueAnomaly"), 1)}°` }, "."),
+        p(
+          `For the instrument timeline we need the position one hour after periapsis: a mean anomaly of ${fixed(meanAnomaly, 2)}°, `,
+          { b: `which gives a true anomaly of ${fixed(claimed(position, "trueAnomaly"), 1)}°` },
+          ".",
+        ),
         position,
-        p(`At 63.4° inclination the line of apsides stays put (${fixed(claimed(drift, "argPeriapsisRate"), 4)}°/day), while the node drifts ${fixed(claimed(drift, "raanRate"), 3)}°/day.`),
+        p(
+          `At 63.4° inclination the line of apsides stays put (${fixed(claimed(drift, "argPeriapsisRate"), 4)}°/day), while the node drifts ${fixed(claimed(drift, "raanRate"), 3)}°/day.`,
+        ),
         drift,
       ],
-      "Propulsion and Δv budget": [p("The probes carry cold-gas thrusters for attitude only; the launcher delivers each probe into the science orbit, and no orbit manoeuvres are planned.")],
+      "Propulsion and Δv budget": [
+        p(
+          "The probes carry cold-gas thrusters for attitude only; the launcher delivers each probe into the science orbit, and no orbit manoeuvres are planned.",
+        ),
+      ],
       "Operations and risks": [
         p("Perihelion Instruments operates both probes with a single 3.7 m antenna; each probe is contacted once per orbit near apoapsis."),
-        list("Radiation: the probes cross the belts twice per orbit; parts are screened to 100 krad.", "Probe separation drifts by launch dispersion; the science case holds for separations of 30 to 70 % of an orbit."),
+        list(
+          "Radiation: the probes cross the belts twice per orbit; parts are screened to 100 krad.",
+          "Probe separation drifts by launch dispersion; the science case holds for separations of 30 to 70 % of an orbit.",
+        ),
       ],
     }),
     files: async () => [
@@ -376,9 +527,27 @@ function aurora(): DossierSpec {
 function harrow(): DossierSpec {
   const orbit = consistent({ label: "the radar orbit", kind: "orbit", body: "earth", given: { altitude: 800 }, claim: { period: 0 } });
   const sso = ssoForWrongAltitude({ label: "the sun-synchronous inclination", altitude: 800, designAltitude: 500 });
-  const eclipse = consistent({ label: "the dawn-dusk eclipse season", kind: "eclipse", body: "earth", given: { altitude: 800, betaAngle: 60 }, claim: { eclipseDuration: 0 } });
-  const pass = consistent({ label: "a polar station pass", kind: "groundContact", body: "earth", given: { altitude: 800, minimumElevation: 5 }, claim: { maxPassDuration: 0 } });
-  const disposal = consistent({ label: "the disposal burn", kind: "hohmann", body: "earth", given: { initialAltitude: 800, finalAltitude: 350 }, claim: { deltaV1: 3 } });
+  const eclipse = consistent({
+    label: "the dawn-dusk eclipse season",
+    kind: "eclipse",
+    body: "earth",
+    given: { altitude: 800, betaAngle: 60 },
+    claim: { eclipseDuration: 0 },
+  });
+  const pass = consistent({
+    label: "a polar station pass",
+    kind: "groundContact",
+    body: "earth",
+    given: { altitude: 800, minimumElevation: 5 },
+    claim: { maxPassDuration: 0 },
+  });
+  const disposal = consistent({
+    label: "the disposal burn",
+    kind: "hohmann",
+    body: "earth",
+    given: { initialAltitude: 800, finalAltitude: 350 },
+    claim: { deltaV1: 3 },
+  });
   const maneuvers: Maneuver[] = [
     { name: "orbit acquisition", deltaV: 0.02 },
     { name: "ground-track maintenance, 7 years", deltaV: 0.025 },
@@ -394,24 +563,37 @@ function harrow(): DossierSpec {
     blocks: [orbit, sso, eclipse, pass, disposal, dv],
     doc: doc({
       "Mission objectives": [
-        p("Harrow measures sea-ice thickness and drift across the Arctic with an L-band synthetic-aperture radar, every three days through the polar night, for the shipping-route service of the Meridian Polar Systems Cooperative."),
+        p(
+          "Harrow measures sea-ice thickness and drift across the Arctic with an L-band synthetic-aperture radar, every three days through the polar night, for the shipping-route service of the Meridian Polar Systems Cooperative.",
+        ),
       ],
       "Orbit design": [
-        p(`The radar needs a higher orbit than our first concept: the baseline is now circular at 800 km (period ${minutes(claimed(orbit, "period"))}), dawn-dusk and sun-synchronous at `, { b: `${fixed(claimed(sso, "inclination"), 2)}° inclination` }, "."),
+        p(
+          `The radar needs a higher orbit than our first concept: the baseline is now circular at 800 km (period ${minutes(claimed(orbit, "period"))}), dawn-dusk and sun-synchronous at `,
+          { b: `${fixed(claimed(sso, "inclination"), 2)}° inclination` },
+          ".",
+        ),
         orbit,
         sso,
-        p(`In the dawn-dusk orbit the satellite is in sunlight most of the year; in the eclipse season (beta angle 60°) the longest shadow lasts ${minutes(claimed(eclipse, "eclipseDuration"))}. Passes over the polar station above 5° elevation last up to ${minutes(claimed(pass, "maxPassDuration"))}.`),
+        p(
+          `In the dawn-dusk orbit the satellite is in sunlight most of the year; in the eclipse season (beta angle 60°) the longest shadow lasts ${minutes(claimed(eclipse, "eclipseDuration"))}. Passes over the polar station above 5° elevation last up to ${minutes(claimed(pass, "maxPassDuration"))}.`,
+        ),
         eclipse,
         pass,
       ],
       "Propulsion and Δv budget": [
-        p(`The hydrazine system (specific impulse 220 s, 410 kg wet) provides ${ms(claimed(dv, "deltaVAvailable"))} against ${ms(claimed(dv, "deltaVRequired"))} required, including a ${ms(claimed(disposal, "deltaV1"))} disposal burn.`),
+        p(
+          `The hydrazine system (specific impulse 220 s, 410 kg wet) provides ${ms(claimed(dv, "deltaVAvailable"))} against ${ms(claimed(dv, "deltaVRequired"))} required, including a ${ms(claimed(disposal, "deltaV1"))} disposal burn.`,
+        ),
         disposal,
         dv,
       ],
       "Operations and risks": [
         p("Two polar stations of the cooperative downlink 40 minutes of radar data per orbit in X-band."),
-        list("The deployable radar antenna is the main mechanical risk; a qualification model passed deployment tests at −40 °C.", "Frequency coordination for L-band radar is handled with the national authority."),
+        list(
+          "The deployable radar antenna is the main mechanical risk; a qualification model passed deployment tests at −40 °C.",
+          "Frequency coordination for L-band radar is handled with the national authority.",
+        ),
       ],
     }),
     files: async () => [
@@ -426,8 +608,20 @@ function harrow(): DossierSpec {
 
 function quill(): DossierSpec {
   const orbit = periodFromAltitude({ label: "the deployment orbit", body: "earth", altitude: 420 });
-  const pass = consistent({ label: "a pass over the campus station", kind: "groundContact", body: "earth", given: { altitude: 420, minimumElevation: 10 }, claim: { maxPassDuration: 0, maxSlantRange: 0 } });
-  const eclipse = consistent({ label: "the longest eclipse", kind: "eclipse", body: "earth", given: { altitude: 420, betaAngle: 0 }, claim: { eclipseDuration: 0 } });
+  const pass = consistent({
+    label: "a pass over the campus station",
+    kind: "groundContact",
+    body: "earth",
+    given: { altitude: 420, minimumElevation: 10 },
+    claim: { maxPassDuration: 0, maxSlantRange: 0 },
+  });
+  const eclipse = consistent({
+    label: "the longest eclipse",
+    kind: "eclipse",
+    body: "earth",
+    given: { altitude: 420, betaAngle: 0 },
+    claim: { eclipseDuration: 0 },
+  });
   return {
     key: "quill",
     call: "open",
@@ -436,25 +630,60 @@ function quill(): DossierSpec {
     missionType: "technology-demonstration",
     blocks: [orbit, pass, eclipse],
     doc: doc({
-      "Mission objectives": [p("Quill is a 1U cubesat built by students to test a low-power UHF beacon and a student-designed sun sensor, and to train the next team in operations.")],
+      "Mission objectives": [
+        p(
+          "Quill is a 1U cubesat built by students to test a low-power UHF beacon and a student-designed sun sensor, and to train the next team in operations.",
+        ),
+      ],
       "Orbit design": [
-        p("Quill is deployed from the space station into a circular orbit at 420 km. ", { b: `Kepler's third law gives one orbit every ${fixed(claimed(orbit, "period"), 1)} s` }, ", so the beacon schedule is set per orbit."),
+        p(
+          "Quill is deployed from the space station into a circular orbit at 420 km. ",
+          { b: `Kepler's third law gives one orbit every ${fixed(claimed(orbit, "period"), 1)} s` },
+          ", so the beacon schedule is set per orbit.",
+        ),
         orbit,
-        p(`A pass over the campus station above 10° elevation lasts up to ${minutes(claimed(pass, "maxPassDuration"))} at ranges up to ${km(claimed(pass, "maxSlantRange"))}; the longest eclipse is ${minutes(claimed(eclipse, "eclipseDuration"))}.`),
+        p(
+          `A pass over the campus station above 10° elevation lasts up to ${minutes(claimed(pass, "maxPassDuration"))} at ranges up to ${km(claimed(pass, "maxSlantRange"))}; the longest eclipse is ${minutes(claimed(eclipse, "eclipseDuration"))}.`,
+        ),
         pass,
         eclipse,
       ],
       "Propulsion and Δv budget": [p("Quill has no propulsion. Drag brings it down within about two years, well within the 25-year guideline.")],
-      "Operations and risks": [p("The campus station listens on every pass; radio amateurs are invited to report beacon receptions."), list("The sun sensor is a first design.", "Battery capacity is sized for the longest eclipse with 30 % margin.")],
+      "Operations and risks": [
+        p("The campus station listens on every pass; radio amateurs are invited to report beacon receptions."),
+        list("The sun sensor is a first design.", "Battery capacity is sized for the longest eclipse with 30 % margin."),
+      ],
     }),
-    files: async () => [await summaryPdf("quill-concept-summary.pdf", "Quill Student Beacon CubeSat", "Sorrel University CubeSat Team", ["1U cubesat, deployed at 420 km, UHF beacon and sun sensor experiment."])],
+    files: async () => [
+      await summaryPdf("quill-concept-summary.pdf", "Quill Student Beacon CubeSat", "Sorrel University CubeSat Team", [
+        "1U cubesat, deployed at 420 km, UHF beacon and sun sensor experiment.",
+      ]),
+    ],
   };
 }
 
 function petrel(): DossierSpec {
-  const transfer = consistent({ label: "the transfer to GEO", kind: "hohmann", body: "earth", given: { initialAltitude: 300, finalAltitude: 35_786 }, claim: { deltaV1: 3, deltaV2: 3, deltaVTotal: 3, transferTime: 0 } });
-  const gto = consistent({ label: "the transfer orbit", kind: "orbit", body: "earth", given: { periapsisAltitude: 300, apoapsisAltitude: 35_786 }, claim: { apoapsisSpeed: 3 } });
-  const geo = consistent({ label: "the geostationary orbit", kind: "orbit", body: "earth", given: { altitude: 35_786 }, claim: { period: 0, periapsisSpeed: 3 } });
+  const transfer = consistent({
+    label: "the transfer to GEO",
+    kind: "hohmann",
+    body: "earth",
+    given: { initialAltitude: 300, finalAltitude: 35_786 },
+    claim: { deltaV1: 3, deltaV2: 3, deltaVTotal: 3, transferTime: 0 },
+  });
+  const gto = consistent({
+    label: "the transfer orbit",
+    kind: "orbit",
+    body: "earth",
+    given: { periapsisAltitude: 300, apoapsisAltitude: 35_786 },
+    claim: { apoapsisSpeed: 3 },
+  });
+  const geo = consistent({
+    label: "the geostationary orbit",
+    kind: "orbit",
+    body: "earth",
+    given: { altitude: 35_786 },
+    claim: { period: 0, periapsisSpeed: 3 },
+  });
   const combined = consistent({
     label: "the combined apogee burn",
     kind: "planeChange",
@@ -476,20 +705,41 @@ function petrel(): DossierSpec {
     missionType: "communications",
     blocks: [transfer, gto, geo, combined, dv],
     doc: doc({
-      "Mission objectives": [p("Petrel is a storable-bipropellant transfer stage that takes three hosted communication payloads from a 300 km low-inclination parking orbit to GEO and stays with them as a common bus for two years.")],
+      "Mission objectives": [
+        p(
+          "Petrel is a storable-bipropellant transfer stage that takes three hosted communication payloads from a 300 km low-inclination parking orbit to GEO and stays with them as a common bus for two years.",
+        ),
+      ],
       "Orbit design": [
-        p(`A coplanar Hohmann transfer would need ${ms(claimed(transfer, "deltaV1"))} at perigee and ${ms(claimed(transfer, "deltaV2"))} at apogee (${ms(claimed(transfer, "deltaVTotal"))} in total) and takes ${minutes(claimed(transfer, "transferTime"))}.`),
+        p(
+          `A coplanar Hohmann transfer would need ${ms(claimed(transfer, "deltaV1"))} at perigee and ${ms(claimed(transfer, "deltaV2"))} at apogee (${ms(claimed(transfer, "deltaVTotal"))} in total) and takes ${minutes(claimed(transfer, "transferTime"))}.`,
+        ),
         transfer,
         gto,
         geo,
-        p(`The parking orbit is inclined 28.5°; the stage removes the inclination in the apogee burn, turning ${fixed(claimed(gto, "apoapsisSpeed"), 3)} km/s into the geostationary ${fixed(claimed(geo, "periapsisSpeed"), 3)} km/s, for ${ms(claimed(combined, "deltaV"))}.`),
+        p(
+          `The parking orbit is inclined 28.5°; the stage removes the inclination in the apogee burn, turning ${fixed(claimed(gto, "apoapsisSpeed"), 3)} km/s into the geostationary ${fixed(claimed(geo, "periapsisSpeed"), 3)} km/s, for ${ms(claimed(combined, "deltaV"))}.`,
+        ),
         combined,
       ],
-      "Propulsion and Δv budget": [p(`With 1 450 kg wet and a specific impulse of 320 s the stage has ${ms(claimed(dv, "deltaVAvailable"))} for ${ms(claimed(dv, "deltaVRequired"))}, a margin of ${pct(claimed(dv, "margin"))}.`), dv],
-      "Operations and risks": [p("Lumen Fjord Space operates the stage; each payload owner operates its own payload through the stage's shared downlink."), list("Main engine restart after the coast: four restarts qualified.", "Hosted payload interface: a common power and data interface is defined in the attached specification.")],
+      "Propulsion and Δv budget": [
+        p(
+          `With 1 450 kg wet and a specific impulse of 320 s the stage has ${ms(claimed(dv, "deltaVAvailable"))} for ${ms(claimed(dv, "deltaVRequired"))}, a margin of ${pct(claimed(dv, "margin"))}.`,
+        ),
+        dv,
+      ],
+      "Operations and risks": [
+        p("Lumen Fjord Space operates the stage; each payload owner operates its own payload through the stage's shared downlink."),
+        list(
+          "Main engine restart after the coast: four restarts qualified.",
+          "Hosted payload interface: a common power and data interface is defined in the attached specification.",
+        ),
+      ],
     }),
     files: async () => [
-      await summaryPdf("petrel-concept-summary.pdf", "Petrel GEO Hosted-Payload Transfer Stage", "Lumen Fjord Space", [`Delta-v: ${ms(claimed(dv, "deltaVRequired"))} required, margin ${pct(claimed(dv, "margin"))}.`]),
+      await summaryPdf("petrel-concept-summary.pdf", "Petrel GEO Hosted-Payload Transfer Stage", "Lumen Fjord Space", [
+        `Delta-v: ${ms(claimed(dv, "deltaVRequired"))} required, margin ${pct(claimed(dv, "margin"))}.`,
+      ]),
       ledgerCsv("petrel-delta-v-ledger.csv", maneuvers, "specific impulse 320 s, 1450 kg wet"),
     ],
   };
@@ -497,10 +747,29 @@ function petrel(): DossierSpec {
 
 function kite(): DossierSpec {
   const orbit = consistent({ label: "the operational orbit", kind: "orbit", body: "earth", given: { altitude: 600 }, claim: { period: 0 } });
-  const sso = consistent({ label: "the sun-synchronous inclination", kind: "sunSynchronous", body: "earth", given: { altitude: 600 }, claim: { inclination: 2 } });
+  const sso = consistent({
+    label: "the sun-synchronous inclination",
+    kind: "sunSynchronous",
+    body: "earth",
+    given: { altitude: 600 },
+    claim: { inclination: 2 },
+  });
   const dropOff = consistent({ label: "the rideshare drop-off orbit", kind: "orbit", body: "earth", given: { altitude: 480 }, claim: { period: 0 } });
-  const raise = consistent({ label: "the raise to the operational orbit", kind: "hohmann", body: "earth", given: { initialAltitude: 480, finalAltitude: 600 }, initialFrom: dropOff.blockId, claim: { deltaVTotal: 3, transferTime: 0 } });
-  const disposal = consistent({ label: "the disposal burn", kind: "hohmann", body: "earth", given: { initialAltitude: 600, finalAltitude: 330 }, claim: { deltaV1: 3 } });
+  const raise = consistent({
+    label: "the raise to the operational orbit",
+    kind: "hohmann",
+    body: "earth",
+    given: { initialAltitude: 480, finalAltitude: 600 },
+    initialFrom: dropOff.blockId,
+    claim: { deltaVTotal: 3, transferTime: 0 },
+  });
+  const disposal = consistent({
+    label: "the disposal burn",
+    kind: "hohmann",
+    body: "earth",
+    given: { initialAltitude: 600, finalAltitude: 330 },
+    claim: { deltaV1: 3 },
+  });
   const maneuvers: Maneuver[] = [
     { name: "raise from the drop-off orbit", deltaV: rounded(value(raise, "deltaVTotal"), 3) },
     { name: "drag make-up, 7 years", deltaV: 0.05 },
@@ -515,17 +784,23 @@ function kite(): DossierSpec {
     missionType: "earth-observation",
     blocks: [orbit, sso, dropOff, raise, disposal, dv],
     doc: doc({
-      "Mission objectives": [p("Kite follows Tern-1 with two satellites half an orbit apart, halving the revisit time of the coastal water products to one day.")],
+      "Mission objectives": [
+        p("Kite follows Tern-1 with two satellites half an orbit apart, halving the revisit time of the coastal water products to one day."),
+      ],
       "Orbit design": [
         p(`Both satellites fly at 600 km (period ${minutes(claimed(orbit, "period"))}), sun-synchronous at ${fixed(claimed(sso, "inclination"), 2)}°.`),
         orbit,
         sso,
-        p(`The only rideshare with a suitable node leaves its passengers at 480 km (period ${minutes(claimed(dropOff, "period"))}). Each satellite raises itself to 600 km with two burns, ${ms(claimed(raise, "deltaVTotal"))} in ${minutes(claimed(raise, "transferTime"))}; the second waits half an orbit before its first burn.`),
+        p(
+          `The only rideshare with a suitable node leaves its passengers at 480 km (period ${minutes(claimed(dropOff, "period"))}). Each satellite raises itself to 600 km with two burns, ${ms(claimed(raise, "deltaVTotal"))} in ${minutes(claimed(raise, "transferTime"))}; the second waits half an orbit before its first burn.`,
+        ),
         dropOff,
         raise,
       ],
       "Propulsion and Δv budget": [
-        p(`Draft: the green monopropellant system of Tern-1 (specific impulse 225 s) with 74 kg at separation gives ${ms(claimed(dv, "deltaVAvailable"))} against ${ms(claimed(dv, "deltaVRequired"))}, including a ${ms(claimed(disposal, "deltaV1"))} disposal burn.`),
+        p(
+          `Draft: the green monopropellant system of Tern-1 (specific impulse 225 s) with 74 kg at separation gives ${ms(claimed(dv, "deltaVAvailable"))} against ${ms(claimed(dv, "deltaVRequired"))}, including a ${ms(claimed(disposal, "deltaV1"))} disposal burn.`,
+        ),
         disposal,
         dv,
       ],
@@ -536,9 +811,27 @@ function kite(): DossierSpec {
 }
 
 function sable(): DossierSpec {
-  const orbit = consistent({ label: "the prospecting orbit", kind: "orbit", body: "moon", given: { periapsisAltitude: 30, apoapsisAltitude: 120 }, claim: { period: 0, periapsisSpeed: 3 } });
-  const descent = consistent({ label: "the lowering from the arrival orbit", kind: "hohmann", body: "moon", given: { initialAltitude: 120, finalAltitude: 30 }, claim: { deltaV1: 3 } });
-  const capture = consistent({ label: "lunar capture", kind: "escape", body: "moon", given: { parkingAltitude: 120, hyperbolicExcessSpeed: 0.75 }, claim: { deltaV: 3 } });
+  const orbit = consistent({
+    label: "the prospecting orbit",
+    kind: "orbit",
+    body: "moon",
+    given: { periapsisAltitude: 30, apoapsisAltitude: 120 },
+    claim: { period: 0, periapsisSpeed: 3 },
+  });
+  const descent = consistent({
+    label: "the lowering from the arrival orbit",
+    kind: "hohmann",
+    body: "moon",
+    given: { initialAltitude: 120, finalAltitude: 30 },
+    claim: { deltaV1: 3 },
+  });
+  const capture = consistent({
+    label: "lunar capture",
+    kind: "escape",
+    body: "moon",
+    given: { parkingAltitude: 120, hyperbolicExcessSpeed: 0.75 },
+    claim: { deltaV: 3 },
+  });
   const maneuvers: Maneuver[] = [
     { name: "lunar capture", deltaV: rounded(value(capture, "deltaV"), 3) },
     { name: "periapsis lowering to 30 km", deltaV: rounded(value(descent, "deltaV1"), 3) },
@@ -553,21 +846,39 @@ function sable(): DossierSpec {
     missionType: "lunar",
     blocks: [orbit, capture, descent, dv],
     doc: doc({
-      "Mission objectives": [p("Sable images the floors of polar craters from a low periapsis with an active infrared illuminator, to confirm where the neutron data of earlier missions point to water ice.")],
+      "Mission objectives": [
+        p(
+          "Sable images the floors of polar craters from a low periapsis with an active infrared illuminator, to confirm where the neutron data of earlier missions point to water ice.",
+        ),
+      ],
       "Orbit design": [
-        p(`Sable is captured into a 120 km orbit (${ms(claimed(capture, "deltaV"))} from 0.75 km/s of excess speed) and then lowers its periapsis to 30 km over the south pole for ${ms(claimed(descent, "deltaV1"))}. The 30 × 120 km orbit has a period of ${minutes(claimed(orbit, "period"))}; at periapsis Sable passes at ${fixed(claimed(orbit, "periapsisSpeed"), 3)} km/s.`),
+        p(
+          `Sable is captured into a 120 km orbit (${ms(claimed(capture, "deltaV"))} from 0.75 km/s of excess speed) and then lowers its periapsis to 30 km over the south pole for ${ms(claimed(descent, "deltaV1"))}. The 30 × 120 km orbit has a period of ${minutes(claimed(orbit, "period"))}; at periapsis Sable passes at ${fixed(claimed(orbit, "periapsisSpeed"), 3)} km/s.`,
+        ),
         capture,
         descent,
         orbit,
       ],
       "Propulsion and Δv budget": [
-        p(`The monopropellant system (specific impulse 225 s, 310 kg wet) covers ${ms(claimed(dv, "deltaVRequired"))} of manoeuvres, `, { b: `with the ${pct(claimed(dv, "margin"))} margin required by our own rules` }, "."),
+        p(
+          `The monopropellant system (specific impulse 225 s, 310 kg wet) covers ${ms(claimed(dv, "deltaVRequired"))} of manoeuvres, `,
+          { b: `with the ${pct(claimed(dv, "margin"))} margin required by our own rules` },
+          ".",
+        ),
         dv,
       ],
-      "Operations and risks": [p("Greywing operates Sable together with Lantern from the same control centre."), list("A 30 km periapsis leaves little room for errors in the lunar gravity model; maintenance burns are weekly.", "The illuminator draws 180 W for 4 minutes per pass.")],
+      "Operations and risks": [
+        p("Greywing operates Sable together with Lantern from the same control centre."),
+        list(
+          "A 30 km periapsis leaves little room for errors in the lunar gravity model; maintenance burns are weekly.",
+          "The illuminator draws 180 W for 4 minutes per pass.",
+        ),
+      ],
     }),
     files: async () => [
-      await summaryPdf("sable-concept-summary.pdf", "Sable Lunar Ice Prospector", "Greywing Lunar Systems", [`Orbit: 30 x 120 km lunar polar, period ${minutes(claimed(orbit, "period"))}.`]),
+      await summaryPdf("sable-concept-summary.pdf", "Sable Lunar Ice Prospector", "Greywing Lunar Systems", [
+        `Orbit: 30 x 120 km lunar polar, period ${minutes(claimed(orbit, "period"))}.`,
+      ]),
       ledgerCsv("sable-delta-v-ledger.csv", maneuvers, "specific impulse 225 s, 310 kg wet"),
     ],
   };
@@ -575,9 +886,21 @@ function sable(): DossierSpec {
 
 function glint(): DossierSpec {
   const orbit = consistent({ label: "the inspection orbit", kind: "orbit", body: "earth", given: { altitude: 750 }, claim: { period: 0 } });
-  const hop = consistent({ label: "the hop to the target", kind: "hohmann", body: "earth", given: { initialAltitude: 750, finalAltitude: 790 }, initialFrom: orbit.blockId, claim: { deltaVTotal: 3, transferTime: 0 } });
+  const hop = consistent({
+    label: "the hop to the target",
+    kind: "hohmann",
+    body: "earth",
+    given: { initialAltitude: 750, finalAltitude: 790 },
+    initialFrom: orbit.blockId,
+    claim: { deltaVTotal: 3, transferTime: 0 },
+  });
   const tilt = consistent({ label: "the plane match", kind: "planeChange", body: "earth", given: { angle: 0.4, altitude: 790 }, claim: { deltaV: 3 } });
-  const tank = consistent({ label: "the tug's propulsion", kind: "rocket", given: { specificImpulse: 210, initialMass: 95, finalMass: 82 }, claim: { deltaV: 3 } });
+  const tank = consistent({
+    label: "the tug's propulsion",
+    kind: "rocket",
+    given: { specificImpulse: 210, initialMass: 95, finalMass: 82 },
+    claim: { deltaV: 3 },
+  });
   return {
     key: "glint",
     call: "open",
@@ -586,9 +909,15 @@ function glint(): DossierSpec {
     missionType: "technology-demonstration",
     blocks: [orbit, hop, tilt, tank],
     doc: doc({
-      "Mission objectives": [p("Glint approaches a derelict upper stage of our own cooperative to within 50 m and images it from all sides, as the first step towards a removal service.")],
+      "Mission objectives": [
+        p(
+          "Glint approaches a derelict upper stage of our own cooperative to within 50 m and images it from all sides, as the first step towards a removal service.",
+        ),
+      ],
       "Orbit design": [
-        p(`From the 750 km inspection orbit (${minutes(claimed(orbit, "period"))}) Glint hops 40 km up to the target for ${ms(claimed(hop, "deltaVTotal"))} and matches its plane, 0.4° away, for ${ms(claimed(tilt, "deltaV"))}.`),
+        p(
+          `From the 750 km inspection orbit (${minutes(claimed(orbit, "period"))}) Glint hops 40 km up to the target for ${ms(claimed(hop, "deltaVTotal"))} and matches its plane, 0.4° away, for ${ms(claimed(tilt, "deltaV"))}.`,
+        ),
         orbit,
         hop,
         tilt,
@@ -601,9 +930,21 @@ function glint(): DossierSpec {
 }
 
 function vesper(): DossierSpec {
-  const departure = consistent({ label: "the departure from the parking orbit", kind: "escape", body: "earth", given: { parkingAltitude: 500, c3: 0.6 }, claim: { deltaV: 3, hyperbolicExcessSpeed: 3 } });
+  const departure = consistent({
+    label: "the departure from the parking orbit",
+    kind: "escape",
+    body: "earth",
+    given: { parkingAltitude: 500, c3: 0.6 },
+    claim: { deltaV: 3, hyperbolicExcessSpeed: 3 },
+  });
   const soi = consistent({ label: "Earth's sphere of influence", kind: "sphereOfInfluence", body: "earth", given: {}, claim: { radius: -3 } });
-  const hyperbola = consistent({ label: "the escape hyperbola", kind: "orbit", body: "earth", given: { periapsisAltitude: 500, eccentricity: 1.0087 }, claim: { orbitType: true, hyperbolicExcessSpeed: 3 } });
+  const hyperbola = consistent({
+    label: "the escape hyperbola",
+    kind: "orbit",
+    body: "earth",
+    given: { periapsisAltitude: 500, eccentricity: 1.0087 },
+    claim: { orbitType: true, hyperbolicExcessSpeed: 3 },
+  });
   return {
     key: "vesper",
     call: "open",
@@ -612,17 +953,30 @@ function vesper(): DossierSpec {
     missionType: "science",
     blocks: [departure, soi, hyperbola],
     doc: doc({
-      "Mission objectives": [p("Vesper carries a compact solar-wind analyser beyond Earth's influence, trailing the Earth in its orbit, to measure the wind upstream of the magnetosphere's flanks.")],
+      "Mission objectives": [
+        p(
+          "Vesper carries a compact solar-wind analyser beyond Earth's influence, trailing the Earth in its orbit, to measure the wind upstream of the magnetosphere's flanks.",
+        ),
+      ],
       "Orbit design": [
-        p(`From a 500 km parking orbit the kick stage adds ${ms(claimed(departure, "deltaV"))} for a C3 of 0.6 km²/s² (excess speed ${fixed(claimed(departure, "hyperbolicExcessSpeed"), 3)} km/s). Vesper leaves Earth's sphere of influence, about ${km(claimed(soi, "radius"))} away, after roughly three weeks.`),
+        p(
+          `From a 500 km parking orbit the kick stage adds ${ms(claimed(departure, "deltaV"))} for a C3 of 0.6 km²/s² (excess speed ${fixed(claimed(departure, "hyperbolicExcessSpeed"), 3)} km/s). Vesper leaves Earth's sphere of influence, about ${km(claimed(soi, "radius"))} away, after roughly three weeks.`,
+        ),
         departure,
         soi,
         hyperbola,
       ],
       "Propulsion and Δv budget": [p("The kick stage is supplied by the rideshare provider; Vesper itself carries no propulsion.")],
-      "Operations and risks": [p("Perihelion Instruments tracks Vesper with its own antenna until it drifts beyond range after about 14 months."), list("Communication range limits the mission length.", "The kick stage is a new product of the rideshare provider.")],
+      "Operations and risks": [
+        p("Perihelion Instruments tracks Vesper with its own antenna until it drifts beyond range after about 14 months."),
+        list("Communication range limits the mission length.", "The kick stage is a new product of the rideshare provider."),
+      ],
     }),
-    files: async () => [await summaryPdf("vesper-concept-summary.pdf", "Vesper Heliophysics Escape CubeSat", "Perihelion Instruments", ["6U cubesat, escape with C3 0.6 km2/s2, solar-wind analyser."])],
+    files: async () => [
+      await summaryPdf("vesper-concept-summary.pdf", "Vesper Heliophysics Escape CubeSat", "Perihelion Instruments", [
+        "6U cubesat, escape with C3 0.6 km2/s2, solar-wind analyser.",
+      ]),
+    ],
   };
 }
 

@@ -23,7 +23,11 @@ export async function summaryPdf(filename: string, title: string, organisation: 
   doc.moveDown(0.3).font("Helvetica").fontSize(11).fillColor("#45537a").text(`${organisation} - mission concept summary`);
   doc.moveDown(1).fillColor("#121a30").fontSize(11);
   for (const line of lines) doc.text(line, { paragraphGap: 6 });
-  doc.moveDown(1).fontSize(8).fillColor("#45537a").text("Invented data for the VisViva demo board. Orbit figures are two-body screening estimates, not a substitute for high-fidelity analysis.");
+  doc
+    .moveDown(1)
+    .fontSize(8)
+    .fillColor("#45537a")
+    .text("Invented data for the VisViva demo board. Orbit figures are two-body screening estimates, not a substitute for high-fidelity analysis.");
   doc.end();
   await done;
   return { filename, contentType: "application/pdf", body: Buffer.concat(chunks) };

@@ -9,19 +9,7 @@ import { DEMO_ACCOUNTS, type SeedPerson } from "./accounts";
 /** One password for the whole cast beyond the four role accounts (demo only). */
 export const DEMO_CAST_PASSWORD = "kestrel-cast-demo";
 
-export type PersonKey =
-  | "chair"
-  | "teodor"
-  | "ines"
-  | "piet"
-  | "runa"
-  | "jonas"
-  | "nadia"
-  | "tobias"
-  | "maren"
-  | "ayla"
-  | "kofi"
-  | "lise";
+export type PersonKey = "chair" | "teodor" | "ines" | "piet" | "runa" | "jonas" | "nadia" | "tobias" | "maren" | "ayla" | "kofi" | "lise";
 
 export interface DemoPerson extends SeedPerson {
   key: PersonKey;

@@ -110,9 +110,20 @@ const REVIEWS: ReviewSpec[] = [
     reviewer: "teodor",
     state: "submitted",
     scores: [4, 5, 4],
-    comments: ["A clear user and a clear product.", "Every orbit claim checks out and the budget carries a real margin.", "Thruster and imager both have heritage."],
+    comments: [
+      "A clear user and a clear product.",
+      "Every orbit claim checks out and the budget carries a real margin.",
+      "Thruster and imager both have heritage.",
+    ],
     summary: "A well-argued, well-margined Earth-observation mission. Recommend acceptance.",
-    items: [{ severity: "comment", title: "Disposal well argued", body: "The perigee-lowering burn and the re-entry estimate are exactly what the board wants to see.", quote: "re-enters well within the 25-year guideline" }],
+    items: [
+      {
+        severity: "comment",
+        title: "Disposal well argued",
+        body: "The perigee-lowering burn and the re-entry estimate are exactly what the board wants to see.",
+        quote: "re-enters well within the 25-year guideline",
+      },
+    ],
   },
   {
     proposal: "tern-1",
@@ -121,34 +132,74 @@ const REVIEWS: ReviewSpec[] = [
     scores: [4, 4, 4],
     comments: ["Good service case.", "Consistent figures throughout.", "Commissioning plan is realistic."],
     summary: "Sound. One small question on collision avoidance.",
-    items: [{ severity: "minor", title: "Collision-avoidance allowance", body: "Four manoeuvres over five years is on the low side at 540 km; state the conjunction screening threshold you assumed.", quote: "covers four manoeuvres over five years" }],
+    items: [
+      {
+        severity: "minor",
+        title: "Collision-avoidance allowance",
+        body: "Four manoeuvres over five years is on the low side at 540 km; state the conjunction screening threshold you assumed.",
+        quote: "covers four manoeuvres over five years",
+      },
+    ],
   },
   {
     proposal: "skiff-ep",
     reviewer: "ines",
     state: "submitted",
     scores: [4, 2, 3],
-    comments: ["A useful demonstration for small GEO operators.", "The server flags the xenon budget: the tank covers the manoeuvres exactly, with no margin, although the text says it includes 10 %.", "Thruster life is comfortable."],
+    comments: [
+      "A useful demonstration for small GEO operators.",
+      "The server flags the xenon budget: the tank covers the manoeuvres exactly, with no margin, although the text says it includes 10 %.",
+      "Thruster life is comfortable.",
+    ],
     summary: "Promising, but the propulsion budget does not close with the margin the call requires.",
-    items: [{ severity: "major", title: "Xenon budget has no margin", body: "With 1450 s and the stated masses the available Δv equals the requirement; the 10 % margin is not in the tank. Resize the xenon load or cut the manoeuvres.", quote: "which includes the 10 % margin the call asks for" }],
+    items: [
+      {
+        severity: "major",
+        title: "Xenon budget has no margin",
+        body: "With 1450 s and the stated masses the available Δv equals the requirement; the 10 % margin is not in the tank. Resize the xenon load or cut the manoeuvres.",
+        quote: "which includes the 10 % margin the call asks for",
+      },
+    ],
   },
   {
     proposal: "skiff-ep",
     reviewer: "piet",
     state: "submitted",
     scores: [3, 2, 3],
-    comments: ["Reasonable objectives.", "Margin missing (see the server flag) and the low-thrust factor is unsupported.", "Radiation dose during the raise needs more analysis."],
+    comments: [
+      "Reasonable objectives.",
+      "Margin missing (see the server flag) and the low-thrust factor is unsupported.",
+      "Radiation dose during the raise needs more analysis.",
+    ],
     summary: "Revise: add the margin and justify the low-thrust penalty.",
-    items: [{ severity: "minor", title: "Source for the low-thrust factor", body: "1.35× the impulsive Δv is plausible for a first estimate; cite the trajectory optimisation behind it in the next version.", quote: "for the losses of a low-thrust spiral" }],
+    items: [
+      {
+        severity: "minor",
+        title: "Source for the low-thrust factor",
+        body: "1.35× the impulsive Δv is plausible for a first estimate; cite the trajectory optimisation behind it in the next version.",
+        quote: "for the losses of a low-thrust spiral",
+      },
+    ],
   },
   {
     proposal: "wisp",
     reviewer: "teodor",
     state: "submitted",
     scores: [3, 1, 2],
-    comments: ["Attractive science for a student mission.", "The plane correction is a hundred times too small: the angle was converted to radians and then used in degrees. The real cost exceeds the propulsion available.", "Deep-space radio and thermal design without heritage."],
+    comments: [
+      "Attractive science for a student mission.",
+      "The plane correction is a hundred times too small: the angle was converted to radians and then used in degrees. The real cost exceeds the propulsion available.",
+      "Deep-space radio and thermal design without heritage.",
+    ],
     summary: "The mission does not close once the plane correction is computed correctly.",
-    items: [{ severity: "major", title: "Plane correction Δv", body: "2·v∞·sin(1°) at the stated excess speed is about 100 m/s, not under 1 m/s; with 62 m/s on board the flyby geometry cannot be reached.", quote: "this plane correction costs only" }],
+    items: [
+      {
+        severity: "major",
+        title: "Plane correction Δv",
+        body: "2·v∞·sin(1°) at the stated excess speed is about 100 m/s, not under 1 m/s; with 62 m/s on board the flyby geometry cannot be reached.",
+        quote: "this plane correction costs only",
+      },
+    ],
   },
   {
     proposal: "wisp",
@@ -157,16 +208,34 @@ const REVIEWS: ReviewSpec[] = [
     scores: [3, 2, 2],
     comments: ["Good training value.", "Δv does not close (server flag on the plane correction).", "Radio heritage is missing."],
     summary: "Decline for this round; a lunar-distance pathfinder first would retire the radio risk.",
-    items: [{ severity: "minor", title: "Radio heritage", body: "Plan a test of the X-band radio at lunar distance or on a ground campaign with a representative link budget.", quote: "has not flown beyond lunar distance" }],
+    items: [
+      {
+        severity: "minor",
+        title: "Radio heritage",
+        body: "Plan a test of the X-band radio at lunar distance or on a ground campaign with a representative link budget.",
+        quote: "has not flown beyond lunar distance",
+      },
+    ],
   },
   {
     proposal: "lantern",
     reviewer: "teodor",
     state: "submitted",
     scores: [5, 4, 4],
-    comments: ["Polar hydrogen mapping is high value.", "Claims consistent; the insertion depends on the arrival speed assumed.", "Spectrometer heritage is good."],
+    comments: [
+      "Polar hydrogen mapping is high value.",
+      "Claims consistent; the insertion depends on the arrival speed assumed.",
+      "Spectrometer heritage is good.",
+    ],
     summary: "Strong proposal. Confirm who provides the translunar injection.",
-    items: [{ severity: "minor", title: "Who performs the injection", body: "Confirm the rideshare contract includes the translunar injection; otherwise it belongs in your budget.", quote: "is done by the launcher's upper stage" }],
+    items: [
+      {
+        severity: "minor",
+        title: "Who performs the injection",
+        body: "Confirm the rideshare contract includes the translunar injection; otherwise it belongs in your budget.",
+        quote: "is done by the launcher's upper stage",
+      },
+    ],
   },
   {
     proposal: "lantern",
@@ -175,16 +244,34 @@ const REVIEWS: ReviewSpec[] = [
     scores: [4, 4, 3],
     comments: ["Good science.", "Budget has a fair margin.", "Leased antenna time is a schedule risk."],
     summary: "Fundable.",
-    items: [{ severity: "comment", title: "Maintenance allowance", body: "Weekly trims at 100 km sound right; show the trim sizing in an annex.", quote: "covers twelve months with weekly trims" }],
+    items: [
+      {
+        severity: "comment",
+        title: "Maintenance allowance",
+        body: "Weekly trims at 100 km sound right; show the trim sizing in an annex.",
+        quote: "covers twelve months with weekly trims",
+      },
+    ],
   },
   {
     proposal: "sable",
     reviewer: "runa",
     state: "submitted",
     scores: [4, 2, 3],
-    comments: ["Good follow-up to Lantern.", "The server flags the budget: the propellant covers the manoeuvres with no margin.", "Low periapsis operations are demanding."],
+    comments: [
+      "Good follow-up to Lantern.",
+      "The server flags the budget: the propellant covers the manoeuvres with no margin.",
+      "Low periapsis operations are demanding.",
+    ],
     summary: "Revise the propellant load.",
-    items: [{ severity: "major", title: "No margin in the Δv budget", body: "The stated 15 % margin is not in the tank; the available Δv equals the requirement.", quote: "margin required by our own rules" }],
+    items: [
+      {
+        severity: "major",
+        title: "No margin in the Δv budget",
+        body: "The stated 15 % margin is not in the tank; the available Δv equals the requirement.",
+        quote: "margin required by our own rules",
+      },
+    ],
   },
   {
     proposal: "sable",
@@ -193,18 +280,43 @@ const REVIEWS: ReviewSpec[] = [
     scores: [4, 3, 3],
     comments: ["Clear objective.", "Figures consistent apart from the budget margin.", "Shared operations with Lantern help."],
     summary: "Acceptable once the margin is fixed.",
-    items: [{ severity: "minor", title: "Gravity model", body: "Name the lunar gravity model and the degree used for the 30 km periapsis prediction.", quote: "leaves little room for errors in the lunar gravity model" }],
+    items: [
+      {
+        severity: "minor",
+        title: "Gravity model",
+        body: "Name the lunar gravity model and the degree used for the 30 km periapsis prediction.",
+        quote: "leaves little room for errors in the lunar gravity model",
+      },
+    ],
   },
   {
     proposal: "aurora",
     reviewer: "ines",
     state: "submitted",
     scores: [5, 2, 4],
-    comments: ["Two-point measurements are exactly what the field needs.", "The position one hour after periapsis is wrong: the mean anomaly in degrees was used as radians (server flag).", "Experienced team."],
+    comments: [
+      "Two-point measurements are exactly what the field needs.",
+      "The position one hour after periapsis is wrong: the mean anomaly in degrees was used as radians (server flag).",
+      "Experienced team.",
+    ],
     summary: "Excellent science; correct the anomaly computation.",
-    items: [{ severity: "major", title: "Degrees used as radians", body: "The true anomaly follows from M in radians read as degrees; recompute the instrument timeline.", quote: "which gives a true anomaly of" }],
+    items: [
+      {
+        severity: "major",
+        title: "Degrees used as radians",
+        body: "The true anomaly follows from M in radians read as degrees; recompute the instrument timeline.",
+        quote: "which gives a true anomaly of",
+      },
+    ],
   },
-  { proposal: "aurora", reviewer: "jonas", state: "draft", scores: [4, 3, 4], comments: ["Strong.", "", "Good team."], summary: "Draft: still reading the orbit section." },
+  {
+    proposal: "aurora",
+    reviewer: "jonas",
+    state: "draft",
+    scores: [4, 3, 4],
+    comments: ["Strong.", "", "Good team."],
+    summary: "Draft: still reading the orbit section.",
+  },
   {
     proposal: "harrow",
     reviewer: "piet",
@@ -213,7 +325,14 @@ const REVIEWS: ReviewSpec[] = [
     comments: ["Clear user need.", "The inclination belongs to a 500 km orbit, not 800 km (server flag).", ""],
     summary: "Draft.",
     checkNote: { label: "the sun-synchronous inclination", note: "Looks like the value from the first concept at 500 km." },
-    items: [{ severity: "major", title: "Inclination for the old altitude", body: "A sun-synchronous orbit at 800 km needs about 98.6°; the stated value is the 500 km figure.", quote: "dawn-dusk and sun-synchronous at" }],
+    items: [
+      {
+        severity: "major",
+        title: "Inclination for the old altitude",
+        body: "A sun-synchronous orbit at 800 km needs about 98.6°; the stated value is the 500 km figure.",
+        quote: "dawn-dusk and sun-synchronous at",
+      },
+    ],
   },
   { proposal: "harrow", reviewer: "teodor", state: "not started" },
   { proposal: "vesper", reviewer: "jonas", state: "not started" },
@@ -244,7 +363,11 @@ function session(id: string, person: { email: string; name: string; isAdmin: boo
 }
 
 async function upload(user: SessionUser, boardId: string, proposalId: string, file: SeedFile): Promise<string> {
-  const { attachment, uploadUrl, headers } = await presignAttachmentUpload(user, boardId, proposalId, { filename: file.filename, contentType: file.contentType, size: file.body.length });
+  const { attachment, uploadUrl, headers } = await presignAttachmentUpload(user, boardId, proposalId, {
+    filename: file.filename,
+    contentType: file.contentType,
+    size: file.body.length,
+  });
   const response = await fetch(uploadUrl, { method: "PUT", headers, body: new Uint8Array(file.body) });
   if (!response.ok) throw new Error(`uploading ${file.filename} to the object store answered ${response.status}`);
   await confirmAttachment(user, boardId, attachment.id);
@@ -278,7 +401,13 @@ function withBlockIdsOf(v2: DossierSpec, v1: DossierSpec): Record<string, unknow
 function anchorFor(text: string, quote: string) {
   const from = text.indexOf(quote);
   if (from < 0) throw new Error(`the review item quote "${quote}" is not in the dossier text`);
-  return { from, to: from + quote.length, quote, prefix: text.slice(Math.max(0, from - 32), from), suffix: text.slice(from + quote.length, from + quote.length + 32) };
+  return {
+    from,
+    to: from + quote.length,
+    quote,
+    prefix: text.slice(Math.max(0, from - 32), from),
+    suffix: text.slice(from + quote.length, from + quote.length + 32),
+  };
 }
 
 /**
@@ -304,8 +433,21 @@ export async function seedScenario(database: Database, options: { board?: SeedBo
         `an earlier demo seed stopped half-way ("${DECIDED_CALL_TITLE}" exists but was never closed); stop the demo (npm run demo:stop), remove .data/demo and run npm run demo again`,
       );
     }
-    const [open] = await database.select({ id: calls.id }).from(calls).where(and(eq(calls.boardId, boardId), eq(calls.title, OPEN_CALL_TITLE)));
-    return { skipped: true, boardId, calls: { decided: marker.id, open: open?.id ?? "" }, proposals: {}, people, decisions: {}, reviewItems: 0, attachments: 0, blocks: [] };
+    const [open] = await database
+      .select({ id: calls.id })
+      .from(calls)
+      .where(and(eq(calls.boardId, boardId), eq(calls.title, OPEN_CALL_TITLE)));
+    return {
+      skipped: true,
+      boardId,
+      calls: { decided: marker.id, open: open?.id ?? "" },
+      proposals: {},
+      people,
+      decisions: {},
+      reviewItems: 0,
+      attachments: 0,
+      blocks: [],
+    };
   }
 
   // The calls. The decided call is created open: proposals can only be submitted (and
@@ -316,7 +458,8 @@ export async function seedScenario(database: Database, options: { board?: SeedBo
     boardId,
     callInputSchema.parse({
       title: DECIDED_CALL_TITLE,
-      description: "Small missions to low Earth orbit, sun-synchronous orbits and GEO by rideshare, up to 250 kg. Dossiers must show every orbit and Δv figure as an orbit check.",
+      description:
+        "Small missions to low Earth orbit, sun-synchronous orbits and GEO by rideshare, up to 250 kg. Dossiers must show every orbit and Δv figure as an orbit check.",
       opensAt: new Date(now - 45 * DAY).toISOString(),
       closesAt: new Date(now + DAY).toISOString(),
       requiredSections: [...REQUIRED_SECTIONS],
@@ -360,13 +503,21 @@ export async function seedScenario(database: Database, options: { board?: SeedBo
   log(`${specs.length} dossiers, ${attachments} attachments`);
 
   // A declared conflict: Runa advised Lumen Fjord Space on Petrel's thrusters.
-  await declareConflict(people.runa, boardId, { proposalId: proposals.petrel!, reason: "I advised Lumen Fjord Space on the thruster selection for this stage in the last year." });
+  await declareConflict(people.runa, boardId, {
+    proposalId: proposals.petrel!,
+    reason: "I advised Lumen Fjord Space on the thruster selection for this stage in the last year.",
+  });
 
   // Assignments (each e-mails its reviewer through the outbox).
   const assignmentIds = new Map<string, string>();
   for (const a of ASSIGNMENTS) {
     const dueAt = new Date(now + (a.call === "decided" ? 10 : 21) * DAY);
-    const result = await assignReviewers(chair, boardId, { proposalIds: [proposals[a.proposal]!], reviewerIds: a.reviewers.map((r) => people[r].id), dueAt, confirmLikelyConflicts: false });
+    const result = await assignReviewers(chair, boardId, {
+      proposalIds: [proposals[a.proposal]!],
+      reviewerIds: a.reviewers.map((r) => people[r].id),
+      dueAt,
+      confirmLikelyConflicts: false,
+    });
     for (const c of result.created) assignmentIds.set(`${a.proposal}:${c.reviewerId}`, c.assignmentId);
   }
 
@@ -380,7 +531,13 @@ export async function seedScenario(database: Database, options: { board?: SeedBo
     if (!assignmentId) throw new Error(`no assignment of ${r.reviewer} to ${r.proposal}`);
     if (r.state === "not started") continue;
     for (const item of r.items ?? []) {
-      await createReviewItem(reviewer, boardId, { proposalId: proposals[r.proposal]!, severity: item.severity, title: item.title, body: item.body, anchor: anchorFor(texts.get(r.proposal)!, item.quote) });
+      await createReviewItem(reviewer, boardId, {
+        proposalId: proposals[r.proposal]!,
+        severity: item.severity,
+        title: item.title,
+        body: item.body,
+        anchor: anchorFor(texts.get(r.proposal)!, item.quote),
+      });
       reviewItems += 1;
     }
     if (r.checkNote) {
@@ -418,7 +575,15 @@ export async function seedScenario(database: Database, options: { board?: SeedBo
   // Skiff-EP revises: version 2 carries the margin, and the chair asks the same reviewers again.
   const tobias = people.tobias;
   const skiffV2 = skiffEp(2);
-  await writeDraft(tobias, boardId, proposals["skiff-ep"]!, withBlockIdsOf(skiffV2, specs.find((s) => s.key === "skiff-ep")!));
+  await writeDraft(
+    tobias,
+    boardId,
+    proposals["skiff-ep"]!,
+    withBlockIdsOf(
+      skiffV2,
+      specs.find((s) => s.key === "skiff-ep")!,
+    ),
+  );
   const [ledger] = (await skiffV2.files()).filter((f) => f.contentType === "text/csv");
   if (ledger) {
     await upload(tobias, boardId, proposals["skiff-ep"]!, { ...ledger, filename: "skiff-ep-delta-v-ledger-v2.csv" });
@@ -452,6 +617,8 @@ export async function seedScenario(database: Database, options: { board?: SeedBo
     }),
   );
 
-  const blocks = specs.flatMap((spec) => spec.blocks.map((b) => ({ proposal: spec.key, blockId: b.blockId, label: b.label, expected: b.expected, mistake: b.mistake })));
+  const blocks = specs.flatMap((spec) =>
+    spec.blocks.map((b) => ({ proposal: spec.key, blockId: b.blockId, label: b.label, expected: b.expected, mistake: b.mistake })),
+  );
   return { skipped: false, boardId, calls: { decided: decidedCall.id, open: openCall.id }, proposals, people, decisions, reviewItems, attachments, blocks };
 }

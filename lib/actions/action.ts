@@ -3,9 +3,7 @@ import type { z } from "zod";
 import { fromDatabaseInputError, isAppError } from "@/lib/errors";
 import { requireUser, type SessionUser } from "@/lib/auth/session";
 
-export type ActionResult<T> =
-  | { ok: true; data: T }
-  | { ok: false; error: string; fieldErrors?: Record<string, string[]>; status?: number };
+export type ActionResult<T> = { ok: true; data: T } | { ok: false; error: string; fieldErrors?: Record<string, string[]>; status?: number };
 
 function fieldErrorsOf(error: z.ZodError): Record<string, string[]> {
   const out: Record<string, string[]> = {};

@@ -3,15 +3,7 @@ import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
 import { env } from "@/lib/env";
 import { recordAudit } from "@/lib/dal/audit";
-import {
-  consumeAccountToken,
-  findUserForSignIn,
-  openSession,
-  recordSignInAttempt,
-  revokeSession,
-  SESSION_DAYS,
-  signInRetryAfter,
-} from "@/lib/dal/sessions";
+import { consumeAccountToken, findUserForSignIn, openSession, recordSignInAttempt, revokeSession, SESSION_DAYS, signInRetryAfter } from "@/lib/dal/sessions";
 import { verifyPassword } from "./passwords";
 
 type HeaderBag = Record<string, string | string[] | undefined> | Headers | undefined;
@@ -46,7 +38,9 @@ export const authOptions: NextAuthOptions = {
       name: "E-mail and password",
       credentials: { email: { label: "E-mail", type: "email" }, password: { label: "Password", type: "password" } },
       async authorize(credentials, req) {
-        const email = String(credentials?.email ?? "").trim().toLowerCase();
+        const email = String(credentials?.email ?? "")
+          .trim()
+          .toLowerCase();
         const password = String(credentials?.password ?? "");
         const ipAddress = clientAddress(req?.headers as HeaderBag);
         if (!email || !password) throw new Error("Enter your e-mail and password.");

@@ -72,8 +72,7 @@ const rules: Record<Permission, Rule> = {
   "members.manage": isChair,
   "call.manage": isChair,
   "proposal.create": (_a, f) => f.role === "proposer",
-  "proposal.view": (_a, f) =>
-    f.role === "chair" || f.isAuthor === true || (f.role === "reviewer" && f.isAssigned === true && f.isConflicted !== true),
+  "proposal.view": (_a, f) => f.role === "chair" || f.isAuthor === true || (f.role === "reviewer" && f.isAssigned === true && f.isConflicted !== true),
   "proposal.edit": (_a, f) => f.isAuthor === true,
   "review.assign": isChair,
   "review.view-all": isChair,

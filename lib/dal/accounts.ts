@@ -12,7 +12,13 @@ import { env } from "@/lib/env";
 import { conflict, notFound, unauthenticated, unprocessable } from "@/lib/errors";
 import { enqueueMail } from "@/lib/mail/outbox";
 import { renderMail } from "@/lib/mail/templates/layout";
-import type { changePasswordSchema, passwordResetRequestSchema, passwordResetSchema, registerProposerSchema, signInLinkRequestSchema } from "@/lib/validation/accounts";
+import type {
+  changePasswordSchema,
+  passwordResetRequestSchema,
+  passwordResetSchema,
+  registerProposerSchema,
+  signInLinkRequestSchema,
+} from "@/lib/validation/accounts";
 import type { z } from "zod";
 
 // Account functions act on the caller's own account only: the session user IS the
@@ -44,7 +50,14 @@ export async function getMe(user: SessionUser): Promise<Me> {
     db()
       .select({ n: sql<number>`count(*)::int` })
       .from(userSessions)
-      .where(and(eq(userSessions.userId, user.id), isNull(userSessions.revokedAt), gt(userSessions.expiresAt, new Date()), sql`${userSessions.id} <> ${user.sessionId}`)),
+      .where(
+        and(
+          eq(userSessions.userId, user.id),
+          isNull(userSessions.revokedAt),
+          gt(userSessions.expiresAt, new Date()),
+          sql`${userSessions.id} <> ${user.sessionId}`,
+        ),
+      ),
   ]);
   return { ...profile, boards: memberships, otherActiveSessions: sessions?.n ?? 0 };
 }
@@ -58,7 +71,10 @@ export async function changePassword(
   input: z.infer<typeof changePasswordSchema>,
   meta: { ipAddress?: string | null } = {},
 ): Promise<{ ok: true; revokedSessions: number }> {
-  const [row] = await db().select({ passwordHash: users.passwordHash }).from(users).where(and(eq(users.id, user.id), eq(users.status, "active")));
+  const [row] = await db()
+    .select({ passwordHash: users.passwordHash })
+    .from(users)
+    .where(and(eq(users.id, user.id), eq(users.status, "active")));
   if (!row) throw unauthenticated();
   if (!(await verifyPassword(row.passwordHash, input.currentPassword))) {
     await recordAudit({ action: "password.change-refused", actorId: user.id, actorEmail: user.email, ipAddress: meta.ipAddress });
@@ -72,7 +88,17 @@ export async function changePassword(
       .set({ revokedAt: new Date() })
       .where(and(eq(userSessions.userId, user.id), isNull(userSessions.revokedAt), sql`${userSessions.id} <> ${user.sessionId}`))
       .returning({ id: userSessions.id });
-    await recordAudit({ action: "password.changed", actorId: user.id, actorEmail: user.email, target: `user:${user.id}`, details: { revokedSessions: revoked.length }, ipAddress: meta.ipAddress }, tx);
+    await recordAudit(
+      {
+        action: "password.changed",
+        actorId: user.id,
+        actorEmail: user.email,
+        target: `user:${user.id}`,
+        details: { revokedSessions: revoked.length },
+        ipAddress: meta.ipAddress,
+      },
+      tx,
+    );
     return revoked.length;
   });
   return { ok: true, revokedSessions };
@@ -81,7 +107,14 @@ export async function changePassword(
 /** Signs the caller out of every other browser; this one stays signed in. */
 export async function signOutOtherSessions(user: SessionUser, meta: { ipAddress?: string | null } = {}): Promise<{ revoked: number }> {
   const revoked = await revokeOtherSessions(user.id, user.sessionId);
-  await recordAudit({ action: "sessions.revoked-others", actorId: user.id, actorEmail: user.email, target: `user:${user.id}`, details: { revoked }, ipAddress: meta.ipAddress });
+  await recordAudit({
+    action: "sessions.revoked-others",
+    actorId: user.id,
+    actorEmail: user.email,
+    target: `user:${user.id}`,
+    details: { revoked },
+    ipAddress: meta.ipAddress,
+  });
   return { revoked };
 }
 
@@ -90,8 +123,7 @@ export const SIGN_IN_LINKS_PER_ADDRESS = 3;
 export const SIGN_IN_LINKS_PER_CLIENT = 20;
 const LINK_WINDOW_SECONDS = 15 * 60;
 
-export const SIGN_IN_LINK_SENT =
-  "If that address belongs to an active VisViva account, a sign-in link is on its way. It works once, for 15 minutes.";
+export const SIGN_IN_LINK_SENT = "If that address belongs to an active VisViva account, a sign-in link is on its way. It works once, for 15 minutes.";
 
 export function signInLinkUrl(token: string): string {
   return `${env().APP_URL.replace(/\/$/, "")}/sign-in/link?token=${encodeURIComponent(token)}`;
@@ -102,10 +134,23 @@ export function signInLinkUrl(token: string): string {
  * the same either way, so the form does not reveal who has an account; requests are
  * limited per address and per client address.
  */
-export async function requestSignInLink(input: z.infer<typeof signInLinkRequestSchema>, meta: { ipAddress?: string | null } = {}): Promise<{ message: string }> {
+export async function requestSignInLink(
+  input: z.infer<typeof signInLinkRequestSchema>,
+  meta: { ipAddress?: string | null } = {},
+): Promise<{ message: string }> {
   const ipAddress = meta.ipAddress ?? "local";
-  await consumeRateLimit(`sign-in-link:client:${ipAddress}`, SIGN_IN_LINKS_PER_CLIENT, LINK_WINDOW_SECONDS, "Too many sign-in links were asked for from this network.");
-  await consumeRateLimit(`sign-in-link:address:${input.email}`, SIGN_IN_LINKS_PER_ADDRESS, LINK_WINDOW_SECONDS, "Too many sign-in links were asked for this address.");
+  await consumeRateLimit(
+    `sign-in-link:client:${ipAddress}`,
+    SIGN_IN_LINKS_PER_CLIENT,
+    LINK_WINDOW_SECONDS,
+    "Too many sign-in links were asked for from this network.",
+  );
+  await consumeRateLimit(
+    `sign-in-link:address:${input.email}`,
+    SIGN_IN_LINKS_PER_ADDRESS,
+    LINK_WINDOW_SECONDS,
+    "Too many sign-in links were asked for this address.",
+  );
   const [account] = await db()
     .select({ id: users.id, email: users.email, name: users.name })
     .from(users)
@@ -126,7 +171,8 @@ export async function requestSignInLink(input: z.infer<typeof signInLinkRequestS
       heading: "Sign in to VisViva",
       paragraphs: [`Hello ${account.name}, use the button below to sign in. The link works once and expires in ${SIGN_IN_LINK_MINUTES} minutes.`],
       action: { label: "Sign in", url: signInLinkUrl(token) },
-      footnote: "You receive this because someone asked for a sign-in link for this address. If it was not you, ignore this message; your account stays as it is.",
+      footnote:
+        "You receive this because someone asked for a sign-in link for this address. If it was not you, ignore this message; your account stays as it is.",
     });
     await enqueueMail({ kind: "sign-in-link", dedupeKey: `sign-in-link:${row!.id}`, to: [account.email], ...mail }, tx);
     await recordAudit({ action: "sign-in-link.requested", actorId: account.id, actorEmail: account.email, ipAddress, details: { sent: true } }, tx);
@@ -147,10 +193,23 @@ export function passwordResetUrl(token: string): string {
  * Mails a single-use link to choose a new password, under the same rules as sign-in links:
  * the same answer whether or not the address has an account, limited per address and client.
  */
-export async function requestPasswordReset(input: z.infer<typeof passwordResetRequestSchema>, meta: { ipAddress?: string | null } = {}): Promise<{ message: string }> {
+export async function requestPasswordReset(
+  input: z.infer<typeof passwordResetRequestSchema>,
+  meta: { ipAddress?: string | null } = {},
+): Promise<{ message: string }> {
   const ipAddress = meta.ipAddress ?? "local";
-  await consumeRateLimit(`password-reset:client:${ipAddress}`, SIGN_IN_LINKS_PER_CLIENT, LINK_WINDOW_SECONDS, "Too many password resets were asked for from this network.");
-  await consumeRateLimit(`password-reset:address:${input.email}`, SIGN_IN_LINKS_PER_ADDRESS, LINK_WINDOW_SECONDS, "Too many password resets were asked for this address.");
+  await consumeRateLimit(
+    `password-reset:client:${ipAddress}`,
+    SIGN_IN_LINKS_PER_CLIENT,
+    LINK_WINDOW_SECONDS,
+    "Too many password resets were asked for from this network.",
+  );
+  await consumeRateLimit(
+    `password-reset:address:${input.email}`,
+    SIGN_IN_LINKS_PER_ADDRESS,
+    LINK_WINDOW_SECONDS,
+    "Too many password resets were asked for this address.",
+  );
   const [account] = await db()
     .select({ id: users.id, email: users.email, name: users.name })
     .from(users)
@@ -174,7 +233,8 @@ export async function requestPasswordReset(input: z.infer<typeof passwordResetRe
         "Choosing a new password signs you out of every browser.",
       ],
       action: { label: "Choose a new password", url: passwordResetUrl(token) },
-      footnote: "You receive this because someone asked to reset the password of this address. If it was not you, ignore this message; your password stays as it is.",
+      footnote:
+        "You receive this because someone asked to reset the password of this address. If it was not you, ignore this message; your password stays as it is.",
     });
     await enqueueMail({ kind: "password-reset", dedupeKey: `password-reset:${row!.id}`, to: [account.email], ...mail }, tx);
     await recordAudit({ action: "password-reset.requested", actorId: account.id, actorEmail: account.email, ipAddress, details: { sent: true } }, tx);
@@ -200,7 +260,17 @@ export async function resetPassword(input: z.infer<typeof passwordResetSchema>, 
       .set({ revokedAt: new Date() })
       .where(and(eq(userSessions.userId, account.id), isNull(userSessions.revokedAt)))
       .returning({ id: userSessions.id });
-    await recordAudit({ action: "password.reset", actorId: account.id, actorEmail: account.email, target: `user:${account.id}`, details: { revokedSessions: revoked.length }, ipAddress: meta.ipAddress }, tx);
+    await recordAudit(
+      {
+        action: "password.reset",
+        actorId: account.id,
+        actorEmail: account.email,
+        target: `user:${account.id}`,
+        details: { revokedSessions: revoked.length },
+        ipAddress: meta.ipAddress,
+      },
+      tx,
+    );
     return { email: account.email };
   });
 }
@@ -212,7 +282,10 @@ export const REGISTRATIONS_PER_CLIENT = 10;
  * address that already has an account is told to sign in (and ask the chair), not given a
  * second account.
  */
-export async function registerProposer(input: z.infer<typeof registerProposerSchema>, meta: { ipAddress?: string | null } = {}): Promise<{ email: string; boardId: string }> {
+export async function registerProposer(
+  input: z.infer<typeof registerProposerSchema>,
+  meta: { ipAddress?: string | null } = {},
+): Promise<{ email: string; boardId: string }> {
   const board = await boardOpenForRegistration(input.board);
   if (!board) throw notFound("That board, or its open registration,");
   await consumeRateLimit(`register:client:${meta.ipAddress ?? "local"}`, REGISTRATIONS_PER_CLIENT, 60 * 60, "Too many registrations from this network.");
@@ -231,7 +304,15 @@ export async function registerProposer(input: z.infer<typeof registerProposerSch
     }
     await tx.insert(boardMembers).values({ boardId: board.id, userId: account.id, role: "proposer" });
     await recordAudit(
-      { action: "account.registered", actorId: account.id, actorEmail: account.email, boardId: board.id, target: `user:${account.id}`, details: { role: "proposer" }, ipAddress: meta.ipAddress },
+      {
+        action: "account.registered",
+        actorId: account.id,
+        actorEmail: account.email,
+        boardId: board.id,
+        target: `user:${account.id}`,
+        details: { role: "proposer" },
+        ipAddress: meta.ipAddress,
+      },
       tx,
     );
     return { email: account.email, boardId: board.id };

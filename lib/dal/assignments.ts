@@ -150,7 +150,11 @@ export async function getAssignmentBoard(user: SessionUser, boardId: string, cal
     .groupBy(assignments.reviewerId);
   const loadOf = new Map(loads.map((l) => [l.reviewerId, l]));
   const authors = await authorsOf(rows.map((r) => r.id));
-  const matrix = await conflictMatrix(boardId, reviewerRows.map((r) => r.id), rows.map((r) => r.id));
+  const matrix = await conflictMatrix(
+    boardId,
+    reviewerRows.map((r) => r.id),
+    rows.map((r) => r.id),
+  );
   return {
     call: { id: call.id, title: call.title, reviewersPerProposal: call.reviewersPerProposal, hasRubric: call.rubricTemplateId !== null },
     proposals: rows.map((r) => ({
@@ -186,12 +190,20 @@ export interface AssignResult {
  */
 export async function assignReviewers(user: SessionUser, boardId: string, input: AssignInput): Promise<AssignResult> {
   await requireAssign(user, boardId);
-  if (input.dueAt.getTime() <= Date.now()) throw unprocessable("The due date must be in the future.", { issues: [{ path: "dueAt", message: "must be in the future" }] });
+  if (input.dueAt.getTime() <= Date.now())
+    throw unprocessable("The due date must be in the future.", { issues: [{ path: "dueAt", message: "must be in the future" }] });
   const proposalIds = [...new Set(input.proposalIds)];
   const reviewerIds = [...new Set(input.reviewerIds)];
   return db().transaction(async (tx) => {
     const found = await tx
-      .select({ id: proposals.id, title: proposals.title, status: proposals.status, callId: proposals.callId, versionId: proposalVersions.id, versionNumber: proposalVersions.number })
+      .select({
+        id: proposals.id,
+        title: proposals.title,
+        status: proposals.status,
+        callId: proposals.callId,
+        versionId: proposalVersions.id,
+        versionNumber: proposalVersions.number,
+      })
       .from(proposals)
       .leftJoin(proposalVersions, and(eq(proposalVersions.proposalId, proposals.id), eq(proposalVersions.number, proposals.latestVersion)))
       .where(and(eq(proposals.boardId, boardId), inArray(proposals.id, proposalIds)))
@@ -207,11 +219,18 @@ export async function assignReviewers(user: SessionUser, boardId: string, input:
       .from(boardMembers)
       .innerJoin(users, eq(users.id, boardMembers.userId))
       .where(
-        and(eq(boardMembers.boardId, boardId), inArray(boardMembers.userId, reviewerIds), eq(boardMembers.role, "reviewer"), eq(boardMembers.status, "active"), eq(users.status, "active")),
+        and(
+          eq(boardMembers.boardId, boardId),
+          inArray(boardMembers.userId, reviewerIds),
+          eq(boardMembers.role, "reviewer"),
+          eq(boardMembers.status, "active"),
+          eq(users.status, "active"),
+        ),
       );
     people.sort((a, b) => reviewerIds.indexOf(a.id) - reviewerIds.indexOf(b.id));
     found.sort((a, b) => proposalIds.indexOf(a.id) - proposalIds.indexOf(b.id));
-    if (people.length !== reviewerIds.length) throw unprocessable("Only active reviewers of this board can be assigned.", { reviewers: reviewerIds.filter((id) => !people.some((p) => p.id === id)) });
+    if (people.length !== reviewerIds.length)
+      throw unprocessable("Only active reviewers of this board can be assigned.", { reviewers: reviewerIds.filter((id) => !people.some((p) => p.id === id)) });
 
     const matrix = await conflictMatrix(boardId, reviewerIds, proposalIds, tx);
     const blocked: { proposalId: string; reviewerId: string; message: string; strength: "conflict" | "likely" }[] = [];
@@ -219,12 +238,31 @@ export async function assignReviewers(user: SessionUser, boardId: string, input:
       for (const r of people) {
         const findings = matrix.get(`${r.id}:${p.id}`) ?? [];
         if (hasHardConflict(findings))
-          blocked.push({ proposalId: p.id, reviewerId: r.id, strength: "conflict", message: `${r.name} has a conflict with "${p.title}": ${findings.filter((f) => f.strength === "conflict").map((f) => f.message).join(" ")}` });
+          blocked.push({
+            proposalId: p.id,
+            reviewerId: r.id,
+            strength: "conflict",
+            message: `${r.name} has a conflict with "${p.title}": ${findings
+              .filter((f) => f.strength === "conflict")
+              .map((f) => f.message)
+              .join(" ")}`,
+          });
         else if (findings.length && !input.confirmLikelyConflicts)
-          blocked.push({ proposalId: p.id, reviewerId: r.id, strength: "likely", message: `${r.name} may have a conflict with "${p.title}": ${findings.map((f) => f.message).join(" ")}` });
+          blocked.push({
+            proposalId: p.id,
+            reviewerId: r.id,
+            strength: "likely",
+            message: `${r.name} may have a conflict with "${p.title}": ${findings.map((f) => f.message).join(" ")}`,
+          });
       }
     if (blocked.some((b) => b.strength === "conflict"))
-      throw conflict(`Conflicted reviewers cannot be assigned. ${blocked.filter((b) => b.strength === "conflict").map((b) => b.message).join(" ")}`, { blocked });
+      throw conflict(
+        `Conflicted reviewers cannot be assigned. ${blocked
+          .filter((b) => b.strength === "conflict")
+          .map((b) => b.message)
+          .join(" ")}`,
+        { blocked },
+      );
     if (blocked.length)
       throw conflict(`Confirm the likely conflicts to assign anyway. ${blocked.map((b) => b.message).join(" ")}`, { blocked, needsConfirmation: true });
 
@@ -265,7 +303,12 @@ export async function assignReviewers(user: SessionUser, boardId: string, input:
         actorEmail: user.email,
         boardId,
         target: proposalIds.join(","),
-        details: { created: result.created.length, reviewerIds, dueAt: input.dueAt.toISOString(), confirmedLikelyConflicts: input.confirmLikelyConflicts && matrix.size > 0 },
+        details: {
+          created: result.created.length,
+          reviewerIds,
+          dueAt: input.dueAt.toISOString(),
+          confirmedLikelyConflicts: input.confirmLikelyConflicts && matrix.size > 0,
+        },
       },
       tx,
     );
@@ -287,7 +330,17 @@ export async function removeAssignment(user: SessionUser, boardId: string, assig
     if (!row) throw notFound("That assignment");
     if (row.reviewStatus === "submitted") throw conflict("This review is already submitted; reopen it instead of removing the assignment.");
     await tx.delete(assignments).where(and(eq(assignments.id, assignmentId), eq(assignments.boardId, boardId)));
-    await recordAudit({ action: "review.unassign", actorId: user.id, actorEmail: user.email, boardId, target: assignmentId, details: { proposalId: row.proposalId, reviewerId: row.reviewerId } }, tx);
+    await recordAudit(
+      {
+        action: "review.unassign",
+        actorId: user.id,
+        actorEmail: user.email,
+        boardId,
+        target: assignmentId,
+        details: { proposalId: row.proposalId, reviewerId: row.reviewerId },
+      },
+      tx,
+    );
     return { ok: true as const };
   });
 }

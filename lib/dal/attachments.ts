@@ -100,9 +100,12 @@ export function checkDeclaredFile(input: PresignUploadInput, maxBytes = uploadMa
   if (!endings) throw unprocessable(`Files of type "${type || "unknown"}" cannot be attached. Attach ${ALLOWED_DESCRIPTION}.`, { field: "contentType" });
   const ext = extensionOf(input.filename);
   if (!endings.includes(ext)) {
-    throw unprocessable(`"${input.filename}" does not end in ${endings.join(", ")} as a ${type} file should. Rename it or attach it as the right type.`, { field: "filename" });
+    throw unprocessable(`"${input.filename}" does not end in ${endings.join(", ")} as a ${type} file should. Rename it or attach it as the right type.`, {
+      field: "filename",
+    });
   }
-  if (input.size > maxBytes) throw unprocessable(`"${input.filename}" is ${formatBytes(input.size)}; attachments are limited to ${formatBytes(maxBytes)}.`, { field: "size", maxBytes });
+  if (input.size > maxBytes)
+    throw unprocessable(`"${input.filename}" is ${formatBytes(input.size)}; attachments are limited to ${formatBytes(maxBytes)}.`, { field: "size", maxBytes });
   return type;
 }
 
@@ -173,7 +176,12 @@ const HEAD_BYTES = 4096;
  * NUL for text). Records size, detected type and SHA-256; otherwise deletes the object and
  * the row and answers 422 saying why.
  */
-export async function confirmAttachment(user: SessionUser, boardId: string, attachmentId: string, options: { maxBytes?: number } = {}): Promise<AttachmentView> {
+export async function confirmAttachment(
+  user: SessionUser,
+  boardId: string,
+  attachmentId: string,
+  options: { maxBytes?: number } = {},
+): Promise<AttachmentView> {
   const row = await loadAttachment(boardId, attachmentId);
   if (!row || row.status === "removed") throw notFound("That attachment");
   await proposalFor(user, boardId, row.proposalId, "proposal.edit");
@@ -184,13 +192,27 @@ export async function confirmAttachment(user: SessionUser, boardId: string, atta
 
   const reject = async (message: string, details?: unknown): Promise<never> => {
     await deleteObject(row.objectKey).catch(() => undefined);
-    await db().delete(attachments).where(and(eq(attachments.id, row.id), eq(attachments.boardId, boardId)));
-    await recordAudit({ action: "attachment.reject", actorId: user.id, actorEmail: user.email, boardId, target: row.id, details: { filename: row.filename, reason: message } });
+    await db()
+      .delete(attachments)
+      .where(and(eq(attachments.id, row.id), eq(attachments.boardId, boardId)));
+    await recordAudit({
+      action: "attachment.reject",
+      actorId: user.id,
+      actorEmail: user.email,
+      boardId,
+      target: row.id,
+      details: { filename: row.filename, reason: message },
+    });
     throw unprocessable(message, details);
   };
 
-  if (stat.size > maxBytes) await reject(`"${row.filename}" is ${formatBytes(stat.size)}; attachments are limited to ${formatBytes(maxBytes)}. It was removed.`, { size: stat.size, maxBytes });
-  if (stat.size !== row.declaredSize) await reject(`"${row.filename}" is ${stat.size} bytes but was declared as ${row.declaredSize}. It was removed; upload it again.`, { size: stat.size });
+  if (stat.size > maxBytes)
+    await reject(`"${row.filename}" is ${formatBytes(stat.size)}; attachments are limited to ${formatBytes(maxBytes)}. It was removed.`, {
+      size: stat.size,
+      maxBytes,
+    });
+  if (stat.size !== row.declaredSize)
+    await reject(`"${row.filename}" is ${stat.size} bytes but was declared as ${row.declaredSize}. It was removed; upload it again.`, { size: stat.size });
 
   const head = await readObjectHead(row.objectKey, Math.min(HEAD_BYTES, stat.size));
   const binary = sniffBinaryType(head);
@@ -201,7 +223,11 @@ export async function confirmAttachment(user: SessionUser, boardId: string, atta
       { declaredType: row.declaredType, detectedType: binary },
     );
   }
-  if (isText && binary) await reject(`"${row.filename}" was declared as text but its content is ${binary}. It was removed.`, { declaredType: row.declaredType, detectedType: binary });
+  if (isText && binary)
+    await reject(`"${row.filename}" was declared as text but its content is ${binary}. It was removed.`, {
+      declaredType: row.declaredType,
+      detectedType: binary,
+    });
 
   // One pass over the whole object: SHA-256, and for text files UTF-8 validity and no NUL.
   const hash = crypto.createHash("sha256");
@@ -244,7 +270,14 @@ export async function confirmAttachment(user: SessionUser, boardId: string, atta
     if (again?.status === "confirmed") return toView(again);
     throw notFound("That attachment");
   }
-  await recordAudit({ action: "attachment.confirm", actorId: user.id, actorEmail: user.email, boardId, target: row.id, details: { filename: row.filename, size: stat.size, sha256 } });
+  await recordAudit({
+    action: "attachment.confirm",
+    actorId: user.id,
+    actorEmail: user.email,
+    boardId,
+    target: row.id,
+    details: { filename: row.filename, size: stat.size, sha256 },
+  });
   return toView(updated, isText ? textKindOf(head.toString("utf8")) : null);
 }
 
@@ -302,10 +335,15 @@ export async function deleteAttachment(user: SessionUser, boardId: string, attac
   const state = await editableState(proposal);
   if (!state.editable) throw conflict(state.reason ?? "This proposal cannot be changed now.");
   if (await referencedByVersion(row)) {
-    await db().update(attachments).set({ status: "removed" }).where(and(eq(attachments.id, row.id), eq(attachments.boardId, boardId)));
+    await db()
+      .update(attachments)
+      .set({ status: "removed" })
+      .where(and(eq(attachments.id, row.id), eq(attachments.boardId, boardId)));
   } else {
     await deleteObject(row.objectKey).catch(() => undefined);
-    await db().delete(attachments).where(and(eq(attachments.id, row.id), eq(attachments.boardId, boardId)));
+    await db()
+      .delete(attachments)
+      .where(and(eq(attachments.id, row.id), eq(attachments.boardId, boardId)));
   }
   await recordAudit({ action: "attachment.remove", actorId: user.id, actorEmail: user.email, boardId, target: row.id, details: { filename: row.filename } });
   return { removed: true };

@@ -56,7 +56,10 @@ export async function listAuditLog(user: SessionUser, query: AuditQuery) {
       .orderBy(query.dir === "asc" ? asc(auditEvents.occurredAt) : desc(auditEvents.occurredAt), asc(auditEvents.id))
       .limit(query.pageSize)
       .offset((query.page - 1) * query.pageSize),
-    db().select({ n: sql<number>`count(*)::int` }).from(auditEvents).where(where),
+    db()
+      .select({ n: sql<number>`count(*)::int` })
+      .from(auditEvents)
+      .where(where),
   ]);
   return { events, total: count?.n ?? 0, page: query.page, pageSize: query.pageSize };
 }

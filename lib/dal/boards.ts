@@ -106,7 +106,15 @@ export async function createBoard(user: SessionUser, input: z.infer<typeof creat
     const row = inserted[0];
     if (!row) throw conflict(`The short name "${slug}" is taken by another board; choose another.`, { field: "slug" });
     await recordAudit(
-      { action: "board.created", actorId: user.id, actorEmail: user.email, boardId: row.id, target: `board:${row.id}`, details: { name: row.name, slug }, ipAddress: meta.ipAddress },
+      {
+        action: "board.created",
+        actorId: user.id,
+        actorEmail: user.email,
+        boardId: row.id,
+        target: `board:${row.id}`,
+        details: { name: row.name, slug },
+        ipAddress: meta.ipAddress,
+      },
       tx,
     );
     return { ...row, myRole: null };
@@ -131,7 +139,15 @@ export async function updateBoard(
         .map(([k, v]) => [k, { from: before[k as keyof BoardView], to: v }]),
     );
     await recordAudit(
-      { action: "board.settings-changed", actorId: user.id, actorEmail: user.email, boardId, target: `board:${boardId}`, details: changed, ipAddress: meta.ipAddress },
+      {
+        action: "board.settings-changed",
+        actorId: user.id,
+        actorEmail: user.email,
+        boardId,
+        target: `board:${boardId}`,
+        details: changed,
+        ipAddress: meta.ipAddress,
+      },
       tx,
     );
     return { ...row, myRole: before.myRole };

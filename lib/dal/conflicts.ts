@@ -41,7 +41,10 @@ export async function authorsOf(proposalIds: string[], tx: Db = db()): Promise<M
 export async function conflictMatrix(boardId: string, reviewerIds: string[], proposalIds: string[], tx: Db = db()): Promise<Map<string, ConflictFinding[]>> {
   const out = new Map<string, ConflictFinding[]>();
   if (reviewerIds.length === 0 || proposalIds.length === 0) return out;
-  const people = await tx.select({ id: users.id, email: users.email, name: users.name, organisation: users.organisation }).from(users).where(inArray(users.id, reviewerIds));
+  const people = await tx
+    .select({ id: users.id, email: users.email, name: users.name, organisation: users.organisation })
+    .from(users)
+    .where(inArray(users.id, reviewerIds));
   const declared = await tx
     .select({ reviewerId: conflicts.reviewerId, proposalId: conflicts.proposalId, organisation: conflicts.organisation, reason: conflicts.reason })
     .from(conflicts)
@@ -170,10 +173,23 @@ export async function declareConflict(user: SessionUser, boardId: string, input:
     }
     const [row] = await tx
       .insert(conflicts)
-      .values({ boardId, reviewerId: user.id, proposalId: input.proposalId ?? null, organisation: input.proposalId ? null : (input.organisation ?? null), reason: input.reason })
+      .values({
+        boardId,
+        reviewerId: user.id,
+        proposalId: input.proposalId ?? null,
+        organisation: input.proposalId ? null : (input.organisation ?? null),
+        reason: input.reason,
+      })
       .returning();
     await recordAudit(
-      { action: "conflict.declare", actorId: user.id, actorEmail: user.email, boardId, target: row!.id, details: { proposalId: row!.proposalId, organisation: row!.organisation } },
+      {
+        action: "conflict.declare",
+        actorId: user.id,
+        actorEmail: user.email,
+        boardId,
+        target: row!.id,
+        details: { proposalId: row!.proposalId, organisation: row!.organisation },
+      },
       tx,
     );
     return { ...toView(row!, user.name), proposalTitle };

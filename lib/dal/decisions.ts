@@ -120,7 +120,15 @@ async function loadContext(boardId: string, proposalId: string, tx: Db): Promise
       : [];
   return {
     board: { id: boardId, name: row.boardName, letterTemplate: row.letterTemplate ?? null },
-    proposal: { id: proposalId, title: row.title, missionType: row.missionType, status: row.status, latestVersion: row.latestVersion, ownerId: row.ownerId, ownerName: row.ownerName },
+    proposal: {
+      id: proposalId,
+      title: row.title,
+      missionType: row.missionType,
+      status: row.status,
+      latestVersion: row.latestVersion,
+      ownerId: row.ownerId,
+      ownerName: row.ownerName,
+    },
     call: { id: row.callId, title: row.callTitle, reviewersPerProposal: row.reviewersPerProposal },
     version: version ?? null,
   };
@@ -165,7 +173,14 @@ export interface DecisionWorkspace {
   proposal: { id: string; title: string; missionType: string; status: string; ownerName: string };
   call: { id: string; title: string; reviewersRequired: number };
   version: { id: string; number: number; submittedAt: string } | null;
-  aggregate: { weightedMean: number | null; spread: number | null; count: number; assigned: number; totals: number[]; scale: { min: number; max: number } | null };
+  aggregate: {
+    weightedMean: number | null;
+    spread: number | null;
+    count: number;
+    assigned: number;
+    totals: number[];
+    scale: { min: number; max: number } | null;
+  };
   reviews: WorkspaceReview[];
   reviewItems: WorkspaceItem[];
   checks: WorkspaceCheck[];
@@ -206,7 +221,12 @@ async function decisionViews(boardId: string, proposalId: string, withMail: bool
     const found = await tx
       .select({ dedupeKey: outboxMessages.dedupeKey, status: outboxMessages.status, attempts: outboxMessages.attempts, lastError: outboxMessages.lastError })
       .from(outboxMessages)
-      .where(inArray(outboxMessages.dedupeKey, rows.map((r) => `decision:${r.id}`)));
+      .where(
+        inArray(
+          outboxMessages.dedupeKey,
+          rows.map((r) => `decision:${r.id}`),
+        ),
+      );
     for (const m of found) mail.set(m.dedupeKey, { status: m.status, attempts: m.attempts, lastError: m.lastError });
   }
   return rows.map(({ pdfKey, decidedAt, ...r }) => ({
@@ -268,7 +288,14 @@ export async function getDecisionWorkspace(user: SessionUser, boardId: string, p
     }));
     items = (
       await tx
-        .select({ id: reviewItems.id, severity: reviewItems.severity, title: reviewItems.title, body: reviewItems.body, status: reviewItems.status, authorName: users.name })
+        .select({
+          id: reviewItems.id,
+          severity: reviewItems.severity,
+          title: reviewItems.title,
+          body: reviewItems.body,
+          status: reviewItems.status,
+          authorName: users.name,
+        })
         .from(reviewItems)
         .innerJoin(users, eq(users.id, reviewItems.authorId))
         .where(and(eq(reviewItems.boardId, boardId), eq(reviewItems.versionId, version.id)))
@@ -291,7 +318,13 @@ export async function getDecisionWorkspace(user: SessionUser, boardId: string, p
 
   return {
     board: { id: boardId, name: ctx.board.name },
-    proposal: { id: proposalId, title: ctx.proposal.title, missionType: ctx.proposal.missionType, status: ctx.proposal.status, ownerName: ctx.proposal.ownerName },
+    proposal: {
+      id: proposalId,
+      title: ctx.proposal.title,
+      missionType: ctx.proposal.missionType,
+      status: ctx.proposal.status,
+      ownerName: ctx.proposal.ownerName,
+    },
     call: { id: ctx.call.id, title: ctx.call.title, reviewersRequired: ctx.call.reviewersPerProposal },
     version: version ? { id: version.id, number: version.number, submittedAt: version.submittedAt.toISOString() } : null,
     aggregate,
@@ -321,7 +354,8 @@ interface ComposedLetter {
 
 function checkLetter(letter: unknown): LetterBlock[] {
   const blocks = letterBlocks(letter);
-  if (letterIsEmpty(blocks)) throw unprocessable("The letter is empty; write the letter (or start from the board's template).", { issues: [{ path: "letter", message: "is empty" }] });
+  if (letterIsEmpty(blocks))
+    throw unprocessable("The letter is empty; write the letter (or start from the board's template).", { issues: [{ path: "letter", message: "is empty" }] });
   const unknown = unknownMergeFields(blocks);
   if (unknown.length) {
     throw unprocessable(
@@ -350,7 +384,9 @@ async function composeLetter(
     : [];
   if (selected.length !== selectedIds.length) {
     const missing = selectedIds.filter((id) => !selected.some((s) => s.id === id));
-    throw unprocessable("Some selected review items do not belong to the version under decision.", { issues: missing.map((id) => ({ path: "selectedReviewItemIds", message: `unknown review item ${id}` })) });
+    throw unprocessable("Some selected review items do not belong to the version under decision.", {
+      issues: missing.map((id) => ({ path: "selectedReviewItemIds", message: `unknown review item ${id}` })),
+    });
   }
   const agg = await reviewAggregate(ctx.board.id, ctx.proposal.id, ctx.version.id, tx);
   const [openItems] = await tx
@@ -434,7 +470,8 @@ export async function createDecision(user: SessionUser, boardId: string, proposa
   if (!version) throw conflict("Nothing has been submitted yet, so there is nothing to decide.");
   const [existing] = await db().select({ id: decisions.id }).from(decisions).where(eq(decisions.versionId, version.id));
   if (existing) throw conflict(`Version ${version.number} has already been decided; a decision cannot be issued twice.`, { decisionId: existing.id });
-  if (!["submitted", "in_review"].includes(ctx.proposal.status)) throw conflict(`The proposal is ${ctx.proposal.status.replace("_", " ")}; only submitted proposals can be decided.`);
+  if (!["submitted", "in_review"].includes(ctx.proposal.status))
+    throw conflict(`The proposal is ${ctx.proposal.status.replace("_", " ")}; only submitted proposals can be decided.`);
 
   const submitted = await submittedReviewCount(version.id, db());
   const required = ctx.call.reviewersPerProposal;
@@ -459,7 +496,14 @@ export async function createDecision(user: SessionUser, boardId: string, proposa
   const decidedAt = new Date();
   const letter = await composeLetter(user, { ...ctx, version }, input, decidedAt, db());
   const title = version.title || ctx.proposal.title;
-  const pdf = await renderLetterPdf({ boardName: ctx.board.name, proposalTitle: title, versionNumber: version.number, outcomeLabel: OUTCOME_LABELS[input.outcome], decidedAt, blocks: letter.blocks });
+  const pdf = await renderLetterPdf({
+    boardName: ctx.board.name,
+    proposalTitle: title,
+    versionNumber: version.number,
+    outcomeLabel: OUTCOME_LABELS[input.outcome],
+    decidedAt,
+    blocks: letter.blocks,
+  });
   const pdfKey = letterObjectKey(boardId, proposalId, decisionId);
   await writeObject(pdfKey, pdf, "application/pdf");
 
@@ -564,7 +608,13 @@ async function authorEmails(proposalId: string, boardId: string, tx: Db): Promis
 async function loadDecisionFor(user: SessionUser, boardId: string, decisionId: string) {
   if (!isUuid(boardId) || !isUuid(decisionId)) throw notFound("That decision");
   const [row] = await db()
-    .select({ id: decisions.id, proposalId: decisions.proposalId, pdfKey: decisions.pdfKey, title: proposalVersions.title, versionNumber: proposalVersions.number })
+    .select({
+      id: decisions.id,
+      proposalId: decisions.proposalId,
+      pdfKey: decisions.pdfKey,
+      title: proposalVersions.title,
+      versionNumber: proposalVersions.number,
+    })
     .from(decisions)
     .innerJoin(proposalVersions, eq(proposalVersions.id, decisions.versionId))
     .where(and(eq(decisions.id, decisionId), eq(decisions.boardId, boardId)));
@@ -594,7 +644,11 @@ export async function listProposalDecisions(user: SessionUser, boardId: string, 
 }
 
 /** A short-lived download link for the letter PDF. */
-export async function decisionLetterUrl(user: SessionUser, boardId: string, decisionId: string): Promise<{ url: string; filename: string; expiresInSeconds: number }> {
+export async function decisionLetterUrl(
+  user: SessionUser,
+  boardId: string,
+  decisionId: string,
+): Promise<{ url: string; filename: string; expiresInSeconds: number }> {
   const { row } = await loadDecisionFor(user, boardId, decisionId);
   if (!row.pdfKey) throw notFound("The letter PDF of that decision");
   const filename = letterFilename(row.title, row.versionNumber);
@@ -605,17 +659,32 @@ export async function decisionLetterUrl(user: SessionUser, boardId: string, deci
 // ---------------------------------------------------------------------------------------
 // The board's letter template
 
-export async function getLetterTemplate(user: SessionUser, boardId: string): Promise<{ template: Record<string, unknown>; isDefault: boolean; mergeFields: readonly MergeFieldInfo[]; boardName: string }> {
+export async function getLetterTemplate(
+  user: SessionUser,
+  boardId: string,
+): Promise<{ template: Record<string, unknown>; isDefault: boolean; mergeFields: readonly MergeFieldInfo[]; boardName: string }> {
   const board = await boardForManage(user, boardId);
-  return { template: board.letterTemplate ?? DEFAULT_LETTER_TEMPLATE, isDefault: board.letterTemplate === null, mergeFields: MERGE_FIELDS, boardName: board.name };
+  return {
+    template: board.letterTemplate ?? DEFAULT_LETTER_TEMPLATE,
+    isDefault: board.letterTemplate === null,
+    mergeFields: MERGE_FIELDS,
+    boardName: board.name,
+  };
 }
 
-export async function saveLetterTemplate(user: SessionUser, boardId: string, template: Record<string, unknown> | null): Promise<{ saved: true; isDefault: boolean }> {
+export async function saveLetterTemplate(
+  user: SessionUser,
+  boardId: string,
+  template: Record<string, unknown> | null,
+): Promise<{ saved: true; isDefault: boolean }> {
   await boardForManage(user, boardId);
   if (template) checkLetter(template);
   await db().transaction(async (tx) => {
     await tx.update(boards).set({ letterTemplate: template }).where(eq(boards.id, boardId));
-    await recordAudit({ action: "board.letter-template", actorId: user.id, actorEmail: user.email, boardId, target: boardId, details: { reset: template === null } }, tx);
+    await recordAudit(
+      { action: "board.letter-template", actorId: user.id, actorEmail: user.email, boardId, target: boardId, details: { reset: template === null } },
+      tx,
+    );
   });
   return { saved: true, isDefault: template === null };
 }
@@ -646,7 +715,13 @@ export interface VersionComparison {
   reviewers: { id: string; name: string; onLaterVersion: boolean; active: boolean }[] | null;
 }
 
-export async function compareVersions(user: SessionUser, boardId: string, proposalId: string, fromNumber: number, toNumber: number): Promise<VersionComparison> {
+export async function compareVersions(
+  user: SessionUser,
+  boardId: string,
+  proposalId: string,
+  fromNumber: number,
+  toNumber: number,
+): Promise<VersionComparison> {
   const tx = db();
   const access = await proposalAccess(user, boardId, proposalId, tx);
   authorize(user, "proposal.view", access.facts, "That proposal");
@@ -660,7 +735,15 @@ export async function compareVersions(user: SessionUser, boardId: string, propos
   if (!from) throw notFound(`Version ${fromNumber} of that proposal`);
   if (!to) throw notFound(`Version ${toNumber} of that proposal`);
   const checks = await tx
-    .select({ versionId: checkResults.versionId, blockId: checkResults.blockId, label: checkResults.label, kind: checkResults.kind, status: checkResults.status, claim: checkResults.claim, result: checkResults.result })
+    .select({
+      versionId: checkResults.versionId,
+      blockId: checkResults.blockId,
+      label: checkResults.label,
+      kind: checkResults.kind,
+      status: checkResults.status,
+      claim: checkResults.claim,
+      result: checkResults.result,
+    })
     .from(checkResults)
     .where(and(eq(checkResults.boardId, boardId), inArray(checkResults.versionId, [from.id, to.id])))
     .orderBy(asc(checkResults.createdAt));
@@ -677,7 +760,14 @@ export async function compareVersions(user: SessionUser, boardId: string, propos
   let reviewers: VersionComparison["reviewers"] = null;
   if (can(user, "review.assign", { role: access.role })) {
     const rows = await tx
-      .select({ id: users.id, name: users.name, versionId: assignments.versionId, memberStatus: boardMembers.status, userStatus: users.status, role: boardMembers.role })
+      .select({
+        id: users.id,
+        name: users.name,
+        versionId: assignments.versionId,
+        memberStatus: boardMembers.status,
+        userStatus: users.status,
+        role: boardMembers.role,
+      })
       .from(assignments)
       .innerJoin(users, eq(users.id, assignments.reviewerId))
       .leftJoin(boardMembers, and(eq(boardMembers.boardId, boardId), eq(boardMembers.userId, assignments.reviewerId)))
@@ -692,7 +782,10 @@ export async function compareVersions(user: SessionUser, boardId: string, propos
     }));
   }
 
-  const [p] = await tx.select({ title: proposals.title, status: proposals.status, latestVersion: proposals.latestVersion }).from(proposals).where(eq(proposals.id, proposalId));
+  const [p] = await tx
+    .select({ title: proposals.title, status: proposals.status, latestVersion: proposals.latestVersion })
+    .from(proposals)
+    .where(eq(proposals.id, proposalId));
   return {
     proposal: { id: proposalId, title: p!.title, status: p!.status, latestVersion: p!.latestVersion },
     versions: all.map((v) => ({ number: v.number, submittedAt: v.submittedAt.toISOString() })),
@@ -737,8 +830,14 @@ export async function reassignPreviousReviewers(
     .orderBy(asc(assignments.createdAt));
   const active = rows.filter((r) => r.memberStatus === "active" && r.userStatus === "active" && r.role === "reviewer");
   const skipped = rows.filter((r) => !active.includes(r)).map((r) => ({ id: r.id, name: r.name }));
-  if (!active.length) throw conflict("None of the previous version's reviewers is still an active reviewer on this board; assign reviewers on the call's assignment page.");
+  if (!active.length)
+    throw conflict("None of the previous version's reviewers is still an active reviewer on this board; assign reviewers on the call's assignment page.");
   const dueAt = input.dueAt ?? new Date(Date.now() + REASSIGN_DAYS * 86_400_000);
-  const result = await assignReviewers(user, boardId, { proposalIds: [proposalId], reviewerIds: active.map((r) => r.id), dueAt, confirmLikelyConflicts: input.confirmLikelyConflicts ?? true });
+  const result = await assignReviewers(user, boardId, {
+    proposalIds: [proposalId],
+    reviewerIds: active.map((r) => r.id),
+    dueAt,
+    confirmLikelyConflicts: input.confirmLikelyConflicts ?? true,
+  });
   return { ...result, skipped };
 }

@@ -58,11 +58,7 @@ export interface InvitationPage {
  * The board's invitations, newest first, one page at a time (chairs and admins). Pending
  * ones by default: links that were neither accepted nor withdrawn and have not expired.
  */
-export async function listInvitations(
-  user: SessionUser,
-  boardId: string,
-  query: Partial<InvitationListQuery> = {},
-): Promise<InvitationPage> {
+export async function listInvitations(user: SessionUser, boardId: string, query: Partial<InvitationListQuery> = {}): Promise<InvitationPage> {
   await requireMembersPermission(user, boardId, "members.view");
   const { show = "pending", page = 1, pageSize = 25 } = query;
   const pendingWhere = and(isNull(invitations.acceptedAt), isNull(invitations.revokedAt), gt(invitations.expiresAt, sql`now()`));
@@ -125,15 +121,25 @@ export async function createInvitation(
       .from(boardMembers)
       .innerJoin(users, eq(users.id, boardMembers.userId))
       .where(and(eq(boardMembers.boardId, boardId), sql`lower(${users.email}) = ${input.email}`));
-    if (existing?.status === "active") throw conflict(`${input.email} is already an active member of this board; change their role in the members table instead.`);
+    if (existing?.status === "active")
+      throw conflict(`${input.email} is already an active member of this board; change their role in the members table instead.`);
     await tx
       .update(invitations)
       .set({ revokedAt: new Date() })
-      .where(and(eq(invitations.boardId, boardId), sql`lower(${invitations.email}) = ${input.email}`, isNull(invitations.acceptedAt), isNull(invitations.revokedAt)));
+      .where(
+        and(eq(invitations.boardId, boardId), sql`lower(${invitations.email}) = ${input.email}`, isNull(invitations.acceptedAt), isNull(invitations.revokedAt)),
+      );
     const [row] = await tx
       .insert(invitations)
       .values({ boardId, email: input.email, name: input.name ?? null, role: input.role, tokenHash, invitedBy: user.id, expiresAt })
-      .returning({ id: invitations.id, email: invitations.email, name: invitations.name, role: invitations.role, expiresAt: invitations.expiresAt, createdAt: invitations.createdAt });
+      .returning({
+        id: invitations.id,
+        email: invitations.email,
+        name: invitations.name,
+        role: invitations.role,
+        expiresAt: invitations.expiresAt,
+        createdAt: invitations.createdAt,
+      });
     const mail = await renderMail({
       subject: `Invitation to the ${board.name}`,
       preview: `${user.name} invites you to join as ${roleWords[input.role]}.`,
@@ -147,7 +153,15 @@ export async function createInvitation(
     });
     await enqueueMail({ kind: "invitation", dedupeKey: `invitation:${row!.id}`, to: [input.email], boardId, ...mail }, tx);
     await recordAudit(
-      { action: "invitation.sent", actorId: user.id, actorEmail: user.email, boardId, target: `invitation:${row!.id}`, details: { email: input.email, role: input.role }, ipAddress: meta.ipAddress },
+      {
+        action: "invitation.sent",
+        actorId: user.id,
+        actorEmail: user.email,
+        boardId,
+        target: `invitation:${row!.id}`,
+        details: { email: input.email, role: input.role },
+        ipAddress: meta.ipAddress,
+      },
       tx,
     );
     return { ...row!, status: "pending" as const, invitedBy: user.email, token };
@@ -155,12 +169,23 @@ export async function createInvitation(
 }
 
 /** Withdraws a pending invitation so its link stops working. */
-export async function revokeInvitation(user: SessionUser, boardId: string, invitationId: string, meta: { ipAddress?: string | null } = {}): Promise<{ ok: true }> {
+export async function revokeInvitation(
+  user: SessionUser,
+  boardId: string,
+  invitationId: string,
+  meta: { ipAddress?: string | null } = {},
+): Promise<{ ok: true }> {
   await requireMembersPermission(user, boardId, "members.manage");
   if (!isUuid(invitationId)) throw notFound("That invitation");
   return db().transaction(async (tx) => {
     const [row] = await tx
-      .select({ id: invitations.id, email: invitations.email, acceptedAt: invitations.acceptedAt, revokedAt: invitations.revokedAt, expiresAt: invitations.expiresAt })
+      .select({
+        id: invitations.id,
+        email: invitations.email,
+        acceptedAt: invitations.acceptedAt,
+        revokedAt: invitations.revokedAt,
+        expiresAt: invitations.expiresAt,
+      })
       .from(invitations)
       .where(and(eq(invitations.id, invitationId), eq(invitations.boardId, boardId)))
       .for("update");
@@ -168,9 +193,20 @@ export async function revokeInvitation(user: SessionUser, boardId: string, invit
     const status = statusOf(row);
     if (status === "accepted") throw conflict("That invitation was already accepted; deactivate the member instead.");
     if (status === "revoked") return { ok: true as const };
-    await tx.update(invitations).set({ revokedAt: new Date() }).where(and(eq(invitations.id, invitationId), eq(invitations.boardId, boardId)));
+    await tx
+      .update(invitations)
+      .set({ revokedAt: new Date() })
+      .where(and(eq(invitations.id, invitationId), eq(invitations.boardId, boardId)));
     await recordAudit(
-      { action: "invitation.revoked", actorId: user.id, actorEmail: user.email, boardId, target: `invitation:${invitationId}`, details: { email: row.email }, ipAddress: meta.ipAddress },
+      {
+        action: "invitation.revoked",
+        actorId: user.id,
+        actorEmail: user.email,
+        boardId,
+        target: `invitation:${invitationId}`,
+        details: { email: row.email },
+        ipAddress: meta.ipAddress,
+      },
       tx,
     );
     return { ok: true as const };
@@ -254,7 +290,8 @@ export async function acceptInvitation(
     if (!account) {
       const name = input.name ?? invitation.name;
       if (!name) throw unprocessable("Enter your name.", { fieldErrors: { name: ["Enter your name."] } });
-      if (!passwordHash) throw unprocessable("Choose a password of at least 12 characters.", { fieldErrors: { password: ["Choose a password of at least 12 characters."] } });
+      if (!passwordHash)
+        throw unprocessable("Choose a password of at least 12 characters.", { fieldErrors: { password: ["Choose a password of at least 12 characters."] } });
       [account] = await tx.insert(users).values({ email: invitation.email, name, passwordHash }).returning({ id: users.id, email: users.email });
     }
     const userId = account!.id;

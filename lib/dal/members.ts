@@ -55,10 +55,15 @@ async function requireBoardPermission(user: SessionUser, boardId: string, permis
 }
 
 /** One page of a board's members, searched, filtered and sorted on the server (chairs and admins). */
-export async function listMembers(user: SessionUser, boardId: string, query: MemberListQuery): Promise<{ members: MemberRow[]; total: number; page: number; pageSize: number }> {
+export async function listMembers(
+  user: SessionUser,
+  boardId: string,
+  query: MemberListQuery,
+): Promise<{ members: MemberRow[]; total: number; page: number; pageSize: number }> {
   await requireBoardPermission(user, boardId, "members.view");
   const conditions: SQL[] = [eq(boardMembers.boardId, boardId)];
-  if (query.q) conditions.push(or(ilike(users.name, likePattern(query.q)), ilike(users.email, likePattern(query.q)), ilike(users.organisation, likePattern(query.q)))!);
+  if (query.q)
+    conditions.push(or(ilike(users.name, likePattern(query.q)), ilike(users.email, likePattern(query.q)), ilike(users.organisation, likePattern(query.q)))!);
   if (query.role) conditions.push(eq(boardMembers.role, query.role));
   if (query.status) conditions.push(eq(boardMembers.status, query.status));
   const where = and(...conditions);
@@ -72,7 +77,11 @@ export async function listMembers(user: SessionUser, boardId: string, query: Mem
       .orderBy(order, asc(boardMembers.id))
       .limit(query.pageSize)
       .offset((query.page - 1) * query.pageSize),
-    db().select({ n: sql<number>`count(*)::int` }).from(boardMembers).innerJoin(users, eq(users.id, boardMembers.userId)).where(where),
+    db()
+      .select({ n: sql<number>`count(*)::int` })
+      .from(boardMembers)
+      .innerJoin(users, eq(users.id, boardMembers.userId))
+      .where(where),
   ]);
   return { members, total: count?.n ?? 0, page: query.page, pageSize: query.pageSize };
 }
@@ -114,14 +123,21 @@ export async function updateMember(
     if (wasActiveChair && !staysActiveChair && activeChairs.length <= 1) {
       throw conflict("This is the board's last active chair. Make another member chair first, then change this one.");
     }
-    const [updated] = await tx.update(boardMembers).set({ role, status }).where(and(eq(boardMembers.id, memberId), eq(boardMembers.boardId, boardId))).returning({ id: boardMembers.id });
+    const [updated] = await tx
+      .update(boardMembers)
+      .set({ role, status })
+      .where(and(eq(boardMembers.id, memberId), eq(boardMembers.boardId, boardId)))
+      .returning({ id: boardMembers.id });
     if (!updated) throw notFound("That member");
     const audit = { actorId: user.id, actorEmail: user.email, boardId, target: `member:${memberId}`, ipAddress: meta.ipAddress };
     if (role !== current.role) {
       await recordAudit({ ...audit, action: "member.role-changed", details: { email: current.email, from: current.role, to: role } }, tx);
     }
     if (status !== current.status) {
-      await recordAudit({ ...audit, action: status === "deactivated" ? "member.deactivated" : "member.reactivated", details: { email: current.email, role } }, tx);
+      await recordAudit(
+        { ...audit, action: status === "deactivated" ? "member.deactivated" : "member.reactivated", details: { email: current.email, role } },
+        tx,
+      );
     }
     const [row] = await tx.select(memberColumns).from(boardMembers).innerJoin(users, eq(users.id, boardMembers.userId)).where(eq(boardMembers.id, memberId));
     return row!;

@@ -85,6 +85,13 @@ export async function requeueOutboxMessage(user: SessionUser, messageId: string)
     .where(and(eq(outboxMessages.id, messageId)));
   if (!row) throw notFound("That message");
   if (!(await requeueMessage(messageId))) throw conflict(`Only failed messages can be sent again; this one is ${row.status}.`, { status: row.status });
-  await recordAudit({ action: "outbox.requeue", actorId: user.id, actorEmail: user.email, boardId: row.boardId, target: messageId, details: { kind: row.kind } });
+  await recordAudit({
+    action: "outbox.requeue",
+    actorId: user.id,
+    actorEmail: user.email,
+    boardId: row.boardId,
+    target: messageId,
+    details: { kind: row.kind },
+  });
   return { id: messageId, status: "queued" };
 }

@@ -145,7 +145,10 @@ export async function editableState(proposal: ProposalRecord, tx: Db = db()): Pr
     case "withdrawn":
       return { editable: false, reason: "This proposal was withdrawn." };
     default:
-      return { editable: false, reason: `Version ${proposal.latestVersion} is with the board for review; you can change the dossier again if the board asks for a revision.` };
+      return {
+        editable: false,
+        reason: `Version ${proposal.latestVersion} is with the board for review; you can change the dossier again if the board asks for a revision.`,
+      };
   }
 }
 
@@ -173,7 +176,11 @@ export interface ProposalRow {
 const escapeLike = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`);
 
 /** Proposals of a board the caller may see: all of them for chairs, their own and co-authored ones for others. */
-export async function listProposals(user: SessionUser, boardId: string, query: ProposalListQuery): Promise<{ rows: ProposalRow[]; total: number; page: number; pageSize: number }> {
+export async function listProposals(
+  user: SessionUser,
+  boardId: string,
+  query: ProposalListQuery,
+): Promise<{ rows: ProposalRow[]; total: number; page: number; pageSize: number }> {
   if (!isUuid(boardId)) throw notFound("That board");
   const role = await boardRole(user.id, boardId);
   authorize(user, "board.view", { role }, "That board");
@@ -272,7 +279,8 @@ export async function createProposal(user: SessionUser, boardId: string, input: 
   authorize(user, "proposal.create", { role }, "That board");
   const call = await loadCall(boardId, input.callId);
   if (!call) throw unprocessable("That call is not one of this board's calls.", { field: "callId" });
-  if (callState(call) === "closed") throw unprocessable(`The call "${call.title}" closed on ${call.closesAt.toISOString().slice(0, 10)}; choose an open call.`, { field: "callId" });
+  if (callState(call) === "closed")
+    throw unprocessable(`The call "${call.title}" closed on ${call.closesAt.toISOString().slice(0, 10)}; choose an open call.`, { field: "callId" });
   return db().transaction(async (tx) => {
     const coauthors = await checkCoauthors(boardId, user.id, input.coauthorIds, tx);
     const [row] = await tx
@@ -280,8 +288,13 @@ export async function createProposal(user: SessionUser, boardId: string, input: 
       .values({ boardId, callId: call.id, ownerId: user.id, title: input.title, missionType: input.missionType })
       .returning(proposalColumns);
     if (coauthors.length > 0) await tx.insert(proposalCoauthors).values(coauthors.map((userId) => ({ proposalId: row!.id, userId })));
-    await tx.insert(proposalDrafts).values({ proposalId: row!.id, document: seedDocument(call.requiredSections) as unknown as Record<string, unknown>, updatedBy: user.id });
-    await recordAudit({ action: "proposal.create", actorId: user.id, actorEmail: user.email, boardId, target: row!.id, details: { title: input.title, callId: call.id } }, tx);
+    await tx
+      .insert(proposalDrafts)
+      .values({ proposalId: row!.id, document: seedDocument(call.requiredSections) as unknown as Record<string, unknown>, updatedBy: user.id });
+    await recordAudit(
+      { action: "proposal.create", actorId: user.id, actorEmail: user.email, boardId, target: row!.id, details: { title: input.title, callId: call.id } },
+      tx,
+    );
     return row!;
   });
 }
@@ -331,7 +344,11 @@ export async function updateProposal(user: SessionUser, boardId: string, proposa
     await assertEditable(proposal, tx);
     const [row] = await tx
       .update(proposals)
-      .set({ ...(input.title !== undefined ? { title: input.title } : {}), ...(input.missionType !== undefined ? { missionType: input.missionType } : {}), updatedAt: new Date() })
+      .set({
+        ...(input.title !== undefined ? { title: input.title } : {}),
+        ...(input.missionType !== undefined ? { missionType: input.missionType } : {}),
+        updatedAt: new Date(),
+      })
       .where(and(eq(proposals.boardId, boardId), eq(proposals.id, proposalId)))
       .returning(proposalColumns);
     if (input.coauthorIds) {
@@ -367,11 +384,23 @@ async function confirmedAttachmentIds(proposalId: string, tx: Db): Promise<Set<s
 export async function getDraft(user: SessionUser, boardId: string, proposalId: string): Promise<DraftView> {
   const { proposal } = await proposalFor(user, boardId, proposalId, "proposal.edit");
   const [row] = await db()
-    .select({ revision: proposalDrafts.revision, basedOnVersion: proposalDrafts.basedOnVersion, document: proposalDrafts.document, updatedAt: proposalDrafts.updatedAt })
+    .select({
+      revision: proposalDrafts.revision,
+      basedOnVersion: proposalDrafts.basedOnVersion,
+      document: proposalDrafts.document,
+      updatedAt: proposalDrafts.updatedAt,
+    })
     .from(proposalDrafts)
     .where(eq(proposalDrafts.proposalId, proposal.id))
     .limit(1);
-  if (!row) return { proposalId, revision: 0, basedOnVersion: 0, document: EMPTY_DOSSIER as unknown as Record<string, unknown>, updatedAt: proposal.createdAt.toISOString() };
+  if (!row)
+    return {
+      proposalId,
+      revision: 0,
+      basedOnVersion: 0,
+      document: EMPTY_DOSSIER as unknown as Record<string, unknown>,
+      updatedAt: proposal.createdAt.toISOString(),
+    };
   return { proposalId, ...row, updatedAt: row.updatedAt.toISOString() };
 }
 
@@ -381,7 +410,8 @@ export async function getDraft(user: SessionUser, boardId: string, proposalId: s
  */
 export async function saveDraft(user: SessionUser, boardId: string, proposalId: string, input: DraftSaveInput): Promise<DraftView> {
   const size = Buffer.byteLength(JSON.stringify(input.document), "utf8");
-  if (size > MAX_DOCUMENT_BYTES) throw unprocessable(`The document is larger than ${MAX_DOCUMENT_BYTES / 1024 / 1024} MB; move large tables or data into attachments.`);
+  if (size > MAX_DOCUMENT_BYTES)
+    throw unprocessable(`The document is larger than ${MAX_DOCUMENT_BYTES / 1024 / 1024} MB; move large tables or data into attachments.`);
   return db().transaction(async (tx) => {
     const { proposal } = await proposalFor(user, boardId, proposalId, "proposal.edit", tx);
     await assertEditable(proposal, tx);
@@ -406,7 +436,13 @@ export async function saveDraft(user: SessionUser, boardId: string, proposalId: 
       );
     }
     await tx.update(proposals).set({ updatedAt: now }).where(eq(proposals.id, proposalId));
-    return { proposalId, ...row, document: checked.doc as unknown as Record<string, unknown>, updatedAt: row.updatedAt.toISOString(), dropped: checked.dropped };
+    return {
+      proposalId,
+      ...row,
+      document: checked.doc as unknown as Record<string, unknown>,
+      updatedAt: row.updatedAt.toISOString(),
+      dropped: checked.dropped,
+    };
   });
 }
 
@@ -442,7 +478,10 @@ export async function submitProposal(user: SessionUser, boardId: string, proposa
       const call = await loadCall(boardId, fresh.callId, tx);
       if (!call) throw notFound("That proposal's call");
       const state = callState(call);
-      if (state === "closed") throw conflict(`The call "${call.title}" closed on ${call.closesAt.toISOString().replace("T", " ").slice(0, 16)} UTC; it no longer accepts submissions. Contact the board's chair.`);
+      if (state === "closed")
+        throw conflict(
+          `The call "${call.title}" closed on ${call.closesAt.toISOString().replace("T", " ").slice(0, 16)} UTC; it no longer accepts submissions. Contact the board's chair.`,
+        );
       if (state === "upcoming") throw conflict(`The call "${call.title}" opens on ${call.opensAt.toISOString().slice(0, 10)}; submit once it is open.`);
 
       const [draft] = await tx
@@ -452,10 +491,19 @@ export async function submitProposal(user: SessionUser, boardId: string, proposa
         .limit(1);
       if (!draft) throw unprocessable("There is no draft to submit yet; write the dossier first.");
       if (input.revision !== undefined && input.revision !== draft.revision) {
-        throw conflict(`The saved draft changed since you loaded it (revision ${draft.revision}, you have ${input.revision}). Reload, check the text, and submit again.`, { currentRevision: draft.revision });
+        throw conflict(
+          `The saved draft changed since you loaded it (revision ${draft.revision}, you have ${input.revision}). Reload, check the text, and submit again.`,
+          { currentRevision: draft.revision },
+        );
       }
       const attachmentRows = await tx
-        .select({ id: attachments.id, filename: attachments.filename, contentType: attachments.detectedType, size: attachments.size, sha256: attachments.sha256 })
+        .select({
+          id: attachments.id,
+          filename: attachments.filename,
+          contentType: attachments.detectedType,
+          size: attachments.size,
+          sha256: attachments.sha256,
+        })
         .from(attachments)
         .where(and(eq(attachments.proposalId, proposalId), eq(attachments.boardId, boardId), eq(attachments.status, "confirmed")))
         .orderBy(asc(attachments.createdAt));
@@ -470,14 +518,20 @@ export async function submitProposal(user: SessionUser, boardId: string, proposa
       }
 
       const number = fresh.latestVersion + 1;
-      const verdicts: Record<string, BlockVerdict> = Object.fromEntries(evaluations.map((e) => [e.block.blockId, { status: e.result.status, checks: e.result.checks, messages: e.result.messages }]));
+      const verdicts: Record<string, BlockVerdict> = Object.fromEntries(
+        evaluations.map((e) => [e.block.blockId, { status: e.result.status, checks: e.result.checks, messages: e.result.messages }]),
+      );
       const html = renderDossierHtml(doc, { verdicts });
       const documentKey = versionObjectKey(boardId, proposalId, number, "document.json");
       const htmlKey = versionObjectKey(boardId, proposalId, number, "document.html");
       written.push(documentKey);
       await writeObject(documentKey, JSON.stringify(doc), "application/json; charset=utf-8");
       written.push(htmlKey);
-      await writeObject(htmlKey, `<!doctype html><meta charset="utf-8"><title>${fresh.title.replace(/[<&>]/g, "")} (version ${number})</title>\n<article class="prose-dossier">\n${html}\n</article>\n`, "text/html; charset=utf-8");
+      await writeObject(
+        htmlKey,
+        `<!doctype html><meta charset="utf-8"><title>${fresh.title.replace(/[<&>]/g, "")} (version ${number})</title>\n<article class="prose-dossier">\n${html}\n</article>\n`,
+        "text/html; charset=utf-8",
+      );
 
       const versionAttachments: VersionAttachment[] = attachmentRows.map((a) => ({
         attachmentId: a.id,
@@ -518,12 +572,20 @@ export async function submitProposal(user: SessionUser, boardId: string, proposa
       await tx.update(proposalDrafts).set({ basedOnVersion: number }).where(eq(proposalDrafts.proposalId, proposalId));
       const counts = { consistent: 0, inconsistent: 0, invalid: 0 };
       for (const e of evaluations) counts[e.result.status] += 1;
-      await recordAudit({ action: "proposal.submit", actorId: user.id, actorEmail: user.email, boardId, target: proposalId, details: { version: number, ...counts } }, tx);
+      await recordAudit(
+        { action: "proposal.submit", actorId: user.id, actorEmail: user.email, boardId, target: proposalId, details: { version: number, ...counts } },
+        tx,
+      );
       // The receipt commits with the version, so every submitted version gets exactly one.
       const authors = await tx
         .select({ email: users.email })
         .from(users)
-        .where(or(eq(users.id, fresh.ownerId), inArray(users.id, tx.select({ id: proposalCoauthors.userId }).from(proposalCoauthors).where(eq(proposalCoauthors.proposalId, proposalId)))));
+        .where(
+          or(
+            eq(users.id, fresh.ownerId),
+            inArray(users.id, tx.select({ id: proposalCoauthors.userId }).from(proposalCoauthors).where(eq(proposalCoauthors.proposalId, proposalId))),
+          ),
+        );
       const [board] = await tx.select({ name: boards.name }).from(boards).where(eq(boards.id, boardId)).limit(1);
       await enqueueSubmissionReceipt(tx, {
         boardId,
@@ -588,7 +650,13 @@ export interface VersionSummary {
 export async function listVersions(user: SessionUser, boardId: string, proposalId: string): Promise<VersionSummary[]> {
   await proposalFor(user, boardId, proposalId, "proposal.view");
   const rows = await db()
-    .select({ id: proposalVersions.id, number: proposalVersions.number, title: proposalVersions.title, submittedAt: proposalVersions.submittedAt, attachments: proposalVersions.attachments })
+    .select({
+      id: proposalVersions.id,
+      number: proposalVersions.number,
+      title: proposalVersions.title,
+      submittedAt: proposalVersions.submittedAt,
+      attachments: proposalVersions.attachments,
+    })
     .from(proposalVersions)
     .where(and(eq(proposalVersions.boardId, boardId), eq(proposalVersions.proposalId, proposalId)))
     .orderBy(desc(proposalVersions.number));
@@ -596,7 +664,15 @@ export async function listVersions(user: SessionUser, boardId: string, proposalI
     ? await db()
         .select({ versionId: checkResults.versionId, status: checkResults.status, n: count() })
         .from(checkResults)
-        .where(and(eq(checkResults.boardId, boardId), inArray(checkResults.versionId, rows.map((r) => r.id))))
+        .where(
+          and(
+            eq(checkResults.boardId, boardId),
+            inArray(
+              checkResults.versionId,
+              rows.map((r) => r.id),
+            ),
+          ),
+        )
         .groupBy(checkResults.versionId, checkResults.status)
     : [];
   return rows.map((r) => {
@@ -645,7 +721,15 @@ async function loadVersion(boardId: string, proposalId: string, n: number, tx: D
 /** The server's results for one version, in document order. */
 export async function versionCheckResults(boardId: string, versionId: string, tx: Db = db()): Promise<CheckResultView[]> {
   const rows = await tx
-    .select({ blockId: checkResults.blockId, label: checkResults.label, kind: checkResults.kind, status: checkResults.status, claim: checkResults.claim, result: checkResults.result, document: proposalVersions.document })
+    .select({
+      blockId: checkResults.blockId,
+      label: checkResults.label,
+      kind: checkResults.kind,
+      status: checkResults.status,
+      claim: checkResults.claim,
+      result: checkResults.result,
+      document: proposalVersions.document,
+    })
     .from(checkResults)
     .innerJoin(proposalVersions, eq(proposalVersions.id, checkResults.versionId))
     .where(and(eq(checkResults.boardId, boardId), eq(checkResults.versionId, versionId)));

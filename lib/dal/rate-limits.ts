@@ -36,12 +36,17 @@ export async function consumeRateLimit(key: string, max: number, windowSeconds: 
   const decision = await takeRateLimit(key, max, windowSeconds);
   if (!decision.ok) {
     const retryAfter = decision.retryAfterSeconds;
-    throw tooManyRequests(`${message} Try again in ${Math.ceil(retryAfter / 60)} minute${retryAfter > 60 ? "s" : ""} (retry after ${retryAfter} s).`, retryAfter);
+    throw tooManyRequests(
+      `${message} Try again in ${Math.ceil(retryAfter / 60)} minute${retryAfter > 60 ? "s" : ""} (retry after ${retryAfter} s).`,
+      retryAfter,
+    );
   }
 }
 
 /** Deletes windows that closed more than a day ago (none of the limits spans longer). */
 export async function pruneRateLimits(): Promise<number> {
-  const deleted = await db().delete(rateLimitBuckets).where(lt(rateLimitBuckets.windowStart, sql`now() - interval '1 day'`));
+  const deleted = await db()
+    .delete(rateLimitBuckets)
+    .where(lt(rateLimitBuckets.windowStart, sql`now() - interval '1 day'`));
   return deleted.rowCount ?? 0;
 }

@@ -61,7 +61,8 @@ async function labeller(access: ProposalAccess, viewer: SessionUser, tx: Db) {
   return {
     async load(ids: string[]) {
       const missing = ids.filter((id) => !names.has(id));
-      if (missing.length) for (const u of await tx.select({ id: users.id, name: users.name }).from(users).where(inArray(users.id, missing))) names.set(u.id, u.name);
+      if (missing.length)
+        for (const u of await tx.select({ id: users.id, name: users.name }).from(users).where(inArray(users.id, missing))) names.set(u.id, u.name);
     },
     label(authorId: string): string {
       const name = names.get(authorId) ?? "Someone";
@@ -130,12 +131,28 @@ export async function listReviewItems(user: SessionUser, boardId: string, propos
   return present(user, access, visible, tx);
 }
 
-async function present(user: SessionUser, access: ProposalAccess, rows: (Omit<typeof reviewItems.$inferSelect, "boardId"> & { versionNumber: number })[], tx: Db): Promise<ReviewItemView[]> {
+async function present(
+  user: SessionUser,
+  access: ProposalAccess,
+  rows: (Omit<typeof reviewItems.$inferSelect, "boardId"> & { versionNumber: number })[],
+  tx: Db,
+): Promise<ReviewItemView[]> {
   const replies = rows.length
     ? await tx
-        .select({ id: reviewItemReplies.id, itemId: reviewItemReplies.reviewItemId, authorId: reviewItemReplies.authorId, body: reviewItemReplies.body, createdAt: reviewItemReplies.createdAt })
+        .select({
+          id: reviewItemReplies.id,
+          itemId: reviewItemReplies.reviewItemId,
+          authorId: reviewItemReplies.authorId,
+          body: reviewItemReplies.body,
+          createdAt: reviewItemReplies.createdAt,
+        })
         .from(reviewItemReplies)
-        .where(inArray(reviewItemReplies.reviewItemId, rows.map((r) => r.id)))
+        .where(
+          inArray(
+            reviewItemReplies.reviewItemId,
+            rows.map((r) => r.id),
+          ),
+        )
         .orderBy(asc(reviewItemReplies.createdAt))
     : [];
   const names = await labeller(access, user, tx);
@@ -191,13 +208,35 @@ export async function createReviewItem(user: SessionUser, boardId: string, input
         issues: [{ path: "anchor", message: "outside the text" }],
       });
     const resolved = resolveAnchor(text, input.anchor);
-    if (!resolved) throw unprocessable(`The selected text "${input.anchor.quote.slice(0, 80)}" was not found in version ${version.number}.`, { issues: [{ path: "anchor.quote", message: "not found in the text" }] });
+    if (!resolved)
+      throw unprocessable(`The selected text "${input.anchor.quote.slice(0, 80)}" was not found in version ${version.number}.`, {
+        issues: [{ path: "anchor.quote", message: "not found in the text" }],
+      });
     const anchor = makeAnchor(text, resolved.from, resolved.to);
     const [row] = await tx
       .insert(reviewItems)
-      .values({ boardId, proposalId: input.proposalId, versionId: version.id, authorId: user.id, severity: input.severity, title: input.title, body: input.body, anchor })
+      .values({
+        boardId,
+        proposalId: input.proposalId,
+        versionId: version.id,
+        authorId: user.id,
+        severity: input.severity,
+        title: input.title,
+        body: input.body,
+        anchor,
+      })
       .returning();
-    await recordAudit({ action: "review-item.create", actorId: user.id, actorEmail: user.email, boardId, target: row!.id, details: { proposalId: input.proposalId, severity: input.severity } }, tx);
+    await recordAudit(
+      {
+        action: "review-item.create",
+        actorId: user.id,
+        actorEmail: user.email,
+        boardId,
+        target: row!.id,
+        details: { proposalId: input.proposalId, severity: input.severity },
+      },
+      tx,
+    );
     return (await present(user, access, [{ ...row!, versionNumber: version.number }], tx))[0]!;
   });
 }
@@ -236,10 +275,16 @@ export async function replyToReviewItem(user: SessionUser, boardId: string, item
 export async function setReviewItemStatus(user: SessionUser, boardId: string, itemId: string, input: { status: "open" | "resolved" }): Promise<ReviewItemView> {
   return db().transaction(async (tx) => {
     const { row, access } = await loadItem(user, boardId, itemId, tx);
-    if (row.authorId !== user.id && !can(user, "review.view-all", { role: access.role })) throw forbidden("Only the item's author or the chair can change its status.");
-    await tx.update(reviewItems).set({ status: input.status }).where(and(eq(reviewItems.id, row.id), eq(reviewItems.boardId, boardId)));
-    await recordAudit({ action: "review-item.status", actorId: user.id, actorEmail: user.email, boardId, target: row.id, details: { status: input.status } }, tx);
+    if (row.authorId !== user.id && !can(user, "review.view-all", { role: access.role }))
+      throw forbidden("Only the item's author or the chair can change its status.");
+    await tx
+      .update(reviewItems)
+      .set({ status: input.status })
+      .where(and(eq(reviewItems.id, row.id), eq(reviewItems.boardId, boardId)));
+    await recordAudit(
+      { action: "review-item.status", actorId: user.id, actorEmail: user.email, boardId, target: row.id, details: { status: input.status } },
+      tx,
+    );
     return (await present(user, access, [{ ...row, status: input.status }], tx))[0]!;
   });
 }
-

@@ -67,7 +67,16 @@ export interface ReviewScreen {
   canReopen: boolean;
 }
 
-const emptyReview: ReviewState = { id: null, status: "not started", scores: {}, summary: "", revision: 0, weightedTotal: null, submittedAt: null, updatedAt: null };
+const emptyReview: ReviewState = {
+  id: null,
+  status: "not started",
+  scores: {},
+  summary: "",
+  revision: 0,
+  weightedTotal: null,
+  submittedAt: null,
+  updatedAt: null,
+};
 
 const reviewColumns = {
   id: reviews.id,
@@ -122,7 +131,12 @@ type LoadedAssignment = NonNullable<Awaited<ReturnType<typeof loadAssignment>>>;
  * Who may read a review: its reviewer (while free of conflicts: a conflicted reviewer gets
  * 404 through proposal.view) and the chair. Everyone else: 404.
  */
-async function accessReview(user: SessionUser, boardId: string, assignmentId: string, tx: Db): Promise<{ assignment: LoadedAssignment; access: ProposalAccess; own: boolean }> {
+async function accessReview(
+  user: SessionUser,
+  boardId: string,
+  assignmentId: string,
+  tx: Db,
+): Promise<{ assignment: LoadedAssignment; access: ProposalAccess; own: boolean }> {
   const assignment = await loadAssignment(boardId, assignmentId, tx);
   if (!assignment) throw notFound("That review");
   const access = await proposalAccess(user, boardId, assignment.proposalId, tx);
@@ -145,15 +159,28 @@ export async function getReviewScreen(user: SessionUser, boardId: string, assign
   const templateId = review?.rubricTemplateId ?? call?.rubricTemplateId ?? null;
   const rubric = templateId ? await loadTemplate(boardId, templateId) : null;
   const checks = await db()
-    .select({ id: checkResults.id, blockId: checkResults.blockId, label: checkResults.label, kind: checkResults.kind, status: checkResults.status, result: checkResults.result })
+    .select({
+      id: checkResults.id,
+      blockId: checkResults.blockId,
+      label: checkResults.label,
+      kind: checkResults.kind,
+      status: checkResults.status,
+      result: checkResults.result,
+    })
     .from(checkResults)
     .where(and(eq(checkResults.versionId, version.id), eq(checkResults.boardId, boardId)));
-  const notes = review ? await db().select({ checkResultId: checkNotes.checkResultId, note: checkNotes.note }).from(checkNotes).where(eq(checkNotes.reviewId, review.id)) : [];
+  const notes = review
+    ? await db().select({ checkResultId: checkNotes.checkResultId, note: checkNotes.note }).from(checkNotes).where(eq(checkNotes.reviewId, review.id))
+    : [];
   const noteOf = new Map(notes.map((n) => [n.checkResultId, n.note]));
   const verdicts: Record<string, BlockVerdict> = {};
   const checkRows: CheckRow[] = checks.map((c) => {
     const result = c.result as Partial<BlockVerdict>;
-    const verdict: BlockVerdict = { status: c.status, checks: Array.isArray(result.checks) ? result.checks : [], messages: Array.isArray(result.messages) ? result.messages : [] };
+    const verdict: BlockVerdict = {
+      status: c.status,
+      checks: Array.isArray(result.checks) ? result.checks : [],
+      messages: Array.isArray(result.messages) ? result.messages : [],
+    };
     verdicts[c.blockId] = verdict;
     return { id: c.id, blockId: c.blockId, label: c.label, kind: c.kind, status: c.status, verdict, note: noteOf.get(c.id) ?? "" };
   });
@@ -169,7 +196,13 @@ export async function getReviewScreen(user: SessionUser, boardId: string, assign
   const state = toState(review);
   return {
     assignment: { id: assignment.id, dueAt: assignment.dueAt.toISOString(), reviewerId: assignment.reviewerId, reviewerName: assignment.reviewerName },
-    proposal: { id: access.proposal.id, title: access.proposal.title, callId: access.proposal.callId, callTitle: call?.title ?? "", proposerName: hideProposer ? null : (owner?.name ?? null) },
+    proposal: {
+      id: access.proposal.id,
+      title: access.proposal.title,
+      callId: access.proposal.callId,
+      callTitle: call?.title ?? "",
+      proposerName: hideProposer ? null : (owner?.name ?? null),
+    },
     version: { id: version.id, number: version.number, submittedAt: version.submittedAt.toISOString(), html, plainText: dossierPlainText(version.document) },
     rubric,
     review: state,
@@ -200,15 +233,22 @@ async function writableReview(user: SessionUser, boardId: string, assignmentId: 
   authorize(user, "review.write", { ...access.facts, isAssigned: own });
   if (!own) throw notFound("That review");
   const [existing] = await tx.select(reviewColumns).from(reviews).where(eq(reviews.assignmentId, assignment.id));
-  if (existing?.status === "submitted") throw conflict("This review is submitted and locked. Ask the chair to reopen it to change it.", { review: toState(existing) });
+  if (existing?.status === "submitted")
+    throw conflict("This review is submitted and locked. Ask the chair to reopen it to change it.", { review: toState(existing) });
   const current = existing?.revision ?? 0;
   if (revision !== current)
-    throw conflict("This review was changed elsewhere since you loaded it (another tab or device). Your text is kept on screen; reload to see the saved version.", {
-      review: toState(existing),
-    });
+    throw conflict(
+      "This review was changed elsewhere since you loaded it (another tab or device). Your text is kept on screen; reload to see the saved version.",
+      {
+        review: toState(existing),
+      },
+    );
   let templateId = existing?.rubricTemplateId;
   if (!templateId) {
-    const [call] = await tx.select({ rubricTemplateId: calls.rubricTemplateId }).from(calls).where(and(eq(calls.id, assignment.callId), eq(calls.boardId, boardId)));
+    const [call] = await tx
+      .select({ rubricTemplateId: calls.rubricTemplateId })
+      .from(calls)
+      .where(and(eq(calls.id, assignment.callId), eq(calls.boardId, boardId)));
     templateId = call?.rubricTemplateId ?? undefined;
     if (!templateId) throw conflict("The chair has not set up the rubric for this call yet, so reviews cannot start.");
   }
@@ -276,7 +316,17 @@ export async function submitReview(user: SessionUser, boardId: string, assignmen
       .set({ status: "submitted", submittedAt: new Date(), weightedTotal: total.value, revision: existing.revision + 1, updatedAt: new Date() })
       .where(eq(reviews.id, existing.id))
       .returning(reviewColumns);
-    await recordAudit({ action: "review.submit", actorId: user.id, actorEmail: user.email, boardId, target: existing.id, details: { assignmentId, weightedTotal: total.value } }, tx);
+    await recordAudit(
+      {
+        action: "review.submit",
+        actorId: user.id,
+        actorEmail: user.email,
+        boardId,
+        target: existing.id,
+        details: { assignmentId, weightedTotal: total.value },
+      },
+      tx,
+    );
     return toState(row);
   });
 }
@@ -299,7 +349,14 @@ export async function reopenReview(user: SessionUser, boardId: string, assignmen
       .where(eq(reviews.id, existing.id))
       .returning(reviewColumns);
     await recordAudit(
-      { action: "review.reopen", actorId: user.id, actorEmail: user.email, boardId, target: existing.id, details: { assignmentId, reviewerId: assignment.reviewerId, reason: input.reason } },
+      {
+        action: "review.reopen",
+        actorId: user.id,
+        actorEmail: user.email,
+        boardId,
+        target: existing.id,
+        details: { assignmentId, reviewerId: assignment.reviewerId, reason: input.reason },
+      },
       tx,
     );
     return toState(row);
@@ -307,7 +364,13 @@ export async function reopenReview(user: SessionUser, boardId: string, assignmen
 }
 
 /** A reviewer's note on the server's verdict for one orbit-check block; an empty note removes it. */
-export async function saveCheckNote(user: SessionUser, boardId: string, assignmentId: string, checkResultId: string, input: { note: string }): Promise<{ checkResultId: string; note: string; review: ReviewState }> {
+export async function saveCheckNote(
+  user: SessionUser,
+  boardId: string,
+  assignmentId: string,
+  checkResultId: string,
+  input: { note: string },
+): Promise<{ checkResultId: string; note: string; review: ReviewState }> {
   return db().transaction(async (tx) => {
     const [current] = isUuid(assignmentId) ? await tx.select({ revision: reviews.revision }).from(reviews).where(eq(reviews.assignmentId, assignmentId)) : [];
     const { assignment, existing, rubric } = await writableReview(user, boardId, assignmentId, current?.revision ?? 0, tx);
@@ -322,7 +385,14 @@ export async function saveCheckNote(user: SessionUser, boardId: string, assignme
       await freezeTemplate(rubric.id, tx);
       [review] = await tx
         .insert(reviews)
-        .values({ assignmentId: assignment.id, boardId, proposalId: assignment.proposalId, versionId: assignment.versionId, reviewerId: user.id, rubricTemplateId: rubric.id })
+        .values({
+          assignmentId: assignment.id,
+          boardId,
+          proposalId: assignment.proposalId,
+          versionId: assignment.versionId,
+          reviewerId: user.id,
+          rubricTemplateId: rubric.id,
+        })
         .returning(reviewColumns);
     }
     if (input.note === "") await tx.delete(checkNotes).where(and(eq(checkNotes.reviewId, review!.id), eq(checkNotes.checkResultId, check.id)));
@@ -471,7 +541,11 @@ export async function reviewAggregate(boardId: string, proposalId: string, versi
   return (await aggregatesForVersions(boardId, [{ proposalId, versionId: version.id, versionNumber: version.number }], tx))[0]!;
 }
 
-async function aggregatesForVersions(boardId: string, versions: { proposalId: string; versionId: string; versionNumber: number }[], tx: Db): Promise<ProposalAggregate[]> {
+async function aggregatesForVersions(
+  boardId: string,
+  versions: { proposalId: string; versionId: string; versionNumber: number }[],
+  tx: Db,
+): Promise<ProposalAggregate[]> {
   const ids = versions.map((v) => v.versionId);
   const rows = ids.length
     ? await tx
@@ -524,7 +598,13 @@ export async function getCallOverview(user: SessionUser, boardId: string, callId
   const call = await loadCall(boardId, callId);
   if (!call) throw notFound("That call");
   const rows = await db()
-    .select({ proposalId: proposals.id, title: proposals.title, status: proposals.status, versionId: proposalVersions.id, versionNumber: proposalVersions.number })
+    .select({
+      proposalId: proposals.id,
+      title: proposals.title,
+      status: proposals.status,
+      versionId: proposalVersions.id,
+      versionNumber: proposalVersions.number,
+    })
     .from(proposals)
     .innerJoin(proposalVersions, and(eq(proposalVersions.proposalId, proposals.id), eq(proposalVersions.number, proposals.latestVersion)))
     .where(and(eq(proposals.boardId, boardId), eq(proposals.callId, callId), inArray(proposals.status, ["submitted", "in_review", "decided"])))
@@ -546,7 +626,8 @@ export async function getCallOverview(user: SessionUser, boardId: string, callId
         .groupBy(checkResults.versionId, checkResults.status)
     : [];
   const template = call.rubricTemplateId ? await loadTemplate(boardId, call.rubricTemplateId) : null;
-  const scale = aggregates.find((a) => a.scale)?.scale ?? (template?.criteria[0] ? { min: template.criteria[0].scaleMin, max: template.criteria[0].scaleMax } : null);
+  const scale =
+    aggregates.find((a) => a.scale)?.scale ?? (template?.criteria[0] ? { min: template.criteria[0].scaleMin, max: template.criteria[0].scaleMax } : null);
   return {
     call: { id: call.id, title: call.title, reviewersPerProposal: call.reviewersPerProposal },
     scale,
@@ -622,7 +703,10 @@ export async function getCallOverviewCsv(user: SessionUser, boardId: string, cal
         .map(csvCell)
         .join(","),
     );
-  const slug = overview.call.title.toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-|-$/g, "") || "call";
+  const slug =
+    overview.call.title
+      .toLowerCase()
+      .replace(/[^a-z0-9]+/g, "-")
+      .replace(/^-|-$/g, "") || "call";
   return { filename: `${slug}-overview.csv`, csv: `${lines.join("\r\n")}\r\n` };
 }
-

@@ -77,7 +77,13 @@ export async function getCallRubric(user: SessionUser, boardId: string, callId: 
   if (!call) throw notFound("That call");
   const rubric = call.rubricTemplateId ? await loadTemplate(boardId, call.rubricTemplateId) : null;
   const history = await db()
-    .select({ id: rubricTemplates.id, version: rubricTemplates.version, name: rubricTemplates.name, frozenAt: rubricTemplates.frozenAt, createdAt: rubricTemplates.createdAt })
+    .select({
+      id: rubricTemplates.id,
+      version: rubricTemplates.version,
+      name: rubricTemplates.name,
+      frozenAt: rubricTemplates.frozenAt,
+      createdAt: rubricTemplates.createdAt,
+    })
     .from(rubricTemplates)
     .where(and(eq(rubricTemplates.callId, callId), eq(rubricTemplates.boardId, boardId)))
     .orderBy(sql`${rubricTemplates.version} desc`);
@@ -93,11 +99,20 @@ export async function getCallRubric(user: SessionUser, boardId: string, callId: 
  * edited in place; once it is frozen, the edit becomes a new template version and the call
  * points at it (reviews already started keep the version they were scored against).
  */
-export async function saveCallRubric(user: SessionUser, boardId: string, callId: string, input: RubricInput): Promise<RubricView & { createdVersion: boolean }> {
+export async function saveCallRubric(
+  user: SessionUser,
+  boardId: string,
+  callId: string,
+  input: RubricInput,
+): Promise<RubricView & { createdVersion: boolean }> {
   if (!isUuid(boardId)) throw notFound("That board");
   const role = await boardRole(user.id, boardId);
   authorize(user, "rubric.manage", { role }, "That board");
-  const criteria: RubricCriterion[] = input.criteria.map((c) => ({ ...c, description: c.description ?? "", commentRequiredBelow: c.commentRequiredBelow ?? null }));
+  const criteria: RubricCriterion[] = input.criteria.map((c) => ({
+    ...c,
+    description: c.description ?? "",
+    commentRequiredBelow: c.commentRequiredBelow ?? null,
+  }));
   const problems = rubricProblems(criteria);
   if (problems.length) throw unprocessable(problems.map((p) => p.message).join(" "), { issues: problems });
   if (!isUuid(callId)) throw notFound("That call");
@@ -128,12 +143,22 @@ export async function saveCallRubric(user: SessionUser, boardId: string, callId:
         .insert(rubricTemplates)
         .values({ boardId, callId, version: (max?.v ?? 0) + 1, name: input.name, criteria })
         .returning(templateColumns);
-      await tx.update(calls).set({ rubricTemplateId: row!.id }).where(and(eq(calls.id, callId), eq(calls.boardId, boardId)));
+      await tx
+        .update(calls)
+        .set({ rubricTemplateId: row!.id })
+        .where(and(eq(calls.id, callId), eq(calls.boardId, boardId)));
       saved = toView(row!);
       createdVersion = true;
     }
     await recordAudit(
-      { action: "rubric.save", actorId: user.id, actorEmail: user.email, boardId, target: saved.id, details: { callId, version: saved.version, createdVersion } },
+      {
+        action: "rubric.save",
+        actorId: user.id,
+        actorEmail: user.email,
+        boardId,
+        target: saved.id,
+        details: { callId, version: saved.version, createdVersion },
+      },
       tx,
     );
     return { ...saved, createdVersion };

@@ -43,9 +43,7 @@ export async function userForSession(sessionId: string): Promise<SessionUser | n
     .select({ id: users.id, email: users.email, name: users.name, isAdmin: users.isAdmin, sessionId: userSessions.id })
     .from(userSessions)
     .innerJoin(users, eq(users.id, userSessions.userId))
-    .where(
-      and(eq(userSessions.id, sessionId), isNull(userSessions.revokedAt), gt(userSessions.expiresAt, new Date()), eq(users.status, "active")),
-    )
+    .where(and(eq(userSessions.id, sessionId), isNull(userSessions.revokedAt), gt(userSessions.expiresAt, new Date()), eq(users.status, "active")))
     .limit(1);
   return row ?? null;
 }
@@ -95,7 +93,11 @@ export async function recordSignInAttempt(email: string, ipAddress: string, succ
 }
 
 /** Uses a single-use account token; returns its e-mail, or null when unknown, used or expired. */
-export async function consumeAccountToken(purpose: "sign-in-link" | "password-reset", token: string, tx: Database | Transaction = db()): Promise<string | null> {
+export async function consumeAccountToken(
+  purpose: "sign-in-link" | "password-reset",
+  token: string,
+  tx: Database | Transaction = db(),
+): Promise<string | null> {
   const [row] = await tx
     .update(accountTokens)
     .set({ usedAt: new Date() })

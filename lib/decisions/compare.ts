@@ -75,7 +75,13 @@ function rowsOf(check: VersionCheck): CheckRow[] {
   for (const row of Array.isArray(check.result.checks) ? (check.result.checks as Record<string, unknown>[]) : []) {
     const quantity = String(row.quantity ?? "");
     if (!quantity) continue;
-    rows.set(quantity, { quantity, unit: String(row.unit ?? ""), claimed: num(row.claimed), computed: num(row.computed), ok: typeof row.ok === "boolean" ? row.ok : null });
+    rows.set(quantity, {
+      quantity,
+      unit: String(row.unit ?? ""),
+      claimed: num(row.claimed),
+      computed: num(row.computed),
+      ok: typeof row.ok === "boolean" ? row.ok : null,
+    });
   }
   // Claimed values the engine did not check (an invalid claim) still belong in the table.
   for (const [quantity, value] of Object.entries(claimed)) {

@@ -15,7 +15,13 @@ describe("letter blocks", () => {
       doc(
         { type: "heading", attrs: { level: 2 }, content: [text("Outcome")] },
         para(text("<b>bold?</b> "), text("yes", [{ type: "bold" }]), text(" see "), text("here", [{ type: "link", attrs: { href: "javascript:alert(1)" } }])),
-        { type: "bulletList", content: [{ type: "listItem", content: [para(text("one"))] }, { type: "listItem", content: [para(text("two"))] }] },
+        {
+          type: "bulletList",
+          content: [
+            { type: "listItem", content: [para(text("one"))] },
+            { type: "listItem", content: [para(text("two"))] },
+          ],
+        },
         { type: "image", attrs: { src: "http://example.org/x.png" } },
         { type: "script", content: [text("nope")] },
       ),
@@ -111,7 +117,12 @@ describe("version comparison", () => {
       ["new", "none", "added"],
       ["disposal", "none", "removed"],
     ]);
-    expect(out[0]!.quantities[0]).toEqual({ quantity: "period", unit: "s", before: { claimed: 6100, computed: 5863.69, ok: false }, after: { claimed: 5864, computed: 5863.69, ok: true } });
+    expect(out[0]!.quantities[0]).toEqual({
+      quantity: "period",
+      unit: "s",
+      before: { claimed: 6100, computed: 5863.69, ok: false },
+      after: { claimed: 5864, computed: 5863.69, ok: true },
+    });
     expect(compareClaims([check("a", "p", "consistent", 1)], [check("a", "p", "consistent", 2)])[0]!.change).toBe("values-changed");
   });
 });

@@ -30,14 +30,30 @@ export const DEFAULT_LETTER_TEMPLATE: Record<string, unknown> = {
     p(
       "The {{board.name}} has closed its review of version {{version.number}} of “{{proposal.title}}”, submitted on {{version.submittedOn}} to {{call.title}}.",
     ),
-    { type: "paragraph", content: [{ type: "text", text: "Outcome: " }, { type: "text", text: "{{decision.outcome}}", marks: [{ type: "bold" }] }, { type: "text", text: "." }] },
+    {
+      type: "paragraph",
+      content: [
+        { type: "text", text: "Outcome: " },
+        { type: "text", text: "{{decision.outcome}}", marks: [{ type: "bold" }] },
+        { type: "text", text: "." },
+      ],
+    },
     p(
       "The panel returned {{reviews.submitted}} reviews; the mean of their weighted totals is {{score.weighted}} (spread {{score.spread}}). The server recomputed {{checks.total}} orbit claims of this version and flagged {{checks.flagged}}.",
     ),
     p("The board asks you to consider these review items:"),
     p("{{reviewItems.selected}}"),
     p("The full reviews and review items are open to you on VisViva. A copy of this letter is attached as a PDF."),
-    { type: "paragraph", content: [{ type: "text", text: "With kind regards," }, { type: "hardBreak" }, { type: "text", text: "{{chair.name}}" }, { type: "hardBreak" }, { type: "text", text: "Chair, {{board.name}}" }] },
+    {
+      type: "paragraph",
+      content: [
+        { type: "text", text: "With kind regards," },
+        { type: "hardBreak" },
+        { type: "text", text: "{{chair.name}}" },
+        { type: "hardBreak" },
+        { type: "text", text: "Chair, {{board.name}}" },
+      ],
+    },
   ],
 };
 

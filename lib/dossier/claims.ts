@@ -66,14 +66,25 @@ function circularOrbitOf(block: OrbitCheckBlock, tolerance?: ToleranceInput): { 
   const shape: DossierClaim = { kind: "orbit", body: block.claim.body, given: {} };
   const g = block.claim.given;
   // The orbit-like kinds all take an orbit shape; evaluate it as an orbit claim.
-  for (const k of ["altitude", "periapsisAltitude", "apoapsisAltitude", "periapsisRadius", "apoapsisRadius", "semiMajorAxis", "eccentricity", "semiLatusRectum", "period"]) {
+  for (const k of [
+    "altitude",
+    "periapsisAltitude",
+    "apoapsisAltitude",
+    "periapsisRadius",
+    "apoapsisRadius",
+    "semiMajorAxis",
+    "eccentricity",
+    "semiLatusRectum",
+    "period",
+  ]) {
     if (g[k] !== undefined) shape.given[k] = g[k];
   }
   const result = evaluateClaim({ ...shape, id: block.blockId }, tolerance);
   const e = result.computed.eccentricity;
   const r = result.computed.periapsisRadius;
   const alt = result.computed.periapsisAltitude;
-  if (typeof e !== "number" || typeof r !== "number" || typeof alt !== "number") return `"${block.label || "the referenced block"}" has no orbit to start from yet`;
+  if (typeof e !== "number" || typeof r !== "number" || typeof alt !== "number")
+    return `"${block.label || "the referenced block"}" has no orbit to start from yet`;
   if (e > CIRCULAR_ECCENTRICITY) return `"${block.label || "the referenced block"}" is not circular (e = ${e.toPrecision(3)}); give the initial orbit directly`;
   return { radius: r, altitude: alt };
 }
@@ -139,7 +150,12 @@ const SEPARATE_BURNS: Record<string, readonly string[]> = {
  * The Δv a maneuver block contributes: when the dossier claims only some of the burns (and
  * not the total), those burns; otherwise the kind's total.
  */
-function maneuverDeltaV(kind: string, quantity: string, claimed: Record<string, unknown> | undefined, computed: Record<string, unknown>): { deltaV: number | null; claimed: number | null } {
+function maneuverDeltaV(
+  kind: string,
+  quantity: string,
+  claimed: Record<string, unknown> | undefined,
+  computed: Record<string, unknown>,
+): { deltaV: number | null; claimed: number | null } {
   const burns = (SEPARATE_BURNS[kind] ?? []).filter((b) => claimed && b in claimed);
   if (burns.length > 0 && !(claimed && quantity in claimed)) {
     const values = burns.map((b) => num(computed[b]));

@@ -1,5 +1,14 @@
 import { describe, expect, it } from "vitest";
-import { deltaVBudget, dossierPlainText, evaluateBlocks, extractOrbitChecks, missingSections, renderDossierHtml, sanitizeDossier, validateDossier } from "./index";
+import {
+  deltaVBudget,
+  dossierPlainText,
+  evaluateBlocks,
+  extractOrbitChecks,
+  missingSections,
+  renderDossierHtml,
+  sanitizeDossier,
+  validateDossier,
+} from "./index";
 
 const BLOCK = "3f1c2b4a-5d6e-4f70-8a9b-0c1d2e3f4a5b";
 const BOARD = "0b8a1f2e-3c4d-4e5f-9a6b-7c8d9e0f1a2b";
@@ -13,10 +22,21 @@ const hostile = {
     { type: "iframe", attrs: { src: "https://example.com" } },
     { type: "paragraph", content: [{ type: "text", text: "</p><script>alert(2)</script>", marks: [{ type: "bold" }, { type: "blink" }] }] },
     { type: "paragraph", content: [{ type: "text", text: "click", marks: [{ type: "link", attrs: { href: "javascript:alert(3)" } }] }] },
-    { type: "paragraph", content: [{ type: "text", text: "site", marks: [{ type: "link", attrs: { href: "https://example.org/a?b=1&c=\"2\"", onclick: "x" } }] }] },
+    {
+      type: "paragraph",
+      content: [{ type: "text", text: "site", marks: [{ type: "link", attrs: { href: 'https://example.org/a?b=1&c="2"', onclick: "x" } }] }],
+    },
     { type: "image", attrs: { src: "data:image/png;base64,AAAA", alt: "x" } },
     { type: "image", attrs: { src: `/api/v1/boards/${BOARD}/attachments/${ATTACHMENT}/content`, alt: 'track "A"' } },
-    { type: "orbitCheck", attrs: { blockId: BLOCK, label: "<b>parking</b>", claim: { kind: "orbit", body: "earth", given: { altitude: 500, "bad key": 1, evil: { a: { b: { c: { d: 1 } } } } }, claimed: { period: 5677 } }, onload: "x" } },
+    {
+      type: "orbitCheck",
+      attrs: {
+        blockId: BLOCK,
+        label: "<b>parking</b>",
+        claim: { kind: "orbit", body: "earth", given: { altitude: 500, "bad key": 1, evil: { a: { b: { c: { d: 1 } } } } }, claimed: { period: 5677 } },
+        onload: "x",
+      },
+    },
   ],
 };
 
@@ -82,10 +102,35 @@ describe("dossier sanitizer and renderer", () => {
     const doc = {
       type: "doc",
       content: [
-        { type: "orbitCheck", attrs: { blockId: "00000000-0000-4000-8000-000000000001", label: "parking", claim: { kind: "orbit", body: "earth", given: { altitude: 500 } } } },
-        { type: "orbitCheck", attrs: { blockId: "00000000-0000-4000-8000-000000000002", label: "raise", initialFrom: "00000000-0000-4000-8000-000000000001", claim: { kind: "hohmann", body: "earth", given: { finalAltitude: 35786 } } } },
-        { type: "orbitCheck", attrs: { blockId: "00000000-0000-4000-8000-000000000003", label: "tilt", claim: { kind: "planeChange", body: "earth", given: { angle: 5, altitude: 35786 } } } },
-        { type: "orbitCheck", attrs: { blockId: "00000000-0000-4000-8000-000000000004", label: "stage", claim: { kind: "rocket", given: { specificImpulse: 320, initialMass: 1000, finalMass: 250 } } } },
+        {
+          type: "orbitCheck",
+          attrs: { blockId: "00000000-0000-4000-8000-000000000001", label: "parking", claim: { kind: "orbit", body: "earth", given: { altitude: 500 } } },
+        },
+        {
+          type: "orbitCheck",
+          attrs: {
+            blockId: "00000000-0000-4000-8000-000000000002",
+            label: "raise",
+            initialFrom: "00000000-0000-4000-8000-000000000001",
+            claim: { kind: "hohmann", body: "earth", given: { finalAltitude: 35786 } },
+          },
+        },
+        {
+          type: "orbitCheck",
+          attrs: {
+            blockId: "00000000-0000-4000-8000-000000000003",
+            label: "tilt",
+            claim: { kind: "planeChange", body: "earth", given: { angle: 5, altitude: 35786 } },
+          },
+        },
+        {
+          type: "orbitCheck",
+          attrs: {
+            blockId: "00000000-0000-4000-8000-000000000004",
+            label: "stage",
+            claim: { kind: "rocket", given: { specificImpulse: 320, initialMass: 1000, finalMass: 250 } },
+          },
+        },
       ],
     };
     const budget = deltaVBudget(evaluateBlocks(extractOrbitChecks(doc)));
@@ -99,7 +144,16 @@ describe("dossier sanitizer and renderer", () => {
   it("counts only the burns a maneuver block claims, when it does not claim the total", () => {
     const disposal = (claimed: Record<string, number>) => ({
       type: "doc",
-      content: [{ type: "orbitCheck", attrs: { blockId: "00000000-0000-4000-8000-000000000005", label: "disposal", claim: { kind: "hohmann", body: "earth", given: { initialAltitude: 600, finalAltitude: 200 }, claimed } } }],
+      content: [
+        {
+          type: "orbitCheck",
+          attrs: {
+            blockId: "00000000-0000-4000-8000-000000000005",
+            label: "disposal",
+            claim: { kind: "hohmann", body: "earth", given: { initialAltitude: 600, finalAltitude: 200 }, claimed },
+          },
+        },
+      ],
     });
     const firstBurnOnly = deltaVBudget(evaluateBlocks(extractOrbitChecks(disposal({ deltaV1: 0.1 }))));
     const total = deltaVBudget(evaluateBlocks(extractOrbitChecks(disposal({ deltaVTotal: 0.2 }))));

@@ -104,7 +104,9 @@ function renderOrbitCheck(node: DossierNode, options: RenderOptions): string {
     if (entries.length === 0) return "";
     return (
       `<tr><th colspan="2" scope="colgroup">${escapeHtml(title)}</th></tr>` +
-      entries.map(([k, v]) => `<tr><th scope="row">${escapeHtml(k)}</th><td>${escapeHtml(formatValue(v))}${unitOf(k) ? ` ${escapeHtml(unitOf(k))}` : ""}</td></tr>`).join("")
+      entries
+        .map(([k, v]) => `<tr><th scope="row">${escapeHtml(k)}</th><td>${escapeHtml(formatValue(v))}${unitOf(k) ? ` ${escapeHtml(unitOf(k))}` : ""}</td></tr>`)
+        .join("")
     );
   };
   const verdict = options.verdicts?.[blockId];
@@ -190,7 +192,7 @@ export function dossierPlainText(doc: unknown): string {
       lines.push((node.content ?? []).map(textOf).join("\t"));
     } else if (node.type === "orbitCheck") {
       const claim = node.attrs?.claim as DossierClaim | undefined;
-      const label = typeof node.attrs?.label === "string" && node.attrs.label ? node.attrs.label : claim?.kind ?? "orbit check";
+      const label = typeof node.attrs?.label === "string" && node.attrs.label ? node.attrs.label : (claim?.kind ?? "orbit check");
       lines.push(`[orbit check: ${label} (${claim?.kind ?? "?"})]`);
     } else if (node.type === "image") {
       lines.push(`[image: ${String(node.attrs?.alt ?? "")}]`);
@@ -199,5 +201,8 @@ export function dossierPlainText(doc: unknown): string {
     }
   };
   clean.content.forEach(walk);
-  return lines.join("\n").replace(/\n{3,}/g, "\n\n").trim();
+  return lines
+    .join("\n")
+    .replace(/\n{3,}/g, "\n\n")
+    .trim();
 }

@@ -39,7 +39,11 @@ function cleanValue(v: unknown, depth: number): unknown {
   if (typeof v === "string") return v.slice(0, 200);
   if (typeof v === "boolean") return v;
   if (depth >= 3) return undefined;
-  if (Array.isArray(v)) return v.slice(0, 50).map((x) => cleanValue(x, depth + 1)).filter((x) => x !== undefined);
+  if (Array.isArray(v))
+    return v
+      .slice(0, 50)
+      .map((x) => cleanValue(x, depth + 1))
+      .filter((x) => x !== undefined);
   if (isRecord(v)) return cleanRecord(v, depth + 1, 30);
   return undefined;
 }

@@ -107,7 +107,13 @@ export function dossierExtensions(orbitCheck: AnyExtension = OrbitCheckNode): An
   return [
     StarterKit.configure({
       heading: { levels: [...HEADING_LEVELS] },
-      link: { openOnClick: false, autolink: true, protocols: [], defaultProtocol: "https", HTMLAttributes: { rel: "noopener noreferrer nofollow", target: null } },
+      link: {
+        openOnClick: false,
+        autolink: true,
+        protocols: [],
+        defaultProtocol: "https",
+        HTMLAttributes: { rel: "noopener noreferrer nofollow", target: null },
+      },
       codeBlock: { HTMLAttributes: {} },
     }),
     Table.configure({ resizable: false }),
@@ -132,11 +138,16 @@ export interface SanitizeContext {
   attachmentIds?: ReadonlySet<string>;
 }
 
-const clampInt = (min: number, max: number): AttrCleaner => (v) => {
-  const n = typeof v === "number" ? v : typeof v === "string" ? Number(v) : NaN;
-  return Number.isInteger(n) && n >= min && n <= max ? n : undefined;
-};
-const shortText = (max: number): AttrCleaner => (v) => (typeof v === "string" ? v.slice(0, max) : undefined);
+const clampInt =
+  (min: number, max: number): AttrCleaner =>
+  (v) => {
+    const n = typeof v === "number" ? v : typeof v === "string" ? Number(v) : NaN;
+    return Number.isInteger(n) && n >= min && n <= max ? n : undefined;
+  };
+const shortText =
+  (max: number): AttrCleaner =>
+  (v) =>
+    typeof v === "string" ? v.slice(0, max) : undefined;
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 

@@ -36,7 +36,12 @@ export async function enqueueReviewReminders(now: Date = new Date()): Promise<{ 
     .innerJoin(users, and(eq(users.id, assignments.reviewerId), eq(users.status, "active")))
     .innerJoin(
       boardMembers,
-      and(eq(boardMembers.boardId, assignments.boardId), eq(boardMembers.userId, assignments.reviewerId), eq(boardMembers.status, "active"), eq(boardMembers.role, "reviewer")),
+      and(
+        eq(boardMembers.boardId, assignments.boardId),
+        eq(boardMembers.userId, assignments.reviewerId),
+        eq(boardMembers.status, "active"),
+        eq(boardMembers.role, "reviewer"),
+      ),
     )
     .leftJoin(reviews, eq(reviews.assignmentId, assignments.id))
     .leftJoin(decisions, eq(decisions.versionId, assignments.versionId))
@@ -63,7 +68,13 @@ export async function enqueueReviewReminders(now: Date = new Date()): Promise<{ 
       daysLeft,
       url: `${env().APP_URL}/boards/${row.boardId}/proposals/${row.proposalId}/review`,
     });
-    const result = await enqueueMail({ kind: "review-reminder", dedupeKey: `review-reminder:${row.assignmentId}:${todayIso}`, to: [row.email], boardId: row.boardId, ...mail });
+    const result = await enqueueMail({
+      kind: "review-reminder",
+      dedupeKey: `review-reminder:${row.assignmentId}:${todayIso}`,
+      to: [row.email],
+      boardId: row.boardId,
+      ...mail,
+    });
     if (!result.duplicate) enqueued += 1;
   }
   return { enqueued };

@@ -188,7 +188,12 @@ async function claimDue(limit: number, leaseSeconds: number, ids?: string[], now
     return tx
       .update(outboxMessages)
       .set({ status: "sending", attempts: sql`${outboxMessages.attempts} + 1`, nextAttemptAt: sql`now()` })
-      .where(inArray(outboxMessages.id, due.map((d) => d.id)))
+      .where(
+        inArray(
+          outboxMessages.id,
+          due.map((d) => d.id),
+        ),
+      )
       .returning();
   });
 }

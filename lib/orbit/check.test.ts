@@ -40,7 +40,21 @@ describe("the contract's example", () => {
     const r = res.results[0]!;
     expect(r).toMatchObject({ id: "c1", kind: "orbit", status: "consistent", messages: [] });
     expect(r.checks.map((c) => c.quantity)).toEqual(["period", "eccentricity"]);
-    for (const q of ["semiMajorAxis", "eccentricity", "semiLatusRectum", "semiMinorAxis", "periapsisRadius", "apoapsisRadius", "period", "meanMotion", "specificEnergy", "specificAngularMomentum", "periapsisSpeed", "apoapsisSpeed", "orbitType"])
+    for (const q of [
+      "semiMajorAxis",
+      "eccentricity",
+      "semiLatusRectum",
+      "semiMinorAxis",
+      "periapsisRadius",
+      "apoapsisRadius",
+      "period",
+      "meanMotion",
+      "specificEnergy",
+      "specificAngularMomentum",
+      "periapsisSpeed",
+      "apoapsisSpeed",
+      "orbitType",
+    ])
       expect(r.computed).toHaveProperty(q);
     expect(r.computed.orbitType).toBe("elliptic");
     expect(exitCodeFor(res)).toBe(0);
@@ -90,7 +104,11 @@ describe("tolerance", () => {
   });
 
   it("compares vectors as a whole: length of the difference relative to the computed length", () => {
-    const base = { kind: "propagate", body: { name: "earth", mu: 398600.4418 }, given: { position: [1131.34, -2282.343, 6672.423], velocity: [-5.64305, 4.30333, 2.42879], time: 2400 } };
+    const base = {
+      kind: "propagate",
+      body: { name: "earth", mu: 398600.4418 },
+      given: { position: [1131.34, -2282.343, 6672.423], velocity: [-5.64305, 4.30333, 2.42879], time: 2400 },
+    };
     const ok = evaluateClaim({ ...base, claimed: { position: [-4219.75, 4363.03, -3958.77] } });
     expect(ok.status).toBe("consistent");
     expect(ok.checks[0]!.relativeError).toBeLessThan(1e-5);
@@ -118,7 +136,10 @@ describe("invalid claims get a message a proposer can act on", () => {
   });
 
   it("unknown claimed quantity lists the valid names, and still reports the good rows", () => {
-    const r = expectInvalid({ kind: "orbit", body: "earth", given: { altitude: 500 }, claimed: { perod: 5600, period: 5677 } }, /cannot derive "perod".*valid names: .*period/);
+    const r = expectInvalid(
+      { kind: "orbit", body: "earth", given: { altitude: 500 }, claimed: { perod: 5600, period: 5677 } },
+      /cannot derive "perod".*valid names: .*period/,
+    );
     expect(r.checks.map((c) => c.quantity)).toEqual(["period"]);
   });
 
@@ -151,23 +172,38 @@ describe("invalid claims get a message a proposer can act on", () => {
   it("negative where impossible", () => {
     expectInvalid({ kind: "orbit", body: "earth", given: { periapsisAltitude: 500, eccentricity: -0.1 } }, /eccentricity must be zero or positive/);
     expectInvalid({ kind: "rocket", given: { specificImpulse: -300, initialMass: 100, finalMass: 50 } }, /specificImpulse must be positive/);
-    expectInvalid({ kind: "lambert", body: "earth", given: { position1: [7000, 0, 0], position2: [0, 8000, 0], timeOfFlight: -5 } }, /timeOfFlight must be positive/);
+    expectInvalid(
+      { kind: "lambert", body: "earth", given: { position1: [7000, 0, 0], position2: [0, 8000, 0], timeOfFlight: -5 } },
+      /timeOfFlight must be positive/,
+    );
   });
 
   it("periapsis below the surface", () => {
-    expectInvalid({ kind: "orbit", body: "earth", given: { periapsisAltitude: -50, apoapsisAltitude: 800 } }, /below the surface of earth.*raise the periapsis/);
+    expectInvalid(
+      { kind: "orbit", body: "earth", given: { periapsisAltitude: -50, apoapsisAltitude: 800 } },
+      /below the surface of earth.*raise the periapsis/,
+    );
     expectInvalid({ kind: "orbit", body: "earth", given: { apoapsisAltitude: 800, eccentricity: 0.5 } }, /below the surface/);
   });
 
   it("bound-orbit quantities asked of open orbits", () => {
-    const r = expectInvalid({ kind: "orbit", body: "earth", given: { periapsisAltitude: 300, eccentricity: 1.5 }, claimed: { period: 9000 } }, /period is defined only for closed orbits.*hyperbolic/);
+    const r = expectInvalid(
+      { kind: "orbit", body: "earth", given: { periapsisAltitude: 300, eccentricity: 1.5 }, claimed: { period: 9000 } },
+      /period is defined only for closed orbits.*hyperbolic/,
+    );
     expect(r.computed.hyperbolicExcessSpeed).toBeGreaterThan(0);
-    expectInvalid({ kind: "orbit", body: "earth", given: { periapsisAltitude: 300, eccentricity: 1 }, claimed: { semiMajorAxis: 1 } }, /parabola has no finite semi-major axis/);
+    expectInvalid(
+      { kind: "orbit", body: "earth", given: { periapsisAltitude: 300, eccentricity: 1 }, claimed: { semiMajorAxis: 1 } },
+      /parabola has no finite semi-major axis/,
+    );
     expectInvalid({ kind: "orbit", body: "earth", given: { altitude: 300 }, claimed: { hyperbolicExcessSpeed: 1 } }, /only for open orbits/);
   });
 
   it("Lambert at exactly 180° explains that the plane is undefined", () => {
-    expectInvalid({ kind: "lambert", body: "earth", given: { position1: [7000, 0, 0], position2: [-8000, 0, 0], timeOfFlight: 3000 } }, /180°.*plane is undefined/);
+    expectInvalid(
+      { kind: "lambert", body: "earth", given: { position1: [7000, 0, 0], position2: [-8000, 0, 0], timeOfFlight: 3000 } },
+      /180°.*plane is undefined/,
+    );
   });
 
   it("unknown body and incomplete overrides", () => {
@@ -213,8 +249,25 @@ describe("requests", () => {
 
   it("every contract kind is implemented, with units for every given and computed quantity", () => {
     const contractKinds = [
-      "orbit", "stateVector", "elements", "kepler", "timeOfFlight", "propagate", "hohmann", "biElliptic", "planeChange", "rocket",
-      "deltaVBudget", "escape", "interplanetaryHohmann", "sphereOfInfluence", "j2Rates", "sunSynchronous", "lambert", "eclipse", "groundContact",
+      "orbit",
+      "stateVector",
+      "elements",
+      "kepler",
+      "timeOfFlight",
+      "propagate",
+      "hohmann",
+      "biElliptic",
+      "planeChange",
+      "rocket",
+      "deltaVBudget",
+      "escape",
+      "interplanetaryHohmann",
+      "sphereOfInfluence",
+      "j2Rates",
+      "sunSynchronous",
+      "lambert",
+      "eclipse",
+      "groundContact",
     ];
     expect([...KIND_NAMES].sort()).toEqual([...contractKinds].sort());
     for (const k of ORBIT_CHECK_KINDS) {
@@ -224,7 +277,10 @@ describe("requests", () => {
   });
 
   it("publishes JSON Schemas for the request and response", () => {
-    const { request, response } = orbitCheckJsonSchemas() as { request: { properties: Record<string, unknown> }; response: { properties: Record<string, unknown> } };
+    const { request, response } = orbitCheckJsonSchemas() as {
+      request: { properties: Record<string, unknown> };
+      response: { properties: Record<string, unknown> };
+    };
     expect(request.properties).toHaveProperty("claims");
     expect(response.properties).toHaveProperty("results");
   });
@@ -262,11 +318,47 @@ describe("hostile inputs never throw and always give a status", { timeout: 60_00
     fc.constantFrom(Number.NaN, Infinity, -Infinity, -1e308, 1e308, -0, 5e-324, "", "NaN", [], {}, [1, 2], [1, 2, 3, 4], [Number.NaN, 0, 0]),
   );
   const nameArb = fc.constantFrom(
-    "periapsisAltitude", "apoapsisAltitude", "altitude", "eccentricity", "semiMajorAxis", "period", "semiLatusRectum", "position", "velocity",
-    "time", "position1", "position2", "timeOfFlight", "direction", "angle", "speed", "specificImpulse", "initialMass", "finalMass", "deltaV",
-    "maneuvers", "from", "to", "departureAltitude", "inclination", "raan", "argPeriapsis", "trueAnomaly", "meanAnomaly", "betaAngle",
-    "minimumElevation", "parkingAltitude", "c3", "initialAltitude", "finalAltitude", "intermediateAltitude", "trueAnomalyFrom", "trueAnomalyTo",
-    "__proto__", "constructor", "toString",
+    "periapsisAltitude",
+    "apoapsisAltitude",
+    "altitude",
+    "eccentricity",
+    "semiMajorAxis",
+    "period",
+    "semiLatusRectum",
+    "position",
+    "velocity",
+    "time",
+    "position1",
+    "position2",
+    "timeOfFlight",
+    "direction",
+    "angle",
+    "speed",
+    "specificImpulse",
+    "initialMass",
+    "finalMass",
+    "deltaV",
+    "maneuvers",
+    "from",
+    "to",
+    "departureAltitude",
+    "inclination",
+    "raan",
+    "argPeriapsis",
+    "trueAnomaly",
+    "meanAnomaly",
+    "betaAngle",
+    "minimumElevation",
+    "parkingAltitude",
+    "c3",
+    "initialAltitude",
+    "finalAltitude",
+    "intermediateAltitude",
+    "trueAnomalyFrom",
+    "trueAnomalyTo",
+    "__proto__",
+    "constructor",
+    "toString",
   );
   const numberish = fc.oneof(fc.double(), fc.double({ min: -1e5, max: 1e5, noNaN: true }), fc.integer(), junk);
   const claimArb = fc.record(
@@ -299,12 +391,18 @@ describe("hostile inputs never throw and always give a status", { timeout: 60_00
 
   it("whole requests: anything at all", () => {
     fc.assert(
-      fc.property(fc.oneof(fc.anything(), fc.record({ claims: fc.array(fc.oneof(claimArb, fc.anything()), { maxLength: 5 }), tolerance: junk }, { requiredKeys: ["claims"] })), (req) => {
-        const res = checkOrbitClaims(req);
-        expect(Array.isArray(res.results)).toBe(true);
-        for (const r of res.results) expect(statuses.has(r.status)).toBe(true);
-        expect([0, 1, 2]).toContain(exitCodeFor(res));
-      }),
+      fc.property(
+        fc.oneof(
+          fc.anything(),
+          fc.record({ claims: fc.array(fc.oneof(claimArb, fc.anything()), { maxLength: 5 }), tolerance: junk }, { requiredKeys: ["claims"] }),
+        ),
+        (req) => {
+          const res = checkOrbitClaims(req);
+          expect(Array.isArray(res.results)).toBe(true);
+          for (const r of res.results) expect(statuses.has(r.status)).toBe(true);
+          expect([0, 1, 2]).toContain(exitCodeFor(res));
+        },
+      ),
       { numRuns: 3000 },
     );
   });
@@ -313,15 +411,35 @@ describe("hostile inputs never throw and always give a status", { timeout: 60_00
     const val = fc.oneof(
       fc.double({ min: -1e6, max: 1e6, noNaN: true }),
       fc.double({ min: 0, max: 2, noNaN: true }),
-      fc.tuple(fc.double({ min: -1e5, max: 1e5, noNaN: true }), fc.double({ min: -1e5, max: 1e5, noNaN: true }), fc.double({ min: -1e5, max: 1e5, noNaN: true })),
+      fc.tuple(
+        fc.double({ min: -1e5, max: 1e5, noNaN: true }),
+        fc.double({ min: -1e5, max: 1e5, noNaN: true }),
+        fc.double({ min: -1e5, max: 1e5, noNaN: true }),
+      ),
     );
     fc.assert(
       fc.property(fc.constantFrom(...ORBIT_CHECK_KINDS), fc.array(val, { minLength: 8, maxLength: 8 }), fc.integer({ min: 0, max: 255 }), (k, vals, mask) => {
         const given: Record<string, unknown> = {};
         k.given.forEach((g, i) => {
-          if (mask & (1 << i % 8) || g.use === "required") given[g.name] = g.type === "vector" ? (Array.isArray(vals[i % 8]) ? vals[i % 8] : [7000, 0, 0]) : g.type === "body" ? "mars" : g.type === "maneuvers" ? [{ name: "a", deltaV: vals[i % 8] }] : g.type === "text" ? "prograde" : Array.isArray(vals[i % 8]) ? 1 : vals[i % 8];
+          if (mask & (1 << (i % 8)) || g.use === "required")
+            given[g.name] =
+              g.type === "vector"
+                ? Array.isArray(vals[i % 8])
+                  ? vals[i % 8]
+                  : [7000, 0, 0]
+                : g.type === "body"
+                  ? "mars"
+                  : g.type === "maneuvers"
+                    ? [{ name: "a", deltaV: vals[i % 8] }]
+                    : g.type === "text"
+                      ? "prograde"
+                      : Array.isArray(vals[i % 8])
+                        ? 1
+                        : vals[i % 8];
         });
-        const claimed = Object.fromEntries(k.computed.map((c) => [c.name, c.type === "vector" ? [1, 2, 3] : c.type === "text" ? "x" : c.type === "boolean" ? true : 1]));
+        const claimed = Object.fromEntries(
+          k.computed.map((c) => [c.name, c.type === "vector" ? [1, 2, 3] : c.type === "text" ? "x" : c.type === "boolean" ? true : 1]),
+        );
         const r = evaluateClaim({ kind: k.kind, body: "earth", given, claimed });
         expect(statuses.has(r.status)).toBe(true);
         expect(r.messages.join(" ")).not.toMatch(/internal error/);

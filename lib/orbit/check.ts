@@ -92,8 +92,7 @@ export function evaluateClaim(claim: unknown, tolerance: Tolerance = DEFAULT_TOL
     const c = claim as Record<string, unknown>;
     if (typeof c.id === "string" && c.id.length > 0) id = c.id.slice(0, 200);
     else if (typeof c.id === "number" && Number.isFinite(c.id)) id = String(c.id);
-    if (typeof c.kind !== "string" || c.kind.length === 0)
-      return invalid(id, kind, [`the claim needs a kind; valid kinds: ${KIND_NAMES.join(", ")}`]);
+    if (typeof c.kind !== "string" || c.kind.length === 0) return invalid(id, kind, [`the claim needs a kind; valid kinds: ${KIND_NAMES.join(", ")}`]);
     kind = c.kind.slice(0, 60);
     const def = kindDef(c.kind);
     if (!def) return invalid(id, kind, [`unknown kind "${kind}"; valid kinds: ${KIND_NAMES.join(", ")}`]);
@@ -110,7 +109,8 @@ export function evaluateClaim(claim: unknown, tolerance: Tolerance = DEFAULT_TOL
     let tol = tolerance;
     if (c.tolerance !== undefined) {
       const t = toleranceSchema.safeParse(c.tolerance);
-      if (!t.success) return invalid(id, kind, [`tolerance is malformed: ${t.error.issues.map((i) => `${i.path.join(".") || "tolerance"}: ${i.message}`).join("; ")}`]);
+      if (!t.success)
+        return invalid(id, kind, [`tolerance is malformed: ${t.error.issues.map((i) => `${i.path.join(".") || "tolerance"}: ${i.message}`).join("; ")}`]);
       tol = mergeTolerance(tolerance, t.data);
     }
     const allowed = allowedGiven(kind);

@@ -176,7 +176,8 @@ export function conicFromShape(s: ShapeInput, mu: number): Conic {
     if (e2 < -1e-12) fail(`semi-latus rectum ${fmt(p0!)} km cannot exceed the semi-major axis ${fmt(a0!)} km of an ellipse`);
     return conicFromAE(a0!, Math.sqrt(Math.max(0, e2)));
   }
-  if (has("semiMajorAxis") && has("period")) fail("semiMajorAxis and period are not independent (Kepler's third law links them); give one of them and another shape value");
+  if (has("semiMajorAxis") && has("period"))
+    fail("semiMajorAxis and period are not independent (Kepler's third law links them); give one of them and another shape value");
   if (has("eccentricity") && has("semiLatusRectum")) return conicFromPE(p0!, e0!);
   if (has("eccentricity") && has("period")) {
     if (e0! >= 1) fail(`a period exists only for closed orbits (e < 1); eccentricity ${fmt(e0!)} describes an open orbit`);

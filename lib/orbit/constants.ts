@@ -7,30 +7,9 @@
  * they are given to the precision we are confident of and are screening-grade.
  */
 
-export type BodyName =
-  | "sun"
-  | "mercury"
-  | "venus"
-  | "earth"
-  | "moon"
-  | "mars"
-  | "jupiter"
-  | "saturn"
-  | "uranus"
-  | "neptune";
+export type BodyName = "sun" | "mercury" | "venus" | "earth" | "moon" | "mars" | "jupiter" | "saturn" | "uranus" | "neptune";
 
-export const BODY_NAMES: readonly BodyName[] = [
-  "sun",
-  "mercury",
-  "venus",
-  "earth",
-  "moon",
-  "mars",
-  "jupiter",
-  "saturn",
-  "uranus",
-  "neptune",
-];
+export const BODY_NAMES: readonly BodyName[] = ["sun", "mercury", "venus", "earth", "moon", "mars", "jupiter", "saturn", "uranus", "neptune"];
 
 /** A sourced constant. */
 export interface Sourced {

@@ -113,8 +113,7 @@ export class Inputs {
   num(name: string, rule: "any" | "positive" | "nonNegative" = "any"): number {
     if (!this.has(name)) fail(`${this.kind} needs given.${name} (${unitOf(name)})`);
     const v = this.raw[name];
-    if (typeof v !== "number" || !Number.isFinite(v))
-      fail(`given.${name} must be a finite number in ${unitOf(name)} (got ${describe(v)})`);
+    if (typeof v !== "number" || !Number.isFinite(v)) fail(`given.${name} must be a finite number in ${unitOf(name)} (got ${describe(v)})`);
     if (rule === "positive" && !(v > 0)) fail(`given.${name} must be positive (got ${fmt(v)} ${unitOf(name)})`);
     if (rule === "nonNegative" && !(v >= 0)) fail(`given.${name} must be zero or positive (got ${fmt(v)} ${unitOf(name)})`);
     return v;
@@ -265,8 +264,7 @@ function conicValues(c: Conic, body: Body, theta?: number): Pick<Evaluation, "va
     values.apoapsisSpeed = visViva(mu, ra, c.a);
     unavailable.hyperbolicExcessSpeed = `a hyperbolic excess speed exists only for open orbits (e ≥ 1); ${tag}`;
   } else {
-    for (const q of ["semiMinorAxis", "apoapsisRadius", "apoapsisAltitude", "period", "apoapsisSpeed"])
-      unavailable[q] = `${q} ${BOUND_ONLY}; ${tag}`;
+    for (const q of ["semiMinorAxis", "apoapsisRadius", "apoapsisAltitude", "period", "apoapsisSpeed"]) unavailable[q] = `${q} ${BOUND_ONLY}; ${tag}`;
     // v∞ = √(2ε) (energy integral at infinity).
     values.hyperbolicExcessSpeed = Math.sqrt(Math.max(0, 2 * specificEnergy(mu, c.a)));
     // Hyperbolic mean motion √(μ/|a|³) (hyperbolic Kepler's equation).
@@ -277,8 +275,7 @@ function conicValues(c: Conic, body: Body, theta?: number): Pick<Evaluation, "va
     if (!closed) {
       const limit = Math.acos(-1 / c.e);
       const t = Math.abs(((theta + Math.PI) % (2 * Math.PI)) - Math.PI);
-      if (t >= limit - 1e-12)
-        fail(`trueAnomaly ${fmt(theta * RAD)}° is beyond the asymptote of this ${type} orbit (±${fmt(limit * RAD)}°)`);
+      if (t >= limit - 1e-12) fail(`trueAnomaly ${fmt(theta * RAD)}° is beyond the asymptote of this ${type} orbit (±${fmt(limit * RAD)}°)`);
     }
     const r = radiusAt(c, theta);
     values.radius = r;
@@ -351,11 +348,13 @@ interface KindDef {
   evaluate(g: Inputs, body: Body): Evaluation;
 }
 
-const result = (
-  values: Record<string, ComputedValue>,
-  body: Body,
-  extra: Partial<Omit<Evaluation, "values">> = {},
-): Evaluation => ({ values, unavailable: extra.unavailable ?? {}, messages: extra.messages ?? [], conics: extra.conics ?? [], plotBodyRadius: extra.plotBodyRadius ?? body.radius });
+const result = (values: Record<string, ComputedValue>, body: Body, extra: Partial<Omit<Evaluation, "values">> = {}): Evaluation => ({
+  values,
+  unavailable: extra.unavailable ?? {},
+  messages: extra.messages ?? [],
+  conics: extra.conics ?? [],
+  plotBodyRadius: extra.plotBodyRadius ?? body.radius,
+});
 
 const SHAPE_GIVEN: [string, GivenInfo["use"]][] = SHAPE_NAMES.map((n) => [n, "choice"]);
 
@@ -494,18 +493,18 @@ const KIND_DEFS: Record<string, KindDef> = {
       const s = elementsToState(p, e, i, raan, w, nu, body.mu);
       const conic = { p, e, a: classify(e) === "parabolic" ? Infinity : p / (1 - e * e) };
       const messages = stateWarnings(s.position, conic, body, "the position");
-      return result(
-        { position: [...s.position], velocity: [...s.velocity], radius: norm(s.position), speed: norm(s.velocity) },
-        body,
-        { messages, conics: [plotOf("orbit", conic, { marker: nu * RAD })] },
-      );
+      return result({ position: [...s.position], velocity: [...s.velocity], radius: norm(s.position), speed: norm(s.velocity) }, body, {
+        messages,
+        conics: [plotOf("orbit", conic, { marker: nu * RAD })],
+      });
     },
   },
 
   kepler: {
     usesBody: false,
     summary: "Kepler's equation: eccentric (or hyperbolic) and true anomaly from the mean anomaly",
-    givenRule: "eccentricity and meanAnomaly (deg; hyperbolic mean anomaly when e > 1, Barker's parabolic mean anomaly in radians expressed as degrees when e = 1)",
+    givenRule:
+      "eccentricity and meanAnomaly (deg; hyperbolic mean anomaly when e > 1, Barker's parabolic mean anomaly in radians expressed as degrees when e = 1)",
     given: [
       ["eccentricity", "required"],
       ["meanAnomaly", "required"],
@@ -599,11 +598,10 @@ const KIND_DEFS: Record<string, KindDef> = {
       const messages = stateWarnings(r0, conic, body, "position");
       const s = propagate(r0, v0, t, body.mu);
       const el2 = stateToElements(s.position, s.velocity, body.mu);
-      return result(
-        { position: [...s.position], velocity: [...s.velocity], radius: norm(s.position), speed: norm(s.velocity) },
-        body,
-        { messages, conics: [plotOf("orbit", conic, { trueAnomalyRange: [el.trueAnomaly * RAD, el2.trueAnomaly * RAD], marker: el2.trueAnomaly * RAD })] },
-      );
+      return result({ position: [...s.position], velocity: [...s.velocity], radius: norm(s.position), speed: norm(s.velocity) }, body, {
+        messages,
+        conics: [plotOf("orbit", conic, { trueAnomalyRange: [el.trueAnomaly * RAD, el2.trueAnomaly * RAD], marker: el2.trueAnomaly * RAD })],
+      });
     },
   },
 
@@ -625,11 +623,7 @@ const KIND_DEFS: Record<string, KindDef> = {
       const tr = apseEllipse(r1, r2);
       const up = r2 > r1;
       return result({ ...h }, body, {
-        conics: [
-          plotOf("initial", circle(r1)),
-          plotOf("transfer", tr, { trueAnomalyRange: up ? [0, 180] : [180, 360] }),
-          plotOf("final", circle(r2)),
-        ],
+        conics: [plotOf("initial", circle(r1)), plotOf("transfer", tr, { trueAnomalyRange: up ? [0, 180] : [180, 360] }), plotOf("final", circle(r2))],
       });
     },
   },
@@ -763,14 +757,18 @@ const KIND_DEFS: Record<string, KindDef> = {
       // Departure hyperbola: e = 1 + rp v∞²/μ, p = rp(1 + e).
       const e = 1 + (r * vInf * vInf) / body.mu;
       return result({ ...d }, body, {
-        conics: [plotOf("parking orbit", circle(r)), plotOf("departure", { p: r * (1 + e), e, a: -body.mu / (vInf * vInf) }, { trueAnomalyRange: [0, 0.95 * Math.acos(-1 / e) * RAD] })],
+        conics: [
+          plotOf("parking orbit", circle(r)),
+          plotOf("departure", { p: r * (1 + e), e, a: -body.mu / (vInf * vInf) }, { trueAnomalyRange: [0, 0.95 * Math.acos(-1 / e) * RAD] }),
+        ],
       });
     },
   },
 
   interplanetaryHohmann: {
     summary: "patched-conic Hohmann transfer between two planets on circular coplanar orbits",
-    givenRule: "from and to (planet names or override objects with mu, radius, orbitRadius), departureAltitude (km), optional arrivalAltitude (km); body is the central body (sun by default)",
+    givenRule:
+      "from and to (planet names or override objects with mu, radius, orbitRadius), departureAltitude (km), optional arrivalAltitude (km); body is the central body (sun by default)",
     given: [
       ["from", "required"],
       ["to", "required"],
@@ -926,11 +924,10 @@ const KIND_DEFS: Record<string, KindDef> = {
       const T = periodOf(body.mu, r);
       const messages =
         ecl.eclipseFraction === 0 ? [`no eclipse: |beta| is above the critical angle ${fmt(ecl.criticalBetaAngle * RAD)}° for this altitude`] : [];
-      return result(
-        { eclipseDuration: ecl.eclipseFraction * T, eclipseFraction: ecl.eclipseFraction, sunlitFraction: ecl.sunlitFraction, period: T },
-        body,
-        { messages, conics: [plotOf("orbit", circle(r))] },
-      );
+      return result({ eclipseDuration: ecl.eclipseFraction * T, eclipseFraction: ecl.eclipseFraction, sunlitFraction: ecl.sunlitFraction, period: T }, body, {
+        messages,
+        conics: [plotOf("orbit", circle(r))],
+      });
     },
   },
 

@@ -91,13 +91,7 @@ export interface BudgetResult {
 }
 
 /** A Δv budget: sum of the maneuvers against the rocket-equation capability of the vehicle. */
-export function deltaVBudget(
-  maneuvers: readonly { name: string; deltaV: number }[],
-  isp: number,
-  m0: number,
-  mf: number,
-  requiredMargin = 0,
-): BudgetResult {
+export function deltaVBudget(maneuvers: readonly { name: string; deltaV: number }[], isp: number, m0: number, mf: number, requiredMargin = 0): BudgetResult {
   if (maneuvers.length === 0) fail("maneuvers is empty: list each maneuver as { name, deltaV } in km/s");
   if (!(isp > 0)) fail(`specificImpulse must be positive (got ${fmt(isp)} s)`);
   if (!(m0 > 0) || !(mf > 0)) fail("initialMass and finalMass must be positive");

@@ -28,7 +28,9 @@ const f = (x: number, width: number, decimals: number) => x.toFixed(decimals).pa
 /** A two-line element set for the invented satellite 99001 ("VV-TEST"), epoch 2024 day 1.5. */
 function makeTle(incl: number, raan: number, ecc: number, argp: number, meanAnomaly: number, revPerDay: number): [string, string] {
   const l1 = "1 99001U 24001A   24001.50000000  .00000000  00000-0  00000-0 0  999";
-  const eccText = Math.round(ecc * 1e7).toString().padStart(7, "0");
+  const eccText = Math.round(ecc * 1e7)
+    .toString()
+    .padStart(7, "0");
   const l2 =
     "2 99001 " + f(incl, 8, 4) + " " + f(raan, 8, 4) + " " + eccText + " " + f(argp, 8, 4) + " " + f(meanAnomaly, 8, 4) + " " + f(revPerDay, 11, 8) + "    1";
   return [l1 + checksum(l1), l2 + checksum(l2)];
@@ -145,7 +147,7 @@ describe("J2 secular rates, against satellite.js's SGP4", { timeout: 60_000 }, (
         kind: "j2Rates",
         body: WGS72_J2,
         given: { semiMajorAxis: a, eccentricity: sat.ecco, inclination: (sat.inclo * 180) / Math.PI },
-        claimed: { raanRate: (sat.nodedot * RAD_PER_MIN_TO_DEG_PER_DAY) },
+        claimed: { raanRate: sat.nodedot * RAD_PER_MIN_TO_DEG_PER_DAY },
       });
       expect(result.status).not.toBe("invalid");
       compared++;

@@ -31,14 +31,17 @@ export const bodySchema = z.union([bodyNameSchema, bodyOverrideSchema]);
 export const toleranceSchema = z
   .strictObject({
     relative: finite.nonnegative().optional().describe("relative tolerance, default 0.01"),
-    absolute: z.record(z.string(), finite.nonnegative()).optional().describe("absolute tolerance per unit, e.g. { \"km\": 1 }"),
+    absolute: z.record(z.string(), finite.nonnegative()).optional().describe('absolute tolerance per unit, e.g. { "km": 1 }'),
   })
   .describe("a quantity passes when it is within either bound");
 
 export const vectorSchema = z.tuple([finite, finite, finite]);
 
 export const claimSchema = z.object({
-  id: z.union([z.string().max(200), z.number()]).optional().describe("the proposer's identifier for the claim"),
+  id: z
+    .union([z.string().max(200), z.number()])
+    .optional()
+    .describe("the proposer's identifier for the claim"),
   kind: z.string().min(1).max(60).describe("the kind of claim, e.g. orbit, hohmann, lambert"),
   body: bodySchema.optional().describe("central body; earth by default (sun for interplanetaryHohmann)"),
   given: z.record(z.string(), z.unknown()).describe("inputs in contract units"),

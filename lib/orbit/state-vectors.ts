@@ -94,8 +94,7 @@ export function elementsToState(
   const cosT = Math.cos(trueAnomaly);
   const sinT = Math.sin(trueAnomaly);
   const denom = 1 + e * cosT;
-  if (!(denom > 1e-12))
-    fail(`true anomaly ${fmt((trueAnomaly * 180) / Math.PI)}° is not reached on this open orbit (beyond the asymptote for e = ${fmt(e)})`);
+  if (!(denom > 1e-12)) fail(`true anomaly ${fmt((trueAnomaly * 180) / Math.PI)}° is not reached on this open orbit (beyond the asymptote for e = ${fmt(e)})`);
   // Orbit equation and perifocal state: r = p/(1 + e cos θ), v = √(μ/p)(−sin θ, e + cos θ).
   const r = p / denom;
   const rp: Vec3 = [r * cosT, r * sinT, 0];

@@ -2,17 +2,12 @@
 export type Vec3 = readonly [number, number, number];
 
 export const dot = (a: Vec3, b: Vec3): number => a[0] * b[0] + a[1] * b[1] + a[2] * b[2];
-export const cross = (a: Vec3, b: Vec3): Vec3 => [
-  a[1] * b[2] - a[2] * b[1],
-  a[2] * b[0] - a[0] * b[2],
-  a[0] * b[1] - a[1] * b[0],
-];
+export const cross = (a: Vec3, b: Vec3): Vec3 => [a[1] * b[2] - a[2] * b[1], a[2] * b[0] - a[0] * b[2], a[0] * b[1] - a[1] * b[0]];
 export const norm = (a: Vec3): number => Math.hypot(a[0], a[1], a[2]);
 export const scale = (a: Vec3, k: number): Vec3 => [a[0] * k, a[1] * k, a[2] * k];
 export const add = (a: Vec3, b: Vec3): Vec3 => [a[0] + b[0], a[1] + b[1], a[2] + b[2]];
 export const sub = (a: Vec3, b: Vec3): Vec3 => [a[0] - b[0], a[1] - b[1], a[2] - b[2]];
-export const isVec3 = (x: unknown): x is Vec3 =>
-  Array.isArray(x) && x.length === 3 && x.every((c) => typeof c === "number" && Number.isFinite(c));
+export const isVec3 = (x: unknown): x is Vec3 => Array.isArray(x) && x.length === 3 && x.every((c) => typeof c === "number" && Number.isFinite(c));
 
 export const DEG = Math.PI / 180;
 export const RAD = 180 / Math.PI;

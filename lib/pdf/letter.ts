@@ -103,14 +103,23 @@ function writeRuns(doc: PDFKit.PDFDocument, runs: LetterRun[], options: { x?: nu
 function drawLetterhead(doc: PDFKit.PDFDocument, input: LetterPdfInput) {
   const width = doc.page.width - 2 * MARGIN;
   drawMark(doc, MARGIN, MARGIN - 6, 30);
-  doc.font("latin-bold").fontSize(16).fillColor(colours.brand).text("VisViva", MARGIN + 38, MARGIN, { lineBreak: false });
+  doc
+    .font("latin-bold")
+    .fontSize(16)
+    .fillColor(colours.brand)
+    .text("VisViva", MARGIN + 38, MARGIN, { lineBreak: false });
   doc
     .font("semibold")
     .fontSize(11)
     .fillColor(colours.ink)
     .text(input.boardName, MARGIN + width / 3, MARGIN + 3, { width: (2 * width) / 3, align: "right" });
   const ruleY = MARGIN + 34;
-  doc.moveTo(MARGIN, ruleY).lineTo(MARGIN + width, ruleY).lineWidth(0.8).strokeColor(colours.rule).stroke();
+  doc
+    .moveTo(MARGIN, ruleY)
+    .lineTo(MARGIN + width, ruleY)
+    .lineWidth(0.8)
+    .strokeColor(colours.rule)
+    .stroke();
 
   doc.y = ruleY + 16;
   const meta: [string, string][] = [
@@ -121,7 +130,11 @@ function drawLetterhead(doc: PDFKit.PDFDocument, input: LetterPdfInput) {
   ];
   for (const [label, value] of meta) {
     const y = doc.y;
-    doc.font("latin-regular").fontSize(9).fillColor(colours.muted).text(label.toUpperCase(), MARGIN, y + 1.5, { width: 70, characterSpacing: 0.6 });
+    doc
+      .font("latin-regular")
+      .fontSize(9)
+      .fillColor(colours.muted)
+      .text(label.toUpperCase(), MARGIN, y + 1.5, { width: 70, characterSpacing: 0.6 });
     doc.y = y;
     writeRuns(doc, [{ text: value, bold: label === "Decision" }], { x: MARGIN + 76, y, width: width - 76, size: 11 });
     doc.y += 2;
@@ -137,8 +150,17 @@ function drawFooters(doc: PDFKit.PDFDocument) {
     doc.page.margins.bottom = 0; // writing inside the margin must not open a new page
     const width = doc.page.width - 2 * MARGIN;
     const y = doc.page.height - FOOTER_SPACE + 8;
-    doc.moveTo(MARGIN, y - 8).lineTo(MARGIN + width, y - 8).lineWidth(0.5).strokeColor(colours.rule).stroke();
-    doc.font("latin-regular").fontSize(8).fillColor(colours.muted).text(LETTER_CAUTION, MARGIN, y, { width: width - 60, lineGap: 1 });
+    doc
+      .moveTo(MARGIN, y - 8)
+      .lineTo(MARGIN + width, y - 8)
+      .lineWidth(0.5)
+      .strokeColor(colours.rule)
+      .stroke();
+    doc
+      .font("latin-regular")
+      .fontSize(8)
+      .fillColor(colours.muted)
+      .text(LETTER_CAUTION, MARGIN, y, { width: width - 60, lineGap: 1 });
     doc.text(`Page ${i - range.start + 1} of ${range.count}`, MARGIN + width - 60, y, { width: 60, align: "right" });
     doc.page.margins.bottom = bottom;
   }
@@ -187,7 +209,11 @@ export function renderLetterPdf(input: LetterPdfInput): Promise<Buffer> {
           case "list":
             block.items.forEach((item, i) => {
               const y = doc.y;
-              doc.font("latin-regular").fontSize(11).fillColor(colours.brand).text(block.ordered ? `${i + 1}.` : "•", MARGIN + 4, y, { width: 18 });
+              doc
+                .font("latin-regular")
+                .fontSize(11)
+                .fillColor(colours.brand)
+                .text(block.ordered ? `${i + 1}.` : "•", MARGIN + 4, y, { width: 18 });
               writeRuns(doc, item, { x: MARGIN + 22, y, width: width - 22, size: 11 });
               doc.moveDown(0.25);
             });
@@ -195,13 +221,27 @@ export function renderLetterPdf(input: LetterPdfInput): Promise<Buffer> {
             break;
           case "quote": {
             const top = doc.y;
-            writeRuns(doc, block.runs.map((r) => ({ ...r, italic: true })), { x: MARGIN + 14, width: width - 14, size: 11, colour: colours.muted });
-            doc.moveTo(MARGIN + 4, top).lineTo(MARGIN + 4, doc.y).lineWidth(2).strokeColor(colours.brand).stroke();
+            writeRuns(
+              doc,
+              block.runs.map((r) => ({ ...r, italic: true })),
+              { x: MARGIN + 14, width: width - 14, size: 11, colour: colours.muted },
+            );
+            doc
+              .moveTo(MARGIN + 4, top)
+              .lineTo(MARGIN + 4, doc.y)
+              .lineWidth(2)
+              .strokeColor(colours.brand)
+              .stroke();
             doc.moveDown(0.6);
             break;
           }
           case "rule":
-            doc.moveTo(MARGIN, doc.y + 4).lineTo(MARGIN + width, doc.y + 4).lineWidth(0.5).strokeColor(colours.rule).stroke();
+            doc
+              .moveTo(MARGIN, doc.y + 4)
+              .lineTo(MARGIN + width, doc.y + 4)
+              .lineWidth(0.5)
+              .strokeColor(colours.rule)
+              .stroke();
             doc.y += 14;
             break;
         }

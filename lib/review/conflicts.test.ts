@@ -14,7 +14,9 @@ describe("conflict rules", () => {
   });
 
   it("finds nothing for an unrelated reviewer", () => {
-    expect(findConflicts({ reviewer: reviewer("ivo@meridian.example.org", "Meridian"), authors: [owner, coauthor], proposalId: "x", declarations: [] })).toEqual([]);
+    expect(
+      findConflicts({ reviewer: reviewer("ivo@meridian.example.org", "Meridian"), authors: [owner, coauthor], proposalId: "x", declarations: [] }),
+    ).toEqual([]);
   });
 
   it("flags the same e-mail domain as a co-author as likely, not as a conflict", () => {
@@ -24,7 +26,12 @@ describe("conflict rules", () => {
   });
 
   it("makes the same organisation as an author a conflict", () => {
-    const findings = findConflicts({ reviewer: reviewer("ivo@meridian.example.org", "lumen orbital"), authors: [owner, coauthor], proposalId: "x", declarations: [] });
+    const findings = findConflicts({
+      reviewer: reviewer("ivo@meridian.example.org", "lumen orbital"),
+      authors: [owner, coauthor],
+      proposalId: "x",
+      declarations: [],
+    });
     expect(findings.map((f) => f.rule)).toEqual(["same-organisation"]);
     expect(hasHardConflict(findings)).toBe(true);
   });

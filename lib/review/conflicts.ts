@@ -30,7 +30,12 @@ export interface ConflictFinding {
 /** The part after the last @, lower-cased; empty for a malformed address. */
 export function emailDomain(email: string): string {
   const at = email.lastIndexOf("@");
-  return at < 0 ? "" : email.slice(at + 1).trim().toLowerCase();
+  return at < 0
+    ? ""
+    : email
+        .slice(at + 1)
+        .trim()
+        .toLowerCase();
 }
 
 /** Organisation names compared without case, surrounding or doubled spaces. */
@@ -46,12 +51,15 @@ export function findConflicts(input: { reviewer: Person; authors: Person[]; prop
     if (d.proposalId === proposalId) findings.push({ strength: "conflict", rule: "declared-proposal", message: `Declared by the reviewer: ${d.reason}` });
     if (d.proposalId === null && d.organisation) {
       const author = authors.find((a) => sameOrganisation(a.organisation, d.organisation));
-      if (author) findings.push({ strength: "conflict", rule: "declared-organisation", message: `Declared conflict with ${d.organisation.trim()}: ${d.reason}` });
+      if (author)
+        findings.push({ strength: "conflict", rule: "declared-organisation", message: `Declared conflict with ${d.organisation.trim()}: ${d.reason}` });
     }
   }
-  if (authors.some((a) => a.id === reviewer.id)) findings.push({ strength: "conflict", rule: "same-organisation", message: "The reviewer is an author of this proposal." });
+  if (authors.some((a) => a.id === reviewer.id))
+    findings.push({ strength: "conflict", rule: "same-organisation", message: "The reviewer is an author of this proposal." });
   const orgMate = authors.find((a) => a.id !== reviewer.id && sameOrganisation(a.organisation, reviewer.organisation));
-  if (orgMate) findings.push({ strength: "conflict", rule: "same-organisation", message: `Same organisation as an author (${reviewer.organisation!.trim()}).` });
+  if (orgMate)
+    findings.push({ strength: "conflict", rule: "same-organisation", message: `Same organisation as an author (${reviewer.organisation!.trim()}).` });
   const domain = emailDomain(reviewer.email);
   if (domain && authors.some((a) => a.id !== reviewer.id && emailDomain(a.email) === domain))
     findings.push({ strength: "likely", rule: "same-email-domain", message: `Same e-mail domain as an author (${domain}).` });

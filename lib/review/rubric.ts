@@ -45,7 +45,10 @@ export function rubricProblems(criteria: RubricCriterion[]): RubricProblem[] {
       problems.push({ path: `criteria.${i}.commentRequiredBelow`, message: `"${c.title}": the comment threshold must lie within the scale.` });
     const first = criteria[0]!;
     if (i > 0 && (c.scaleMin !== first.scaleMin || c.scaleMax !== first.scaleMax))
-      problems.push({ path: `criteria.${i}.scaleMin`, message: `"${c.title}": every criterion of a rubric uses the same scale (${first.scaleMin}..${first.scaleMax}).` });
+      problems.push({
+        path: `criteria.${i}.scaleMin`,
+        message: `"${c.title}": every criterion of a rubric uses the same scale (${first.scaleMin}..${first.scaleMax}).`,
+      });
   });
   if (criteria.length > 0 && !weightsSumTo100(criteria))
     problems.push({ path: "criteria", message: `The weights add up to ${round(weightSum(criteria), 4)} %; they must add up to 100 %.` });

@@ -16,11 +16,7 @@ export const emailSchema = z
   .pipe(z.email({ error: "Enter a valid e-mail address, like name@example.org." }))
   .transform((value) => value.toLowerCase());
 
-export const personNameSchema = z
-  .string({ error: "Enter a name." })
-  .trim()
-  .min(1, "Enter a name.")
-  .max(120, "Keep the name under 120 characters.");
+export const personNameSchema = z.string({ error: "Enter a name." }).trim().min(1, "Enter a name.").max(120, "Keep the name under 120 characters.");
 
 export const newPasswordSchema = z
   .string({ error: "Choose a password." })
@@ -124,7 +120,12 @@ export const boardListSchema = z.object({ boards: z.array(boardSchema) });
 export const memberSortSchema = z.enum(["name", "email", "role", "status", "joined"]);
 
 const pageNumber = z.coerce.number({ error: "page must be a whole number" }).int().min(1, "page starts at 1").max(100_000).default(1);
-const pageSize = z.coerce.number({ error: "pageSize must be a whole number" }).int().min(5, "pageSize is at least 5").max(100, "pageSize is at most 100").default(25);
+const pageSize = z.coerce
+  .number({ error: "pageSize must be a whole number" })
+  .int()
+  .min(5, "pageSize is at least 5")
+  .max(100, "pageSize is at most 100")
+  .default(25);
 
 export const memberListQuerySchema = z.object({
   page: pageNumber,
@@ -229,7 +230,12 @@ export const revokedSessionsSchema = z.object({ revoked: z.number().int() });
 
 export const auditQuerySchema = z.object({
   page: pageNumber,
-  pageSize: z.coerce.number({ error: "pageSize must be a whole number" }).int().min(5, "pageSize is at least 5").max(200, "pageSize is at most 200").default(50),
+  pageSize: z.coerce
+    .number({ error: "pageSize must be a whole number" })
+    .int()
+    .min(5, "pageSize is at least 5")
+    .max(200, "pageSize is at most 200")
+    .default(50),
   q: z.string().trim().max(200, "Keep the search under 200 characters.").optional(),
   action: z.string().trim().max(80).optional(),
   dir: z.enum(["asc", "desc"]).default("desc"),

@@ -3,7 +3,7 @@ import { decisionOutcomes } from "@/db/schema/decisions";
 
 /** A Tiptap JSON document (the letter); its nodes are checked and reduced by lib/decisions/letter.ts. */
 export const letterDocument = z
-  .object({ type: z.literal("doc", { message: "must be a document (type \"doc\")" }), content: z.array(z.unknown()).max(2000, "has too many blocks") })
+  .object({ type: z.literal("doc", { message: 'must be a document (type "doc")' }), content: z.array(z.unknown()).max(2000, "has too many blocks") })
   .loose()
   .refine((doc) => JSON.stringify(doc).length <= 200_000, "is longer than 200 000 characters");
 

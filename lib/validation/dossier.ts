@@ -6,7 +6,10 @@ import { proposalStatuses } from "@/db/schema/proposals";
 const TOLERANCE_UNITS = ["km", "km/s", "deg", "s", "kg", "deg/day"] as const;
 
 export const tolerancePolicySchema = z.strictObject({
-  relative: z.number("relative tolerance must be a number").min(0, "relative tolerance cannot be negative").max(0.5, "relative tolerance above 50% checks nothing"),
+  relative: z
+    .number("relative tolerance must be a number")
+    .min(0, "relative tolerance cannot be negative")
+    .max(0.5, "relative tolerance above 50% checks nothing"),
   absolute: z.partialRecord(z.enum(TOLERANCE_UNITS), z.number().min(0, "absolute tolerances cannot be negative")).optional(),
 });
 
@@ -171,4 +174,8 @@ export const checkResultSchema = z.object({
   result: z.record(z.string(), z.unknown()),
 });
 
-export const versionNumberSchema = z.coerce.number("the version number must be a whole number").int("the version number must be a whole number").min(1).max(100000);
+export const versionNumberSchema = z.coerce
+  .number("the version number must be a whole number")
+  .int("the version number must be a whole number")
+  .min(1)
+  .max(100000);

@@ -76,7 +76,12 @@ describe("deciding, resubmitting and comparing in the browser", () => {
     await proposer.locator("[data-save-state=saved]").waitFor({ timeout: 30_000 });
     await proposer.getByRole("button", { name: "Submit version 2" }).click();
     await proposer.getByRole("link", { name: "Version 2" }).waitFor({ timeout: 60_000 });
-    const [v2] = await db().select({ id: proposalVersions.id }).from(proposalVersions).where(eq(proposalVersions.proposalId, s.proposal.id)).orderBy(proposalVersions.number).offset(1);
+    const [v2] = await db()
+      .select({ id: proposalVersions.id })
+      .from(proposalVersions)
+      .where(eq(proposalVersions.proposalId, s.proposal.id))
+      .orderBy(proposalVersions.number)
+      .offset(1);
     expect(v2).toBeDefined();
 
     // The chair compares the versions and asks the same reviewers again.

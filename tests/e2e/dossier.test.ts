@@ -102,7 +102,12 @@ describe("writing and submitting a dossier in the browser", () => {
       await page.keyboard.type("6100");
       await blocks.nth(1).getByRole("status").filter({ hasText: "Inconsistent" }).waitFor();
       // The plot has its text alternative.
-      expect(await blocks.nth(1).getByRole("img", { name: /Plot of the science orbit.*circular/ }).count()).toBe(1);
+      expect(
+        await blocks
+          .nth(1)
+          .getByRole("img", { name: /Plot of the science orbit.*circular/ })
+          .count(),
+      ).toBe(1);
       // The summary beside the text lists both claims.
       const summary = page.getByRole("complementary").filter({ hasText: "Claims (live check)" });
       await summary.getByText("1 consistent, 1 inconsistent, 0 cannot be evaluated.").waitFor();

@@ -42,7 +42,8 @@ describe("reviewing in the browser", () => {
     await page.locator(`li[data-check-block]`, { hasText: "Raising transfer" }).getByText("Inconsistent").waitFor();
 
     // Score each criterion; the running total follows and the review autosaves.
-    const score = async (criterion: string, level: number) => page.locator(`tr[data-criterion="${criterion}"] label`).getByText(String(level), { exact: true }).click();
+    const score = async (criterion: string, level: number) =>
+      page.locator(`tr[data-criterion="${criterion}"] label`).getByText(String(level), { exact: true }).click();
     await score("science", 4);
     await score("feasibility", 3);
     await expect.poll(async () => page.getByTestId("weighted-total").textContent()).toContain("3.63");
@@ -96,7 +97,10 @@ describe("reviewing in the browser", () => {
 
     const [saved] = await db().select().from(reviews).where(eq(reviews.assignmentId, created[0]!.assignmentId));
     expect(saved).toMatchObject({ status: "submitted", weightedTotal: 3.9 });
-    const items = await db().select().from(reviewItems).where(and(eq(reviewItems.proposalId, round.proposal.id), eq(reviewItems.authorId, round.reviewer2.id)));
+    const items = await db()
+      .select()
+      .from(reviewItems)
+      .where(and(eq(reviewItems.proposalId, round.proposal.id), eq(reviewItems.authorId, round.reviewer2.id)));
     expect(items.map((i) => [i.severity, i.anchor.quote]).sort()).toEqual([
       ["comment", "95.6 minutes"],
       ["major", "95.6 minutes"],
@@ -115,7 +119,10 @@ describe("reviewing in the browser", () => {
     await row.getByRole("img", { name: /Weighted totals for/ }).waitFor();
     // The chair opens the proposal's reviews and sees the item with the reviewer named for them.
     await chair.goto(`/boards/${round.board.id}/proposals/${round.proposal.id}/review?assignment=${created[0]!.assignmentId}`);
-    await chair.locator("li[data-item]", { hasText: "Period does not match the altitude" }).getByText(`Reviewer 1 · ${round.reviewer2.name}`, { exact: false }).waitFor();
+    await chair
+      .locator("li[data-item]", { hasText: "Period does not match the altitude" })
+      .getByText(`Reviewer 1 · ${round.reviewer2.name}`, { exact: false })
+      .waitFor();
     await chair.getByRole("button", { name: "Reopen" }).waitFor();
     // An unassigned reviewer cannot open the review screen at all.
     const stranger = await as(round.reviewer.email);
@@ -140,7 +147,8 @@ describe("chairing a review round in the browser", () => {
     await page.getByLabel("Criterion 1").fill("Science return");
     await page.getByLabel("Weight (%)").fill("90");
     await page.getByText("Weights add up to 90 % (must be 100 %)").waitFor();
-    for (const [i, text] of ["Negligible", "Limited", "Useful", "Significant", "Outstanding"].entries()) await page.getByLabel(String(i + 1), { exact: true }).fill(text);
+    for (const [i, text] of ["Negligible", "Limited", "Useful", "Significant", "Outstanding"].entries())
+      await page.getByLabel(String(i + 1), { exact: true }).fill(text);
     await page.getByRole("button", { name: "Save rubric" }).click();
     await page.getByRole("alert").getByText("The weights add up to 90 %; they must add up to 100 %.").waitFor();
     await page.getByLabel("Weight (%)").fill("100");

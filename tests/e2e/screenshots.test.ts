@@ -37,7 +37,10 @@ describe("the demo board's main screens", () => {
 
   beforeAll(async () => {
     const slug = unique("kestrel-screens");
-    ({ scenario: s } = await seedDemo(db(), { mode: "demo", board: { slug, name: "Kestrel Small Missions Board", description: "The demo scenario for the screen checks." } }));
+    ({ scenario: s } = await seedDemo(db(), {
+      mode: "demo",
+      board: { slug, name: "Kestrel Small Missions Board", description: "The demo scenario for the screen checks." },
+    }));
     await appUrl();
     browser = await launchBrowser();
   });
@@ -68,12 +71,22 @@ describe("the demo board's main screens", () => {
     await nadia.getByRole("textbox", { name: "Dossier text" }).waitFor();
     const blocks = nadia.locator("[data-orbit-check-block]");
     await blocks.nth(3).waitFor();
-    await blocks.nth(0).getByRole("img", { name: /Plot of the operational orbit/ }).waitFor();
+    await blocks
+      .nth(0)
+      .getByRole("img", { name: /Plot of the operational orbit/ })
+      .waitFor();
     await blocks.nth(0).getByRole("status").filter({ hasText: "Consistent" }).waitFor();
-    await nadia.getByRole("complementary").filter({ hasText: "Claims (live check)" }).getByText("6 consistent, 0 inconsistent, 0 cannot be evaluated.").waitFor();
+    await nadia
+      .getByRole("complementary")
+      .filter({ hasText: "Claims (live check)" })
+      .getByText("6 consistent, 0 inconsistent, 0 cannot be evaluated.")
+      .waitFor();
     await assertAccessible(nadia, "dossier editor (demo draft)");
     // The text of the orbit section above its first block, clear of the sticky toolbar.
-    await nadia.getByRole("textbox", { name: "Dossier text" }).getByRole("heading", { name: "Orbit design" }).evaluate((h) => window.scrollTo(0, h.getBoundingClientRect().top + window.scrollY - 140));
+    await nadia
+      .getByRole("textbox", { name: "Dossier text" })
+      .getByRole("heading", { name: "Orbit design" })
+      .evaluate((h) => window.scrollTo(0, h.getBoundingClientRect().top + window.scrollY - 140));
     await shot(nadia, "dossier-editor.png");
 
     // A review in progress: the flagged inclination with the reviewer's note and a review item.

@@ -84,7 +84,11 @@ describe("the whole story of a review round", () => {
     const board = await createBoard({ name: unique("Osprey Rideshare Board") });
     const chair = await createUser({ name: "Hedda Sorensby", email: `${unique("hedda")}@osprey-board.example.org`, organisation: "Osprey Rideshare Board" });
     const proposer = await createUser({ name: "Emil Vantongeren", email: `${unique("emil")}@saltmarsh-space.example.com`, organisation: "Saltmarsh Space" });
-    const reviewerA = await createUser({ name: "Agnes Whitlock", email: `${unique("agnes")}@fellgate-dynamics.example.net`, organisation: "Fellgate Dynamics" });
+    const reviewerA = await createUser({
+      name: "Agnes Whitlock",
+      email: `${unique("agnes")}@fellgate-dynamics.example.net`,
+      organisation: "Fellgate Dynamics",
+    });
     const reviewerB = await createUser({ name: "Rafael Iturbe", email: `${unique("rafael")}@cobalt-orbits.example.org`, organisation: "Cobalt Orbits" });
     await addMember(board.id, chair.id, "chair");
     await addMember(board.id, proposer.id, "proposer");
@@ -137,7 +141,10 @@ describe("the whole story of a review round", () => {
     await expect.poll(() => blocks.count()).toBe(2);
     await fillBlock(blocks.nth(1), "the science orbit", 500, badPeriod);
     await blocks.nth(1).getByRole("status").filter({ hasText: "Inconsistent" }).waitFor();
-    await blocks.nth(1).getByRole("img", { name: /Plot of the science orbit/ }).waitFor();
+    await blocks
+      .nth(1)
+      .getByRole("img", { name: /Plot of the science orbit/ })
+      .waitFor();
 
     const pdf = await summaryPdf("heron-concept-summary.pdf", title, "Saltmarsh Space", ["Drag probe in a 500 km circular orbit."]);
     await proposerPage.locator('input[type="file"]').setInputFiles({ name: pdf.filename, mimeType: pdf.contentType, buffer: pdf.body });
@@ -164,7 +171,10 @@ describe("the whole story of a review round", () => {
     await chairPage.getByLabel("Due date (end of day, UTC)").fill(new Date(Date.now() + 10 * 86_400_000).toISOString().slice(0, 10));
     await assertAccessible(chairPage, "assignment page");
     await chairPage.getByRole("button", { name: "Assign 2 reviewer(s) to 1 proposal(s)" }).click();
-    await chairPage.getByRole("status").filter({ hasText: /assign/i }).waitFor({ timeout: 30_000 });
+    await chairPage
+      .getByRole("status")
+      .filter({ hasText: /assign/i })
+      .waitFor({ timeout: 30_000 });
     await waitForMail(reviewerA.email, new RegExp(title), 60_000);
 
     // 3. Each reviewer scores the rubric; the first raises a review item on the wrong sentence.
@@ -174,7 +184,8 @@ describe("the whole story of a review round", () => {
       await page.getByRole("link", { name: title }).click();
       await page.getByRole("heading", { name: title }).waitFor();
       await page.locator("li[data-check-block]", { hasText: "the science orbit" }).getByText("Inconsistent").waitFor();
-      const score = (criterion: string, level: number) => page.locator(`tr[data-criterion="${criterion}"] label`).getByText(String(level), { exact: true }).click();
+      const score = (criterion: string, level: number) =>
+        page.locator(`tr[data-criterion="${criterion}"] label`).getByText(String(level), { exact: true }).click();
       await score("mission-return", scores[0]);
       await score("orbit-soundness", scores[1]);
       await score("programme-risk", scores[2]);
@@ -246,7 +257,9 @@ describe("the whole story of a review round", () => {
     const items = await proposerPage.request.get(`/api/v1/boards/${board.id}/review-items?proposalId=${proposalId}`);
     expect(items.status()).toBe(200);
     const { items: listed } = (await items.json()) as { items: { title: string; authorLabel: string; anchor: { quote: string } }[] };
-    expect(listed).toEqual([expect.objectContaining({ title: itemTitle, authorLabel: "Reviewer 1", anchor: expect.objectContaining({ quote: `once every ${badPeriod} s` }) })]);
+    expect(listed).toEqual([
+      expect.objectContaining({ title: itemTitle, authorLabel: "Reviewer 1", anchor: expect.objectContaining({ quote: `once every ${badPeriod} s` }) }),
+    ]);
 
     expect(errors).toEqual([]);
     expect(a11y.join("\n\n")).toBe("");

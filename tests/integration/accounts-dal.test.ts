@@ -99,7 +99,10 @@ describe("members", () => {
   it("changes a role and deactivates a member, with audit rows; a deactivated member loses the board at once", async () => {
     const cast = await createBoardWithCast();
     const chair = asSessionUser(cast.chair);
-    const [reviewerRow] = await db().select({ id: boardMembers.id }).from(boardMembers).where(and(eq(boardMembers.boardId, cast.board.id), eq(boardMembers.userId, cast.reviewer.id)));
+    const [reviewerRow] = await db()
+      .select({ id: boardMembers.id })
+      .from(boardMembers)
+      .where(and(eq(boardMembers.boardId, cast.board.id), eq(boardMembers.userId, cast.reviewer.id)));
     const promoted = await updateMember(chair, cast.board.id, reviewerRow!.id, { role: "chair" });
     expect(promoted.role).toBe("chair");
     await updateMember(chair, cast.board.id, reviewerRow!.id, { status: "deactivated" });
@@ -114,7 +117,10 @@ describe("members", () => {
     const cast = await createBoardWithCast();
     const second = await createUser();
     await addMember(cast.board.id, second.id, "chair");
-    const [own] = await db().select({ id: boardMembers.id }).from(boardMembers).where(and(eq(boardMembers.boardId, cast.board.id), eq(boardMembers.userId, cast.chair.id)));
+    const [own] = await db()
+      .select({ id: boardMembers.id })
+      .from(boardMembers)
+      .where(and(eq(boardMembers.boardId, cast.board.id), eq(boardMembers.userId, cast.chair.id)));
     const error = await failure(updateMember(asSessionUser(cast.chair), cast.board.id, own!.id, { role: "reviewer" }));
     expect(error.status).toBe(409);
     expect(error.message).toMatch(/your own role/);
@@ -125,12 +131,18 @@ describe("members", () => {
   it("refuses demoting or deactivating the last active chair, even for an admin, and allows it once another chair exists", async () => {
     const cast = await createBoardWithCast();
     const admin = asSessionUser(cast.admin);
-    const [chairRow] = await db().select({ id: boardMembers.id }).from(boardMembers).where(and(eq(boardMembers.boardId, cast.board.id), eq(boardMembers.userId, cast.chair.id)));
+    const [chairRow] = await db()
+      .select({ id: boardMembers.id })
+      .from(boardMembers)
+      .where(and(eq(boardMembers.boardId, cast.board.id), eq(boardMembers.userId, cast.chair.id)));
     const demote = await failure(updateMember(admin, cast.board.id, chairRow!.id, { role: "reviewer" }));
     expect(demote.status).toBe(409);
     expect(demote.message).toMatch(/last active chair/);
     expect((await failure(updateMember(admin, cast.board.id, chairRow!.id, { status: "deactivated" }))).status).toBe(409);
-    const [reviewerRow] = await db().select({ id: boardMembers.id }).from(boardMembers).where(and(eq(boardMembers.boardId, cast.board.id), eq(boardMembers.userId, cast.reviewer.id)));
+    const [reviewerRow] = await db()
+      .select({ id: boardMembers.id })
+      .from(boardMembers)
+      .where(and(eq(boardMembers.boardId, cast.board.id), eq(boardMembers.userId, cast.reviewer.id)));
     await updateMember(admin, cast.board.id, reviewerRow!.id, { role: "chair" });
     expect((await updateMember(admin, cast.board.id, chairRow!.id, { role: "reviewer" })).role).toBe("reviewer");
   });
@@ -146,7 +158,10 @@ describe("members", () => {
       updateMember(asSessionUser(b), board.id, rowA.id, { role: "reviewer" }),
     ]);
     expect(results.filter((r) => r.status === "fulfilled")).toHaveLength(1);
-    const chairs = await db().select({ id: boardMembers.id }).from(boardMembers).where(and(eq(boardMembers.boardId, board.id), eq(boardMembers.role, "chair")));
+    const chairs = await db()
+      .select({ id: boardMembers.id })
+      .from(boardMembers)
+      .where(and(eq(boardMembers.boardId, board.id), eq(boardMembers.role, "chair")));
     expect(chairs).toHaveLength(1);
   });
 
@@ -162,7 +177,10 @@ describe("invitations", () => {
     const cast = await createBoardWithCast();
     const email = `${unique("invitee")}@example.org`;
     const invitation = await createInvitation(asSessionUser(cast.chair), cast.board.id, { email, name: "Ilse Varga", role: "reviewer" });
-    const [mail] = await db().select().from(outboxMessages).where(eq(outboxMessages.dedupeKey, `invitation:${invitation.id}`));
+    const [mail] = await db()
+      .select()
+      .from(outboxMessages)
+      .where(eq(outboxMessages.dedupeKey, `invitation:${invitation.id}`));
     expect(mail?.toAddresses).toEqual([email]);
     expect(mail?.text).toContain(`/invitations/${invitation.token}`);
     expect(await invitationForToken(invitation.token)).toMatchObject({ email, role: "reviewer", status: "pending", hasAccount: false });
@@ -189,7 +207,10 @@ describe("invitations", () => {
       acceptInvitation({ token, name: "Second", password: "second passphrase!" }),
     ]);
     expect(results.filter((r) => r.status === "fulfilled")).toHaveLength(1);
-    const accounts = await db().select({ id: users.id }).from(users).where(sql`lower(${users.email}) = ${email}`);
+    const accounts = await db()
+      .select({ id: users.id })
+      .from(users)
+      .where(sql`lower(${users.email}) = ${email}`);
     expect(accounts).toHaveLength(1);
   });
 
@@ -209,7 +230,10 @@ describe("invitations", () => {
     const cast = await createBoardWithCast();
     const chair = asSessionUser(cast.chair);
     const expired = await createInvitation(chair, cast.board.id, { email: `${unique("late")}@example.org`, role: "proposer" });
-    await db().update(invitations).set({ expiresAt: new Date(Date.now() - 1000) }).where(eq(invitations.id, expired.id));
+    await db()
+      .update(invitations)
+      .set({ expiresAt: new Date(Date.now() - 1000) })
+      .where(eq(invitations.id, expired.id));
     const late = await failure(acceptInvitation({ token: expired.token, name: "Late", password: "too late passphrase" }));
     expect(late.status).toBe(409);
     expect(late.message).toMatch(/expired/);
@@ -281,7 +305,10 @@ describe("sign-in links", () => {
     const unknown = await requestSignInLink({ email: unknownEmail }, { ipAddress });
     expect(known).toEqual(unknown);
     expect(known.message).toBe(SIGN_IN_LINK_SENT);
-    const mails = await db().select({ to: outboxMessages.toAddresses, text: outboxMessages.text }).from(outboxMessages).where(eq(outboxMessages.kind, "sign-in-link"));
+    const mails = await db()
+      .select({ to: outboxMessages.toAddresses, text: outboxMessages.text })
+      .from(outboxMessages)
+      .where(eq(outboxMessages.kind, "sign-in-link"));
     expect(mails.filter((m) => m.to.includes(user.email))).toHaveLength(1);
     expect(mails.filter((m) => m.to.includes(unknownEmail))).toHaveLength(0);
     expect(mails.find((m) => m.to.includes(user.email))?.text).toMatch(/\/sign-in\/link\?token=/);
@@ -306,7 +333,10 @@ describe("open registration", () => {
     expect(await boardRole(account!.id, open.id)).toBe("proposer");
     expect(result.boardId).toBe(open.id);
     expect((await failure(registerProposer({ board: open.slug, email, name: "Again", password: "proposer passphrase" }, { ipAddress }))).status).toBe(409);
-    expect((await failure(registerProposer({ board: closed.slug, email: `${unique("x")}@example.org`, name: "X", password: "proposer passphrase" }, { ipAddress }))).status).toBe(404);
+    expect(
+      (await failure(registerProposer({ board: closed.slug, email: `${unique("x")}@example.org`, name: "X", password: "proposer passphrase" }, { ipAddress })))
+        .status,
+    ).toBe(404);
     const [board] = await db().select({ id: boards.id }).from(boards).where(eq(boards.id, open.id));
     expect(board).toBeDefined();
   });

@@ -61,7 +61,10 @@ describe("sign-in over HTTP", () => {
     const cast = await createBoardWithCast();
     const reviewer = await signedIn(cast.reviewer.email);
     expect((await reviewer.get(`/api/v1/boards/${cast.board.id}`)).status).toBe(200);
-    await db().update(boardMembers).set({ status: "deactivated" }).where(and(eq(boardMembers.boardId, cast.board.id), eq(boardMembers.userId, cast.reviewer.id)));
+    await db()
+      .update(boardMembers)
+      .set({ status: "deactivated" })
+      .where(and(eq(boardMembers.boardId, cast.board.id), eq(boardMembers.userId, cast.reviewer.id)));
     expect((await reviewer.get(`/api/v1/boards/${cast.board.id}`)).status).toBe(404);
     expect((await reviewer.get("/api/v1/me")).status).toBe(200);
 
@@ -162,7 +165,10 @@ describe("the accounts API's answers to bad input", () => {
     expect((await chair.request(board, { method: "PATCH", json: { openRegistration: "yes please" } })).status).toBe(422);
     expect((await chair.request(board, { method: "PATCH", json: { unknownSetting: true } })).status).toBe(422);
 
-    const [own] = await db().select({ id: boardMembers.id }).from(boardMembers).where(and(eq(boardMembers.boardId, cast.board.id), eq(boardMembers.userId, cast.chair.id)));
+    const [own] = await db()
+      .select({ id: boardMembers.id })
+      .from(boardMembers)
+      .where(and(eq(boardMembers.boardId, cast.board.id), eq(boardMembers.userId, cast.chair.id)));
     const self = await chair.request(`${board}/members/${own!.id}`, { method: "PATCH", json: { role: "reviewer" } });
     expect(self.status).toBe(409);
     expect((await self.json()).error).toMatch(/your own role/);

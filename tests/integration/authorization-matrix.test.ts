@@ -53,7 +53,16 @@ function scanActions(): ActionExport[] {
       found.push({ key: key(m[1]!), wrapped: false, how: "a plain exported function" });
     }
     for (const m of source.matchAll(/^export\s*\{([^}]*)\}/gm)) {
-      for (const name of m[1]!.split(",").map((s) => s.trim().split(/\s+as\s+/).pop()!.trim()).filter(Boolean)) {
+      for (const name of m[1]!
+        .split(",")
+        .map((s) =>
+          s
+            .trim()
+            .split(/\s+as\s+/)
+            .pop()!
+            .trim(),
+        )
+        .filter(Boolean)) {
         found.push({ key: key(name), wrapped: false, how: "a re-export the check cannot follow" });
       }
     }
@@ -79,7 +88,14 @@ function scanRoutes(): { file: string; method: string; path: string }[] {
     const methods = new Set<string>();
     for (const m of source.matchAll(/^export\s+(?:const|let|var|async\s+function|function)\s+(\w+)/gm)) if (HTTP_METHODS.includes(m[1]!)) methods.add(m[1]!);
     for (const m of source.matchAll(/^export\s*\{([^}]*)\}/gm)) {
-      for (const name of m[1]!.split(",").map((s) => s.trim().split(/\s+as\s+/).pop()!.trim())) if (HTTP_METHODS.includes(name)) methods.add(name);
+      for (const name of m[1]!.split(",").map((s) =>
+        s
+          .trim()
+          .split(/\s+as\s+/)
+          .pop()!
+          .trim(),
+      ))
+        if (HTTP_METHODS.includes(name)) methods.add(name);
     }
     for (const method of methods) out.push({ file: rel(file), method: method.toLowerCase(), path: routePath });
   }
@@ -101,7 +117,10 @@ describe("authorization matrix: coverage", () => {
     const ids = routeCases.map((c) => c.operationId);
     expect(ids.filter((id, i) => ids.indexOf(id) !== i)).toEqual([]);
     const opIds = apiOperations.map((op) => op.operationId);
-    expect(opIds.filter((id, i) => opIds.indexOf(id) !== i), "operationIds must be unique").toEqual([]);
+    expect(
+      opIds.filter((id, i) => opIds.indexOf(id) !== i),
+      "operationIds must be unique",
+    ).toEqual([]);
   });
 
   it("describes every route handler under app/api/v1 in the OpenAPI document", () => {

@@ -15,13 +15,15 @@ describe("conflicts hide the proposal", () => {
     await db().update(users).set({ organisation: "corvid orbital works" }).where(eq(users.id, round.reviewer3.id));
     // Assigned directly in the database, as if the organisation were recorded only afterwards.
     for (const reviewer of [round.reviewer2, round.reviewer3]) {
-      await db().insert(assignments).values({
-        boardId: round.board.id,
-        proposalId: round.proposal.id,
-        versionId: round.version.id,
-        reviewerId: reviewer.id,
-        dueAt: new Date(Date.now() + 7 * 86_400_000),
-      });
+      await db()
+        .insert(assignments)
+        .values({
+          boardId: round.board.id,
+          proposalId: round.proposal.id,
+          versionId: round.version.id,
+          reviewerId: reviewer.id,
+          dueAt: new Date(Date.now() + 7 * 86_400_000),
+        });
     }
     await expect(getProposal(asSessionUser(round.reviewer2), round.board.id, round.proposal.id)).resolves.toMatchObject({ id: round.proposal.id });
     await expect(getProposal(asSessionUser(round.reviewer3), round.board.id, round.proposal.id)).rejects.toMatchObject({ status: 404 });

@@ -7,8 +7,26 @@ import { assignments, calls, checkResults, proposals, proposalVersions, reviewIt
 import { addMember, createBoardWithCast, createUser, unique } from "../support/factories";
 
 export const criteria: RubricCriterion[] = [
-  { id: "science", title: "Mission return", description: "What the mission delivers", weight: 60, scaleMin: 1, scaleMax: 5, levels: ["1", "2", "3", "4", "5"], commentRequiredBelow: null },
-  { id: "feasibility", title: "Feasibility", description: "Orbit, Δv and schedule", weight: 40, scaleMin: 1, scaleMax: 5, levels: ["1", "2", "3", "4", "5"], commentRequiredBelow: null },
+  {
+    id: "science",
+    title: "Mission return",
+    description: "What the mission delivers",
+    weight: 60,
+    scaleMin: 1,
+    scaleMax: 5,
+    levels: ["1", "2", "3", "4", "5"],
+    commentRequiredBelow: null,
+  },
+  {
+    id: "feasibility",
+    title: "Feasibility",
+    description: "Orbit, Δv and schedule",
+    weight: 40,
+    scaleMin: 1,
+    scaleMax: 5,
+    levels: ["1", "2", "3", "4", "5"],
+    commentRequiredBelow: null,
+  },
 ];
 
 export function parkingOrbitBlock(blockId: string, label: string, period: number) {
@@ -66,7 +84,16 @@ export async function addVersion(
           kind: "orbit",
           status: c.status,
           computed: { period: c.computedPeriod },
-          checks: [{ quantity: "period", claimed: c.claimedPeriod, computed: c.computedPeriod, unit: "s", relativeError: Math.abs(c.claimedPeriod - c.computedPeriod) / c.computedPeriod, ok: c.status === "consistent" }],
+          checks: [
+            {
+              quantity: "period",
+              claimed: c.claimedPeriod,
+              computed: c.computedPeriod,
+              unit: "s",
+              relativeError: Math.abs(c.claimedPeriod - c.computedPeriod) / c.computedPeriod,
+              ok: c.status === "consistent",
+            },
+          ],
           messages: c.status === "consistent" ? [] : ["the claimed period differs from the two-body value by more than the call's tolerance"],
         },
       });
@@ -92,7 +119,10 @@ export async function decisionScenario(
       reviewersPerProposal: options.required ?? 2,
     })
     .returning();
-  const [rubric] = await db().insert(rubricTemplates).values({ boardId: board.id, callId: call!.id, version: 1, name: "Standard rubric", criteria, frozenAt: new Date() }).returning();
+  const [rubric] = await db()
+    .insert(rubricTemplates)
+    .values({ boardId: board.id, callId: call!.id, version: 1, name: "Standard rubric", criteria, frozenAt: new Date() })
+    .returning();
   const title = unique("Selene Relay Pathfinder");
   const [proposal] = await db()
     .insert(proposals)
@@ -104,7 +134,10 @@ export async function decisionScenario(
     board,
     proposal!,
     1,
-    dossierDoc("The relay rides a low parking orbit before the transfer burn.", [parkingOrbitBlock(parkingId, "the parking orbit", 5827), parkingOrbitBlock(transferId, "the drift orbit", 6100)]),
+    dossierDoc("The relay rides a low parking orbit before the transfer burn.", [
+      parkingOrbitBlock(parkingId, "the parking orbit", 5827),
+      parkingOrbitBlock(transferId, "the drift orbit", 6100),
+    ]),
     [
       { blockId: parkingId, label: "the parking orbit", status: "consistent", claimedPeriod: 5827, computedPeriod: 5863.69 },
       { blockId: transferId, label: "the drift orbit", status: "inconsistent", claimedPeriod: 6100, computedPeriod: 5863.69 },
@@ -118,7 +151,14 @@ export async function decisionScenario(
   for (let i = 0; i < 2; i++) {
     const [a] = await db()
       .insert(assignments)
-      .values({ boardId: board.id, proposalId: proposal!.id, versionId: version.id, reviewerId: people[i]!.id, dueAt: new Date(Date.now() + 7 * 86_400_000), assignedBy: chair.id })
+      .values({
+        boardId: board.id,
+        proposalId: proposal!.id,
+        versionId: version.id,
+        reviewerId: people[i]!.id,
+        dueAt: new Date(Date.now() + 7 * 86_400_000),
+        assignedBy: chair.id,
+      })
       .returning();
     assignmentRows.push(a!);
     await db()
@@ -140,11 +180,39 @@ export async function decisionScenario(
   const anchor = { from: 0, to: 5, quote: "The r", prefix: "", suffix: "elay" };
   const [major] = await db()
     .insert(reviewItems)
-    .values({ boardId: board.id, proposalId: proposal!.id, versionId: version.id, authorId: reviewer.id, severity: "major", title: "Drift orbit period", body: "The stated period does not follow from the altitudes.", anchor })
+    .values({
+      boardId: board.id,
+      proposalId: proposal!.id,
+      versionId: version.id,
+      authorId: reviewer.id,
+      severity: "major",
+      title: "Drift orbit period",
+      body: "The stated period does not follow from the altitudes.",
+      anchor,
+    })
     .returning();
   const [minor] = await db()
     .insert(reviewItems)
-    .values({ boardId: board.id, proposalId: proposal!.id, versionId: version.id, authorId: reviewer2.id, severity: "minor", title: "Eclipse season", body: "Say which eclipse model was used.", anchor })
+    .values({
+      boardId: board.id,
+      proposalId: proposal!.id,
+      versionId: version.id,
+      authorId: reviewer2.id,
+      severity: "minor",
+      title: "Eclipse season",
+      body: "Say which eclipse model was used.",
+      anchor,
+    })
     .returning();
-  return { ...cast, reviewer2, call: call!, rubric: rubric!, proposal: proposal!, version, assignments: assignmentRows, items: { major: major!, minor: minor! }, blockIds: { parkingId, transferId } };
+  return {
+    ...cast,
+    reviewer2,
+    call: call!,
+    rubric: rubric!,
+    proposal: proposal!,
+    version,
+    assignments: assignmentRows,
+    items: { major: major!, minor: minor! },
+    blockIds: { parkingId, transferId },
+  };
 }

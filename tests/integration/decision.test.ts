@@ -50,8 +50,14 @@ describe("deciding on a proposal", () => {
     // Sample standard deviation of 3.6 and 4.4 (n − 1 = 1): |4.4 − 3.6| / √2.
     expect(w.aggregate.spread).toBeCloseTo(0.8 / Math.SQRT2, 10);
     expect(w.reviews.map((r) => r.status)).toEqual(["submitted", "submitted"]);
-    expect(w.reviewItems.map((i) => [i.severity, i.status])).toEqual([["major", "open"], ["minor", "open"]]);
-    expect(w.checks.map((c) => [c.label, c.status])).toEqual([["the parking orbit", "consistent"], ["the drift orbit", "inconsistent"]]);
+    expect(w.reviewItems.map((i) => [i.severity, i.status])).toEqual([
+      ["major", "open"],
+      ["minor", "open"],
+    ]);
+    expect(w.checks.map((c) => [c.label, c.status])).toEqual([
+      ["the parking orbit", "consistent"],
+      ["the drift orbit", "inconsistent"],
+    ]);
     expect(w.blocked).toBeNull();
     expect(w.needsOverride).toBe(false);
     expect(w.template).toEqual(DEFAULT_LETTER_TEMPLATE);
@@ -67,7 +73,14 @@ describe("deciding on a proposal", () => {
       letter: DEFAULT_LETTER_TEMPLATE,
       selectedReviewItemIds: [s.items.major.id],
     });
-    expect(view).toMatchObject({ outcome: "revise", outcomeLabel: "revise and resubmit", versionNumber: 1, weightedScore: 4, overrideReason: null, hasPdf: true });
+    expect(view).toMatchObject({
+      outcome: "revise",
+      outcomeLabel: "revise and resubmit",
+      versionNumber: 1,
+      weightedScore: 4,
+      overrideReason: null,
+      hasPdf: true,
+    });
     expect(view.letterText).toContain(`Dear ${s.proposer.name},`);
     expect(view.letterText).toContain("- [major] Drift orbit period: The stated period does not follow from the altitudes.");
     expect(view.letterText).not.toContain("Eclipse season");
@@ -77,15 +90,30 @@ describe("deciding on a proposal", () => {
     const [proposal] = await db().select({ status: proposals.status }).from(proposals).where(eq(proposals.id, s.proposal.id));
     expect(proposal?.status).toBe("decided");
     // "revise" seeds the authors' next draft from the decided version.
-    const [draft] = await db().select({ basedOnVersion: proposalDrafts.basedOnVersion, document: proposalDrafts.document }).from(proposalDrafts).where(eq(proposalDrafts.proposalId, s.proposal.id));
+    const [draft] = await db()
+      .select({ basedOnVersion: proposalDrafts.basedOnVersion, document: proposalDrafts.document })
+      .from(proposalDrafts)
+      .where(eq(proposalDrafts.proposalId, s.proposal.id));
     expect(draft?.basedOnVersion).toBe(1);
     expect(draft?.document).toEqual(s.version.document);
-    const [audit] = await db().select({ details: auditEvents.details }).from(auditEvents).where(and(eq(auditEvents.action, "decision.issue"), eq(auditEvents.target, s.proposal.id)));
+    const [audit] = await db()
+      .select({ details: auditEvents.details })
+      .from(auditEvents)
+      .where(and(eq(auditEvents.action, "decision.issue"), eq(auditEvents.target, s.proposal.id)));
     expect(audit?.details).toMatchObject({ decisionId: view.id, outcome: "revise", reviewsSubmitted: 2, reviewsRequired: 2 });
 
-    const [message] = await db().select().from(outboxMessages).where(eq(outboxMessages.dedupeKey, `decision:${view.id}`));
+    const [message] = await db()
+      .select()
+      .from(outboxMessages)
+      .where(eq(outboxMessages.dedupeKey, `decision:${view.id}`));
     expect(message).toMatchObject({ kind: "decision-letter", toAddresses: [s.proposer.email], status: expect.stringMatching(/queued|sending|sent/) });
-    expect(message?.attachments).toEqual([{ filename: expect.stringMatching(/^decision-selene-relay-pathfinder-[0-9a-f]+-v1\.pdf$/), objectKey: letterObjectKey(s.board.id, s.proposal.id, view.id), contentType: "application/pdf" }]);
+    expect(message?.attachments).toEqual([
+      {
+        filename: expect.stringMatching(/^decision-selene-relay-pathfinder-[0-9a-f]+-v1\.pdf$/),
+        objectKey: letterObjectKey(s.board.id, s.proposal.id, view.id),
+        contentType: "application/pdf",
+      },
+    ]);
 
     await deliver([message!.id]);
     const caught = await caughtFor(message!.id);
@@ -106,7 +134,12 @@ describe("deciding on a proposal", () => {
         type: "doc",
         content: [
           { type: "heading", attrs: { level: 2 }, content: [{ type: "text", text: "Decision on {{proposal.title}}" }] },
-          { type: "paragraph", content: [{ type: "text", text: "Version {{version.number}} is {{decision.outcome}}; weighted score {{score.weighted}}; Δv margins were checked." }] },
+          {
+            type: "paragraph",
+            content: [
+              { type: "text", text: "Version {{version.number}} is {{decision.outcome}}; weighted score {{score.weighted}}; Δv margins were checked." },
+            ],
+          },
           { type: "paragraph", content: [{ type: "text", text: "{{reviewItems.selected}}" }] },
         ],
       },
@@ -145,7 +178,10 @@ describe("deciding on a proposal", () => {
     const s = await decisionScenario();
     const chair = asSessionUser(s.chair);
     const input = { outcome: "decline" as const, letter: letter("We decline {{proposal.title}}."), selectedReviewItemIds: [] };
-    const results = await Promise.allSettled([createDecision(chair, s.board.id, s.proposal.id, input), createDecision(chair, s.board.id, s.proposal.id, input)]);
+    const results = await Promise.allSettled([
+      createDecision(chair, s.board.id, s.proposal.id, input),
+      createDecision(chair, s.board.id, s.proposal.id, input),
+    ]);
     const ok = results.filter((r) => r.status === "fulfilled");
     const refused = results.filter((r): r is PromiseRejectedResult => r.status === "rejected");
     expect(ok).toHaveLength(1);
@@ -156,14 +192,21 @@ describe("deciding on a proposal", () => {
     expect(again.message).toMatch(/already been decided/);
     const rows = await db().select({ id: decisions.id }).from(decisions).where(eq(decisions.proposalId, s.proposal.id));
     expect(rows).toHaveLength(1);
-    const messages = await db().select({ id: outboxMessages.id }).from(outboxMessages).where(eq(outboxMessages.dedupeKey, `decision:${rows[0]!.id}`));
+    const messages = await db()
+      .select({ id: outboxMessages.id })
+      .from(outboxMessages)
+      .where(eq(outboxMessages.dedupeKey, `decision:${rows[0]!.id}`));
     expect(messages).toHaveLength(1);
   });
 
   it("refuses a letter with an unknown merge field (422 naming it), in the preview too, and stores nothing", async () => {
     const s = await decisionScenario();
     const chair = asSessionUser(s.chair);
-    const bad = { outcome: "accept" as const, letter: letter("Dear {{proposer.name}}, your {{ proposal.budget }} and {{score.median}} ..."), selectedReviewItemIds: [] };
+    const bad = {
+      outcome: "accept" as const,
+      letter: letter("Dear {{proposer.name}}, your {{ proposal.budget }} and {{score.median}} ..."),
+      selectedReviewItemIds: [],
+    };
     const refused = await failure(createDecision(chair, s.board.id, s.proposal.id, bad));
     expect(refused.status).toBe(422);
     expect(refused.message).toContain("{{proposal.budget}}");
@@ -174,7 +217,9 @@ describe("deciding on a proposal", () => {
     const [p] = await db().select({ status: proposals.status }).from(proposals).where(eq(proposals.id, s.proposal.id));
     expect(p?.status).toBe("in_review");
     // An empty letter is refused as well.
-    expect((await failure(createDecision(chair, s.board.id, s.proposal.id, { ...bad, letter: { type: "doc", content: [{ type: "paragraph" }] } }))).status).toBe(422);
+    expect(
+      (await failure(createDecision(chair, s.board.id, s.proposal.id, { ...bad, letter: { type: "doc", content: [{ type: "paragraph" }] } }))).status,
+    ).toBe(422);
   });
 
   it("refuses to decide without the required reviews unless the chair gives a reason, which is kept and audited", async () => {
@@ -191,7 +236,10 @@ describe("deciding on a proposal", () => {
     const reason = "Second reviewer withdrew; the first review and the server checks are conclusive.";
     const view = await createDecision(chair, s.board.id, s.proposal.id, { ...input, overrideReason: reason });
     expect(view.overrideReason).toBe(reason);
-    const [audit] = await db().select({ details: auditEvents.details }).from(auditEvents).where(and(eq(auditEvents.action, "decision.issue"), eq(auditEvents.target, s.proposal.id)));
+    const [audit] = await db()
+      .select({ details: auditEvents.details })
+      .from(auditEvents)
+      .where(and(eq(auditEvents.action, "decision.issue"), eq(auditEvents.target, s.proposal.id)));
     expect(audit?.details).toMatchObject({ overrideReason: reason, reviewsSubmitted: 1, reviewsRequired: 2 });
   });
 
@@ -204,7 +252,9 @@ describe("deciding on a proposal", () => {
     expect((await failure(createDecision(asSessionUser(s.chair), s.other.id, s.proposal.id, input))).status).toBe(404);
     // A review item of another proposal is refused before anything is stored.
     const other = await decisionScenario();
-    expect((await failure(createDecision(asSessionUser(s.chair), s.board.id, s.proposal.id, { ...input, selectedReviewItemIds: [other.items.major.id] }))).status).toBe(422);
+    expect(
+      (await failure(createDecision(asSessionUser(s.chair), s.board.id, s.proposal.id, { ...input, selectedReviewItemIds: [other.items.major.id] }))).status,
+    ).toBe(422);
 
     // The proposal is withdrawn between the checks and the transaction: the transaction
     // refuses, and the PDF made for it is removed again.
@@ -298,8 +348,13 @@ describe("deciding on a proposal", () => {
     const drift = cmp.claims[1]!;
     expect(drift.before?.status).toBe("inconsistent");
     expect(drift.after?.status).toBe("consistent");
-    expect(drift.quantities).toEqual([{ quantity: "period", unit: "s", before: { claimed: 6100, computed: 5863.69, ok: false }, after: { claimed: 5864, computed: 5863.69, ok: true } }]);
-    expect(cmp.reviewers?.map((r) => [r.name, r.onLaterVersion])).toEqual([[s.reviewer.name, false], ["Second Reviewer", false]]);
+    expect(drift.quantities).toEqual([
+      { quantity: "period", unit: "s", before: { claimed: 6100, computed: 5863.69, ok: false }, after: { claimed: 5864, computed: 5863.69, ok: true } },
+    ]);
+    expect(cmp.reviewers?.map((r) => [r.name, r.onLaterVersion])).toEqual([
+      [s.reviewer.name, false],
+      ["Second Reviewer", false],
+    ]);
     // The proposers may compare too, without the reviewer list; a reviewer of another board may not.
     expect((await compareVersions(asSessionUser(s.proposer), s.board.id, s.proposal.id, 1, 2)).reviewers).toBeNull();
     expect((await failure(compareVersions(asSessionUser(s.outsider), s.board.id, s.proposal.id, 1, 2))).status).toBe(404);
@@ -309,7 +364,10 @@ describe("deciding on a proposal", () => {
     expect(result.created).toHaveLength(2);
     const onV2 = await db().select({ reviewerId: assignments.reviewerId, id: assignments.id }).from(assignments).where(eq(assignments.versionId, v2.id));
     expect(onV2.map((a) => a.reviewerId).sort()).toEqual([s.reviewer.id, s.reviewer2.id].sort());
-    const mails = await db().select({ to: outboxMessages.toAddresses }).from(outboxMessages).where(eq(outboxMessages.dedupeKey, `assignment:${onV2[0]!.id}`));
+    const mails = await db()
+      .select({ to: outboxMessages.toAddresses })
+      .from(outboxMessages)
+      .where(eq(outboxMessages.dedupeKey, `assignment:${onV2[0]!.id}`));
     expect(mails).toHaveLength(1);
     // Pressing the button again assigns nobody twice.
     const again = await reassignPreviousReviewers(chair, s.board.id, s.proposal.id);

@@ -1,7 +1,21 @@
 import { and, eq, inArray } from "drizzle-orm";
 import { describe, expect, it } from "vitest";
 import { db } from "@/db/client";
-import { attachments, boardMembers, boards, calls, checkResults, conflicts, decisions, outboxMessages, proposals, proposalVersions, reviewItems, reviews, users } from "@/db/schema";
+import {
+  attachments,
+  boardMembers,
+  boards,
+  calls,
+  checkResults,
+  conflicts,
+  decisions,
+  outboxMessages,
+  proposals,
+  proposalVersions,
+  reviewItems,
+  reviews,
+  users,
+} from "@/db/schema";
 import { verifyPassword } from "@/lib/auth/passwords";
 import { listInvitations } from "@/lib/dal/invitations";
 import { getAssignmentBoard } from "@/lib/dal/assignments";
@@ -37,7 +51,10 @@ describe("demo accounts seed", () => {
     for (const account of DEMO_ACCOUNTS) {
       expect(account.password.length).toBeGreaterThanOrEqual(12);
       expect(account.email).toMatch(/@[a-z-]+\.example\.(org|com|net)$/);
-      const [row] = await db().select({ passwordHash: users.passwordHash, isAdmin: users.isAdmin }).from(users).where(eq(users.id, first.users[account.key].id));
+      const [row] = await db()
+        .select({ passwordHash: users.passwordHash, isAdmin: users.isAdmin })
+        .from(users)
+        .where(eq(users.id, first.users[account.key].id));
       expect(row?.isAdmin).toBe(account.isAdmin);
       expect(await verifyPassword(row!.passwordHash, account.password)).toBe(true);
       const [membership] = await db()
@@ -59,14 +76,20 @@ describe("demo scenario", () => {
     // The cast: every person is a member in their role, with an invented example address.
     for (const person of DEMO_PEOPLE) {
       expect(person.email).toMatch(/@[a-z-]+\.example\.(org|com|net)$/);
-      const [m] = await db().select({ role: boardMembers.role }).from(boardMembers).where(and(eq(boardMembers.boardId, boardId), eq(boardMembers.userId, s.people[person.key].id)));
+      const [m] = await db()
+        .select({ role: boardMembers.role })
+        .from(boardMembers)
+        .where(and(eq(boardMembers.boardId, boardId), eq(boardMembers.userId, s.people[person.key].id)));
       expect(m?.role).toBe(person.role);
     }
     const [cast] = await db().select({ passwordHash: users.passwordHash }).from(users).where(eq(users.id, s.people.ines.id));
     expect(await verifyPassword(cast!.passwordHash, DEMO_CAST_PASSWORD)).toBe(true);
 
     // One decided call, closed in the past, and one open call.
-    const callRows = await db().select({ id: calls.id, title: calls.title, closesAt: calls.closesAt, opensAt: calls.opensAt }).from(calls).where(eq(calls.boardId, boardId));
+    const callRows = await db()
+      .select({ id: calls.id, title: calls.title, closesAt: calls.closesAt, opensAt: calls.opensAt })
+      .from(calls)
+      .where(eq(calls.boardId, boardId));
     expect(callRows.map((c) => c.title).sort()).toEqual([DECIDED_CALL_TITLE, OPEN_CALL_TITLE].sort());
     const decided = callRows.find((c) => c.title === DECIDED_CALL_TITLE)!;
     const open = callRows.find((c) => c.title === OPEN_CALL_TITLE)!;
@@ -75,7 +98,10 @@ describe("demo scenario", () => {
     expect(open.closesAt.getTime()).toBeGreaterThan(Date.now());
 
     // Twelve proposals in their states.
-    const rows = await db().select({ id: proposals.id, title: proposals.title, status: proposals.status, callId: proposals.callId, latestVersion: proposals.latestVersion }).from(proposals).where(eq(proposals.boardId, boardId));
+    const rows = await db()
+      .select({ id: proposals.id, title: proposals.title, status: proposals.status, callId: proposals.callId, latestVersion: proposals.latestVersion })
+      .from(proposals)
+      .where(eq(proposals.boardId, boardId));
     expect(rows).toHaveLength(12);
     const byKey = (key: string) => rows.find((r) => r.id === s.proposals[key])!;
     expect(byKey("tern-1").status).toBe("decided");
@@ -87,8 +113,14 @@ describe("demo scenario", () => {
     expect(rows.filter((r) => r.callId === decided.id)).toHaveLength(3);
 
     // The server recomputed every block of every submitted version and agrees with the verdict each block was built for.
-    const versionRows = await db().select({ id: proposalVersions.id, proposalId: proposalVersions.proposalId, number: proposalVersions.number, document: proposalVersions.document }).from(proposalVersions).where(eq(proposalVersions.boardId, boardId));
-    const results = await db().select({ versionId: checkResults.versionId, blockId: checkResults.blockId, status: checkResults.status }).from(checkResults).where(eq(checkResults.boardId, boardId));
+    const versionRows = await db()
+      .select({ id: proposalVersions.id, proposalId: proposalVersions.proposalId, number: proposalVersions.number, document: proposalVersions.document })
+      .from(proposalVersions)
+      .where(eq(proposalVersions.boardId, boardId));
+    const results = await db()
+      .select({ versionId: checkResults.versionId, blockId: checkResults.blockId, status: checkResults.status })
+      .from(checkResults)
+      .where(eq(checkResults.boardId, boardId));
     const v1 = new Map(versionRows.filter((v) => v.number === 1).map((v) => [v.id, v.proposalId]));
     const submittedBlocks = s.blocks.filter((b) => !["kite", "glint"].includes(b.proposal));
     for (const b of submittedBlocks) {
@@ -108,7 +140,10 @@ describe("demo scenario", () => {
     expect(results.filter((r) => r.versionId === skiffV2.id && r.status !== "consistent")).toEqual([]);
 
     // Attachments were uploaded to the store and confirmed.
-    const files = await db().select({ status: attachments.status, detectedType: attachments.detectedType, sha256: attachments.sha256 }).from(attachments).where(eq(attachments.boardId, boardId));
+    const files = await db()
+      .select({ status: attachments.status, detectedType: attachments.detectedType, sha256: attachments.sha256 })
+      .from(attachments)
+      .where(eq(attachments.boardId, boardId));
     expect(files.length).toBe(s.attachments);
     expect(files.every((f) => f.status === "confirmed" && f.sha256?.length === 64)).toBe(true);
     expect(new Set(files.map((f) => f.detectedType))).toEqual(new Set(["application/pdf", "text/csv", "text/plain"]));
@@ -148,10 +183,15 @@ describe("demo scenario", () => {
       [s.proposals.wisp!]: "decline",
     });
     for (const d of decisionRows) {
-      expect(d.letterText).toContain(s.people[d.proposalId === s.proposals.wisp ? "maren" : d.proposalId === s.proposals["skiff-ep"] ? "tobias" : "nadia"].name);
+      expect(d.letterText).toContain(
+        s.people[d.proposalId === s.proposals.wisp ? "maren" : d.proposalId === s.proposals["skiff-ep"] ? "tobias" : "nadia"].name,
+      );
       expect((await statObjectOrNull(d.pdfKey!))?.size).toBeGreaterThan(1000);
     }
-    const mail = await db().select({ kind: outboxMessages.kind, to: outboxMessages.toAddresses, attachments: outboxMessages.attachments }).from(outboxMessages).where(eq(outboxMessages.boardId, boardId));
+    const mail = await db()
+      .select({ kind: outboxMessages.kind, to: outboxMessages.toAddresses, attachments: outboxMessages.attachments })
+      .from(outboxMessages)
+      .where(eq(outboxMessages.boardId, boardId));
     const letters = mail.filter((m) => m.kind === "decision-letter");
     expect(letters).toHaveLength(3);
     expect(letters.every((m) => m.attachments.length === 1 && m.attachments[0]!.contentType === "application/pdf")).toBe(true);
@@ -163,6 +203,11 @@ describe("demo scenario", () => {
     const again = await seedDemo(db(), { mode: "demo", board });
     expect(again.scenario).toMatchObject({ skipped: true, boardId, calls: { decided: decided.id, open: open.id } });
     expect(await db().select({ id: proposals.id }).from(proposals).where(eq(proposals.boardId, boardId))).toHaveLength(12);
-    expect(await db().select({ id: decisions.id }).from(decisions).where(inArray(decisions.proposalId, Object.values(s.proposals)))).toHaveLength(3);
+    expect(
+      await db()
+        .select({ id: decisions.id })
+        .from(decisions)
+        .where(inArray(decisions.proposalId, Object.values(s.proposals))),
+    ).toHaveLength(3);
   });
 });

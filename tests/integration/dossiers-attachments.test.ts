@@ -41,7 +41,15 @@ const OEM = Buffer.from(
   "utf8",
 );
 
-async function upload(user: ReturnType<typeof asSessionUser>, boardId: string, proposalId: string, filename: string, contentType: string, body: Buffer, declaredSize = body.length) {
+async function upload(
+  user: ReturnType<typeof asSessionUser>,
+  boardId: string,
+  proposalId: string,
+  filename: string,
+  contentType: string,
+  body: Buffer,
+  declaredSize = body.length,
+) {
   const presigned = await presignAttachmentUpload(user, boardId, proposalId, { filename, contentType, size: declaredSize });
   const put = await fetch(presigned.uploadUrl, { method: "PUT", headers: presigned.headers, body: new Uint8Array(body) });
   expect(put.status).toBe(200);
@@ -110,9 +118,13 @@ describe("attachments", () => {
     const html = await errorOf(presignAttachmentUpload(proposer, cast.board.id, proposal.id, { filename: "page.html", contentType: "text/html", size: 10 }));
     expect(html.status).toBe(422);
     expect(html.message).toMatch(/cannot be attached/);
-    const renamed = await errorOf(presignAttachmentUpload(proposer, cast.board.id, proposal.id, { filename: "tool.exe", contentType: "application/pdf", size: 10 }));
+    const renamed = await errorOf(
+      presignAttachmentUpload(proposer, cast.board.id, proposal.id, { filename: "tool.exe", contentType: "application/pdf", size: 10 }),
+    );
     expect(renamed.status).toBe(422);
-    const huge = await errorOf(presignAttachmentUpload(proposer, cast.board.id, proposal.id, { filename: "big.pdf", contentType: "application/pdf", size: 101 * 1024 * 1024 }));
+    const huge = await errorOf(
+      presignAttachmentUpload(proposer, cast.board.id, proposal.id, { filename: "big.pdf", contentType: "application/pdf", size: 101 * 1024 * 1024 }),
+    );
     expect(huge.status).toBe(422);
     expect(huge.message).toMatch(/limited to 100 MB/);
 
@@ -128,7 +140,11 @@ describe("attachments", () => {
     const over = await errorOf(confirmAttachment(proposer, cast.board.id, capped.attachment.id, { maxBytes: 64 }));
     expect(over.status).toBe(422);
     expect(over.message).toMatch(/limited to 64 bytes/);
-    expect(await statObjectOrNull((await attachmentRow(capped.attachment.id))?.objectKey ?? `boards/${cast.board.id}/proposals/${proposal.id}/attachments/${capped.attachment.id}`)).toBeNull();
+    expect(
+      await statObjectOrNull(
+        (await attachmentRow(capped.attachment.id))?.objectKey ?? `boards/${cast.board.id}/proposals/${proposal.id}/attachments/${capped.attachment.id}`,
+      ),
+    ).toBeNull();
   });
 
   it("issues upload URLs only to the proposal's authors (404 for anyone else's proposal)", async () => {
@@ -148,7 +164,11 @@ describe("attachments", () => {
     const { cast, proposal } = await makeProposal();
     const proposer = asSessionUser(cast.proposer);
     const old = await upload(proposer, cast.board.id, proposal.id, "old.pdf", "application/pdf", PDF);
-    const neverArrived = await presignAttachmentUpload(proposer, cast.board.id, proposal.id, { filename: "lost.pdf", contentType: "application/pdf", size: 50 });
+    const neverArrived = await presignAttachmentUpload(proposer, cast.board.id, proposal.id, {
+      filename: "lost.pdf",
+      contentType: "application/pdf",
+      size: 50,
+    });
     const fresh = await upload(proposer, cast.board.id, proposal.id, "fresh.pdf", "application/pdf", PDF);
     const twoHoursAgo = new Date(Date.now() - 2 * 3600_000);
     await db().update(attachments).set({ createdAt: twoHoursAgo }).where(eq(attachments.id, old.attachment.id));
@@ -171,7 +191,10 @@ describe("attachments", () => {
     const src = attachmentContentPath(cast.board.id, presigned.attachment.id);
     const saved = await saveDraft(proposer, cast.board.id, proposal.id, {
       revision: 1,
-      document: dossierDoc([{ type: "paragraph", content: [{ type: "text", text: "Figure:" }] }, { type: "image", attrs: { src, alt: "ground track" } }]),
+      document: dossierDoc([
+        { type: "paragraph", content: [{ type: "text", text: "Figure:" }] },
+        { type: "image", attrs: { src, alt: "ground track" } },
+      ]),
     });
     expect(JSON.stringify(saved.document)).toContain(src);
     await submitProposal(proposer, cast.board.id, proposal.id);

@@ -20,10 +20,16 @@ describe("dossier API", () => {
     const path = `/api/v1/boards/${cast.board.id}/proposals/${proposal.id}/draft`;
     const loaded = await (await client.get(path)).json();
     expect(loaded.draft.revision).toBe(1);
-    const first = await client.request(path, { method: "PUT", json: { revision: 1, document: dossierDoc([{ type: "paragraph", content: [{ type: "text", text: "one" }] }]) } });
+    const first = await client.request(path, {
+      method: "PUT",
+      json: { revision: 1, document: dossierDoc([{ type: "paragraph", content: [{ type: "text", text: "one" }] }]) },
+    });
     expect(first.status).toBe(200);
     expect((await first.json()).draft.revision).toBe(2);
-    const stale = await client.request(path, { method: "PUT", json: { revision: 1, document: dossierDoc([{ type: "paragraph", content: [{ type: "text", text: "two" }] }]) } });
+    const stale = await client.request(path, {
+      method: "PUT",
+      json: { revision: 1, document: dossierDoc([{ type: "paragraph", content: [{ type: "text", text: "two" }] }]) },
+    });
     expect(stale.status).toBe(409);
     const body = await stale.json();
     expect(body.error).toMatch(/reload the latest and reapply/i);
@@ -31,14 +37,21 @@ describe("dossier API", () => {
     // Malformed and oversized bodies are 4xx, never 500.
     expect((await client.request(path, { method: "PUT", body: "{not json", headers: { "content-type": "application/json" } })).status).toBe(400);
     expect((await client.request(path, { method: "PUT", json: { revision: "x", document: [] } })).status).toBe(422);
-    const huge = await client.request(path, { method: "PUT", json: { revision: 2, document: { type: "doc", content: [{ type: "paragraph", content: [{ type: "text", text: "x".repeat(2_200_000) }] }] } } });
+    const huge = await client.request(path, {
+      method: "PUT",
+      json: { revision: 2, document: { type: "doc", content: [{ type: "paragraph", content: [{ type: "text", text: "x".repeat(2_200_000) }] }] } },
+    });
     expect(huge.status).toBe(413);
   });
 
   it("uploads through a presigned PUT, confirms, and downloads through a presigned GET", async () => {
     const { cast, proposal } = await makeProposal();
     const client = await signedIn(cast.proposer.email);
-    const presign = await client.post(`/api/v1/boards/${cast.board.id}/proposals/${proposal.id}/attachments`, { filename: "plan.pdf", contentType: "application/pdf", size: PDF.length });
+    const presign = await client.post(`/api/v1/boards/${cast.board.id}/proposals/${proposal.id}/attachments`, {
+      filename: "plan.pdf",
+      contentType: "application/pdf",
+      size: PDF.length,
+    });
     expect(presign.status).toBe(201);
     const { attachment, uploadUrl, headers } = await presign.json();
     expect((await fetch(uploadUrl, { method: "PUT", headers, body: new Uint8Array(PDF) })).status).toBe(200);
@@ -55,10 +68,18 @@ describe("dossier API", () => {
     const other = await createUser();
     await addMember(cast.board.id, other.id, "proposer");
     const otherClient = await signedIn(other.email);
-    const refused = await otherClient.post(`/api/v1/boards/${cast.board.id}/proposals/${proposal.id}/attachments`, { filename: "x.pdf", contentType: "application/pdf", size: 10 });
+    const refused = await otherClient.post(`/api/v1/boards/${cast.board.id}/proposals/${proposal.id}/attachments`, {
+      filename: "x.pdf",
+      contentType: "application/pdf",
+      size: 10,
+    });
     expect(refused.status).toBe(404);
     // A disallowed type is a 422 that names what is allowed.
-    const exe = await client.post(`/api/v1/boards/${cast.board.id}/proposals/${proposal.id}/attachments`, { filename: "tool.exe", contentType: "application/x-msdownload", size: 10 });
+    const exe = await client.post(`/api/v1/boards/${cast.board.id}/proposals/${proposal.id}/attachments`, {
+      filename: "tool.exe",
+      contentType: "application/x-msdownload",
+      size: 10,
+    });
     expect(exe.status).toBe(422);
     expect((await exe.json()).error).toMatch(/PDF, PNG, JPEG, CSV or plain text/);
   });
@@ -72,7 +93,10 @@ describe("dossier API", () => {
     const missing = await client.post(`${base}/submissions`, {});
     expect(missing.status).toBe(422);
     expect((await missing.json()).details.problems[0].message).toContain("Mission design");
-    await client.request(`${base}/draft`, { method: "PUT", json: { revision: 2, document: dossierDoc([{ type: "heading", attrs: { level: 2 }, content: [{ type: "text", text: "Mission design" }] }, bad]) } });
+    await client.request(`${base}/draft`, {
+      method: "PUT",
+      json: { revision: 2, document: dossierDoc([{ type: "heading", attrs: { level: 2 }, content: [{ type: "text", text: "Mission design" }] }, bad]) },
+    });
     const submitted = await client.post(`${base}/submissions`, { revision: 3 });
     expect(submitted.status).toBe(201);
     expect((await submitted.json()).submission).toMatchObject({ number: 1, counts: { consistent: 0, inconsistent: 1, invalid: 0 } });
@@ -91,7 +115,16 @@ describe("dossier API", () => {
   it("documents every dossier operation in the OpenAPI document", async () => {
     const client = await signedIn((await makeProposal()).cast.proposer.email);
     const doc = await (await client.get("/api/v1/openapi.json")).json();
-    for (const id of ["listCalls", "createProposal", "saveDraft", "submitProposal", "presignAttachmentUpload", "confirmAttachment", "downloadAttachment", "listCheckResults"]) {
+    for (const id of [
+      "listCalls",
+      "createProposal",
+      "saveDraft",
+      "submitProposal",
+      "presignAttachmentUpload",
+      "confirmAttachment",
+      "downloadAttachment",
+      "listCheckResults",
+    ]) {
       expect(JSON.stringify(doc.paths)).toContain(`"operationId":"${id}"`);
     }
   });

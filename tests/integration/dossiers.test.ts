@@ -5,7 +5,18 @@ import { and, eq } from "drizzle-orm";
 import { db } from "@/db/client";
 import { checkResults, decisions, outboxMessages, proposalDrafts, proposals, proposalVersions } from "@/db/schema";
 import { createCall, listCalls, updateCall } from "@/lib/dal/calls";
-import { createProposal, getDraft, getVersion, getVersionHtml, listProposals, listVersions, saveDraft, startRevisionDraft, submitProposal, versionObjectKey } from "@/lib/dal/proposals";
+import {
+  createProposal,
+  getDraft,
+  getVersion,
+  getVersionHtml,
+  listProposals,
+  listVersions,
+  saveDraft,
+  startRevisionDraft,
+  submitProposal,
+  versionObjectKey,
+} from "@/lib/dal/proposals";
 import { AppError } from "@/lib/errors";
 import { callInputSchema, proposalListQuerySchema } from "@/lib/validation/dossier";
 import { readObject, statObjectOrNull } from "@/storage/object-store";
@@ -68,8 +79,15 @@ describe("proposals and drafts", () => {
     await addMember(cast.board.id, coauthor.id, "proposer");
     const call = await makeCall(cast, { requiredSections: ["Mission design", "Propulsion"] });
     const proposer = asSessionUser(cast.proposer);
-    expect(await statusOf(createProposal(proposer, cast.board.id, { title: "Bad co", missionType: "", callId: call.id, coauthorIds: [cast.reviewer.id] }))).toBe(422);
-    const proposal = await createProposal(proposer, cast.board.id, { title: "Aurora mapper", missionType: "science", callId: call.id, coauthorIds: [coauthor.id] });
+    expect(
+      await statusOf(createProposal(proposer, cast.board.id, { title: "Bad co", missionType: "", callId: call.id, coauthorIds: [cast.reviewer.id] })),
+    ).toBe(422);
+    const proposal = await createProposal(proposer, cast.board.id, {
+      title: "Aurora mapper",
+      missionType: "science",
+      callId: call.id,
+      coauthorIds: [coauthor.id],
+    });
     const draft = await getDraft(asSessionUser(coauthor), cast.board.id, proposal.id);
     expect(draft.revision).toBe(1);
     expect(JSON.stringify(draft.document)).toContain("Propulsion");
@@ -78,14 +96,17 @@ describe("proposals and drafts", () => {
     expect(await statusOf(getDraft(asSessionUser(cast.outsider), cast.board.id, proposal.id))).toBe(404);
     expect(await statusOf(getDraft(asSessionUser(cast.chair), cast.board.id, proposal.id))).toBe(404);
     // Reviewers cannot create proposals.
-    expect(await statusOf(createProposal(asSessionUser(cast.reviewer), cast.board.id, { title: "Nope", missionType: "", callId: call.id, coauthorIds: [] }))).toBe(403);
+    expect(
+      await statusOf(createProposal(asSessionUser(cast.reviewer), cast.board.id, { title: "Nope", missionType: "", callId: call.id, coauthorIds: [] })),
+    ).toBe(403);
   });
 
   it("pages, sorts and filters the proposer's list on the server", async () => {
     const cast = await createBoardWithCast();
     const call = await makeCall(cast);
     const proposer = asSessionUser(cast.proposer);
-    for (const title of ["Charlie relay", "Alpha sounder", "Bravo imager"]) await createProposal(proposer, cast.board.id, { title, missionType: "science", callId: call.id, coauthorIds: [] });
+    for (const title of ["Charlie relay", "Alpha sounder", "Bravo imager"])
+      await createProposal(proposer, cast.board.id, { title, missionType: "science", callId: call.id, coauthorIds: [] });
     const page1 = await listProposals(proposer, cast.board.id, proposalListQuerySchema.parse({ sort: "title", dir: "asc", pageSize: "2" }));
     expect(page1.total).toBe(3);
     expect(page1.rows.map((r) => r.title)).toEqual(["Alpha sounder", "Bravo imager"]);
@@ -103,9 +124,17 @@ describe("proposals and drafts", () => {
   it("refuses a stale autosave with 409 and keeps the stored draft", async () => {
     const { cast, proposal } = await makeProposal();
     const proposer = asSessionUser(cast.proposer);
-    const first = await saveDraft(proposer, cast.board.id, proposal.id, { revision: 1, document: dossierDoc([{ type: "paragraph", content: [{ type: "text", text: "first tab" }] }]) });
+    const first = await saveDraft(proposer, cast.board.id, proposal.id, {
+      revision: 1,
+      document: dossierDoc([{ type: "paragraph", content: [{ type: "text", text: "first tab" }] }]),
+    });
     expect(first.revision).toBe(2);
-    const stale = await errorOf(saveDraft(proposer, cast.board.id, proposal.id, { revision: 1, document: dossierDoc([{ type: "paragraph", content: [{ type: "text", text: "second tab" }] }]) }));
+    const stale = await errorOf(
+      saveDraft(proposer, cast.board.id, proposal.id, {
+        revision: 1,
+        document: dossierDoc([{ type: "paragraph", content: [{ type: "text", text: "second tab" }] }]),
+      }),
+    );
     expect(stale.status).toBe(409);
     expect(stale.message).toMatch(/reload the latest and reapply/i);
     expect(stale.details).toMatchObject({ currentRevision: 2, yourRevision: 1 });
@@ -122,7 +151,11 @@ describe("proposals and drafts", () => {
       revision: 1,
       document: dossierDoc([
         { type: "rawHtml", attrs: { html: "<script>alert(1)</script>" } },
-        { type: "paragraph", attrs: { onclick: "steal()" }, content: [{ type: "text", text: "<b>plain</b>", marks: [{ type: "link", attrs: { href: "javascript:alert(1)" } }] }] },
+        {
+          type: "paragraph",
+          attrs: { onclick: "steal()" },
+          content: [{ type: "text", text: "<b>plain</b>", marks: [{ type: "link", attrs: { href: "javascript:alert(1)" } }] }],
+        },
         { type: "image", attrs: { src: "https://tracker.example.com/pixel.png" } },
       ]),
     });
@@ -162,7 +195,11 @@ describe("submission", () => {
     const proposer = asSessionUser(cast.proposer);
     const good = consistentOrbit();
     const bad = inconsistentOrbit();
-    const transfer = orbitBlock("the raise to GEO", { kind: "hohmann", body: "earth", given: { finalAltitude: 35786 }, claimed: { deltaVTotal: 3.82 } }, good.attrs.blockId);
+    const transfer = orbitBlock(
+      "the raise to GEO",
+      { kind: "hohmann", body: "earth", given: { finalAltitude: 35786 }, claimed: { deltaVTotal: 3.82 } },
+      good.attrs.blockId,
+    );
     const document = dossierDoc([
       { type: "heading", attrs: { level: 2 }, content: [{ type: "text", text: "Mission design" }] },
       { type: "paragraph", content: [{ type: "text", text: "We park, then raise. <script>x</script>" }] },
@@ -190,7 +227,9 @@ describe("submission", () => {
     expect(byBlock[good.attrs.blockId]!.status).toBe("consistent");
     expect(byBlock[bad.attrs.blockId]!.status).toBe("inconsistent");
     expect(byBlock[bad.attrs.blockId]!.label).toBe("the science orbit");
-    expect((byBlock[bad.attrs.blockId]!.result as { checks: { quantity: string; ok: boolean }[] }).checks).toEqual([expect.objectContaining({ quantity: "period", ok: false })]);
+    expect((byBlock[bad.attrs.blockId]!.result as { checks: { quantity: string; ok: boolean }[] }).checks).toEqual([
+      expect.objectContaining({ quantity: "period", ok: false }),
+    ]);
     // The transfer took its initial orbit from the parking orbit: 6378.137 + 500 km (engine's earth radius).
     expect((byBlock[transfer.attrs.blockId]!.claim as { given: Record<string, number> }).given.initialRadius).toBeCloseTo(6878.137, 3);
     expect(byBlock[transfer.attrs.blockId]!.status).toBe("consistent");
@@ -225,7 +264,12 @@ describe("submission", () => {
     const { cast, proposal, call } = await makeProposal();
     const proposer = asSessionUser(cast.proposer);
     await saveDraft(proposer, cast.board.id, proposal.id, { revision: 1, document: dossierDoc([consistentOrbit()]) });
-    await updateCall(asSessionUser(cast.chair), cast.board.id, call.id, callInputSchema.parse({ title: call.title, opensAt: new Date(Date.now() - 7200_000), closesAt: new Date(Date.now() - 60_000) }));
+    await updateCall(
+      asSessionUser(cast.chair),
+      cast.board.id,
+      call.id,
+      callInputSchema.parse({ title: call.title, opensAt: new Date(Date.now() - 7200_000), closesAt: new Date(Date.now() - 60_000) }),
+    );
     const error = await errorOf(submitProposal(proposer, cast.board.id, proposal.id));
     expect(error.status).toBe(409);
     expect(error.message).toMatch(/closed .* no longer accepts submissions/);
@@ -240,7 +284,9 @@ describe("submission", () => {
     const proposer = asSessionUser(cast.proposer);
     const saved = await saveDraft(proposer, cast.board.id, proposal.id, { revision: 1, document: dossierDoc([consistentOrbit()]) });
     // Occupy version number 1 behind the proposal's back so the insert hits the unique key.
-    await db().insert(proposalVersions).values({ proposalId: proposal.id, boardId: cast.board.id, number: 1, title: "ghost", document: {}, documentKey: "ghost", htmlKey: "ghost" });
+    await db()
+      .insert(proposalVersions)
+      .values({ proposalId: proposal.id, boardId: cast.board.id, number: 1, title: "ghost", document: {}, documentKey: "ghost", htmlKey: "ghost" });
     await expect(submitProposal(proposer, cast.board.id, proposal.id, { revision: saved.revision })).rejects.toThrow();
     expect(await statObjectOrNull(versionObjectKey(cast.board.id, proposal.id, 1, "document.json"))).toBeNull();
     expect(await statObjectOrNull(versionObjectKey(cast.board.id, proposal.id, 1, "document.html"))).toBeNull();
@@ -249,20 +295,31 @@ describe("submission", () => {
   it("after a decision to revise, seeds the draft from the decided version and submits version 2", async () => {
     const { cast, proposal } = await makeProposal();
     const proposer = asSessionUser(cast.proposer);
-    await saveDraft(proposer, cast.board.id, proposal.id, { revision: 1, document: dossierDoc([{ type: "paragraph", content: [{ type: "text", text: "version one text" }] }, consistentOrbit()]) });
+    await saveDraft(proposer, cast.board.id, proposal.id, {
+      revision: 1,
+      document: dossierDoc([{ type: "paragraph", content: [{ type: "text", text: "version one text" }] }, consistentOrbit()]),
+    });
     const first = await submitProposal(proposer, cast.board.id, proposal.id);
     await db().transaction(async (tx) => {
-      await tx.insert(decisions).values({ boardId: cast.board.id, proposalId: proposal.id, versionId: first.versionId, outcome: "revise", letter: {}, letterHtml: "", letterText: "" });
+      await tx
+        .insert(decisions)
+        .values({ boardId: cast.board.id, proposalId: proposal.id, versionId: first.versionId, outcome: "revise", letter: {}, letterHtml: "", letterText: "" });
       await tx.update(proposals).set({ status: "decided" }).where(eq(proposals.id, proposal.id));
       await startRevisionDraft(proposal.id, tx);
     });
     const draft = await getDraft(proposer, cast.board.id, proposal.id);
     expect(draft.basedOnVersion).toBe(1);
     expect(JSON.stringify(draft.document)).toContain("version one text");
-    const saved = await saveDraft(proposer, cast.board.id, proposal.id, { revision: draft.revision, document: dossierDoc([{ type: "paragraph", content: [{ type: "text", text: "version two text" }] }]) });
+    const saved = await saveDraft(proposer, cast.board.id, proposal.id, {
+      revision: draft.revision,
+      document: dossierDoc([{ type: "paragraph", content: [{ type: "text", text: "version two text" }] }]),
+    });
     const second = await submitProposal(proposer, cast.board.id, proposal.id, { revision: saved.revision });
     expect(second.number).toBe(2);
-    const [v1] = await db().select({ document: proposalVersions.document }).from(proposalVersions).where(and(eq(proposalVersions.proposalId, proposal.id), eq(proposalVersions.number, 1)));
+    const [v1] = await db()
+      .select({ document: proposalVersions.document })
+      .from(proposalVersions)
+      .where(and(eq(proposalVersions.proposalId, proposal.id), eq(proposalVersions.number, 1)));
     expect(JSON.stringify(v1!.document)).toContain("version one text");
     const [d] = await db().select({ basedOnVersion: proposalDrafts.basedOnVersion }).from(proposalDrafts).where(eq(proposalDrafts.proposalId, proposal.id));
     expect(d!.basedOnVersion).toBe(2);

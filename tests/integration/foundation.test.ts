@@ -19,7 +19,9 @@ describe("the app on its real local services", () => {
   });
 
   it("has applied every migration to the test database", async () => {
-    const rows = await db().execute(sql`select count(*)::int as n from information_schema.tables where table_name in ('users','boards','proposals','reviews','decisions','outbox_messages')`);
+    const rows = await db().execute(
+      sql`select count(*)::int as n from information_schema.tables where table_name in ('users','boards','proposals','reviews','decisions','outbox_messages')`,
+    );
     expect(rows.rows[0]).toEqual({ n: 6 });
   });
 

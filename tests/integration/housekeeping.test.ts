@@ -32,13 +32,23 @@ describe("housekeeping", () => {
     });
     const [expiredToken, usedToken, liveToken] = await db()
       .insert(accountTokens)
-      .values([token("sign-in-link", ago(10 * DAY)), token("password-reset", ago(9 * DAY), ago(10 * DAY)), token("sign-in-link", new Date(Date.now() + 600_000))])
+      .values([
+        token("sign-in-link", ago(10 * DAY)),
+        token("password-reset", ago(9 * DAY), ago(10 * DAY)),
+        token("sign-in-link", new Date(Date.now() + 600_000)),
+      ])
       .returning({ id: accountTokens.id });
     const live = await openSession(user.id, {});
     const signedOutLongAgo = await openSession(user.id, {});
     const expiredLongAgo = await openSession(user.id, {});
-    await db().update(userSessions).set({ revokedAt: ago(40 * DAY) }).where(eq(userSessions.id, signedOutLongAgo));
-    await db().update(userSessions).set({ expiresAt: ago(31 * DAY) }).where(eq(userSessions.id, expiredLongAgo));
+    await db()
+      .update(userSessions)
+      .set({ revokedAt: ago(40 * DAY) })
+      .where(eq(userSessions.id, signedOutLongAgo));
+    await db()
+      .update(userSessions)
+      .set({ expiresAt: ago(31 * DAY) })
+      .where(eq(userSessions.id, expiredLongAgo));
     const oldWindow = `test:${unique("old-window")}`;
     const openWindow = `test:${unique("open-window")}`;
     await db()
@@ -55,10 +65,34 @@ describe("housekeeping", () => {
     expect(report.rateLimitWindows).toBeGreaterThanOrEqual(1);
 
     const ids = async <T extends { id: string }>(rows: Promise<T[]>) => (await rows).map((r) => r.id).sort();
-    expect(await ids(db().select({ id: signInAttempts.id }).from(signInAttempts).where(inArray(signInAttempts.id, [oldAttempt!.id, freshAttempt!.id])))).toEqual([freshAttempt!.id]);
-    expect(await ids(db().select({ id: accountTokens.id }).from(accountTokens).where(inArray(accountTokens.id, [expiredToken!.id, usedToken!.id, liveToken!.id])))).toEqual([liveToken!.id]);
-    expect(await ids(db().select({ id: userSessions.id }).from(userSessions).where(inArray(userSessions.id, [live, signedOutLongAgo, expiredLongAgo])))).toEqual([live]);
-    const windows = await db().select({ key: rateLimitBuckets.key }).from(rateLimitBuckets).where(inArray(rateLimitBuckets.key, [oldWindow, openWindow]));
+    expect(
+      await ids(
+        db()
+          .select({ id: signInAttempts.id })
+          .from(signInAttempts)
+          .where(inArray(signInAttempts.id, [oldAttempt!.id, freshAttempt!.id])),
+      ),
+    ).toEqual([freshAttempt!.id]);
+    expect(
+      await ids(
+        db()
+          .select({ id: accountTokens.id })
+          .from(accountTokens)
+          .where(inArray(accountTokens.id, [expiredToken!.id, usedToken!.id, liveToken!.id])),
+      ),
+    ).toEqual([liveToken!.id]);
+    expect(
+      await ids(
+        db()
+          .select({ id: userSessions.id })
+          .from(userSessions)
+          .where(inArray(userSessions.id, [live, signedOutLongAgo, expiredLongAgo])),
+      ),
+    ).toEqual([live]);
+    const windows = await db()
+      .select({ key: rateLimitBuckets.key })
+      .from(rateLimitBuckets)
+      .where(inArray(rateLimitBuckets.key, [oldWindow, openWindow]));
     expect(windows.map((w) => w.key)).toEqual([openWindow]);
 
     // A second pass finds nothing more of these.

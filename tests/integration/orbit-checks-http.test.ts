@@ -104,7 +104,10 @@ describe("POST /api/v1/orbit-checks", () => {
     const [row] = await db().select({ count: rateLimitBuckets.count }).from(rateLimitBuckets).where(eq(rateLimitBuckets.key, key));
     expect(row?.count).toBe(61);
     // The decision is the database's: closing the window there lets the client in at once.
-    await db().update(rateLimitBuckets).set({ windowStart: new Date(Date.now() - 120_000) }).where(eq(rateLimitBuckets.key, key));
+    await db()
+      .update(rateLimitBuckets)
+      .set({ windowStart: new Date(Date.now() - 120_000) })
+      .where(eq(rateLimitBuckets.key, key));
     const again = await post(JSON.stringify(CONTRACT), client);
     expect(again.status).toBe(200);
     expect(again.headers.get("x-ratelimit-remaining")).toBe("59");

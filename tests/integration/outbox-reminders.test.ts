@@ -24,8 +24,14 @@ describe("review reminders", () => {
     const [first, second] = s.assignments;
     // Far in the future, at 10:00 UTC.
     const now = new Date(Date.UTC(2091, 2, 10, 10, 0, 0) + Math.floor(Math.random() * 1000) * 7 * DAY);
-    await db().update(assignments).set({ dueAt: new Date(now.getTime() + 3 * DAY + 2 * 3_600_000) }).where(eq(assignments.id, first!.id));
-    await db().update(assignments).set({ dueAt: new Date(now.getTime() + 2 * DAY) }).where(eq(assignments.id, second!.id));
+    await db()
+      .update(assignments)
+      .set({ dueAt: new Date(now.getTime() + 3 * DAY + 2 * 3_600_000) })
+      .where(eq(assignments.id, first!.id));
+    await db()
+      .update(assignments)
+      .set({ dueAt: new Date(now.getTime() + 2 * DAY) })
+      .where(eq(assignments.id, second!.id));
 
     await enqueueReviewReminders(now);
     await enqueueReviewReminders(new Date(now.getTime() + 3_600_000)); // later the same day: nothing new
@@ -48,7 +54,11 @@ describe("review reminders", () => {
     const s = await decisionScenario({ submitted: 0 });
     const [first, second] = s.assignments;
     const now = new Date(Date.UTC(2093, 6, 1, 8, 0, 0) + Math.floor(Math.random() * 1000) * 7 * DAY);
-    for (const a of s.assignments) await db().update(assignments).set({ dueAt: new Date(now.getTime() + DAY + 3_600_000) }).where(eq(assignments.id, a.id));
+    for (const a of s.assignments)
+      await db()
+        .update(assignments)
+        .set({ dueAt: new Date(now.getTime() + DAY + 3_600_000) })
+        .where(eq(assignments.id, a.id));
     await db().update(reviews).set({ status: "submitted", submittedAt: new Date() }).where(eq(reviews.assignmentId, first!.id));
     await db()
       .update(boardMembers)

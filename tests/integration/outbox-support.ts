@@ -29,7 +29,13 @@ export async function caughtFor(outboxId: string): Promise<CatcherMessage[]> {
 
 export async function rowsOf(ids: string[]) {
   return db()
-    .select({ id: outboxMessages.id, status: outboxMessages.status, attempts: outboxMessages.attempts, lastError: outboxMessages.lastError, nextAttemptAt: outboxMessages.nextAttemptAt })
+    .select({
+      id: outboxMessages.id,
+      status: outboxMessages.status,
+      attempts: outboxMessages.attempts,
+      lastError: outboxMessages.lastError,
+      nextAttemptAt: outboxMessages.nextAttemptAt,
+    })
     .from(outboxMessages)
     .where(inArray(outboxMessages.id, ids));
 }

@@ -123,7 +123,10 @@ describe("the outbox", () => {
 
   it("gives up after MAX_ATTEMPTS transient failures and records the last error", async () => {
     const id = await newMessage("exhausted");
-    await db().update(outboxMessages).set({ attempts: MAX_ATTEMPTS - 1 }).where(eq(outboxMessages.id, id));
+    await db()
+      .update(outboxMessages)
+      .set({ attempts: MAX_ATTEMPTS - 1 })
+      .where(eq(outboxMessages.id, id));
     const flaky: MailSender = {
       sendMail: async () => {
         throw Object.assign(new Error("connect ECONNREFUSED 127.0.0.1:1"), { code: "ECONNECTION" });
@@ -209,13 +212,18 @@ describe("the outbox", () => {
     const key = `tests/outbox/${unique("att")}/note.txt`;
     await writeObject(key, "attached bytes", "text/plain");
     const withFile = await newMessage("attachment", { attachments: [{ filename: "note.txt", objectKey: key, contentType: "text/plain" }] });
-    const missing = await newMessage("missing", { attachments: [{ filename: "gone.pdf", objectKey: `tests/outbox/${unique("none")}/gone.pdf`, contentType: "application/pdf" }] });
+    const missing = await newMessage("missing", {
+      attachments: [{ filename: "gone.pdf", objectKey: `tests/outbox/${unique("none")}/gone.pdf`, contentType: "application/pdf" }],
+    });
     await deliver([withFile]);
     const [caught] = await caughtFor(withFile);
     expect(caught?.attachments.map((a) => [a.filename, Buffer.from(a.contentBase64, "base64").toString()])).toEqual([["note.txt", "attached bytes"]]);
     expect(await processOutbox({ ids: [missing], now: AFTER })).toEqual({ sent: 0, retried: 0, failed: 1 });
     expect((await rowsOf([missing]))[0]?.lastError).toMatch(/gone\.pdf is missing/);
-    const statuses = await db().select({ status: outboxMessages.status }).from(outboxMessages).where(inArray(outboxMessages.id, [withFile, missing]));
+    const statuses = await db()
+      .select({ status: outboxMessages.status })
+      .from(outboxMessages)
+      .where(inArray(outboxMessages.id, [withFile, missing]));
     expect(statuses.map((s) => s.status).sort()).toEqual(["failed", "sent"]);
   });
 });

@@ -48,12 +48,20 @@ describe("password reset", () => {
     const ip = unique("198.51.100");
     await requestPasswordReset({ email: user.email }, { ipAddress: ip });
     const token = await resetLinkTokenFor(user.email);
-    await db().update(accountTokens).set({ expiresAt: new Date(Date.now() - 1000) }).where(eq(accountTokens.email, user.email));
+    await db()
+      .update(accountTokens)
+      .set({ expiresAt: new Date(Date.now() - 1000) })
+      .where(eq(accountTokens.email, user.email));
     await expect(resetPassword({ token, password: NEW_PASSWORD, confirmPassword: NEW_PASSWORD })).rejects.toMatchObject({ status: 422 });
 
     const nobody = `${unique("nobody")}@example.org`;
     expect(await requestPasswordReset({ email: nobody }, { ipAddress: ip })).toEqual({ message: PASSWORD_RESET_SENT });
-    expect(await db().select().from(outboxMessages).where(eq(outboxMessages.toAddresses, [nobody]))).toEqual([]);
+    expect(
+      await db()
+        .select()
+        .from(outboxMessages)
+        .where(eq(outboxMessages.toAddresses, [nobody])),
+    ).toEqual([]);
   });
 
   it("limits requests per address", async () => {

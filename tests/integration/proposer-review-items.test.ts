@@ -40,7 +40,15 @@ describe("the proposal page shows review items to the proposer after the decisio
     const before = await (await proposer.get(path)).text();
     expect(before).not.toContain("Period disagrees with the stated altitude");
 
-    await db().insert(decisions).values({ boardId: round.board.id, proposalId: round.proposal.id, versionId: round.version.id, outcome: "revise", letter: {}, letterHtml: "", letterText: "" });
+    await db().insert(decisions).values({
+      boardId: round.board.id,
+      proposalId: round.proposal.id,
+      versionId: round.version.id,
+      outcome: "revise",
+      letter: {},
+      letterHtml: "",
+      letterText: "",
+    });
     const response = await proposer.get(path);
     expect(response.status).toBe(200);
     const after = await response.text();

@@ -22,7 +22,16 @@ import { getCallRubric, saveCallRubric } from "@/lib/dal/rubrics";
 import { dossierPlainText } from "@/lib/dossier";
 import { makeAnchor } from "@/lib/review/anchors";
 import { asSessionUser, createUser } from "../support/factories";
-import { addCoauthor, createProposalWithVersion, createReviewRound, dossierDocument, HOHMANN_BLOCK, inFuture, PERIOD_BLOCK, rubricInput } from "./review-fixtures";
+import {
+  addCoauthor,
+  createProposalWithVersion,
+  createReviewRound,
+  dossierDocument,
+  HOHMANN_BLOCK,
+  inFuture,
+  PERIOD_BLOCK,
+  rubricInput,
+} from "./review-fixtures";
 
 const status = async (promise: Promise<unknown>) => {
   try {
@@ -39,11 +48,27 @@ const fullScores = (science: number, feasibility: number, cost: number, comment 
   cost: { score: cost, comment: "" },
 });
 
-async function assignAndSubmit(round: Awaited<ReturnType<typeof createReviewRound>>, reviewer: { id: string; email: string; name: string; isAdmin: boolean }, s: [number, number, number]) {
+async function assignAndSubmit(
+  round: Awaited<ReturnType<typeof createReviewRound>>,
+  reviewer: { id: string; email: string; name: string; isAdmin: boolean },
+  s: [number, number, number],
+) {
   const chair = asSessionUser(round.chair);
   const r = asSessionUser(reviewer);
-  const result = await assignReviewers(chair, round.board.id, { proposalIds: [round.proposal.id], reviewerIds: [reviewer.id], dueAt: inFuture(), confirmLikelyConflicts: true });
-  const assignmentId = result.created[0]?.assignmentId ?? (await db().select({ id: assignments.id }).from(assignments).where(and(eq(assignments.reviewerId, reviewer.id), eq(assignments.proposalId, round.proposal.id))))[0]!.id;
+  const result = await assignReviewers(chair, round.board.id, {
+    proposalIds: [round.proposal.id],
+    reviewerIds: [reviewer.id],
+    dueAt: inFuture(),
+    confirmLikelyConflicts: true,
+  });
+  const assignmentId =
+    result.created[0]?.assignmentId ??
+    (
+      await db()
+        .select({ id: assignments.id })
+        .from(assignments)
+        .where(and(eq(assignments.reviewerId, reviewer.id), eq(assignments.proposalId, round.proposal.id)))
+    )[0]!.id;
   const saved = await saveReviewDraft(r, round.board.id, assignmentId, { revision: 0, scores: fullScores(...s, "Weak science case"), summary: "" });
   await submitReview(r, round.board.id, assignmentId, { revision: saved.revision });
   return assignmentId;
@@ -57,7 +82,10 @@ describe("rubric templates", () => {
     expect(first.rubric).toMatchObject({ version: 1, frozenAt: null });
 
     const off = { ...rubricInput, criteria: rubricInput.criteria.map((c) => (c.id === "cost" ? { ...c, weight: 19 } : c)) };
-    await expect(saveCallRubric(chair, round.board.id, round.call.id, off)).rejects.toMatchObject({ status: 422, message: expect.stringContaining("The weights add up to 99 %") });
+    await expect(saveCallRubric(chair, round.board.id, round.call.id, off)).rejects.toMatchObject({
+      status: 422,
+      message: expect.stringContaining("The weights add up to 99 %"),
+    });
     expect((await getCallRubric(chair, round.board.id, round.call.id)).rubric!.criteria.find((c) => c.id === "cost")!.weight).toBe(20);
 
     // Unfrozen: edited in place.
@@ -65,8 +93,17 @@ describe("rubric templates", () => {
     expect(edited).toMatchObject({ version: 1, createdVersion: false, name: "Renamed rubric" });
 
     // A reviewer starts: the template freezes; the next edit makes version 2 and the call points at it.
-    const { created } = await assignReviewers(chair, round.board.id, { proposalIds: [round.proposal.id], reviewerIds: [round.reviewer2.id], dueAt: inFuture(), confirmLikelyConflicts: false });
-    await saveReviewDraft(asSessionUser(round.reviewer2), round.board.id, created[0]!.assignmentId, { revision: 0, scores: { science: { score: 4, comment: "" } }, summary: "" });
+    const { created } = await assignReviewers(chair, round.board.id, {
+      proposalIds: [round.proposal.id],
+      reviewerIds: [round.reviewer2.id],
+      dueAt: inFuture(),
+      confirmLikelyConflicts: false,
+    });
+    await saveReviewDraft(asSessionUser(round.reviewer2), round.board.id, created[0]!.assignmentId, {
+      revision: 0,
+      scores: { science: { score: 4, comment: "" } },
+      summary: "",
+    });
     expect((await getCallRubric(chair, round.board.id, round.call.id)).rubric!.frozenAt).not.toBeNull();
     const v2 = await saveCallRubric(chair, round.board.id, round.call.id, { ...rubricInput, name: "Second edition" });
     expect(v2).toMatchObject({ version: 2, createdVersion: true });
@@ -142,12 +179,19 @@ describe("conflicts of interest and assignment", () => {
     const round = await createReviewRound();
     const chair = asSessionUser(round.chair);
     const second = await createProposalWithVersion({ boardId: round.board.id, callId: round.call.id, ownerId: round.proposer.id });
-    const input = { proposalIds: [round.proposal.id, second.proposal.id], reviewerIds: [round.reviewer2.id, round.reviewer3.id], dueAt: inFuture(), confirmLikelyConflicts: false };
+    const input = {
+      proposalIds: [round.proposal.id, second.proposal.id],
+      reviewerIds: [round.reviewer2.id, round.reviewer3.id],
+      dueAt: inFuture(),
+      confirmLikelyConflicts: false,
+    };
     const result = await assignReviewers(chair, round.board.id, input);
     expect(result.created).toHaveLength(4);
     const again = await assignReviewers(chair, round.board.id, input);
     expect(again).toMatchObject({ created: [], existing: expect.arrayContaining([{ proposalId: round.proposal.id, reviewerId: round.reviewer2.id }]) });
-    const mail = (await db().select().from(outboxMessages).where(eq(outboxMessages.boardId, round.board.id))).filter((m) => m.dedupeKey.startsWith("assignment:"));
+    const mail = (await db().select().from(outboxMessages).where(eq(outboxMessages.boardId, round.board.id))).filter((m) =>
+      m.dedupeKey.startsWith("assignment:"),
+    );
     expect(mail.filter((m) => m.dedupeKey.startsWith("assignment:"))).toHaveLength(4);
     expect(mail.map((m) => m.dedupeKey).sort()).toEqual(result.created.map((c) => `assignment:${c.assignmentId}`).sort());
     expect(mail.find((m) => m.toAddresses[0] === round.reviewer2.email)!.text).toContain("/review");
@@ -178,7 +222,12 @@ describe("reviews", () => {
     const round = await createReviewRound();
     const chair = asSessionUser(round.chair);
     const reviewer = asSessionUser(round.reviewer2);
-    const { created } = await assignReviewers(chair, round.board.id, { proposalIds: [round.proposal.id], reviewerIds: [round.reviewer2.id], dueAt: inFuture(), confirmLikelyConflicts: false });
+    const { created } = await assignReviewers(chair, round.board.id, {
+      proposalIds: [round.proposal.id],
+      reviewerIds: [round.reviewer2.id],
+      dueAt: inFuture(),
+      confirmLikelyConflicts: false,
+    });
     const assignmentId = created[0]!.assignmentId;
 
     // Someone else's assignment is invisible to another reviewer.
@@ -195,16 +244,24 @@ describe("reviews", () => {
     expect(screen.version.html).toContain(`data-block-id="${HOHMANN_BLOCK}"`);
     expect(screen.version.plainText).toContain("95.6 minutes");
 
-    const first = await saveReviewDraft(reviewer, round.board.id, assignmentId, { revision: 0, scores: { science: { score: 4, comment: "" } }, summary: "Good start" });
+    const first = await saveReviewDraft(reviewer, round.board.id, assignmentId, {
+      revision: 0,
+      scores: { science: { score: 4, comment: "" } },
+      summary: "Good start",
+    });
     expect(first).toMatchObject({ status: "draft", revision: 1, weightedTotal: 4 });
 
     // Stale revision: 409 with the saved state, nothing changed.
-    await expect(saveReviewDraft(reviewer, round.board.id, assignmentId, { revision: 0, scores: { science: { score: 1, comment: "" } }, summary: "" })).rejects.toMatchObject({
+    await expect(
+      saveReviewDraft(reviewer, round.board.id, assignmentId, { revision: 0, scores: { science: { score: 1, comment: "" } }, summary: "" }),
+    ).rejects.toMatchObject({
       status: 409,
       details: { review: { revision: 1 } },
     });
     // A score outside the scale: 422, nothing changed.
-    await expect(saveReviewDraft(reviewer, round.board.id, assignmentId, { revision: 1, scores: { science: { score: 7, comment: "" } }, summary: "" })).rejects.toMatchObject({
+    await expect(
+      saveReviewDraft(reviewer, round.board.id, assignmentId, { revision: 1, scores: { science: { score: 7, comment: "" } }, summary: "" }),
+    ).rejects.toMatchObject({
       status: 422,
       message: '"Science return": 7 is outside the scale 1..5.',
     });
@@ -212,20 +269,30 @@ describe("reviews", () => {
     expect(kept).toMatchObject({ revision: 1, summary: "Good start", scores: { science: { score: 4, comment: "" } } });
 
     // Submitting with a low science score and no comment, and a criterion unscored: 422 listing both.
-    const second = await saveReviewDraft(reviewer, round.board.id, assignmentId, { revision: 1, scores: { science: { score: 2, comment: "" }, feasibility: { score: 3, comment: "" } }, summary: "" });
+    const second = await saveReviewDraft(reviewer, round.board.id, assignmentId, {
+      revision: 1,
+      scores: { science: { score: 2, comment: "" }, feasibility: { score: 3, comment: "" } },
+      summary: "",
+    });
     await expect(submitReview(reviewer, round.board.id, assignmentId, { revision: second.revision })).rejects.toMatchObject({
       status: 422,
       message: expect.stringMatching(/a score below 3 needs a comment.*"Cost realism" is not scored yet/),
     });
 
-    const third = await saveReviewDraft(reviewer, round.board.id, assignmentId, { revision: second.revision, scores: fullScores(2, 3, 5, "Thin science case"), summary: "Solid engineering." });
+    const third = await saveReviewDraft(reviewer, round.board.id, assignmentId, {
+      revision: second.revision,
+      scores: fullScores(2, 3, 5, "Thin science case"),
+      summary: "Solid engineering.",
+    });
     // 50·2 + 30·3 + 20·5 = 100 + 90 + 100 = 290 → 2.9
     expect(third.weightedTotal).toBeCloseTo(2.9, 6);
     const submitted = await submitReview(reviewer, round.board.id, assignmentId, { revision: third.revision });
     expect(submitted).toMatchObject({ status: "submitted", weightedTotal: 2.9 });
 
     // Editing a submitted review: 409.
-    await expect(saveReviewDraft(reviewer, round.board.id, assignmentId, { revision: submitted.revision, scores: fullScores(5, 5, 5), summary: "" })).rejects.toMatchObject({
+    await expect(
+      saveReviewDraft(reviewer, round.board.id, assignmentId, { revision: submitted.revision, scores: fullScores(5, 5, 5), summary: "" }),
+    ).rejects.toMatchObject({
       status: 409,
       message: expect.stringContaining("submitted and locked"),
     });
@@ -233,9 +300,16 @@ describe("reviews", () => {
     expect(await status(reopenReview(reviewer, round.board.id, assignmentId, { reason: "let me fix it" }))).toBe(403);
     const reopened = await reopenReview(chair, round.board.id, assignmentId, { reason: "Cost score was entered on the wrong criterion" });
     expect(reopened.status).toBe("draft");
-    const audit = await db().select().from(auditEvents).where(and(eq(auditEvents.boardId, round.board.id), eq(auditEvents.action, "review.reopen")));
+    const audit = await db()
+      .select()
+      .from(auditEvents)
+      .where(and(eq(auditEvents.boardId, round.board.id), eq(auditEvents.action, "review.reopen")));
     expect(audit[0]!.details).toMatchObject({ reason: "Cost score was entered on the wrong criterion" });
-    const again = await saveReviewDraft(reviewer, round.board.id, assignmentId, { revision: reopened.revision, scores: fullScores(2, 4, 5, "Thin science case"), summary: "" });
+    const again = await saveReviewDraft(reviewer, round.board.id, assignmentId, {
+      revision: reopened.revision,
+      scores: fullScores(2, 4, 5, "Thin science case"),
+      summary: "",
+    });
     expect(again.status).toBe("draft");
 
     const queue = await listReviewQueue(reviewer, round.board.id);
@@ -250,16 +324,28 @@ describe("reviews", () => {
       dueAt: inFuture(),
       confirmLikelyConflicts: false,
     });
-    await declareConflict(asSessionUser(round.reviewer2), round.board.id, { proposalId: round.proposal.id, reason: "Discovered a family tie to the lead author" });
+    await declareConflict(asSessionUser(round.reviewer2), round.board.id, {
+      proposalId: round.proposal.id,
+      reason: "Discovered a family tie to the lead author",
+    });
     expect(await status(getReviewScreen(asSessionUser(round.reviewer2), round.board.id, created[0]!.assignmentId))).toBe(404);
-    expect(await status(saveReviewDraft(asSessionUser(round.reviewer2), round.board.id, created[0]!.assignmentId, { revision: 0, scores: {}, summary: "" }))).toBe(404);
+    expect(
+      await status(saveReviewDraft(asSessionUser(round.reviewer2), round.board.id, created[0]!.assignmentId, { revision: 0, scores: {}, summary: "" })),
+    ).toBe(404);
     expect((await listReviewQueue(asSessionUser(round.reviewer2), round.board.id))[0]!.conflicted).toBe(true);
   });
 
   it("refuses to start a review before the chair sets up the rubric", async () => {
     const round = await createReviewRound({ rubric: false });
-    const { created } = await assignReviewers(asSessionUser(round.chair), round.board.id, { proposalIds: [round.proposal.id], reviewerIds: [round.reviewer2.id], dueAt: inFuture(), confirmLikelyConflicts: false });
-    await expect(saveReviewDraft(asSessionUser(round.reviewer2), round.board.id, created[0]!.assignmentId, { revision: 0, scores: {}, summary: "" })).rejects.toMatchObject({
+    const { created } = await assignReviewers(asSessionUser(round.chair), round.board.id, {
+      proposalIds: [round.proposal.id],
+      reviewerIds: [round.reviewer2.id],
+      dueAt: inFuture(),
+      confirmLikelyConflicts: false,
+    });
+    await expect(
+      saveReviewDraft(asSessionUser(round.reviewer2), round.board.id, created[0]!.assignmentId, { revision: 0, scores: {}, summary: "" }),
+    ).rejects.toMatchObject({
       status: 409,
       message: expect.stringContaining("has not set up the rubric"),
     });
@@ -267,9 +353,16 @@ describe("reviews", () => {
 
   it("stores a note on an orbit-check verdict and removes it when emptied", async () => {
     const round = await createReviewRound();
-    const { created } = await assignReviewers(asSessionUser(round.chair), round.board.id, { proposalIds: [round.proposal.id], reviewerIds: [round.reviewer2.id], dueAt: inFuture(), confirmLikelyConflicts: false });
+    const { created } = await assignReviewers(asSessionUser(round.chair), round.board.id, {
+      proposalIds: [round.proposal.id],
+      reviewerIds: [round.reviewer2.id],
+      dueAt: inFuture(),
+      confirmLikelyConflicts: false,
+    });
     const reviewer = asSessionUser(round.reviewer2);
-    const saved = await saveCheckNote(reviewer, round.board.id, created[0]!.assignmentId, round.checks.inconsistent.id, { note: "Explained in section 4: finite-burn losses." });
+    const saved = await saveCheckNote(reviewer, round.board.id, created[0]!.assignmentId, round.checks.inconsistent.id, {
+      note: "Explained in section 4: finite-burn losses.",
+    });
     expect(saved.review.revision).toBe(1);
     const screen = await getReviewScreen(reviewer, round.board.id, created[0]!.assignmentId);
     expect(screen.checks.find((c) => c.blockId === HOHMANN_BLOCK)!.note).toBe("Explained in section 4: finite-burn losses.");
@@ -328,11 +421,27 @@ describe("review items", () => {
     const from = text.indexOf("95.6 minutes");
     const anchor = makeAnchor(text, from, from + 12);
 
-    await expect(createReviewItem(r2, round.board.id, { proposalId: round.proposal.id, severity: "major", title: "Period", body: "Check", anchor: { ...anchor, from: text.length, to: text.length + 5 } })).rejects.toMatchObject({
+    await expect(
+      createReviewItem(r2, round.board.id, {
+        proposalId: round.proposal.id,
+        severity: "major",
+        title: "Period",
+        body: "Check",
+        anchor: { ...anchor, from: text.length, to: text.length + 5 },
+      }),
+    ).rejects.toMatchObject({
       status: 422,
       message: expect.stringContaining("lies outside the dossier text"),
     });
-    await expect(createReviewItem(r2, round.board.id, { proposalId: round.proposal.id, severity: "major", title: "Period", body: "Check", anchor: { ...anchor, quote: "96.5 minutes" } })).rejects.toMatchObject({
+    await expect(
+      createReviewItem(r2, round.board.id, {
+        proposalId: round.proposal.id,
+        severity: "major",
+        title: "Period",
+        body: "Check",
+        anchor: { ...anchor, quote: "96.5 minutes" },
+      }),
+    ).rejects.toMatchObject({
       status: 422,
     });
     expect(await db().select().from(reviewItems).where(eq(reviewItems.proposalId, round.proposal.id))).toEqual([]);
@@ -349,7 +458,9 @@ describe("review items", () => {
     expect(item.authorLabel).toMatch(/\(you\)$/);
 
     // Visibility: the chair sees it; the other reviewer only after submitting their own (board shares); the proposer only after a decision.
-    expect((await listReviewItems(asSessionUser(round.chair), round.board.id, round.proposal.id)).map((i) => i.authorLabel)).toEqual([`Reviewer 1 · ${round.reviewer2.name}`]);
+    expect((await listReviewItems(asSessionUser(round.chair), round.board.id, round.proposal.id)).map((i) => i.authorLabel)).toEqual([
+      `Reviewer 1 · ${round.reviewer2.name}`,
+    ]);
     expect(await listReviewItems(asSessionUser(round.reviewer3), round.board.id, round.proposal.id)).toEqual([]);
     expect(await status(getReviewItem(asSessionUser(round.reviewer3), round.board.id, item.id))).toBe(404);
     expect(await listReviewItems(asSessionUser(round.proposer), round.board.id, round.proposal.id)).toEqual([]);
@@ -361,7 +472,15 @@ describe("review items", () => {
     await replyToReviewItem(r3, round.board.id, item.id, { body: "Agreed; 95.7 min with the standard Earth radius." });
 
     // After a decision on the version, the proposer sees the item with reviewers numbered, never named.
-    await db().insert(decisions).values({ boardId: round.board.id, proposalId: round.proposal.id, versionId: round.version.id, outcome: "revise", letter: {}, letterHtml: "", letterText: "" });
+    await db().insert(decisions).values({
+      boardId: round.board.id,
+      proposalId: round.proposal.id,
+      versionId: round.version.id,
+      outcome: "revise",
+      letter: {},
+      letterHtml: "",
+      letterText: "",
+    });
     const seen = await listReviewItems(asSessionUser(round.proposer), round.board.id, round.proposal.id);
     expect(seen).toHaveLength(1);
     expect(seen[0]!.authorLabel).toBe("Reviewer 1");
@@ -389,13 +508,29 @@ describe("review items", () => {
 
     const text = dossierPlainText(dossierDocument(round.proposal.title));
     const from = text.indexOf("141 m/s");
-    await createReviewItem(asSessionUser(round.reviewer2), round.board.id, { proposalId: round.proposal.id, severity: "minor", title: "Δv", body: "Recheck.", anchor: makeAnchor(text, from, from + 7) });
+    await createReviewItem(asSessionUser(round.reviewer2), round.board.id, {
+      proposalId: round.proposal.id,
+      severity: "minor",
+      title: "Δv",
+      body: "Recheck.",
+      anchor: makeAnchor(text, from, from + 7),
+    });
     const r3 = asSessionUser(round.reviewer3);
     const saved = await saveReviewDraft(r3, round.board.id, created[1]!.assignmentId, { revision: 0, scores: fullScores(4, 4, 4), summary: "" });
     await submitReview(r3, round.board.id, created[1]!.assignmentId, { revision: saved.revision });
     expect(await listReviewItems(r3, round.board.id, round.proposal.id)).toEqual([]);
     // A submitted reviewer cannot raise more items until reopened.
-    expect(await status(createReviewItem(r3, round.board.id, { proposalId: round.proposal.id, severity: "comment", title: "x", body: "y", anchor: makeAnchor(text, from, from + 7) }))).toBe(409);
+    expect(
+      await status(
+        createReviewItem(r3, round.board.id, {
+          proposalId: round.proposal.id,
+          severity: "comment",
+          title: "x",
+          body: "y",
+          anchor: makeAnchor(text, from, from + 7),
+        }),
+      ),
+    ).toBe(409);
     // An unassigned reviewer cannot open the proposal at all.
     const stranger = await createUser();
     const { addMember } = await import("../support/factories");

@@ -22,10 +22,24 @@ export const dossierDocument = (tag: string, blocks = { period: PERIOD_BLOCK, ho
         { type: "text", text: " and the station-keeping budget is 18 m/s per year." },
       ],
     },
-    { type: "orbitCheck", attrs: { blockId: blocks.period, label: "Operational orbit period", claim: { kind: "orbit", body: "earth", given: { altitude: 550 }, claimed: { period: 5736 } } } },
+    {
+      type: "orbitCheck",
+      attrs: {
+        blockId: blocks.period,
+        label: "Operational orbit period",
+        claim: { kind: "orbit", body: "earth", given: { altitude: 550 }, claimed: { period: 5736 } },
+      },
+    },
     { type: "heading", attrs: { level: 2 }, content: [{ type: "text", text: "Transfer" }] },
     { type: "paragraph", content: [{ type: "text", text: "A Hohmann transfer raises the orbit from 300 km to 550 km with a total of 141 m/s." }] },
-    { type: "orbitCheck", attrs: { blockId: blocks.hohmann, label: "Raising transfer", claim: { kind: "hohmann", body: "earth", given: { initialAltitude: 300, finalAltitude: 550 }, claimed: { deltaVTotal: 0.2 } } } },
+    {
+      type: "orbitCheck",
+      attrs: {
+        blockId: blocks.hohmann,
+        label: "Raising transfer",
+        claim: { kind: "hohmann", body: "earth", given: { initialAltitude: 300, finalAltitude: 550 }, claimed: { deltaVTotal: 0.2 } },
+      },
+    },
   ],
 });
 
@@ -65,15 +79,37 @@ export const rubricInput = {
   ],
 };
 
-export async function createProposalWithVersion(options: { boardId: string; callId: string; ownerId: string; title?: string; status?: "submitted" | "in_review" | "draft" }) {
+export async function createProposalWithVersion(options: {
+  boardId: string;
+  callId: string;
+  ownerId: string;
+  title?: string;
+  status?: "submitted" | "in_review" | "draft";
+}) {
   const title = options.title ?? unique("Proposal");
   const [proposal] = await db()
     .insert(proposals)
-    .values({ boardId: options.boardId, callId: options.callId, ownerId: options.ownerId, title, missionType: "earth observation", status: options.status ?? "submitted", latestVersion: 1 })
+    .values({
+      boardId: options.boardId,
+      callId: options.callId,
+      ownerId: options.ownerId,
+      title,
+      missionType: "earth observation",
+      status: options.status ?? "submitted",
+      latestVersion: 1,
+    })
     .returning();
   const [version] = await db()
     .insert(proposalVersions)
-    .values({ proposalId: proposal!.id, boardId: options.boardId, number: 1, title, document: dossierDocument(title), documentKey: `test/${proposal!.id}/1.json`, htmlKey: `test/${proposal!.id}/1.html` })
+    .values({
+      proposalId: proposal!.id,
+      boardId: options.boardId,
+      number: 1,
+      title,
+      document: dossierDocument(title),
+      documentKey: `test/${proposal!.id}/1.json`,
+      htmlKey: `test/${proposal!.id}/1.html`,
+    })
     .returning();
   const [consistent, inconsistent] = await db()
     .insert(checkResults)
@@ -86,7 +122,11 @@ export async function createProposalWithVersion(options: { boardId: string; call
         kind: "orbit",
         status: "consistent",
         claim: { kind: "orbit" },
-        result: { status: "consistent", checks: [{ quantity: "period", claimed: 5736, computed: 5739.5, unit: "s", relativeError: 0.0006, ok: true }], messages: [] },
+        result: {
+          status: "consistent",
+          checks: [{ quantity: "period", claimed: 5736, computed: 5739.5, unit: "s", relativeError: 0.0006, ok: true }],
+          messages: [],
+        },
       },
       {
         versionId: version!.id,
@@ -96,7 +136,11 @@ export async function createProposalWithVersion(options: { boardId: string; call
         kind: "hohmann",
         status: "inconsistent",
         claim: { kind: "hohmann" },
-        result: { status: "inconsistent", checks: [{ quantity: "deltaVTotal", claimed: 0.2, computed: 0.1433, unit: "km/s", relativeError: 0.396, ok: false }], messages: [] },
+        result: {
+          status: "inconsistent",
+          checks: [{ quantity: "deltaVTotal", claimed: 0.2, computed: 0.1433, unit: "km/s", relativeError: 0.396, ok: false }],
+          messages: [],
+        },
       },
     ])
     .returning();
@@ -115,7 +159,13 @@ export async function createReviewRound(options: { hideProposerNames?: boolean; 
   }
   const [call] = await db()
     .insert(calls)
-    .values({ boardId: cast.board.id, title: unique("Call for small missions"), opensAt: new Date(Date.now() - 86_400_000), closesAt: new Date(Date.now() + 30 * 86_400_000), reviewersPerProposal: 2 })
+    .values({
+      boardId: cast.board.id,
+      title: unique("Call for small missions"),
+      opensAt: new Date(Date.now() - 86_400_000),
+      closesAt: new Date(Date.now() + 30 * 86_400_000),
+      reviewersPerProposal: 2,
+    })
     .returning();
   if (options.rubric !== false) await saveCallRubric(asSessionUser(cast.chair), cast.board.id, call!.id, rubricInput);
   const { proposal, version, checks } = await createProposalWithVersion({ boardId: cast.board.id, callId: call!.id, ownerId: cast.proposer.id });

@@ -29,12 +29,20 @@ describe("review API over HTTP", () => {
 
     const conflicted = await signedIn(round.reviewer3.email);
     expect((await conflicted.post(`${board}/conflicts`, { proposalId: round.proposal.id, reason: "Shared a grant with the lead author" })).status).toBe(201);
-    const refused = await chair.post(`${board}/assignments`, { proposalIds: [round.proposal.id], reviewerIds: [round.reviewer2.id, round.reviewer3.id], dueAt: inFuture().toISOString() });
+    const refused = await chair.post(`${board}/assignments`, {
+      proposalIds: [round.proposal.id],
+      reviewerIds: [round.reviewer2.id, round.reviewer3.id],
+      dueAt: inFuture().toISOString(),
+    });
     expect(refused.status).toBe(409);
     expect((await refused.json()).error).toMatch(/^Conflicted reviewers cannot be assigned/);
     expect(await db().select().from(assignments).where(eq(assignments.proposalId, round.proposal.id))).toEqual([]);
 
-    const assigned = await chair.post(`${board}/assignments`, { proposalIds: [round.proposal.id], reviewerIds: [round.reviewer2.id], dueAt: inFuture().toISOString() });
+    const assigned = await chair.post(`${board}/assignments`, {
+      proposalIds: [round.proposal.id],
+      reviewerIds: [round.reviewer2.id],
+      dueAt: inFuture().toISOString(),
+    });
     expect(assigned.status).toBe(201);
     const assignmentId = (await assigned.json()).created[0].assignmentId as string;
 
@@ -58,7 +66,11 @@ describe("review API over HTTP", () => {
 
     const full = await reviewer.request(url, {
       method: "PUT",
-      json: { revision: 1, scores: { science: { score: 4, comment: "" }, feasibility: { score: 3, comment: "" }, cost: { score: 5, comment: "" } }, summary: "Sound." },
+      json: {
+        revision: 1,
+        scores: { science: { score: 4, comment: "" }, feasibility: { score: 3, comment: "" }, cost: { score: 5, comment: "" } },
+        summary: "Sound.",
+      },
     });
     const submitted = await reviewer.post(`${url}/submit`, { revision: (await full.json()).review.revision });
     expect(submitted.status).toBe(200);
@@ -76,7 +88,13 @@ describe("review API over HTTP", () => {
     expect(outside.status).toBe(422);
     expect((await outside.json()).error).toContain("lies outside the dossier text");
     const from = text.indexOf("18 m/s");
-    const item = await chair.post(`${board}/review-items`, { proposalId: round.proposal.id, severity: "minor", title: "Station keeping", body: "Justify 18 m/s.", anchor: makeAnchor(text, from, from + 6) });
+    const item = await chair.post(`${board}/review-items`, {
+      proposalId: round.proposal.id,
+      severity: "minor",
+      title: "Station keeping",
+      body: "Justify 18 m/s.",
+      anchor: makeAnchor(text, from, from + 6),
+    });
     expect(item.status).toBe(201);
     expect(await db().select().from(reviewItems).where(eq(reviewItems.proposalId, round.proposal.id))).toHaveLength(1);
 
@@ -97,9 +115,13 @@ describe("review API over HTTP", () => {
     expect((await chair.get(`${board}/reviews/not-a-uuid`)).status).toBe(404);
     expect((await chair.get(`${board}/assignments`)).status).toBe(400);
     expect((await chair.get(`${board}/review-items?proposalId=nope`)).status).toBe(400);
-    expect((await chair.request(`${board}/rubrics/${round.call.id}`, { method: "PUT", body: "{not json", headers: { "content-type": "application/json" } })).status).toBe(400);
+    expect(
+      (await chair.request(`${board}/rubrics/${round.call.id}`, { method: "PUT", body: "{not json", headers: { "content-type": "application/json" } })).status,
+    ).toBe(400);
     expect((await chair.post(`${board}/conflicts`, { reason: "no target" })).status).toBe(422);
     const doc = await (await chair.get("/api/v1/openapi.json")).json();
-    expect(Object.keys(doc.paths)).toEqual(expect.arrayContaining(["/api/v1/boards/{boardId}/reviews/{assignmentId}", "/api/v1/boards/{boardId}/calls/{callId}/overview/csv"]));
+    expect(Object.keys(doc.paths)).toEqual(
+      expect.arrayContaining(["/api/v1/boards/{boardId}/reviews/{assignmentId}", "/api/v1/boards/{boardId}/calls/{callId}/overview/csv"]),
+    );
   });
 });

@@ -44,6 +44,8 @@ describe("start-up faults give actionable messages", () => {
     const env = { PATH: process.env.PATH ?? "", HOME: process.env.HOME ?? "/tmp" } as unknown as NodeJS.ProcessEnv;
     const result = spawnSync(process.execPath, [tsx, "scripts/start.ts"], { cwd: root, encoding: "utf8", env });
     expect(result.status).toBe(1);
-    expect(result.stderr).toContain("missing environment variables: DATABASE_URL, S3_ENDPOINT, S3_ACCESS_KEY, S3_SECRET_KEY, S3_BUCKET, SMTP_URL, APP_URL, NEXTAUTH_SECRET");
+    expect(result.stderr).toContain(
+      "missing environment variables: DATABASE_URL, S3_ENDPOINT, S3_ACCESS_KEY, S3_SECRET_KEY, S3_BUCKET, SMTP_URL, APP_URL, NEXTAUTH_SECRET",
+    );
   });
 });

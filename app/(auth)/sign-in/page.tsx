@@ -15,7 +15,12 @@ const knownCodes: Record<string, string> = {
   SessionRequired: "Sign in to continue.",
   Default: "Signing in did not work. Try again.",
 };
-const ownMessages = [/^Too many failed sign-in attempts\. Try again in \d+ minutes? \(retry after \d+ s\)\.$/, /^That e-mail and password do not match an active account\.$/, /^Enter your e-mail and password\.$/, /^This sign-in link is invalid, already used or expired\. Ask for a new one\.$/];
+const ownMessages = [
+  /^Too many failed sign-in attempts\. Try again in \d+ minutes? \(retry after \d+ s\)\.$/,
+  /^That e-mail and password do not match an active account\.$/,
+  /^Enter your e-mail and password\.$/,
+  /^This sign-in link is invalid, already used or expired\. Ask for a new one\.$/,
+];
 
 function errorText(error: string | undefined): string | null {
   if (!error) return null;
@@ -41,7 +46,12 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
         <details className="mt-6 border-t border-ink-100 pt-4">
           <summary className="cursor-pointer text-sm font-semibold text-trajectory-700">Forgot your password?</summary>
           <div className="mt-3">
-            <EmailRequestForm action={requestPasswordResetAction} formLabel="E-mail me a link to choose a new password" fieldLabel="Account e-mail" buttonLabel="E-mail me a reset link" />
+            <EmailRequestForm
+              action={requestPasswordResetAction}
+              formLabel="E-mail me a link to choose a new password"
+              fieldLabel="Account e-mail"
+              buttonLabel="E-mail me a reset link"
+            />
           </div>
         </details>
       </section>

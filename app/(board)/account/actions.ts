@@ -9,6 +9,4 @@ export const changePasswordAction = action(changePasswordSchema, async (input, u
   changePassword(user, input, { ipAddress: await actionClientAddress() }),
 );
 
-export const revokeOtherSessionsAction = action(z.object({}), async (_input, user) =>
-  signOutOtherSessions(user, { ipAddress: await actionClientAddress() }),
-);
+export const revokeOtherSessionsAction = action(z.object({}), async (_input, user) => signOutOtherSessions(user, { ipAddress: await actionClientAddress() }));

@@ -4,6 +4,4 @@ import { actionClientAddress } from "@/lib/auth/page-guard";
 import { createBoard } from "@/lib/dal/boards";
 import { createBoardSchema } from "@/lib/validation/accounts";
 
-export const createBoardAction = action(createBoardSchema, async (input, user) =>
-  createBoard(user, input, { ipAddress: await actionClientAddress() }),
-);
+export const createBoardAction = action(createBoardSchema, async (input, user) => createBoard(user, input, { ipAddress: await actionClientAddress() }));

@@ -9,10 +9,7 @@ export const dynamic = "force-dynamic";
 
 async function probe(check: () => Promise<unknown>): Promise<string> {
   try {
-    await Promise.race([
-      check(),
-      new Promise((_, reject) => setTimeout(() => reject(new Error("no answer within 5 s")), 5_000)),
-    ]);
+    await Promise.race([check(), new Promise((_, reject) => setTimeout(() => reject(new Error("no answer within 5 s")), 5_000))]);
     return "ok";
   } catch (error) {
     return error instanceof Error ? error.message : String(error);
@@ -21,11 +18,7 @@ async function probe(check: () => Promise<unknown>): Promise<string> {
 
 /** Liveness of the three services the app depends on; 200 when all are ok, 503 otherwise. */
 export async function GET() {
-  const [database, objectStore, mail] = await Promise.all([
-    probe(() => db().execute(sql`select 1`)),
-    probe(checkObjectStore),
-    probe(checkMailTransport),
-  ]);
+  const [database, objectStore, mail] = await Promise.all([probe(() => db().execute(sql`select 1`)), probe(checkObjectStore), probe(checkMailTransport)]);
   const ok = database === "ok" && objectStore === "ok" && mail === "ok";
   return NextResponse.json(
     { status: ok ? "ok" : "degraded", version: packageJson.version, services: { database, objectStore, mail } },

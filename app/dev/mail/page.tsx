@@ -33,7 +33,12 @@ export default async function CaughtMailPage() {
               </dl>
               <pre className="mt-3 whitespace-pre-wrap rounded-chip bg-ink-50 p-3 font-mono text-xs">{m.text}</pre>
               {m.html ? (
-                <iframe title={`HTML body of ${m.subject}`} sandbox="" srcDoc={m.html} className="mt-3 h-80 w-full rounded-chip border border-ink-200 bg-white" />
+                <iframe
+                  title={`HTML body of ${m.subject}`}
+                  sandbox=""
+                  srcDoc={m.html}
+                  className="mt-3 h-80 w-full rounded-chip border border-ink-200 bg-white"
+                />
               ) : null}
             </details>
           </li>

@@ -19,10 +19,10 @@ export default function OrbitCheckToolPage() {
       <header className="space-y-2">
         <h1 className="text-2xl font-semibold">Orbit check</h1>
         <p className="max-w-3xl text-ink-700">
-          Paste an orbit-check request and see, claim by claim, what the engine recomputes and whether each claimed value holds
-          within the tolerance. The same engine runs at <code className="font-mono text-sm">POST /api/v1/orbit-checks</code>, on
-          the command line (<code className="font-mono text-sm">npm run --silent orbit-check &lt; request.json</code>) and on every
-          dossier submission. Nothing you type here leaves your browser.
+          Paste an orbit-check request and see, claim by claim, what the engine recomputes and whether each claimed value holds within the tolerance. The same
+          engine runs at <code className="font-mono text-sm">POST /api/v1/orbit-checks</code>, on the command line (
+          <code className="font-mono text-sm">npm run --silent orbit-check &lt; request.json</code>) and on every dossier submission. Nothing you type here
+          leaves your browser.
         </p>
       </header>
       <OrbitCheckConsole examples={examples} />

@@ -43,13 +43,18 @@ export function MailLayout({ content }: { content: MailContent }) {
           ) : null}
           {content.action ? (
             <Section style={{ margin: "24px 0" }}>
-              <Button href={content.action.url} style={{ backgroundColor: colours.brand, color: "#ffffff", padding: "12px 20px", borderRadius: "6px", fontWeight: 600 }}>
+              <Button
+                href={content.action.url}
+                style={{ backgroundColor: colours.brand, color: "#ffffff", padding: "12px 20px", borderRadius: "6px", fontWeight: 600 }}
+              >
                 {content.action.label}
               </Button>
             </Section>
           ) : null}
           <Hr style={{ borderColor: colours.rule }} />
-          <Text style={{ color: colours.muted, fontSize: "12px" }}>{content.footnote ?? "You receive this because you take part in a review board on VisViva."}</Text>
+          <Text style={{ color: colours.muted, fontSize: "12px" }}>
+            {content.footnote ?? "You receive this because you take part in a review board on VisViva."}
+          </Text>
         </Container>
       </Body>
     </Html>

@@ -14,14 +14,23 @@ export function renderDecisionMail(input: {
     subject: `Decision on “${input.proposalTitle}” (version ${input.versionNumber}): ${input.outcomeLabel}`,
     preview: `${input.boardName} has decided: ${input.outcomeLabel}.`,
     heading: `Decision: ${input.outcomeLabel}`,
-    paragraphs: [`${input.boardName} has decided on version ${input.versionNumber} of “${input.proposalTitle}”. The letter follows; the same letter is attached as a PDF.`],
+    paragraphs: [
+      `${input.boardName} has decided on version ${input.versionNumber} of “${input.proposalTitle}”. The letter follows; the same letter is attached as a PDF.`,
+    ],
     body: { html: input.letterHtml, text: input.letterText },
     action: { label: "Open the decision", url: input.url },
     footnote: "You receive this because you are an author of this proposal.",
   });
 }
 
-export function renderSubmissionReceipt(input: { boardName: string; callTitle: string; proposalTitle: string; versionNumber: number; submittedAt: Date; url: string }) {
+export function renderSubmissionReceipt(input: {
+  boardName: string;
+  callTitle: string;
+  proposalTitle: string;
+  versionNumber: number;
+  submittedAt: Date;
+  url: string;
+}) {
   const when = input.submittedAt.toISOString().replace("T", " ").slice(0, 16);
   return renderMail({
     subject: `Received: “${input.proposalTitle}”, version ${input.versionNumber}`,
@@ -36,7 +45,14 @@ export function renderSubmissionReceipt(input: { boardName: string; callTitle: s
   });
 }
 
-export function renderReviewerAssignment(input: { boardName: string; proposalTitle: string; versionNumber: number; dueAt: Date; url: string; resubmission?: boolean }) {
+export function renderReviewerAssignment(input: {
+  boardName: string;
+  proposalTitle: string;
+  versionNumber: number;
+  dueAt: Date;
+  url: string;
+  resubmission?: boolean;
+}) {
   return renderMail({
     subject: `${input.resubmission ? "Resubmission to review" : "Review requested"}: “${input.proposalTitle}”`,
     preview: `Due ${input.dueAt.toISOString().slice(0, 10)}.`,

@@ -17,7 +17,10 @@ const decision = z.object({
   decidedAt: z.string(),
   decidedByName: z.string().nullable(),
   hasPdf: z.boolean(),
-  mail: z.object({ status: z.string(), attempts: z.number().int(), lastError: z.string().nullable() }).nullable().describe("The letter e-mail's outbox state (chair only)"),
+  mail: z
+    .object({ status: z.string(), attempts: z.number().int(), lastError: z.string().nullable() })
+    .nullable()
+    .describe("The letter e-mail's outbox state (chair only)"),
 });
 
 const outboxRow = z.object({

@@ -29,7 +29,14 @@ const criterion = z.object({
   levels: z.array(z.string()),
   commentRequiredBelow: z.number().int().nullable(),
 });
-const rubric = z.object({ id: z.uuid(), callId: z.uuid(), version: z.number().int(), name: z.string(), criteria: z.array(criterion), frozenAt: z.string().nullable() });
+const rubric = z.object({
+  id: z.uuid(),
+  callId: z.uuid(),
+  version: z.number().int(),
+  name: z.string(),
+  criteria: z.array(criterion),
+  frozenAt: z.string().nullable(),
+});
 const scores = z.record(z.string(), z.object({ score: z.number().nullable(), comment: z.string() }));
 const reviewState = z.object({
   id: z.uuid().nullable(),
@@ -93,7 +100,11 @@ export const reviewOperations = defineOperations([
     summary: "The rubric a call's reviews use, with earlier template versions",
     tag: "rubrics",
     access: "signed-in",
-    response: z.object({ call: z.object({ id: z.uuid(), title: z.string(), reviewersPerProposal: z.number().int() }), rubric: rubric.nullable(), history: z.array(z.object({}).loose()) }),
+    response: z.object({
+      call: z.object({ id: z.uuid(), title: z.string(), reviewersPerProposal: z.number().int() }),
+      rubric: rubric.nullable(),
+      history: z.array(z.object({}).loose()),
+    }),
   },
   {
     method: "put",
@@ -105,7 +116,15 @@ export const reviewOperations = defineOperations([
     body: rubricInput,
     response: z.object({ rubric: rubric.extend({ createdVersion: z.boolean() }) }),
   },
-  { method: "get", path: `${board}/conflicts`, operationId: "listConflicts", summary: "Declared conflicts: your own, or every reviewer's for chairs", tag: "conflicts", access: "signed-in", response: z.object({ conflicts: z.array(conflictView) }) },
+  {
+    method: "get",
+    path: `${board}/conflicts`,
+    operationId: "listConflicts",
+    summary: "Declared conflicts: your own, or every reviewer's for chairs",
+    tag: "conflicts",
+    access: "signed-in",
+    response: z.object({ conflicts: z.array(conflictView) }),
+  },
   {
     method: "post",
     path: `${board}/conflicts`,
@@ -123,9 +142,21 @@ export const reviewOperations = defineOperations([
     summary: "Submitted proposals a reviewer may declare a conflict with (titles and organisations)",
     tag: "conflicts",
     access: "signed-in",
-    response: z.object({ proposals: z.array(z.object({ id: z.uuid(), title: z.string(), organisations: z.array(z.string()), authors: z.array(z.string()).nullable(), declared: z.boolean() })) }),
+    response: z.object({
+      proposals: z.array(
+        z.object({ id: z.uuid(), title: z.string(), organisations: z.array(z.string()), authors: z.array(z.string()).nullable(), declared: z.boolean() }),
+      ),
+    }),
   },
-  { method: "delete", path: `${board}/conflicts/{conflictId}`, operationId: "withdrawConflict", summary: "Withdraw one of your declarations", tag: "conflicts", access: "signed-in", response: z.object({ ok: z.literal(true) }) },
+  {
+    method: "delete",
+    path: `${board}/conflicts/{conflictId}`,
+    operationId: "withdrawConflict",
+    summary: "Withdraw one of your declarations",
+    tag: "conflicts",
+    access: "signed-in",
+    response: z.object({ ok: z.literal(true) }),
+  },
   {
     method: "get",
     path: `${board}/assignments`,
@@ -134,7 +165,12 @@ export const reviewOperations = defineOperations([
     tag: "assignments",
     access: "signed-in",
     query: callQuery,
-    response: z.object({ call: z.object({}).loose(), proposals: z.array(z.object({}).loose()), reviewers: z.array(z.object({}).loose()), conflicts: z.record(z.string(), z.array(finding)) }),
+    response: z.object({
+      call: z.object({}).loose(),
+      proposals: z.array(z.object({}).loose()),
+      reviewers: z.array(z.object({}).loose()),
+      conflicts: z.record(z.string(), z.array(finding)),
+    }),
   },
   {
     method: "post",
@@ -177,7 +213,9 @@ export const reviewOperations = defineOperations([
     summary: "One review with the version it reviews (rendered), the rubric and the server's orbit-check verdicts",
     tag: "reviews",
     access: "signed-in",
-    response: z.object({ review: reviewState, rubric: rubric.nullable(), checks: z.array(z.object({}).loose()), canEdit: z.boolean(), canReopen: z.boolean() }).loose(),
+    response: z
+      .object({ review: reviewState, rubric: rubric.nullable(), checks: z.array(z.object({}).loose()), canEdit: z.boolean(), canReopen: z.boolean() })
+      .loose(),
   },
   {
     method: "put",
@@ -243,7 +281,15 @@ export const reviewOperations = defineOperations([
     response: z.object({ item }),
     errors: { 409: "Your review of this version is submitted" },
   },
-  { method: "get", path: `${board}/review-items/{itemId}`, operationId: "getReviewItem", summary: "One review item with its thread", tag: "review items", access: "signed-in", response: z.object({ item }) },
+  {
+    method: "get",
+    path: `${board}/review-items/{itemId}`,
+    operationId: "getReviewItem",
+    summary: "One review item with its thread",
+    tag: "review items",
+    access: "signed-in",
+    response: z.object({ item }),
+  },
   {
     method: "patch",
     path: `${board}/review-items/{itemId}`,

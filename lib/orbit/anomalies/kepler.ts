@@ -139,9 +139,7 @@ export function meanFromEccentric(E: number, e: number): number {
 export function hyperbolicFromTrue(theta: number, e: number): number {
   const limit = Math.acos(-1 / e);
   if (!(Math.abs(theta) < limit))
-    fail(
-      `true anomaly ${fmt((theta * 180) / Math.PI)}° lies beyond the asymptote of this hyperbola (±${fmt((limit * 180) / Math.PI)}° for e = ${fmt(e)})`,
-    );
+    fail(`true anomaly ${fmt((theta * 180) / Math.PI)}° lies beyond the asymptote of this hyperbola (±${fmt((limit * 180) / Math.PI)}° for e = ${fmt(e)})`);
   // tanh(H/2) = √((e−1)/(e+1))·tan(θ/2).
   return 2 * Math.atanh(Math.sqrt((e - 1) / (e + 1)) * Math.tan(theta / 2));
 }

@@ -14,7 +14,10 @@ export const NO_ABSOLUTE = { km: 0, "km/s": 0, deg: 0, s: 0, kg: 0, "deg/day": 0
 export function expectBook(claim: Record<string, unknown>, relative: number, absolute: Record<string, number> = {}): ClaimResult {
   const r = evaluateClaim({ ...claim, tolerance: { relative, absolute: { ...NO_ABSOLUTE, ...absolute } } });
   const claimed = Object.keys((claim.claimed as Record<string, unknown>) ?? {});
-  expect(r.messages.filter((m) => m.includes("cannot derive") || m.includes("must be")), JSON.stringify(r.messages)).toEqual([]);
+  expect(
+    r.messages.filter((m) => m.includes("cannot derive") || m.includes("must be")),
+    JSON.stringify(r.messages),
+  ).toEqual([]);
   expect(r.checks.map((c) => c.quantity).sort()).toEqual(claimed.sort());
   for (const c of r.checks) expect(c.ok, `${c.quantity}: claimed ${JSON.stringify(c.claimed)} computed ${JSON.stringify(c.computed)}`).toBe(true);
   expect(r.status).toBe("consistent");

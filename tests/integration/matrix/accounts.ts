@@ -22,9 +22,23 @@ const signedIn = <T>(ok: T, anonymous: T): Expect<T> => ({ anonymous, outsider: 
 /** Members of the board (admins too); the outsider, a chair of another board, gets 404. */
 const boardMembers = <T>(ok: T, anonymous: T, hidden: T): Expect<T> => ({ anonymous, outsider: hidden, proposer: ok, reviewer: ok, chair: ok, admin: ok });
 /** The board's chairs and admins; proposers and reviewers 403, the outsider 404. */
-const chairs = <T>(ok: T, anonymous: T, forbidden: T, hidden: T): Expect<T> => ({ anonymous, outsider: hidden, proposer: forbidden, reviewer: forbidden, chair: ok, admin: ok });
+const chairs = <T>(ok: T, anonymous: T, forbidden: T, hidden: T): Expect<T> => ({
+  anonymous,
+  outsider: hidden,
+  proposer: forbidden,
+  reviewer: forbidden,
+  chair: ok,
+  admin: ok,
+});
 /** Site admins only. */
-const admins = <T>(ok: T, anonymous: T, forbidden: T): Expect<T> => ({ anonymous, outsider: forbidden, proposer: forbidden, reviewer: forbidden, chair: forbidden, admin: ok });
+const admins = <T>(ok: T, anonymous: T, forbidden: T): Expect<T> => ({
+  anonymous,
+  outsider: forbidden,
+  proposer: forbidden,
+  reviewer: forbidden,
+  chair: forbidden,
+  admin: ok,
+});
 const everyone = <T>(ok: T): Expect<T> => ({ anonymous: ok, outsider: ok, proposer: ok, reviewer: ok, chair: ok, admin: ok });
 
 async function extraMember(cast: MatrixCast, role: "proposer" | "reviewer" | "chair" = "reviewer") {
@@ -36,7 +50,14 @@ async function pendingInvitation(cast: MatrixCast) {
   const { token, tokenHash } = newToken();
   const [row] = await db()
     .insert(invitations)
-    .values({ boardId: cast.board.id, email: `${unique("matrix-invitee")}@example.org`, role: "proposer", tokenHash, invitedBy: cast.chair.id, expiresAt: new Date(Date.now() + 86_400_000) })
+    .values({
+      boardId: cast.board.id,
+      email: `${unique("matrix-invitee")}@example.org`,
+      role: "proposer",
+      tokenHash,
+      invitedBy: cast.chair.id,
+      expiresAt: new Date(Date.now() + 86_400_000),
+    })
     .returning({ id: invitations.id });
   return { id: row!.id, token };
 }
@@ -124,14 +145,18 @@ export const accountActionCases: ActionCase[] = [
   },
   {
     action: "app/(auth)/invitations/[token]/actions.ts#acceptInvitationAction",
-    run: async (_user, cast) => acceptInvitation({ token: (await pendingInvitation(cast)).token, name: "Matrix Invitee", password: "matrix invitee passphrase" }),
+    run: async (_user, cast) =>
+      acceptInvitation({ token: (await pendingInvitation(cast)).token, name: "Matrix Invitee", password: "matrix invitee passphrase" }),
     expect: everyone<Outcome>("allow"),
   },
   {
     action: "app/(auth)/boards/[boardId]/register/actions.ts#registerProposerAction",
     run: async (_user, cast) => {
       await db().update(boards).set({ openRegistration: true }).where(eq(boards.id, cast.board.id));
-      return registerProposer({ board: cast.board.slug, email: `${unique("self")}@example.org`, name: "Self Registered", password: "self registered passphrase" }, { ipAddress: someAddress() });
+      return registerProposer(
+        { board: cast.board.slug, email: `${unique("self")}@example.org`, name: "Self Registered", password: "self registered passphrase" },
+        { ipAddress: someAddress() },
+      );
     },
     expect: everyone<Outcome>("allow"),
   },

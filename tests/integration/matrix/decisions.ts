@@ -35,14 +35,31 @@ async function failedMessage() {
   const key = unique("matrix-failed");
   const [row] = await db()
     .insert(outboxMessages)
-    .values({ kind: "matrix-test", dedupeKey: key, toAddresses: [`${key}@test.example.org`], subject: key, html: key, text: key, status: "failed", attempts: 12, lastError: "550 refused" })
+    .values({
+      kind: "matrix-test",
+      dedupeKey: key,
+      toAddresses: [`${key}@test.example.org`],
+      subject: key,
+      html: key,
+      text: key,
+      status: "failed",
+      attempts: 12,
+      lastError: "550 refused",
+    })
     .returning({ id: outboxMessages.id });
   return row!.id;
 }
 
 async function resubmitted(cast: MatrixCast) {
   const s = await decided(cast);
-  await addVersion(cast.board, s.proposal, 2, dossierDoc("Revised text.", [parkingOrbitBlock(s.blockIds.parkingId, "the parking orbit", 5864)]), [], cast.proposer.id);
+  await addVersion(
+    cast.board,
+    s.proposal,
+    2,
+    dossierDoc("Revised text.", [parkingOrbitBlock(s.blockIds.parkingId, "the parking orbit", 5864)]),
+    [],
+    cast.proposer.id,
+  );
   await db().update(proposals).set({ status: "submitted", latestVersion: 2 }).where(eq(proposals.id, s.proposal.id));
   return s;
 }
@@ -91,7 +108,8 @@ const decisionPage = "app/(board)/boards/[boardId]/proposals/[proposalId]/decisi
 export const decisionActionCases: ActionCase[] = [
   {
     action: `${decisionPage}#previewDecisionAction`,
-    run: async (user, cast) => previewDecision(signedIn(user), cast.board.id, (await ready(cast)).proposal.id, { outcome: "accept", letter: DEFAULT_LETTER_TEMPLATE }),
+    run: async (user, cast) =>
+      previewDecision(signedIn(user), cast.board.id, (await ready(cast)).proposal.id, { outcome: "accept", letter: DEFAULT_LETTER_TEMPLATE }),
     expect: chairAction,
   },
   {

@@ -32,7 +32,12 @@ export async function makeCall(cast: Cast, options: { requiredSections?: string[
 export async function makeProposal(options: { requiredSections?: string[]; cast?: Cast } = {}) {
   const cast = options.cast ?? (await createBoardWithCast());
   const call = await makeCall(cast, options);
-  const proposal = await createProposal(asSessionUser(cast.proposer), cast.board.id, { title: unique("Proposal"), missionType: "science", callId: call.id, coauthorIds: [] });
+  const proposal = await createProposal(asSessionUser(cast.proposer), cast.board.id, {
+    title: unique("Proposal"),
+    missionType: "science",
+    callId: call.id,
+    coauthorIds: [],
+  });
   return { cast, call, proposal };
 }
 
@@ -62,20 +67,22 @@ async function confirmedAttachment(cast: Cast) {
   const id = crypto.randomUUID();
   const objectKey = `boards/${cast.board.id}/proposals/${proposal.id}/attachments/${id}`;
   await writeObject(objectKey, "hello", "text/plain");
-  await db().insert(attachments).values({
-    id,
-    proposalId: proposal.id,
-    boardId: cast.board.id,
-    objectKey,
-    filename: "note.txt",
-    declaredType: "text/plain",
-    detectedType: "text/plain",
-    declaredSize: 5,
-    size: 5,
-    sha256: crypto.createHash("sha256").update("hello").digest("hex"),
-    status: "confirmed",
-    confirmedAt: new Date(),
-  });
+  await db()
+    .insert(attachments)
+    .values({
+      id,
+      proposalId: proposal.id,
+      boardId: cast.board.id,
+      objectKey,
+      filename: "note.txt",
+      declaredType: "text/plain",
+      detectedType: "text/plain",
+      declaredSize: 5,
+      size: 5,
+      sha256: crypto.createHash("sha256").update("hello").digest("hex"),
+      status: "confirmed",
+      confirmedAt: new Date(),
+    });
   return { proposal, attachmentId: id };
 }
 
@@ -84,7 +91,9 @@ async function pendingAttachment(cast: Cast) {
   const id = crypto.randomUUID();
   const objectKey = `boards/${cast.board.id}/proposals/${proposal.id}/attachments/${id}`;
   await writeObject(objectKey, "orbit notes\n", "text/plain");
-  await db().insert(attachments).values({ id, proposalId: proposal.id, boardId: cast.board.id, objectKey, filename: "notes.txt", declaredType: "text/plain", declaredSize: 12 });
+  await db()
+    .insert(attachments)
+    .values({ id, proposalId: proposal.id, boardId: cast.board.id, objectKey, filename: "notes.txt", declaredType: "text/plain", declaredSize: 12 });
   return { proposal, attachmentId: id };
 }
 
@@ -120,16 +129,27 @@ export const dossierRouteCases: RouteCase[] = [
   { operationId: "listProposals", prepare: async (cast) => ({ path: `${board(cast)}/proposals`, query: { pageSize: "5" } }), expect: members },
   {
     operationId: "createProposal",
-    prepare: async (cast) => ({ path: `${board(cast)}/proposals`, body: { title: unique("Matrix proposal"), missionType: "science", callId: (await makeCall(cast)).id } }),
+    prepare: async (cast) => ({
+      path: `${board(cast)}/proposals`,
+      body: { title: unique("Matrix proposal"), missionType: "science", callId: (await makeCall(cast)).id },
+    }),
     expect: { anonymous: 401, outsider: 404, proposer: 201, reviewer: 403, chair: 403, admin: 201 },
   },
-  { operationId: "getProposal", prepare: async (cast) => ({ path: `${board(cast)}/proposals/${(await makeProposal({ cast })).proposal.id}` }), expect: viewers },
+  {
+    operationId: "getProposal",
+    prepare: async (cast) => ({ path: `${board(cast)}/proposals/${(await makeProposal({ cast })).proposal.id}` }),
+    expect: viewers,
+  },
   {
     operationId: "updateProposal",
     prepare: async (cast) => ({ path: `${board(cast)}/proposals/${(await makeProposal({ cast })).proposal.id}`, body: { title: unique("Renamed") } }),
     expect: authors,
   },
-  { operationId: "getDraft", prepare: async (cast) => ({ path: `${board(cast)}/proposals/${(await makeProposal({ cast })).proposal.id}/draft` }), expect: authors },
+  {
+    operationId: "getDraft",
+    prepare: async (cast) => ({ path: `${board(cast)}/proposals/${(await makeProposal({ cast })).proposal.id}/draft` }),
+    expect: authors,
+  },
   {
     operationId: "saveDraft",
     prepare: async (cast) => ({
@@ -143,15 +163,31 @@ export const dossierRouteCases: RouteCase[] = [
     prepare: async (cast) => ({ path: `${board(cast)}/proposals/${(await makeProposal({ cast })).proposal.id}/submissions`, body: {} }),
     expect: { ...authors, proposer: 201, admin: 201 },
   },
-  { operationId: "listVersions", prepare: async (cast) => ({ path: `${board(cast)}/proposals/${(await submittedProposal(cast)).id}/versions` }), expect: viewers },
-  { operationId: "getVersion", prepare: async (cast) => ({ path: `${board(cast)}/proposals/${(await submittedProposal(cast)).id}/versions/1` }), expect: viewers },
-  { operationId: "getVersionHtml", prepare: async (cast) => ({ path: `${board(cast)}/proposals/${(await submittedProposal(cast)).id}/versions/1/html` }), expect: viewers },
+  {
+    operationId: "listVersions",
+    prepare: async (cast) => ({ path: `${board(cast)}/proposals/${(await submittedProposal(cast)).id}/versions` }),
+    expect: viewers,
+  },
+  {
+    operationId: "getVersion",
+    prepare: async (cast) => ({ path: `${board(cast)}/proposals/${(await submittedProposal(cast)).id}/versions/1` }),
+    expect: viewers,
+  },
+  {
+    operationId: "getVersionHtml",
+    prepare: async (cast) => ({ path: `${board(cast)}/proposals/${(await submittedProposal(cast)).id}/versions/1/html` }),
+    expect: viewers,
+  },
   {
     operationId: "listCheckResults",
     prepare: async (cast) => ({ path: `${board(cast)}/proposals/${(await submittedProposal(cast)).id}/versions/1/check-results` }),
     expect: viewers,
   },
-  { operationId: "listAttachments", prepare: async (cast) => ({ path: `${board(cast)}/proposals/${(await makeProposal({ cast })).proposal.id}/attachments` }), expect: viewers },
+  {
+    operationId: "listAttachments",
+    prepare: async (cast) => ({ path: `${board(cast)}/proposals/${(await makeProposal({ cast })).proposal.id}/attachments` }),
+    expect: viewers,
+  },
   {
     operationId: "presignAttachmentUpload",
     prepare: async (cast) => ({

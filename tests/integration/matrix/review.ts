@@ -27,10 +27,22 @@ async function round(cast: MatrixCast) {
     .values({ boardId: cast.board.id, title: unique("Call"), opensAt: new Date(Date.now() - 86_400_000), closesAt: new Date(Date.now() + 86_400_000 * 20) })
     .returning();
   await saveCallRubric(asSessionUser(cast.chair), cast.board.id, call!.id, rubricInput);
-  const { proposal, version, checks } = await createProposalWithVersion({ boardId: cast.board.id, callId: call!.id, ownerId: cast.proposer.id, status: "in_review" });
+  const { proposal, version, checks } = await createProposalWithVersion({
+    boardId: cast.board.id,
+    callId: call!.id,
+    ownerId: cast.proposer.id,
+    status: "in_review",
+  });
   const [assignment] = await db()
     .insert(assignments)
-    .values({ boardId: cast.board.id, proposalId: proposal.id, versionId: version.id, reviewerId: cast.reviewer.id, dueAt: inFuture(), assignedBy: cast.chair.id })
+    .values({
+      boardId: cast.board.id,
+      proposalId: proposal.id,
+      versionId: version.id,
+      reviewerId: cast.reviewer.id,
+      dueAt: inFuture(),
+      assignedBy: cast.chair.id,
+    })
     .returning();
   return { call: call!, proposal, version, checks, assignmentId: assignment!.id };
 }
@@ -57,7 +69,11 @@ async function itemByReviewer(cast: MatrixCast) {
 
 export const reviewRouteCases: RouteCase[] = [
   { operationId: "getCallRubric", prepare: async (cast) => ({ path: `${board(cast)}/rubrics/${(await round(cast)).call.id}` }), expect: members },
-  { operationId: "saveCallRubric", prepare: async (cast) => ({ path: `${board(cast)}/rubrics/${(await round(cast)).call.id}`, body: rubricInput }), expect: chairsOnly },
+  {
+    operationId: "saveCallRubric",
+    prepare: async (cast) => ({ path: `${board(cast)}/rubrics/${(await round(cast)).call.id}`, body: rubricInput }),
+    expect: chairsOnly,
+  },
   { operationId: "listConflicts", prepare: async (cast) => ({ path: `${board(cast)}/conflicts` }), expect: { ...reviewerOnly, chair: 200 } },
   {
     operationId: "declareConflict",
@@ -74,17 +90,28 @@ export const reviewRouteCases: RouteCase[] = [
     // Only the declaring reviewer can withdraw; for an admin it is someone else's declaration.
     expect: { ...reviewerOnly, admin: 404 },
   },
-  { operationId: "getAssignmentBoard", prepare: async (cast) => ({ path: `${board(cast)}/assignments`, query: { callId: (await round(cast)).call.id } }), expect: chairsOnly },
+  {
+    operationId: "getAssignmentBoard",
+    prepare: async (cast) => ({ path: `${board(cast)}/assignments`, query: { callId: (await round(cast)).call.id } }),
+    expect: chairsOnly,
+  },
   {
     operationId: "assignReviewers",
     prepare: async (cast) => {
       const r = await round(cast);
       const second = await createProposalWithVersion({ boardId: cast.board.id, callId: r.call.id, ownerId: cast.proposer.id });
-      return { path: `${board(cast)}/assignments`, body: { proposalIds: [second.proposal.id], reviewerIds: [cast.reviewer.id], dueAt: inFuture().toISOString(), confirmLikelyConflicts: true } };
+      return {
+        path: `${board(cast)}/assignments`,
+        body: { proposalIds: [second.proposal.id], reviewerIds: [cast.reviewer.id], dueAt: inFuture().toISOString(), confirmLikelyConflicts: true },
+      };
     },
     expect: { ...chairsOnly, chair: 201, admin: 201 },
   },
-  { operationId: "removeAssignment", prepare: async (cast) => ({ path: `${board(cast)}/assignments/${(await round(cast)).assignmentId}` }), expect: chairsOnly },
+  {
+    operationId: "removeAssignment",
+    prepare: async (cast) => ({ path: `${board(cast)}/assignments/${(await round(cast)).assignmentId}` }),
+    expect: chairsOnly,
+  },
   { operationId: "listReviews", prepare: async (cast) => ({ path: `${board(cast)}/reviews` }), expect: members },
   {
     operationId: "getReview",
@@ -93,7 +120,10 @@ export const reviewRouteCases: RouteCase[] = [
   },
   {
     operationId: "saveReviewDraft",
-    prepare: async (cast) => ({ path: `${board(cast)}/reviews/${(await round(cast)).assignmentId}`, body: { revision: 0, scores: { science: { score: 4, comment: "" } }, summary: "" } }),
+    prepare: async (cast) => ({
+      path: `${board(cast)}/reviews/${(await round(cast)).assignmentId}`,
+      body: { revision: 0, scores: { science: { score: 4, comment: "" } }, summary: "" },
+    }),
     expect: ownReview,
   },
   {
@@ -123,14 +153,24 @@ export const reviewRouteCases: RouteCase[] = [
     },
     expect: ownReview,
   },
-  { operationId: "listReviewItems", prepare: async (cast) => ({ path: `${board(cast)}/review-items`, query: { proposalId: (await round(cast)).proposal.id } }), expect: members },
+  {
+    operationId: "listReviewItems",
+    prepare: async (cast) => ({ path: `${board(cast)}/review-items`, query: { proposalId: (await round(cast)).proposal.id } }),
+    expect: members,
+  },
   {
     operationId: "createReviewItem",
     prepare: async (cast) => {
       const r = await round(cast);
       return {
         path: `${board(cast)}/review-items`,
-        body: { proposalId: r.proposal.id, severity: "major", title: "Period", body: "Inconsistent with the altitude.", anchor: await anchorFor(r.proposal.title) },
+        body: {
+          proposalId: r.proposal.id,
+          severity: "major",
+          title: "Period",
+          body: "Inconsistent with the altitude.",
+          anchor: await anchorFor(r.proposal.title),
+        },
       };
     },
     expect: { anonymous: 401, outsider: 404, proposer: 403, reviewer: 201, chair: 201, admin: 201 },
@@ -152,5 +192,9 @@ export const reviewRouteCases: RouteCase[] = [
     expect: { anonymous: 401, outsider: 404, proposer: 404, reviewer: 201, chair: 201, admin: 201 },
   },
   { operationId: "getCallOverview", prepare: async (cast) => ({ path: `${board(cast)}/calls/${(await round(cast)).call.id}/overview` }), expect: chairsOnly },
-  { operationId: "getCallOverviewCsv", prepare: async (cast) => ({ path: `${board(cast)}/calls/${(await round(cast)).call.id}/overview/csv` }), expect: chairsOnly },
+  {
+    operationId: "getCallOverviewCsv",
+    prepare: async (cast) => ({ path: `${board(cast)}/calls/${(await round(cast)).call.id}/overview/csv` }),
+    expect: chairsOnly,
+  },
 ];

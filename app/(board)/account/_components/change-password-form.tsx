@@ -8,9 +8,20 @@ export function ChangePasswordForm() {
     <form onSubmit={onSubmit} className="max-w-md space-y-4" aria-label="Change password">
       <ActionNotice
         answer={answer}
-        success={answer?.ok ? `Password changed. ${answer.data.revokedSessions} other browser${answer.data.revokedSessions === 1 ? " was" : "s were"} signed out.` : undefined}
+        success={
+          answer?.ok
+            ? `Password changed. ${answer.data.revokedSessions} other browser${answer.data.revokedSessions === 1 ? " was" : "s were"} signed out.`
+            : undefined
+        }
       />
-      <TextField label="Current password" name="currentPassword" type="password" autoComplete="current-password" required error={fieldError("currentPassword")} />
+      <TextField
+        label="Current password"
+        name="currentPassword"
+        type="password"
+        autoComplete="current-password"
+        required
+        error={fieldError("currentPassword")}
+      />
       <TextField
         label="New password"
         hint="At least 12 characters. Your other browsers are signed out."

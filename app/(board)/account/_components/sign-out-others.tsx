@@ -9,9 +9,14 @@ export function SignOutOthers({ otherSessions }: { otherSessions: number }) {
   return (
     <form onSubmit={onSubmit} className="space-y-3" aria-label="Sign out of other browsers">
       <p className="text-ink-700">
-        {otherSessions === 0 ? "No other browser is signed in to your account." : `${otherSessions} other browser${otherSessions === 1 ? " is" : "s are"} signed in to your account.`}
+        {otherSessions === 0
+          ? "No other browser is signed in to your account."
+          : `${otherSessions} other browser${otherSessions === 1 ? " is" : "s are"} signed in to your account.`}
       </p>
-      <ActionNotice answer={answer} success={answer?.ok ? `Signed out of ${answer.data.revoked} other browser${answer.data.revoked === 1 ? "" : "s"}.` : undefined} />
+      <ActionNotice
+        answer={answer}
+        success={answer?.ok ? `Signed out of ${answer.data.revoked} other browser${answer.data.revoked === 1 ? "" : "s"}.` : undefined}
+      />
       <SubmitButton pending={pending} tone="quiet">
         Sign out everywhere else
       </SubmitButton>

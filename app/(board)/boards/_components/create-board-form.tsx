@@ -21,7 +21,13 @@ export function CreateBoardForm() {
         error={fieldError("slug")}
       />
       <div className="md:col-span-2">
-        <TextField label="Description" hint="Optional; shown on the board and its registration page." name="description" maxLength={2000} error={fieldError("description")} />
+        <TextField
+          label="Description"
+          hint="Optional; shown on the board and its registration page."
+          name="description"
+          maxLength={2000}
+          error={fieldError("description")}
+        />
       </div>
       <div>
         <SubmitButton pending={pending}>Create board</SubmitButton>

@@ -17,7 +17,12 @@ export function blocksOf(editor: Editor): OrbitCheckBlock[] {
   const out: OrbitCheckBlock[] = [];
   editor.state.doc.descendants((node) => {
     if (node.type.name === "orbitCheck") {
-      out.push({ blockId: node.attrs.blockId, label: node.attrs.label ?? "", claim: node.attrs.claim as DossierClaim, initialFrom: node.attrs.initialFrom ?? null });
+      out.push({
+        blockId: node.attrs.blockId,
+        label: node.attrs.label ?? "",
+        claim: node.attrs.claim as DossierClaim,
+        initialFrom: node.attrs.initialFrom ?? null,
+      });
       return false;
     }
     return true;
@@ -35,7 +40,19 @@ function parseNumber(text: string): number | undefined {
   return Number.isFinite(n) ? n : undefined;
 }
 
-function NumberInput({ label, unit, value, onChange, describedBy }: { label: string; unit: string; value: unknown; onChange: (v: number | undefined) => void; describedBy?: string }) {
+function NumberInput({
+  label,
+  unit,
+  value,
+  onChange,
+  describedBy,
+}: {
+  label: string;
+  unit: string;
+  value: unknown;
+  onChange: (v: number | undefined) => void;
+  describedBy?: string;
+}) {
   const id = useId();
   const [text, setText] = useState(typeof value === "number" ? String(value) : "");
   const invalid = text.trim() !== "" && parseNumber(text) === undefined;
@@ -187,7 +204,9 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
     setPending((p) => (p.includes(name) ? p : [...p, name]));
     setChoice("");
     // The new row's input takes the focus once it is rendered.
-    requestAnimationFrame(() => document.getElementById(`orbit-check-${blockId}`)?.querySelector<HTMLInputElement>(`input[aria-label="claimed ${name}"]`)?.focus());
+    requestAnimationFrame(() =>
+      document.getElementById(`orbit-check-${blockId}`)?.querySelector<HTMLInputElement>(`input[aria-label="claimed ${name}"]`)?.focus(),
+    );
   };
   const referenced = reference && initialFrom ? new Set(reference.replaces) : new Set<string>();
   const unclaimed = info.computed.filter((c) => !claimedRows.includes(c.name));
@@ -209,7 +228,12 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
         </h3>
         <div className="flex items-center gap-2">
           <VerdictBadge status={result.status} id={verdictId} live />
-          <button type="button" onClick={() => deleteNode()} className="rounded-chip border border-ink-300 px-2 py-0.5 text-xs hover:border-void-500" aria-label={`Remove orbit check ${label}`}>
+          <button
+            type="button"
+            onClick={() => deleteNode()}
+            className="rounded-chip border border-ink-300 px-2 py-0.5 text-xs hover:border-void-500"
+            aria-label={`Remove orbit check ${label}`}
+          >
             Remove
           </button>
         </div>
@@ -271,15 +295,38 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
               .filter((g) => !referenced.has(g.name))
               .map((g) => {
                 const key = `${info.kind}-${g.name}`;
-                if (g.type === "vector") return <VectorInput key={key} label={g.name} unit={g.unit} value={claim.given[g.name]} onChange={(v) => setGiven(g.name, v)} />;
+                if (g.type === "vector")
+                  return <VectorInput key={key} label={g.name} unit={g.unit} value={claim.given[g.name]} onChange={(v) => setGiven(g.name, v)} />;
                 if (g.type === "maneuvers") return <ManeuversInput key={key} value={claim.given[g.name]} onChange={(v) => setGiven(g.name, v)} />;
                 if (g.type === "body")
                   return (
-                    <SelectInput key={key} label={g.name} value={typeof claim.given[g.name] === "string" ? (claim.given[g.name] as string) : ""} options={["", ...BODY_NAMES]} onChange={(v) => setGiven(g.name, v || undefined)} />
+                    <SelectInput
+                      key={key}
+                      label={g.name}
+                      value={typeof claim.given[g.name] === "string" ? (claim.given[g.name] as string) : ""}
+                      options={["", ...BODY_NAMES]}
+                      onChange={(v) => setGiven(g.name, v || undefined)}
+                    />
                   );
                 if (g.type === "text")
-                  return <SelectInput key={key} label={g.name} value={typeof claim.given[g.name] === "string" ? (claim.given[g.name] as string) : "prograde"} options={["prograde", "retrograde"]} onChange={(v) => setGiven(g.name, v)} />;
-                return <NumberInput key={key} label={`${g.name}${g.use === "optional" ? " (optional)" : ""}`} unit={g.unit} value={claim.given[g.name]} onChange={(v) => setGiven(g.name, v)} />;
+                  return (
+                    <SelectInput
+                      key={key}
+                      label={g.name}
+                      value={typeof claim.given[g.name] === "string" ? (claim.given[g.name] as string) : "prograde"}
+                      options={["prograde", "retrograde"]}
+                      onChange={(v) => setGiven(g.name, v)}
+                    />
+                  );
+                return (
+                  <NumberInput
+                    key={key}
+                    label={`${g.name}${g.use === "optional" ? " (optional)" : ""}`}
+                    unit={g.unit}
+                    value={claim.given[g.name]}
+                    onChange={(v) => setGiven(g.name, v)}
+                  />
+                );
               })}
             {notes.length > 0 ? <p className="text-xs text-ink-600">{notes.join("; ")}</p> : null}
           </fieldset>
@@ -289,7 +336,9 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
             <table className="w-full text-left text-xs">
               <thead className="text-ink-600">
                 <tr>
-                  <th scope="col" className="py-1">Quantity</th>
+                  <th scope="col" className="py-1">
+                    Quantity
+                  </th>
                   <th scope="col">Claimed</th>
                   <th scope="col">Recomputed</th>
                   <th scope="col">Error</th>
@@ -322,10 +371,17 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
                       </td>
                       <td className="pr-2 font-mono">{computed !== undefined ? `${formatValue(computed)} ${unitText(unit)}` : "—"}</td>
                       <td className={`pr-2 font-mono ${row ? (row.ok ? "text-holds-700" : "text-drift-700") : "text-ink-500"}`}>
-                        {row ? `${row.relativeError !== null ? `${(row.relativeError * 100).toFixed(2)} %` : "—"} ${row.ok ? "within" : "outside"} tolerance` : "—"}
+                        {row
+                          ? `${row.relativeError !== null ? `${(row.relativeError * 100).toFixed(2)} %` : "—"} ${row.ok ? "within" : "outside"} tolerance`
+                          : "—"}
                       </td>
                       <td>
-                        <button type="button" onClick={() => setClaimed(name, null)} aria-label={`Remove claimed ${name}`} className="text-ink-500 hover:text-void-700">
+                        <button
+                          type="button"
+                          onClick={() => setClaimed(name, null)}
+                          aria-label={`Remove claimed ${name}`}
+                          className="text-ink-500 hover:text-void-700"
+                        >
                           ×
                         </button>
                       </td>

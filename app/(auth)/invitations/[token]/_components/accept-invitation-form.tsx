@@ -4,7 +4,17 @@ import { signIn } from "next-auth/react";
 import { ActionNotice, SubmitButton, TextField, useActionForm } from "@/components/ui/form-controls";
 import { acceptInvitationAction } from "../actions";
 
-export function AcceptInvitationForm({ token, email, suggestedName, hasAccount }: { token: string; email: string; suggestedName: string | null; hasAccount: boolean }) {
+export function AcceptInvitationForm({
+  token,
+  email,
+  suggestedName,
+  hasAccount,
+}: {
+  token: string;
+  email: string;
+  suggestedName: string | null;
+  hasAccount: boolean;
+}) {
   const router = useRouter();
   // After signing in, refresh so the header and server components see the new session.
   const go = (path: string) => {

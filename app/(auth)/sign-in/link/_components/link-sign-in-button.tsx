@@ -26,7 +26,9 @@ export function LinkSignInButton({ token }: { token: string }) {
             go("/boards");
             return;
           }
-          setError(result?.error && result.error !== "CredentialsSignin" ? result.error : "This sign-in link is invalid, already used or expired. Ask for a new one.");
+          setError(
+            result?.error && result.error !== "CredentialsSignin" ? result.error : "This sign-in link is invalid, already used or expired. Ask for a new one.",
+          );
         });
       }}
     >

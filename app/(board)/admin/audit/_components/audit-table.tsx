@@ -17,11 +17,17 @@ const column = createColumnHelper<AuditRow>();
 const timeFormat = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "medium", timeZone: "UTC" });
 
 const columns = [
-  column.accessor("occurredAt", { id: "time", header: "Time (UTC)", cell: (info) => <span className="whitespace-nowrap font-mono text-xs">{timeFormat.format(new Date(info.getValue()))}</span> }),
+  column.accessor("occurredAt", {
+    id: "time",
+    header: "Time (UTC)",
+    cell: (info) => <span className="whitespace-nowrap font-mono text-xs">{timeFormat.format(new Date(info.getValue()))}</span>,
+  }),
   column.accessor("action", {
     header: "Event",
     enableSorting: false,
-    cell: (info) => <span className={`font-mono text-xs ${/failed|refused|rate-limited/.test(info.getValue()) ? "text-void-700" : "text-ink-800"}`}>{info.getValue()}</span>,
+    cell: (info) => (
+      <span className={`font-mono text-xs ${/failed|refused|rate-limited/.test(info.getValue()) ? "text-void-700" : "text-ink-800"}`}>{info.getValue()}</span>
+    ),
   }),
   column.accessor("actorEmail", { header: "Who", enableSorting: false, cell: (info) => info.getValue() ?? "—" }),
   column.accessor("target", { header: "On", enableSorting: false, cell: (info) => <span className="font-mono text-xs">{info.getValue() ?? "—"}</span> }),
@@ -30,7 +36,13 @@ const columns = [
     enableSorting: false,
     cell: (info) => {
       const entries = Object.entries(info.getValue());
-      return entries.length === 0 ? "—" : <span className="font-mono text-xs text-ink-600">{entries.map(([k, v]) => `${k}: ${typeof v === "object" ? JSON.stringify(v) : String(v)}`).join(" · ")}</span>;
+      return entries.length === 0 ? (
+        "—"
+      ) : (
+        <span className="font-mono text-xs text-ink-600">
+          {entries.map(([k, v]) => `${k}: ${typeof v === "object" ? JSON.stringify(v) : String(v)}`).join(" · ")}
+        </span>
+      );
     },
   }),
   column.accessor("ipAddress", { header: "From", enableSorting: false, cell: (info) => <span className="font-mono text-xs">{info.getValue() ?? "—"}</span> }),

@@ -8,7 +8,12 @@ import { requeueOutboxMessageAction } from "../actions";
 
 const column = createColumnHelper<OutboxRow>();
 const timeFormat = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "medium", timeZone: "UTC" });
-const statusClass = { queued: "bg-ink-100 text-ink-700", sending: "bg-trajectory-100 text-trajectory-700", sent: "bg-holds-100 text-holds-700", failed: "bg-void-100 text-void-700" } as const;
+const statusClass = {
+  queued: "bg-ink-100 text-ink-700",
+  sending: "bg-trajectory-100 text-trajectory-700",
+  sent: "bg-holds-100 text-holds-700",
+  failed: "bg-void-100 text-void-700",
+} as const;
 
 function SendAgain({ id }: { id: string }) {
   const router = useRouter();
@@ -36,7 +41,12 @@ function SendAgain({ id }: { id: string }) {
 }
 
 const columns = [
-  column.accessor("createdAt", { id: "created", header: "Queued (UTC)", enableSorting: false, cell: (i) => <span className="whitespace-nowrap font-mono text-xs">{timeFormat.format(new Date(i.getValue()))}</span> }),
+  column.accessor("createdAt", {
+    id: "created",
+    header: "Queued (UTC)",
+    enableSorting: false,
+    cell: (i) => <span className="whitespace-nowrap font-mono text-xs">{timeFormat.format(new Date(i.getValue()))}</span>,
+  }),
   column.accessor("kind", { header: "Kind", enableSorting: false, cell: (i) => <span className="font-mono text-xs">{i.getValue()}</span> }),
   column.accessor("to", { header: "To", enableSorting: false, cell: (i) => <span className="text-xs">{i.getValue().join(", ")}</span> }),
   column.accessor("subject", {
@@ -45,13 +55,25 @@ const columns = [
     cell: (i) => (
       <span className="text-sm">
         {i.getValue()}
-        {i.row.original.attachments ? <span className="ml-1 text-xs text-ink-500">({i.row.original.attachments} attachment{i.row.original.attachments === 1 ? "" : "s"})</span> : null}
+        {i.row.original.attachments ? (
+          <span className="ml-1 text-xs text-ink-500">
+            ({i.row.original.attachments} attachment{i.row.original.attachments === 1 ? "" : "s"})
+          </span>
+        ) : null}
       </span>
     ),
   }),
-  column.accessor("status", { header: "Status", enableSorting: false, cell: (i) => <span className={`rounded-chip px-2 py-0.5 text-xs font-semibold ${statusClass[i.getValue()]}`}>{i.getValue()}</span> }),
+  column.accessor("status", {
+    header: "Status",
+    enableSorting: false,
+    cell: (i) => <span className={`rounded-chip px-2 py-0.5 text-xs font-semibold ${statusClass[i.getValue()]}`}>{i.getValue()}</span>,
+  }),
   column.accessor("attempts", { header: "Attempts", enableSorting: false, cell: (i) => <span className="font-mono text-xs">{i.getValue()}</span> }),
-  column.accessor("lastError", { header: "Last error", enableSorting: false, cell: (i) => <span className="text-xs text-void-700">{i.getValue() ?? ""}</span> }),
+  column.accessor("lastError", {
+    header: "Last error",
+    enableSorting: false,
+    cell: (i) => <span className="text-xs text-void-700">{i.getValue() ?? ""}</span>,
+  }),
   column.display({
     id: "actions",
     header: () => <span className="sr-only">Actions</span>,

@@ -64,10 +64,17 @@ export function BoardDossiersSection({ board, proposals, total }: { board: Board
       ) : (
         <p className="mb-4 text-ink-600">No dossiers yet.</p>
       )}
-      {total > proposals.length ? <p className="mb-3 text-sm text-ink-600">Showing the {proposals.length} most recently changed of {total}.</p> : null}
+      {total > proposals.length ? (
+        <p className="mb-3 text-sm text-ink-600">
+          Showing the {proposals.length} most recently changed of {total}.
+        </p>
+      ) : null}
       <ul className="flex flex-wrap gap-3">
         <li>
-          <Link href={`/boards/${board.id}/proposals`} className="inline-block rounded-chip bg-trajectory-600 px-3 py-1.5 font-semibold text-white hover:bg-trajectory-700">
+          <Link
+            href={`/boards/${board.id}/proposals`}
+            className="inline-block rounded-chip bg-trajectory-600 px-3 py-1.5 font-semibold text-white hover:bg-trajectory-700"
+          >
             All your proposals, or start one
           </Link>
         </li>
@@ -81,22 +88,34 @@ export function BoardStewardshipSection({ board }: { board: BoardView }) {
     <Panel id="stewardship" title="Running the board" description="For chairs and administrators.">
       <ul className="flex flex-wrap gap-3">
         <li>
-          <Link href={`/boards/${board.id}/calls`} className="inline-block rounded-chip border border-ink-300 px-3 py-1.5 font-semibold hover:border-trajectory-500">
+          <Link
+            href={`/boards/${board.id}/calls`}
+            className="inline-block rounded-chip border border-ink-300 px-3 py-1.5 font-semibold hover:border-trajectory-500"
+          >
             Calls and their settings
           </Link>
         </li>
         <li>
-          <Link href={`/boards/${board.id}/members`} className="inline-block rounded-chip border border-ink-300 px-3 py-1.5 font-semibold hover:border-trajectory-500">
+          <Link
+            href={`/boards/${board.id}/members`}
+            className="inline-block rounded-chip border border-ink-300 px-3 py-1.5 font-semibold hover:border-trajectory-500"
+          >
             Members and invitations
           </Link>
         </li>
         <li>
-          <Link href={`/boards/${board.id}/settings`} className="inline-block rounded-chip border border-ink-300 px-3 py-1.5 font-semibold hover:border-trajectory-500">
+          <Link
+            href={`/boards/${board.id}/settings`}
+            className="inline-block rounded-chip border border-ink-300 px-3 py-1.5 font-semibold hover:border-trajectory-500"
+          >
             Board settings
           </Link>
         </li>
         <li>
-          <Link href={`/boards/${board.id}/settings/letter`} className="inline-block rounded-chip border border-ink-300 px-3 py-1.5 font-semibold hover:border-trajectory-500">
+          <Link
+            href={`/boards/${board.id}/settings/letter`}
+            className="inline-block rounded-chip border border-ink-300 px-3 py-1.5 font-semibold hover:border-trajectory-500"
+          >
             Decision letter template
           </Link>
         </li>

@@ -30,7 +30,9 @@ export default async function CallsPage({ params }: { params: Promise<{ boardId:
           <table className="w-full text-left text-sm">
             <thead className="text-ink-600">
               <tr>
-                <th scope="col" className="py-1">Call</th>
+                <th scope="col" className="py-1">
+                  Call
+                </th>
                 <th scope="col">State</th>
                 <th scope="col">Opens (UTC)</th>
                 <th scope="col">Closes (UTC)</th>

@@ -14,15 +14,16 @@ export default async function ConflictsPage({ params }: { params: Promise<{ boar
   const { boardId } = await params;
   const user = await pageUser(`/boards/${boardId}/conflicts`);
   const board = await orNotFound(getBoard(user, boardId));
-  if (can(user, "review.view-all", { role: board.myRole }) && board.myRole !== "reviewer") return <AllDeclarations boardId={boardId} boardName={board.name} conflicts={await listConflicts(user, boardId)} />;
+  if (can(user, "review.view-all", { role: board.myRole }) && board.myRole !== "reviewer")
+    return <AllDeclarations boardId={boardId} boardName={board.name} conflicts={await listConflicts(user, boardId)} />;
   if (!can(user, "conflict.declare", { role: board.myRole })) return <NotAllowed what="Reviewers declare their conflicts of interest here." />;
   const [conflicts, candidates] = await Promise.all([listConflicts(user, boardId), listConflictCandidates(user, boardId)]);
   return (
     <div className="space-y-6">
       <PageTitle eyebrow={board.name} title="Conflicts of interest">
         <p>
-          Declare a conflict with a proposal, or with an organisation (it then covers every proposal with an author from it). You cannot be assigned to, or open, a proposal you
-          are conflicted with. The board also flags likely conflicts (same organisation or e-mail domain as an author) for the chair.
+          Declare a conflict with a proposal, or with an organisation (it then covers every proposal with an author from it). You cannot be assigned to, or
+          open, a proposal you are conflicted with. The board also flags likely conflicts (same organisation or e-mail domain as an author) for the chair.
         </p>
       </PageTitle>
       <ConflictDeclarations boardId={boardId} conflicts={conflicts.filter((c) => c.reviewerId === user.id)} candidates={candidates} />
@@ -47,10 +48,18 @@ function AllDeclarations({ boardId, boardName, conflicts }: { boardId: string; b
           <caption className="sr-only">Declared conflicts</caption>
           <thead className="bg-ink-50 text-ink-700">
             <tr>
-              <th scope="col" className="px-3 py-2">Reviewer</th>
-              <th scope="col" className="px-3 py-2">With</th>
-              <th scope="col" className="px-3 py-2">Reason</th>
-              <th scope="col" className="px-3 py-2">Declared (UTC)</th>
+              <th scope="col" className="px-3 py-2">
+                Reviewer
+              </th>
+              <th scope="col" className="px-3 py-2">
+                With
+              </th>
+              <th scope="col" className="px-3 py-2">
+                Reason
+              </th>
+              <th scope="col" className="px-3 py-2">
+                Declared (UTC)
+              </th>
             </tr>
           </thead>
           <tbody>

@@ -13,7 +13,13 @@ import { MembersTable } from "./_components/members-table";
 
 export const metadata: Metadata = { title: "Members" };
 
-export default async function MembersPage({ params, searchParams }: { params: Promise<{ boardId: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+export default async function MembersPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ boardId: string }>;
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
   const { boardId } = await params;
   const user = await pageUser(`/boards/${boardId}/members`);
   const board = await orNotFound(getBoard(user, boardId));
@@ -86,7 +92,11 @@ export default async function MembersPage({ params, searchParams }: { params: Pr
             All, with accepted, withdrawn and expired
           </Link>
         </nav>
-        <InvitationsList boardId={board.id} invitations={invitations.invitations} empty={invQuery.show === "pending" ? "No pending invitations." : "No invitations yet."} />
+        <InvitationsList
+          boardId={board.id}
+          invitations={invitations.invitations}
+          empty={invQuery.show === "pending" ? "No pending invitations." : "No invitations yet."}
+        />
         {pages > 1 || invQuery.page > 1 ? (
           <nav aria-label="Invitation pages" className="mt-3 flex items-center gap-3 text-sm">
             {invQuery.page > 1 ? (

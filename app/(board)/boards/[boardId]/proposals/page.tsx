@@ -30,7 +30,11 @@ export default async function ProposalsPage({ params }: { params: Promise<{ boar
       </Panel>
       {mayCreate ? (
         <Panel id="new-proposal" title="Start a proposal">
-          <NewProposalForm boardId={boardId} calls={calls.filter((c) => c.state === "open").map((c) => ({ id: c.id, title: c.title }))} candidates={candidates} />
+          <NewProposalForm
+            boardId={boardId}
+            calls={calls.filter((c) => c.state === "open").map((c) => ({ id: c.id, title: c.title }))}
+            candidates={candidates}
+          />
         </Panel>
       ) : null}
     </div>

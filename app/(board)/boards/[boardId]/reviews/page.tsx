@@ -31,11 +31,21 @@ export default async function ReviewQueuePage({ params }: { params: Promise<{ bo
           <caption className="sr-only">Your review assignments</caption>
           <thead className="bg-ink-50 text-ink-700">
             <tr>
-              <th scope="col" className="px-3 py-2">Proposal</th>
-              <th scope="col" className="px-3 py-2">Call</th>
-              <th scope="col" className="px-3 py-2">Due (UTC)</th>
-              <th scope="col" className="px-3 py-2">Progress</th>
-              <th scope="col" className="px-3 py-2">Status</th>
+              <th scope="col" className="px-3 py-2">
+                Proposal
+              </th>
+              <th scope="col" className="px-3 py-2">
+                Call
+              </th>
+              <th scope="col" className="px-3 py-2">
+                Due (UTC)
+              </th>
+              <th scope="col" className="px-3 py-2">
+                Progress
+              </th>
+              <th scope="col" className="px-3 py-2">
+                Status
+              </th>
             </tr>
           </thead>
           <tbody>
@@ -54,7 +64,10 @@ export default async function ReviewQueuePage({ params }: { params: Promise<{ bo
                         {q.title} <span className="text-xs text-void-700">(conflict declared: the chair will reassign it)</span>
                       </span>
                     ) : (
-                      <Link href={`/boards/${boardId}/proposals/${q.proposalId}/review?assignment=${q.assignmentId}`} className="font-semibold text-trajectory-700 hover:underline">
+                      <Link
+                        href={`/boards/${boardId}/proposals/${q.proposalId}/review?assignment=${q.assignmentId}`}
+                        className="font-semibold text-trajectory-700 hover:underline"
+                      >
                         {q.title}
                       </Link>
                     )}

@@ -35,14 +35,18 @@ export default async function CallPage({ params }: { params: Promise<{ boardId: 
           <dd>{call.requiredSections.length > 0 ? call.requiredSections.join(" · ") : "none"}</dd>
           <dt className="font-semibold">Orbit-check tolerance</dt>
           <dd className="font-mono">
-            {(call.tolerance.relative * 100).toFixed(2)} % relative{abs.length > 0 ? `; absolute ${abs.map(([u, v]) => `${v} ${u}`).join(", ")}` : "; default absolute bounds"}
+            {(call.tolerance.relative * 100).toFixed(2)} % relative
+            {abs.length > 0 ? `; absolute ${abs.map(([u, v]) => `${v} ${u}`).join(", ")}` : "; default absolute bounds"}
           </dd>
           <dt className="font-semibold">Reviewers per proposal</dt>
           <dd>{call.reviewersPerProposal}</dd>
         </dl>
         {isProposer && call.state === "open" ? (
           <p className="mt-4">
-            <Link href={`/boards/${boardId}/proposals#new-proposal`} className="rounded-chip bg-trajectory-600 px-3 py-1.5 font-semibold text-white hover:bg-trajectory-700">
+            <Link
+              href={`/boards/${boardId}/proposals#new-proposal`}
+              className="rounded-chip bg-trajectory-600 px-3 py-1.5 font-semibold text-white hover:bg-trajectory-700"
+            >
               Start a proposal
             </Link>
           </p>

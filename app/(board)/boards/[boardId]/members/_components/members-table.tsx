@@ -10,7 +10,17 @@ import { updateMemberAction } from "../actions";
 const column = createColumnHelper<MemberRow>();
 const dateFormat = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeZone: "UTC" });
 
-export function MembersTable(props: { boardId: string; myUserId: string; rows: MemberRow[]; total: number; page: number; pageSize: number; sort: string; dir: "asc" | "desc"; search?: string }) {
+export function MembersTable(props: {
+  boardId: string;
+  myUserId: string;
+  rows: MemberRow[];
+  total: number;
+  page: number;
+  pageSize: number;
+  sort: string;
+  dir: "asc" | "desc";
+  search?: string;
+}) {
   const router = useRouter();
   const [message, setMessage] = useState<{ tone: "error" | "success"; text: string } | null>(null);
   const [pending, startTransition] = useTransition();
@@ -19,7 +29,10 @@ export function MembersTable(props: { boardId: string; myUserId: string; rows: M
     startTransition(async () => {
       const result = await updateMemberAction({ boardId: props.boardId, memberId: member.id, ...update });
       if (result.ok) {
-        setMessage({ tone: "success", text: `${member.name}: ${update.role ? `now ${update.role}` : update.status === "deactivated" ? "deactivated" : "reactivated"}.` });
+        setMessage({
+          tone: "success",
+          text: `${member.name}: ${update.role ? `now ${update.role}` : update.status === "deactivated" ? "deactivated" : "reactivated"}.`,
+        });
         router.refresh();
       } else setMessage({ tone: "error", text: result.error });
     });

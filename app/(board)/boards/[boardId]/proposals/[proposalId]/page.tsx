@@ -48,7 +48,8 @@ export default async function ProposalPage({ params }: { params: Promise<{ board
                 Version {v.number}
               </Link>
               <span className="text-ink-600">
-                {dateFormat.format(new Date(v.submittedAt))} UTC · server check: {v.counts.consistent} consistent, {v.counts.inconsistent} inconsistent, {v.counts.invalid} cannot be evaluated
+                {dateFormat.format(new Date(v.submittedAt))} UTC · server check: {v.counts.consistent} consistent, {v.counts.inconsistent} inconsistent,{" "}
+                {v.counts.invalid} cannot be evaluated
               </span>
             </li>
           ))}
@@ -62,7 +63,9 @@ export default async function ProposalPage({ params }: { params: Promise<{ board
       <div className="space-y-6">
         {header}
         {proposal.status === "decided" ? (
-          <p className="rounded-panel border border-drift-500/40 bg-drift-100 p-3 text-sm text-drift-700">The board asked for a revision. Your changes will be submitted as version {proposal.latestVersion + 1}.</p>
+          <p className="rounded-panel border border-drift-500/40 bg-drift-100 p-3 text-sm text-drift-700">
+            The board asked for a revision. Your changes will be submitted as version {proposal.latestVersion + 1}.
+          </p>
         ) : null}
         <DossierWorkspace
           boardId={boardId}
@@ -100,12 +103,17 @@ export default async function ProposalPage({ params }: { params: Promise<{ board
       {header}
       {proposal.editBlockedReason && proposal.owner.id === user.id ? <p className="text-sm text-ink-600">{proposal.editBlockedReason}</p> : null}
       <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_18rem]">
-        <Panel title={`Version ${latest.number}`} description={`Submitted ${dateFormat.format(new Date(latest.submittedAt))} UTC; verdicts are the server's own recomputation.`}>
+        <Panel
+          title={`Version ${latest.number}`}
+          description={`Submitted ${dateFormat.format(new Date(latest.submittedAt))} UTC; verdicts are the server's own recomputation.`}
+        >
           <ReadOnlyDossier document={latest.document} boardId={boardId} results={latest.checkResults} />
         </Panel>
         <div className="space-y-4">
           <DossierSummary items={items} budget={budget} source="server" />
-          <AttachmentList attachments={latest.attachments.map((a) => ({ ...a, contentPath: `/api/v1/boards/${boardId}/attachments/${a.attachmentId}/content` }))} />
+          <AttachmentList
+            attachments={latest.attachments.map((a) => ({ ...a, contentPath: `/api/v1/boards/${boardId}/attachments/${a.attachmentId}/content` }))}
+          />
         </div>
       </div>
       {reviewItemsPanel}

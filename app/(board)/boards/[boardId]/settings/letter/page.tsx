@@ -18,11 +18,16 @@ export default async function LetterTemplatePage({ params }: { params: Promise<{
   return (
     <div className="space-y-6">
       <PageTitle eyebrow={`${t.boardName} · Settings`} title="Decision letter template">
-        Every decision starts from this letter; the chair edits it per proposal before sending. Merge fields in double braces are filled in from the
-        proposal, the reviews and the decision.
+        Every decision starts from this letter; the chair edits it per proposal before sending. Merge fields in double braces are filled in from the proposal,
+        the reviews and the decision.
       </PageTitle>
       <Panel title={t.isDefault ? "VisViva's default letter" : "This board's letter"}>
-        <TemplateForm boardId={boardId} template={t.template} fields={t.mergeFields.map((f) => ({ name: f.name, description: f.description }))} isDefault={t.isDefault} />
+        <TemplateForm
+          boardId={boardId}
+          template={t.template}
+          fields={t.mergeFields.map((f) => ({ name: f.name, description: f.description }))}
+          isDefault={t.isDefault}
+        />
       </Panel>
     </div>
   );

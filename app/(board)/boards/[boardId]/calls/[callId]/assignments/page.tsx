@@ -19,8 +19,8 @@ export default async function AssignmentsPage({ params }: { params: Promise<{ bo
     <div className="space-y-6">
       <PageTitle eyebrow={`${board.name} · ${data.call.title}`} title="Assign reviewers">
         <p>
-          Select proposals, pick reviewers and a due date. Declared conflicts and the same organisation as an author block an assignment; the same e-mail domain asks you to
-          confirm. See the{" "}
+          Select proposals, pick reviewers and a due date. Declared conflicts and the same organisation as an author block an assignment; the same e-mail domain
+          asks you to confirm. See the{" "}
           <Link href={`/boards/${boardId}/calls/${callId}/overview`} className="text-trajectory-700 underline">
             overview
           </Link>{" "}

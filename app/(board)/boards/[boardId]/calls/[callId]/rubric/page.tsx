@@ -29,7 +29,8 @@ export default async function RubricPage({ params }: { params: Promise<{ boardId
           <ul className="text-sm text-ink-700">
             {history.map((h) => (
               <li key={h.id}>
-                v{h.version} · {h.name} · created {dateTime.format(new Date(h.createdAt))} UTC{h.frozenAt ? ` · in use since ${dateTime.format(new Date(h.frozenAt))} UTC` : ""}
+                v{h.version} · {h.name} · created {dateTime.format(new Date(h.createdAt))} UTC
+                {h.frozenAt ? ` · in use since ${dateTime.format(new Date(h.frozenAt))} UTC` : ""}
               </li>
             ))}
           </ul>

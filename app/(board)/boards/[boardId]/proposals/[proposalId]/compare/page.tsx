@@ -56,7 +56,13 @@ function ClaimSide({ claim, side, className }: { claim: ClaimComparison; side: "
   );
 }
 
-export default async function ComparePage({ params, searchParams }: { params: Promise<{ boardId: string; proposalId: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+export default async function ComparePage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ boardId: string; proposalId: string }>;
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
   const { boardId, proposalId } = await params;
   const user = await pageUser(`/boards/${boardId}/proposals/${proposalId}/compare`);
   const access = await orNotFound(proposalAccess(user, boardId, proposalId));
@@ -90,14 +96,21 @@ export default async function ComparePage({ params, searchParams }: { params: Pr
         </p>
         <nav aria-label="Versions" className="mt-2 flex flex-wrap gap-2 text-sm">
           {cmp.versions.slice(1).map((v) => (
-            <Link key={v.number} className="rounded-chip border border-ink-200 px-2 py-0.5" href={`/boards/${boardId}/proposals/${proposalId}/compare?from=${v.number - 1}&to=${v.number}`}>
+            <Link
+              key={v.number}
+              className="rounded-chip border border-ink-200 px-2 py-0.5"
+              href={`/boards/${boardId}/proposals/${proposalId}/compare?from=${v.number - 1}&to=${v.number}`}
+            >
               {v.number - 1} → {v.number}
             </Link>
           ))}
         </nav>
       </PageTitle>
 
-      <Panel title="Orbit claims side by side" description="Paired by block, then by label. Server values are two-body screening estimates, not a substitute for high-fidelity analysis.">
+      <Panel
+        title="Orbit claims side by side"
+        description="Paired by block, then by label. Server values are two-body screening estimates, not a substitute for high-fidelity analysis."
+      >
         <div className="overflow-x-auto">
           <table className="w-full text-left text-sm">
             <caption className="sr-only">Orbit claims of both versions</caption>
@@ -132,7 +145,10 @@ export default async function ComparePage({ params, searchParams }: { params: Pr
         </div>
       </Panel>
 
-      <Panel title="Text changes" description={`${cmp.text.wordsAdded} word${cmp.text.wordsAdded === 1 ? "" : "s"} added, ${cmp.text.wordsRemoved} removed (word by word, on the plain text)`}>
+      <Panel
+        title="Text changes"
+        description={`${cmp.text.wordsAdded} word${cmp.text.wordsAdded === 1 ? "" : "s"} added, ${cmp.text.wordsRemoved} removed (word by word, on the plain text)`}
+      >
         <div className="whitespace-pre-wrap rounded-panel border border-ink-200 bg-paper p-4 font-sans text-sm leading-6 text-ink-900" data-testid="text-diff">
           {cmp.text.changes.map((c, i) =>
             c.kind === "added" ? (

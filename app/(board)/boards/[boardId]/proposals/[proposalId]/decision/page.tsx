@@ -18,7 +18,8 @@ function IssuedDecision({ boardId, proposalId, decision, chairView }: { boardId:
   return (
     <article className="space-y-3" aria-label={`Decision on version ${decision.versionNumber}`}>
       <p className="text-sm text-ink-700">
-        Version {decision.versionNumber}: <strong className="text-ink-950">{decision.outcomeLabel}</strong> · {dateFormat.format(new Date(decision.decidedAt))} UTC
+        Version {decision.versionNumber}: <strong className="text-ink-950">{decision.outcomeLabel}</strong> · {dateFormat.format(new Date(decision.decidedAt))}{" "}
+        UTC
         {decision.decidedByName ? ` · ${decision.decidedByName}` : ""}
       </p>
       {chairView && decision.overrideReason ? (
@@ -34,12 +35,18 @@ function IssuedDecision({ boardId, proposalId, decision, chairView }: { boardId:
       <div className="prose-dossier rounded-panel border border-ink-200 bg-paper p-5" dangerouslySetInnerHTML={{ __html: decision.letterHtml }} />
       <div className="flex flex-wrap gap-3 text-sm">
         {decision.hasPdf ? (
-          <a className="rounded-chip border border-trajectory-500 px-3 py-1.5 font-semibold text-trajectory-700" href={`/api/v1/boards/${boardId}/decisions/${decision.id}/letter?redirect=1`}>
+          <a
+            className="rounded-chip border border-trajectory-500 px-3 py-1.5 font-semibold text-trajectory-700"
+            href={`/api/v1/boards/${boardId}/decisions/${decision.id}/letter?redirect=1`}
+          >
             Download the letter (PDF)
           </a>
         ) : null}
         {decision.versionNumber > 1 ? (
-          <Link className="rounded-chip border border-ink-300 px-3 py-1.5 text-ink-800" href={`/boards/${boardId}/proposals/${proposalId}/compare?from=${decision.versionNumber - 1}&to=${decision.versionNumber}`}>
+          <Link
+            className="rounded-chip border border-ink-300 px-3 py-1.5 text-ink-800"
+            href={`/boards/${boardId}/proposals/${proposalId}/compare?from=${decision.versionNumber - 1}&to=${decision.versionNumber}`}
+          >
             Compare with version {decision.versionNumber - 1}
           </Link>
         ) : null}
@@ -91,14 +98,18 @@ export default async function DecisionPage({ params }: { params: Promise<{ board
     <div className="space-y-6">
       <PageTitle eyebrow={`Decision · ${w.call.title}`} title={w.proposal.title}>
         <p className="text-sm">
-          {w.version ? `Version ${w.version.number}, submitted ${dateFormat.format(new Date(w.version.submittedAt))} UTC` : "No version submitted yet"} · by {w.proposal.ownerName} ·{" "}
+          {w.version ? `Version ${w.version.number}, submitted ${dateFormat.format(new Date(w.version.submittedAt))} UTC` : "No version submitted yet"} · by{" "}
+          {w.proposal.ownerName} ·{" "}
           <Link href={`/boards/${boardId}/proposals/${proposalId}`} className="text-trajectory-700 underline">
             read the dossier
           </Link>
           {w.previousVersionNumber ? (
             <>
               {" · "}
-              <Link href={`/boards/${boardId}/proposals/${proposalId}/compare?from=${w.previousVersionNumber}&to=${w.version!.number}`} className="text-trajectory-700 underline">
+              <Link
+                href={`/boards/${boardId}/proposals/${proposalId}/compare?from=${w.previousVersionNumber}&to=${w.version!.number}`}
+                className="text-trajectory-700 underline"
+              >
                 compare with version {w.previousVersionNumber}
               </Link>
             </>
@@ -145,7 +156,8 @@ export default async function DecisionPage({ params }: { params: Promise<{ board
           <ul className="space-y-1 text-sm">
             {openItems.map((i) => (
               <li key={i.id}>
-                <span className="font-mono text-xs uppercase text-ink-500">{i.severity}</span> {i.title} <span className="text-xs text-ink-500">— {i.authorName}</span>
+                <span className="font-mono text-xs uppercase text-ink-500">{i.severity}</span> {i.title}{" "}
+                <span className="text-xs text-ink-500">— {i.authorName}</span>
               </li>
             ))}
             {openItems.length === 0 ? <li className="text-ink-500">None open.</li> : null}

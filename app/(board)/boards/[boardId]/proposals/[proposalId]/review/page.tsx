@@ -12,7 +12,13 @@ import { getReviewScreen, listProposalReviews } from "@/lib/dal/reviews";
 
 export const metadata: Metadata = { title: "Review" };
 
-export default async function ReviewPage({ params, searchParams }: { params: Promise<{ boardId: string; proposalId: string }>; searchParams: Promise<{ assignment?: string }> }) {
+export default async function ReviewPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ boardId: string; proposalId: string }>;
+  searchParams: Promise<{ assignment?: string }>;
+}) {
   const { boardId, proposalId } = await params;
   const { assignment: wanted } = await searchParams;
   const user = await pageUser(`/boards/${boardId}/proposals/${proposalId}/review`);

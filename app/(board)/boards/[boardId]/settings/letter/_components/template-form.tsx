@@ -5,7 +5,17 @@ import { FormNotice } from "@/components/ui/form-controls";
 import { LetterEditor, useLetterEditor, type MergeFieldChoice } from "../../../proposals/[proposalId]/decision/_components/letter-editor";
 import { saveLetterTemplateAction } from "../actions";
 
-export function TemplateForm({ boardId, template, fields, isDefault }: { boardId: string; template: Record<string, unknown>; fields: readonly MergeFieldChoice[]; isDefault: boolean }) {
+export function TemplateForm({
+  boardId,
+  template,
+  fields,
+  isDefault,
+}: {
+  boardId: string;
+  template: Record<string, unknown>;
+  fields: readonly MergeFieldChoice[];
+  isDefault: boolean;
+}) {
   const router = useRouter();
   const editor = useLetterEditor(template);
 
@@ -25,11 +35,21 @@ export function TemplateForm({ boardId, template, fields, isDefault }: { boardId
       <LetterEditor editor={editor} fields={fields} />
       {message ? <FormNotice tone={message.tone}>{message.text}</FormNotice> : null}
       <div className="flex flex-wrap gap-3">
-        <button type="button" onClick={() => save(false)} disabled={pending} className="rounded-chip bg-trajectory-600 px-4 py-2 font-semibold text-white disabled:opacity-50">
+        <button
+          type="button"
+          onClick={() => save(false)}
+          disabled={pending}
+          className="rounded-chip bg-trajectory-600 px-4 py-2 font-semibold text-white disabled:opacity-50"
+        >
           Save the template
         </button>
         {!isDefault ? (
-          <button type="button" onClick={() => save(true)} disabled={pending} className="rounded-chip border border-ink-300 px-4 py-2 text-ink-800 disabled:opacity-50">
+          <button
+            type="button"
+            onClick={() => save(true)}
+            disabled={pending}
+            className="rounded-chip border border-ink-300 px-4 py-2 text-ink-800 disabled:opacity-50"
+          >
             Use the default letter
           </button>
         ) : null}

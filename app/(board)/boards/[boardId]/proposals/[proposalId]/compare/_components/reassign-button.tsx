@@ -26,7 +26,12 @@ export function ReassignButton({ boardId, proposalId, names, toVersion }: { boar
     <div className="space-y-2">
       {names.length > 0 ? (
         <>
-          <button type="button" onClick={run} disabled={pending} className="rounded-chip bg-trajectory-600 px-4 py-2 font-semibold text-white disabled:opacity-50">
+          <button
+            type="button"
+            onClick={run}
+            disabled={pending}
+            className="rounded-chip bg-trajectory-600 px-4 py-2 font-semibold text-white disabled:opacity-50"
+          >
             {pending ? "Assigning…" : `Ask the same reviewers to review version ${toVersion}`}
           </button>
           <p className="text-xs text-ink-500">{names.join(", ")} · due in two weeks · each gets an e-mail.</p>

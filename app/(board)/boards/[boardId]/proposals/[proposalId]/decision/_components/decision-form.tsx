@@ -67,7 +67,10 @@ export function DecisionForm({ boardId, proposalId, template, fields, items, nee
         <legend className="text-sm font-semibold text-ink-800">Outcome</legend>
         <div className="mt-2 grid gap-2 sm:grid-cols-3">
           {choices.map((c) => (
-            <label key={c.value} className={`cursor-pointer rounded-panel border p-3 ${outcome === c.value ? "border-trajectory-500 bg-trajectory-100" : "border-ink-200 bg-white"}`}>
+            <label
+              key={c.value}
+              className={`cursor-pointer rounded-panel border p-3 ${outcome === c.value ? "border-trajectory-500 bg-trajectory-100" : "border-ink-200 bg-white"}`}
+            >
               <input type="radio" name="outcome" value={c.value} checked={outcome === c.value} onChange={() => setOutcome(c.value)} className="mr-2" />
               <span className="font-semibold text-ink-900">{c.label}</span>
               <span className="mt-1 block text-xs text-ink-600">{c.hint}</span>
@@ -127,10 +130,20 @@ export function DecisionForm({ boardId, proposalId, template, fields, items, nee
       {error ? <FormNotice tone="error">{error}</FormNotice> : null}
 
       <div className="flex flex-wrap gap-3">
-        <button type="button" onClick={runPreview} disabled={pending} className="rounded-chip border border-ink-300 bg-white px-4 py-2 font-semibold text-ink-800 disabled:opacity-50">
+        <button
+          type="button"
+          onClick={runPreview}
+          disabled={pending}
+          className="rounded-chip border border-ink-300 bg-white px-4 py-2 font-semibold text-ink-800 disabled:opacity-50"
+        >
           Preview the letter
         </button>
-        <button type="button" onClick={send} disabled={pending || !outcome} className="rounded-chip bg-trajectory-600 px-4 py-2 font-semibold text-white disabled:opacity-50">
+        <button
+          type="button"
+          onClick={send}
+          disabled={pending || !outcome}
+          className="rounded-chip bg-trajectory-600 px-4 py-2 font-semibold text-white disabled:opacity-50"
+        >
           {pending ? "Working…" : "Send the decision"}
         </button>
       </div>

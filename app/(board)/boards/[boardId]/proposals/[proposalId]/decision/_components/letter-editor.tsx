@@ -27,10 +27,12 @@ export function useLetterEditor(content: Record<string, unknown>, onUpdate?: (do
   });
 }
 
-const buttonClass = "rounded-chip border border-ink-200 px-2 py-1 text-sm text-ink-800 hover:bg-ink-50 aria-pressed:bg-trajectory-100 aria-pressed:text-trajectory-700";
+const buttonClass =
+  "rounded-chip border border-ink-200 px-2 py-1 text-sm text-ink-800 hover:bg-ink-50 aria-pressed:bg-trajectory-100 aria-pressed:text-trajectory-700";
 
 export function LetterEditor({ editor, fields }: { editor: Editor | null; fields: readonly MergeFieldChoice[] }) {
-  if (!editor) return <div className="min-h-[18rem] animate-pulse rounded-panel border border-ink-200 bg-white" aria-busy="true" aria-label="Loading the letter editor" />;
+  if (!editor)
+    return <div className="min-h-[18rem] animate-pulse rounded-panel border border-ink-200 bg-white" aria-busy="true" aria-label="Loading the letter editor" />;
   const insertField = (name: string) => editor.chain().focus().insertContent(`{{${name}}}`).run();
   return (
     <div className="space-y-2">
@@ -42,13 +44,28 @@ export function LetterEditor({ editor, fields }: { editor: Editor | null; fields
           <button type="button" className={buttonClass} aria-pressed={editor.isActive("italic")} onClick={() => editor.chain().focus().toggleItalic().run()}>
             Italic
           </button>
-          <button type="button" className={buttonClass} aria-pressed={editor.isActive("heading", { level: 2 })} onClick={() => editor.chain().focus().toggleHeading({ level: 2 }).run()}>
+          <button
+            type="button"
+            className={buttonClass}
+            aria-pressed={editor.isActive("heading", { level: 2 })}
+            onClick={() => editor.chain().focus().toggleHeading({ level: 2 }).run()}
+          >
             Heading
           </button>
-          <button type="button" className={buttonClass} aria-pressed={editor.isActive("bulletList")} onClick={() => editor.chain().focus().toggleBulletList().run()}>
+          <button
+            type="button"
+            className={buttonClass}
+            aria-pressed={editor.isActive("bulletList")}
+            onClick={() => editor.chain().focus().toggleBulletList().run()}
+          >
             Bullets
           </button>
-          <button type="button" className={buttonClass} aria-pressed={editor.isActive("orderedList")} onClick={() => editor.chain().focus().toggleOrderedList().run()}>
+          <button
+            type="button"
+            className={buttonClass}
+            aria-pressed={editor.isActive("orderedList")}
+            onClick={() => editor.chain().focus().toggleOrderedList().run()}
+          >
             Numbered
           </button>
         </div>

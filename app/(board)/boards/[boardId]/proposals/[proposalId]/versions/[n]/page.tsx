@@ -38,7 +38,9 @@ export default async function VersionPage({ params }: { params: Promise<{ boardI
         </Panel>
         <div className="space-y-4">
           <DossierSummary items={items} budget={budget} source="server" />
-          <AttachmentList attachments={version.attachments.map((a) => ({ ...a, contentPath: `/api/v1/boards/${boardId}/attachments/${a.attachmentId}/content` }))} />
+          <AttachmentList
+            attachments={version.attachments.map((a) => ({ ...a, contentPath: `/api/v1/boards/${boardId}/attachments/${a.attachmentId}/content` }))}
+          />
         </div>
       </div>
     </div>

@@ -9,6 +9,16 @@ export const GET = route(async (_request, { boardId, proposalId, number }) => {
   const v = await getVersion(user, boardId!, proposalId!, n);
   // Object keys stay internal; the JSON and HTML are served through this API.
   return json({
-    version: { id: v.id, proposalId: v.proposalId, number: v.number, title: v.title, submittedAt: v.submittedAt, attachments: v.attachments, counts: v.counts, document: v.document, checkResults: v.checkResults },
+    version: {
+      id: v.id,
+      proposalId: v.proposalId,
+      number: v.number,
+      title: v.title,
+      submittedAt: v.submittedAt,
+      attachments: v.attachments,
+      counts: v.counts,
+      document: v.document,
+      checkResults: v.checkResults,
+    },
   });
 });
