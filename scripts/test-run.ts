@@ -26,13 +26,19 @@ async function main(): Promise<number> {
   let code = 1;
   try {
     log("checking formatting (prettier --check)...");
-    const format = spawnSync(process.execPath, [path.join(__dirname, "..", "node_modules", "prettier", "bin", "prettier.cjs"), "--check", "--log-level", "warn", "."], { encoding: "utf8" });
+    const format = spawnSync(
+      process.execPath,
+      [path.join(__dirname, "..", "node_modules", "prettier", "bin", "prettier.cjs"), "--check", "--log-level", "warn", "."],
+      { encoding: "utf8" },
+    );
     if (format.status !== 0) {
       process.stdout.write(format.stdout + format.stderr);
       throw new Error("files not formatted (above): run `npx prettier --write .`");
     }
     log("linting (eslint, any finding fails)...");
-    const lint = spawnSync(process.execPath, [path.join(__dirname, "..", "node_modules", "eslint", "bin", "eslint.js"), "--max-warnings", "0", "."], { encoding: "utf8" });
+    const lint = spawnSync(process.execPath, [path.join(__dirname, "..", "node_modules", "eslint", "bin", "eslint.js"), "--max-warnings", "0", "."], {
+      encoding: "utf8",
+    });
     if (lint.status !== 0) {
       process.stdout.write(lint.stdout + lint.stderr);
       throw new Error("lint findings (above): fix them first");
