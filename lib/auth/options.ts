@@ -1,7 +1,6 @@
 import "server-only";
 import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
-import { env } from "@/lib/env";
 import { recordAudit } from "@/lib/dal/audit";
 import { consumeAccountToken, findUserForSignIn, openSession, recordSignInAttempt, revokeSession, SESSION_DAYS, signInRetryAfter } from "@/lib/dal/sessions";
 import { verifyPassword } from "./passwords";
@@ -100,8 +99,3 @@ export const authOptions: NextAuthOptions = {
     },
   },
 };
-
-/** Fails fast in production when required variables are missing (see lib/env.ts). */
-export function assertAuthConfigured(): void {
-  env();
-}

@@ -1,8 +1,6 @@
 import "server-only";
 import { hash, verify } from "@node-rs/argon2";
 
-export const MIN_PASSWORD_LENGTH = 12;
-
 // Argon2id (the library's default algorithm) with the OWASP-recommended minimum cost
 // (19 MiB, 2 iterations, 1 lane) — common practice, not a published standard.
 const options = { memoryCost: 19_456, timeCost: 2, parallelism: 1 };

@@ -46,17 +46,20 @@ describe("the authorization policy", () => {
   });
 
   it("throws AppErrors with 404 and 403", () => {
-    expect(() => authorize(member, "board.view", { role: null }, "That board")).toThrow(AppError);
-    try {
-      authorize(member, "members.manage", { role: "proposer" });
-    } catch (error) {
-      expect((error as AppError).status).toBe(403);
-    }
-    try {
-      authorize(member, "board.view", { role: null }, "That board");
-    } catch (error) {
-      expect((error as AppError).status).toBe(404);
-      expect((error as AppError).message).toBe("That board was not found.");
-    }
+    const thrown = (run: () => unknown): AppError => {
+      try {
+        run();
+      } catch (error) {
+        return error as AppError;
+      }
+      throw new Error("expected an AppError, but nothing was thrown");
+    };
+    const forbidden = thrown(() => authorize(member, "members.manage", { role: "proposer" }));
+    expect(forbidden).toBeInstanceOf(AppError);
+    expect(forbidden.status).toBe(403);
+    const hidden = thrown(() => authorize(member, "board.view", { role: null }, "That board"));
+    expect(hidden).toBeInstanceOf(AppError);
+    expect(hidden.status).toBe(404);
+    expect(hidden.message).toBe("That board was not found.");
   });
 });

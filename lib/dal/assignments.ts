@@ -1,7 +1,7 @@
 import "server-only";
 import { and, asc, eq, inArray, sql } from "drizzle-orm";
 import { db, type Database, type Transaction } from "@/db/client";
-import { assignments, boardMembers, boards, calls, proposalCoauthors, proposals, proposalVersions, reviews, rubricTemplates, users } from "@/db/schema";
+import { assignments, boardMembers, boards, proposalCoauthors, proposals, proposalVersions, reviews, users } from "@/db/schema";
 import { authorize, type BoardRole, type ResourceFacts } from "@/lib/auth/policy";
 import type { SessionUser } from "@/lib/auth/session";
 import { conflict, notFound, unprocessable } from "@/lib/errors";
@@ -343,14 +343,4 @@ export async function removeAssignment(user: SessionUser, boardId: string, assig
     );
     return { ok: true as const };
   });
-}
-
-/** Used by reviews: which rubric template a call uses now. */
-export async function callTemplateId(boardId: string, callId: string, tx: Db = db()): Promise<string | null> {
-  const [row] = await tx
-    .select({ id: calls.rubricTemplateId })
-    .from(calls)
-    .innerJoin(rubricTemplates, eq(rubricTemplates.id, calls.rubricTemplateId))
-    .where(and(eq(calls.id, callId), eq(calls.boardId, boardId)));
-  return row?.id ?? null;
 }

@@ -212,12 +212,6 @@ export async function getReviewScreen(user: SessionUser, boardId: string, assign
   };
 }
 
-/** The caller's assignment for a proposal (the newest version they were asked to review), or null. */
-export async function myAssignmentFor(user: SessionUser, boardId: string, proposalId: string): Promise<string | null> {
-  const access = await proposalAccess(user, boardId, proposalId);
-  return access.myAssignments.at(-1)?.id ?? null;
-}
-
 /**
  * Locks the review row (creating it on the first save, which freezes the call's rubric) and
  * checks that the caller may write it. Throws 409 for a submitted review or a stale revision.

@@ -13,13 +13,6 @@ export const OUTCOME_LABELS: Record<Outcome, string> = {
   decline: "declined",
 };
 
-/** Button and heading wording for the chair's choice. */
-export const OUTCOME_CHOICES: Record<Outcome, string> = {
-  accept: "Accept",
-  revise: "Revise and resubmit",
-  decline: "Decline",
-};
-
 const p = (text: string) => ({ type: "paragraph", content: text ? [{ type: "text", text }] : [] });
 
 /** A plain, factual letter in VisViva's own words; every sentence can be edited per board. */

@@ -41,10 +41,3 @@ export function startOutboxWorker(intervalMs = Number(process.env.OUTBOX_POLL_MS
   globalForWorker.visvivaReminderJob = setInterval(periodic, REMINDER_INTERVAL_MS);
   globalForWorker.visvivaReminderJob.unref?.();
 }
-
-export function stopOutboxWorker(): void {
-  if (globalForWorker.visvivaOutboxWorker) clearInterval(globalForWorker.visvivaOutboxWorker);
-  if (globalForWorker.visvivaReminderJob) clearInterval(globalForWorker.visvivaReminderJob);
-  globalForWorker.visvivaOutboxWorker = undefined;
-  globalForWorker.visvivaReminderJob = undefined;
-}

@@ -275,11 +275,3 @@ export async function requeueMessage(id: string): Promise<boolean> {
     .returning({ id: outboxMessages.id });
   return rows.length > 0;
 }
-
-export async function outboxMessageStatus(id: string) {
-  const [row] = await db()
-    .select({ status: outboxMessages.status, attempts: outboxMessages.attempts, lastError: outboxMessages.lastError })
-    .from(outboxMessages)
-    .where(eq(outboxMessages.id, id));
-  return row ?? null;
-}

@@ -28,8 +28,6 @@ export type DecisionInput = z.infer<typeof decisionInput>;
 export const decisionPreviewInput = decisionInput.extend({ outcome: decisionOutcome.default("revise") });
 export type DecisionPreviewInput = z.infer<typeof decisionPreviewInput>;
 
-export const letterTemplateInput = z.object({ template: letterDocument });
-
 export const outboxListQuery = z.object({
   status: z.enum(["queued", "sending", "sent", "failed"]).optional(),
   limit: z.coerce.number().int().min(1).max(500).default(100),

@@ -14,21 +14,11 @@ import {
   presignAttachmentUpload,
 } from "@/lib/dal/attachments";
 import { saveDraft, submitProposal } from "@/lib/dal/proposals";
-import { AppError } from "@/lib/errors";
 import { attachmentContentPath } from "@/lib/dossier";
 import { statObjectOrNull, writeObject } from "@/storage/object-store";
+import { errorOf } from "../support/errors";
 import { addMember, asSessionUser, createUser } from "../support/factories";
 import { attachmentRow, dossierDoc, makeProposal } from "./matrix/dossiers";
-
-async function errorOf(promise: Promise<unknown>): Promise<AppError> {
-  try {
-    await promise;
-  } catch (error) {
-    if (error instanceof AppError) return error;
-    throw error;
-  }
-  throw new Error("expected an AppError");
-}
 
 /** A small but real PDF (header, one empty page, trailer). */
 const PDF = Buffer.from(

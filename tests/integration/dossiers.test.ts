@@ -20,6 +20,7 @@ import {
 import { AppError } from "@/lib/errors";
 import { callInputSchema, proposalListQuerySchema } from "@/lib/validation/dossier";
 import { readObject, statObjectOrNull } from "@/storage/object-store";
+import { errorOf } from "../support/errors";
 import { addMember, asSessionUser, createBoardWithCast, createUser } from "../support/factories";
 import { dossierDoc, makeCall, makeProposal, orbitBlock } from "./matrix/dossiers";
 
@@ -31,16 +32,6 @@ async function statusOf(promise: Promise<unknown>): Promise<number | "ok"> {
     if (error instanceof AppError) return error.status;
     throw error;
   }
-}
-
-async function errorOf(promise: Promise<unknown>): Promise<AppError> {
-  try {
-    await promise;
-  } catch (error) {
-    if (error instanceof AppError) return error;
-    throw error;
-  }
-  throw new Error("expected an AppError");
 }
 
 // A 500 km circular earth orbit: period 5677 s (engine value with its earth constants; a

@@ -1,6 +1,8 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import { appUrl } from "../support/app";
-import { sql } from "drizzle-orm";
+import { is, sql } from "drizzle-orm";
+import { PgTable, getTableConfig } from "drizzle-orm/pg-core";
+import * as schema from "@/db/schema";
 import { db } from "@/db/client";
 import { HttpClient, baseUrl } from "../support/http";
 import { createBoardWithCast } from "../support/factories";
@@ -18,11 +20,15 @@ describe("the app on its real local services", () => {
     expect(body.version).toMatch(/^\d+\.\d+\.\d+/);
   });
 
-  it("has applied every migration to the test database", async () => {
-    const rows = await db().execute(
-      sql`select count(*)::int as n from information_schema.tables where table_name in ('users','boards','proposals','reviews','decisions','outbox_messages')`,
+  it("has applied every migration to the test database: every table and column the schema declares exists", async () => {
+    const declared = (Object.values(schema) as unknown[]).filter((value): value is PgTable => is(value, PgTable)).map((table) => getTableConfig(table));
+    expect(declared.length).toBeGreaterThan(20);
+    const rows = await db().execute<{ table_name: string; column_name: string }>(
+      sql`select table_name, column_name from information_schema.columns where table_schema = 'public'`,
     );
-    expect(rows.rows[0]).toEqual({ n: 6 });
+    const present = new Set(rows.rows.map((row) => `${row.table_name}.${row.column_name}`));
+    const missing = declared.flatMap((table) => table.columns.map((column) => `${table.name}.${column.name}`)).filter((name) => !present.has(name));
+    expect(missing).toEqual([]);
   });
 
   it("lists caught mail as JSON outside production", async () => {

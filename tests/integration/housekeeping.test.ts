@@ -95,9 +95,8 @@ describe("housekeeping", () => {
       .where(inArray(rateLimitBuckets.key, [oldWindow, openWindow]));
     expect(windows.map((w) => w.key)).toEqual([openWindow]);
 
-    // A second pass finds nothing more of these.
-    const again = await housekeeping();
+    // A second pass keeps the live session.
+    await housekeeping();
     expect(await ids(db().select({ id: userSessions.id }).from(userSessions).where(eq(userSessions.userId, user.id)))).toEqual([live]);
-    expect(again.sessions).toBeGreaterThanOrEqual(0);
   });
 });

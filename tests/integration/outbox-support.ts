@@ -4,23 +4,9 @@ import { inArray, sql } from "drizzle-orm";
 import { db } from "@/db/client";
 import { outboxMessages } from "@/db/schema";
 import { processOutbox, type ProcessOptions } from "@/lib/mail/outbox";
+import { caughtMessages, type CatcherMessage } from "../support/mail";
 
-export interface CatcherMessage {
-  id: string;
-  to: string[];
-  subject: string;
-  text: string;
-  html: string | null;
-  messageId: string | null;
-  headers: Record<string, string>;
-  attachments: { filename: string | null; contentType: string; size: number; contentBase64: string }[];
-}
-
-export async function caughtMessages(): Promise<CatcherMessage[]> {
-  const response = await fetch(`${process.env.MAIL_CATCHER_URL}/messages`);
-  if (!response.ok) throw new Error(`mail catcher answered ${response.status}`);
-  return ((await response.json()) as { messages: CatcherMessage[] }).messages;
-}
+export { caughtMessages, type CatcherMessage };
 
 /** Messages the catcher holds for one outbox row (by the X-VisViva-Outbox-Id header). */
 export async function caughtFor(outboxId: string): Promise<CatcherMessage[]> {

@@ -6,7 +6,9 @@ export interface CatcherMessage {
   subject: string;
   text: string;
   html: string | null;
-  attachments: { filename: string | null; contentType: string; size: number; contentBase64?: string }[];
+  messageId: string | null;
+  headers: Record<string, string>;
+  attachments: { filename: string | null; contentType: string; size: number; contentBase64: string }[];
 }
 
 export async function caughtMessages(): Promise<CatcherMessage[]> {
