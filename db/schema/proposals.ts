@@ -55,7 +55,18 @@ export const proposals = pgTable(
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [index("proposals_board_idx").on(t.boardId), index("proposals_call_idx").on(t.callId), index("proposals_owner_idx").on(t.ownerId)],
+  (t) => [
+    index("proposals_board_idx").on(t.boardId),
+    index("proposals_call_idx").on(t.callId),
+    index("proposals_owner_idx").on(t.ownerId),
+    // One per sort the list offers (with the id tie-break), so a page is an index range, not a scan and sort.
+    index("proposals_board_updated_idx").on(t.boardId, t.updatedAt, t.id),
+    index("proposals_board_created_idx").on(t.boardId, t.createdAt, t.id),
+    index("proposals_board_title_idx").on(t.boardId, t.title, t.id),
+    index("proposals_board_status_idx").on(t.boardId, t.status, t.id),
+    index("proposals_board_version_idx").on(t.boardId, t.latestVersion, t.id),
+    index("proposals_board_call_updated_idx").on(t.boardId, t.callId, t.updatedAt, t.id),
+  ],
 );
 
 export const proposalCoauthors = pgTable(
@@ -134,7 +145,7 @@ export const checkResults = pgTable(
     result: jsonb("result").$type<Record<string, unknown>>().notNull(),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [uniqueIndex("check_results_version_block_key").on(t.versionId, t.blockId)],
+  (t) => [uniqueIndex("check_results_version_block_key").on(t.versionId, t.blockId), index("check_results_version_status_idx").on(t.versionId, t.status)],
 );
 
 export const attachments = pgTable(

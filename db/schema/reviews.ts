@@ -170,7 +170,7 @@ export const reviewItems = pgTable(
       .default("open"),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [index("review_items_version_idx").on(t.versionId)],
+  (t) => [index("review_items_version_idx").on(t.versionId), index("review_items_version_status_idx").on(t.versionId, t.status, t.severity)],
 );
 
 export const reviewItemReplies = pgTable(

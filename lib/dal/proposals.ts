@@ -204,7 +204,8 @@ export async function listProposals(
     callTitle: calls.title,
     latestVersion: proposals.latestVersion,
   }[query.sort];
-  const order = query.dir === "asc" ? asc(sortColumn) : desc(sortColumn);
+  // The id tie-break runs in the sort's direction so one index (board, column, id) serves both directions.
+  const order = query.dir === "asc" ? [asc(sortColumn), asc(proposals.id)] : [desc(sortColumn), desc(proposals.id)];
   const [rows, [total]] = await Promise.all([
     db()
       .select({
@@ -222,7 +223,7 @@ export async function listProposals(
       .from(proposals)
       .innerJoin(calls, and(eq(calls.id, proposals.callId), eq(calls.boardId, proposals.boardId)))
       .where(where)
-      .orderBy(order, asc(proposals.id))
+      .orderBy(...order)
       .limit(query.pageSize)
       .offset((query.page - 1) * query.pageSize),
     db()

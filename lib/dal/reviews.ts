@@ -554,8 +554,15 @@ async function aggregatesForVersions(
     const c = (await loadTemplate(boardId, id, tx))?.criteria[0];
     if (c) scales.set(id, { min: c.scaleMin, max: c.scaleMax });
   }
+  // Group once: a filter per version made the overview quadratic in its rows.
+  const byVersion = new Map<string, typeof rows>();
+  for (const r of rows) {
+    const list = byVersion.get(r.versionId);
+    if (list) list.push(r);
+    else byVersion.set(r.versionId, [r]);
+  }
   return versions.map((v) => {
-    const mine = rows.filter((r) => r.versionId === v.versionId);
+    const mine = byVersion.get(v.versionId) ?? [];
     const submitted = mine.filter((r) => r.status === "submitted" && r.total !== null);
     const scaleOf = submitted.map((r) => scales.get(r.templateId!)).find(Boolean) ?? null;
     return { ...v, ...aggregateTotals(submitted.map((r) => Number(r.total))), assigned: mine.length, scale: scaleOf };
@@ -619,6 +626,8 @@ export async function getCallOverview(user: SessionUser, boardId: string, callId
         .where(and(eq(checkResults.boardId, boardId), inArray(checkResults.versionId, versionIds)))
         .groupBy(checkResults.versionId, checkResults.status)
     : [];
+  const itemCounts = new Map(items.map((x) => [`${x.versionId}|${x.severity}`, x.n]));
+  const flagCounts = new Map(flags.map((x) => [`${x.versionId}|${x.status}`, x.n]));
   const template = call.rubricTemplateId ? await loadTemplate(boardId, call.rubricTemplateId) : null;
   const scale =
     aggregates.find((a) => a.scale)?.scale ?? (template?.criteria[0] ? { min: template.criteria[0].scaleMin, max: template.criteria[0].scaleMax } : null);
@@ -627,8 +636,8 @@ export async function getCallOverview(user: SessionUser, boardId: string, callId
     scale,
     rows: rows.map((r, i) => {
       const a = aggregates[i]!;
-      const count = (sev: "major" | "minor" | "comment") => items.find((x) => x.versionId === r.versionId && x.severity === sev)?.n ?? 0;
-      const flag = (st: "inconsistent" | "invalid") => flags.find((x) => x.versionId === r.versionId && x.status === st)?.n ?? 0;
+      const count = (sev: "major" | "minor" | "comment") => itemCounts.get(`${r.versionId}|${sev}`) ?? 0;
+      const flag = (st: "inconsistent" | "invalid") => flagCounts.get(`${r.versionId}|${st}`) ?? 0;
       return {
         proposalId: r.proposalId,
         title: r.title,
