@@ -31,6 +31,14 @@ describe("the app on its real local services", () => {
     expect(missing).toEqual([]);
   });
 
+  it("answers an unknown page with our own 404 page, which leads back to the boards", async () => {
+    const response = await fetch(`${baseUrl()}/no-such-page-here`);
+    expect(response.status).toBe(404);
+    const html = await response.text();
+    expect(html).toContain("This page is not here");
+    expect(html).toContain('href="/boards"');
+  });
+
   it("lists caught mail as JSON outside production", async () => {
     const response = await fetch(`${baseUrl()}/api/dev/mail`);
     expect(response.status).toBe(200);
