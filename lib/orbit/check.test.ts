@@ -230,7 +230,7 @@ describe("requests", () => {
     expect(res.results.map((r) => r.status)).toEqual(["consistent", "invalid", "inconsistent"]);
     expect(exitCodeFor(res)).toBe(2);
     expect(overallStatus(res)).toBe("invalid");
-    expect(exitCodeFor({ results: [res.results[0]!, res.results[2]!] })).toBe(1);
+    expect(exitCodeFor({ notice: res.notice, results: [res.results[0]!, res.results[2]!] })).toBe(1);
   });
 
   it("a malformed envelope says why and has no results", () => {
