@@ -114,7 +114,7 @@ function errorMessage(e: unknown): string {
 }
 
 /** Evaluates one claim (any JSON value) under a tolerance. Never throws. */
-export function evaluateClaim(claim: unknown, tolerance: Tolerance = DEFAULT_TOLERANCE, index = 0): ClaimResult {
+export function evaluateClaim(claim: unknown, tolerance: Tolerance = DEFAULT_TOLERANCE, index = 0, options: { hints?: boolean } = {}): ClaimResult {
   let id = `claim-${index + 1}`;
   let kind = "unknown";
   try {
@@ -182,7 +182,7 @@ export function evaluateClaim(claim: unknown, tolerance: Tolerance = DEFAULT_TOL
       const r = compareQuantity(q, value, comp, tol);
       if (typeof r === "string") problems.push(r);
       else {
-        if (!r.ok && typeof comp !== "string" && typeof comp !== "boolean") {
+        if (!r.ok && options.hints !== false && typeof comp !== "string" && typeof comp !== "boolean") {
           const hint = findHint({
             quantity: q,
             unit: r.unit,

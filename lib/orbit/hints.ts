@@ -11,7 +11,7 @@ import { ANGLE_UNIT, scalarAgrees, vectorAgrees, type Tolerance } from "./tolera
 import { quantityInfo } from "./quantities";
 import { RAD } from "./vector";
 
-/** Sidereal day from the WGS-84 rotation rate: 2π / 7.292115e-5 rad/s = 86 164.0989 s. */
+/** Sidereal day from the WGS-84 rotation rate: 2π / 7.292115e-5 rad/s = 86 164.1006 s. */
 export const SIDEREAL_DAY_S = (2 * Math.PI) / BODIES.earth.rotationRate.value;
 /** Mean solar day, s (the SI day). */
 export const SOLAR_DAY_S = 86_400;
