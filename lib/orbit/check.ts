@@ -154,6 +154,22 @@ export function evaluateClaim(claim: unknown, tolerance: Tolerance = DEFAULT_TOL
     const ev: Evaluation = def.evaluate(new Inputs(given, kind), body);
     const bodyName = tableBodyName(c.body, defaultBodyOf(kind));
     const overridden = new Set(typeof c.body === "object" && c.body !== null ? Object.keys(c.body) : []);
+    const bodyUsed = usesBody(kind) ? body : undefined;
+    // Recomputations for the hint search, shared by the claim's failing rows.
+    const recomputed = new Map<string, Record<string, ComputedValue> | undefined>();
+    const recompute = (b: Body = body, g0?: number) => {
+      const key = `${b.name}|${b.mu}|${b.radius}|${b.j2ReferenceRadius}|${b.year}|${g0}`;
+      if (!recomputed.has(key)) {
+        let values: Record<string, ComputedValue> | undefined;
+        try {
+          values = def.evaluate(new Inputs(given, kind), b, g0 === undefined ? undefined : { g0 }).values;
+        } catch {
+          values = undefined;
+        }
+        recomputed.set(key, values);
+      }
+      return recomputed.get(key);
+    };
     messages.push(...ev.messages);
     const computed: Record<string, ComputedValue> = {};
     for (const [k, v] of Object.entries(ev.values)) {
@@ -192,16 +208,10 @@ export function evaluateClaim(claim: unknown, tolerance: Tolerance = DEFAULT_TOL
             tolerance: tol,
             computedAll: computed,
             kind,
-            body,
-            bodyName,
+            body: bodyUsed,
+            bodyName: bodyUsed ? bodyName : undefined,
             overridden,
-            recompute: (b: Body, g0?: number) => {
-              try {
-                return def.evaluate(new Inputs(given, kind), b, g0 === undefined ? undefined : { g0 }).values;
-              } catch {
-                return undefined;
-              }
-            },
+            recompute,
           });
           if (hint) r.hint = hint;
         }
