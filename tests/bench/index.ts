@@ -55,14 +55,18 @@ const loops: Record<string, Loop> = {
 };
 let astro2bFailures = 0;
 
-/** Best of several rounds (the least disturbed by other load on the machine). */
+/**
+ * Best of several rounds, timed in this process's CPU time (user + system), so that other
+ * engineers' load on the shared machine does not count as our time while we wait for a core.
+ */
 function timeLoop(loop: Loop, count: number, rounds: number): { perSecond: number; sink: number } {
   let best = Infinity;
   let sink = 0;
   for (let r = 0; r < rounds; r++) {
-    const t0 = performance.now();
+    const t0 = process.cpuUsage();
     sink += loop(count);
-    best = Math.min(best, performance.now() - t0);
+    const used = process.cpuUsage(t0);
+    best = Math.min(best, (used.user + used.system) / 1000);
   }
   return { perSecond: count / (best / 1000), sink };
 }
@@ -122,6 +126,10 @@ for (const [a, b, c] of rows) console.log(`  ${a.padEnd(36)}${b.padStart(10)}   
 console.log(`  ratio VisViva / astronomia kepler3:  ${(ours.perSecond / astro3.perSecond).toFixed(1)}×`);
 console.log(`  ratio VisViva / astronomia kepler2b: ${(ours.perSecond / astro2b.perSecond).toFixed(1)}×`);
 console.log(`  goal: ≥ 5 M/s with max residual < 1e-12 rad → ${ours.perSecond >= 5e6 && oursResidual < 1e-12 ? "met" : "NOT met"}`);
+console.log(
+  `  goal (issue 19): ≥ 3× astronomia kepler2b at residual ≤ 1e-12 rad → ${ours.perSecond >= 3 * astro2b.perSecond && oursResidual <= 1e-12 ? "met" : "NOT met"}`,
+);
+console.log("  (rates per CPU-second of this process)");
 if (astro2bFailures > 0) console.log(`  (astronomia kepler2b did not converge on ${astro2bFailures} timed inputs)`);
 // The sum keeps the timed loop from being optimised away.
 process.stderr.write(`(checksum ${ours.sink.toFixed(3)})\n`);
@@ -211,22 +219,30 @@ const request = { claims };
 
 for (let i = 0; i < 30; i++) checkOrbitClaims(request);
 const times: number[] = [];
+const cpuTimes: number[] = [];
 for (let i = 0; i < 200; i++) {
+  const c0 = process.cpuUsage();
   const t0 = performance.now();
   checkOrbitClaims(request);
   times.push(performance.now() - t0);
+  const used = process.cpuUsage(c0);
+  cpuTimes.push((used.user + used.system) / 1000);
 }
 times.sort((a, b) => a - b);
+cpuTimes.sort((a, b) => a - b);
 const median = times[Math.floor(times.length / 2)]!;
 const p95 = times[Math.floor(times.length * 0.95)]!;
+const cpuMedian = cpuTimes[Math.floor(cpuTimes.length / 2)]!;
 const final = checkOrbitClaims(request).results;
 const statuses = final.reduce<Record<string, number>>((m, r) => ({ ...m, [r.status]: (m[r.status] ?? 0) + 1 }), {});
 const failingRows = final.flatMap((r) => r.checks).filter((c) => !c.ok);
 const hinted = failingRows.filter((c) => c.hint).reduce<Record<string, number>>((m, c) => ({ ...m, [c.hint!.code]: (m[c.hint!.code] ?? 0) + 1 }), {});
 console.log("");
 console.log(`Request of ${claims.length} mixed claims (${templates.length} claim types, every kind), checked in-process, 200 runs`);
+console.log(`  wall time: median ${median.toFixed(2)} ms, p95 ${p95.toFixed(2)} ms, best ${times[0]!.toFixed(2)} ms`);
 console.log(
-  `  median ${median.toFixed(2)} ms, p95 ${p95.toFixed(2)} ms, best ${times[0]!.toFixed(2)} ms  (goal: median < 5 ms with hints searched → ${median < 5 ? "met" : "NOT met"})`,
+  `  CPU time of this process: median ${cpuMedian.toFixed(2)} ms  (goal: median < 5 ms with hints searched → CPU ${cpuMedian < 5 ? "met" : "NOT met"}, wall ${median < 5 ? "met" : "NOT met"})`,
 );
+console.log("  (wall time includes waiting for a core on a shared machine; CPU time does not)");
 console.log(`  statuses: ${JSON.stringify(statuses)}`);
 console.log(`  failing rows searched for hints: ${failingRows.length}; hints found: ${JSON.stringify(hinted)}`);
