@@ -18,6 +18,7 @@ import {
   parseTolerancePolicy,
   toleranceSummary,
   DEFAULT_TOLERANCE,
+  ORBIT_CHECK_KINDS,
 } from "./index";
 
 describe("precision allowance: half a unit in the last written digit (contract examples)", () => {
@@ -225,6 +226,9 @@ describe("response additions", () => {
     expect(o.checks[0]).toMatchObject({ unit: "rev/day" });
     const g = evaluateClaim({ kind: "groundContact", body: "earth", given: { altitude: 500, minimumElevation: 0 }, claimed: { earthCentralAngle: 21.98 } });
     expect(g.computed.centralAngle).toBe(g.computed.earthCentralAngle);
+    const kind = ORBIT_CHECK_KINDS.find((k) => k.kind === "groundContact")!;
+    expect(kind.computed.find((c) => c.name === "earthCentralAngle")).toMatchObject({ aliasOf: "centralAngle", unit: "deg" });
+    expect(kind.computed.find((c) => c.name === "centralAngle")?.aliasOf).toBeUndefined();
     expect(g.status).toBe("consistent");
     expect(g.messages.join(" ")).toMatch(/earthCentralAngle is the contract version 1 name of centralAngle/);
     expect(
