@@ -8,25 +8,10 @@ import { fail, fmt } from "../errors";
 const PI = Math.PI;
 const TWO_PI = 2 * Math.PI;
 
-/** True where typed arrays store doubles little-endian (every current browser and Node platform). */
+/** True where typed arrays store doubles little-endian (every current browser and Node platform); else Math.cbrt is used. */
 const LITTLE_ENDIAN = new Uint8Array(new Uint32Array([1]).buffer)[0] === 1;
 const F64 = new Float64Array(1);
 const U32 = new Uint32Array(F64.buffer);
-
-/**
- * Cube root of y > 0 to about 1e-5 relative: fdlibm's exponent-divided-by-three seed
- * (s_cbrt.c, B1 = 715094163) and one Halley step t·(t³ + 2y)/(2t³ + y). The starter below
- * needs no more, since the fourth-order correction squares its error twice.
- */
-function roughCbrt(y: number): number {
-  if (!LITTLE_ENDIAN) return Math.cbrt(y);
-  F64[0] = y;
-  U32[1] = ((U32[1]! / 3) | 0) + 715_094_163;
-  U32[0] = 0;
-  const t = F64[0]!;
-  const t3 = t * t * t;
-  return (t * (t3 + 2 * y)) / (2 * t3 + y);
-}
 
 // Taylor coefficients of sin and cos about 0, used on [−π/2, π/2]: the first omitted terms
 // (x²¹/21!, x²²/22!) are below 3e-16 there.
@@ -72,29 +57,50 @@ export function solveKeplerElliptic(M: number, e: number): number {
   }
   const sign = m < 0 ? -1 : 1;
   m *= sign;
+  if (m === 0) return k * TWO_PI;
   // Markley (1995) eqs. 20–24: α, d, q, r and the root of the cubic approximation of Kepler's equation.
   const alpha = (3 * PI_SQ + (1.6 * PI * (PI - m)) / (1 + e)) * INV_PI_SQ_MINUS_6;
   const d = 3 * (1 - e) + alpha * e;
   const q = 2 * alpha * d * (1 - e) - m * m;
   const r = 3 * alpha * d * (d - 1 + e) * m + m * m * m;
   const y = Math.abs(r) + Math.sqrt(q * q * q + r * r);
-  let w = y > 0 ? roughCbrt(y) : 0;
-  w = w * w;
-  const den = w * w + w * q + q * q;
-  const E = den === 0 ? m : (2 * r * w + m * den) / (den * d);
-  // sin E = cos x and cos E = −sin x with x = E − π/2 in [−π/2, π/2] (Taylor series, Horner form).
+  // w = y^(2/3). The cube root t of y to about 1e-5 relative is enough, since the correction
+  // below squares the starter's error twice: fdlibm's seed (s_cbrt.c: high word / 3 +
+  // 715094163) and one Halley step t·(t³ + 2y)/(2t³ + y), kept as the fraction wn/wd so that
+  // E needs a single division.
+  let t: number;
+  if (LITTLE_ENDIAN) {
+    F64[0] = y;
+    U32[1] = ((U32[1]! / 3) | 0) + 715_094_163;
+    U32[0] = 0;
+    t = F64[0]!;
+  } else t = Math.cbrt(y);
+  const t3 = t * t * t;
+  const halleyUp = t3 + 2 * y;
+  const halleyDown = 2 * t3 + y;
+  const wn = t * t * halleyUp * halleyUp;
+  const wd = halleyDown * halleyDown;
+  // E = (2rw/(w² + wq + q²) + m)/d with w = wn/wd.
+  const den = wn * wn + wn * q * wd + q * q * wd * wd;
+  const E = y > 0 && den !== 0 ? (2 * r * wn * wd + m * den) / (den * d) : m / d;
+  // sin E = cos x and cos E = −sin x with x = E − π/2 in [−π/2, π/2] (Taylor series in Estrin's form).
   const x = E - HALF_PI;
   const x2 = x * x;
-  const sinX = x * (1 + x2 * (S1 + x2 * (S2 + x2 * (S3 + x2 * (S4 + x2 * (S5 + x2 * (S6 + x2 * (S7 + x2 * (S8 + x2 * S9)))))))));
-  const cosX = 1 + x2 * (C1 + x2 * (C2 + x2 * (C3 + x2 * (C4 + x2 * (C5 + x2 * (C6 + x2 * (C7 + x2 * (C8 + x2 * (C9 + x2 * C10)))))))));
+  const x4 = x2 * x2;
+  const x8 = x4 * x4;
+  const x16 = x8 * x8;
+  const sinX = x * (1 + S1 * x2 + x4 * (S2 + S3 * x2) + x8 * (S4 + S5 * x2 + x4 * (S6 + S7 * x2)) + x16 * (S8 + S9 * x2));
+  const cosX = 1 + C1 * x2 + x4 * (C2 + C3 * x2) + x8 * (C4 + C5 * x2 + x4 * (C6 + C7 * x2)) + x16 * (C8 + C9 * x2 + x4 * C10);
   const es = e * cosX; // e·sin E
   const ec = -e * sinX; // e·cos E
   // Kepler's equation residual f0 and derivative f1 = 1 − e cos E; Danby & Burkardt's
-  // third-order (Halley) step, then their fourth-order step built on it.
+  // third-order (Halley) step δ3 = n3/d3, then their fourth-order step built on it,
+  // δ4 = −f0/(f1 + ½δ3·e sin E + δ3²·e cos E/6), multiplied through by d3² (one division).
   const f0 = E - es - m;
   const f1 = 1 - ec;
-  const d3 = (-f0 * f1) / (f1 * f1 - 0.5 * f0 * es);
-  const d4 = -f0 / (f1 + 0.5 * d3 * es + (d3 * d3 * ec) / 6);
+  const n3 = -f0 * f1;
+  const d3 = f1 * f1 - 0.5 * f0 * es;
+  const d4 = (-f0 * d3 * d3) / (f1 * d3 * d3 + 0.5 * n3 * es * d3 + (n3 * n3 * ec) / 6);
   const result = sign * (E + d4) + k * TWO_PI;
   return Number.isFinite(result) ? result : solveKeplerIterative(M, e);
 }
