@@ -2,16 +2,19 @@ import "server-only";
 import type { z } from "zod";
 import { fromDatabaseInputError, isAppError } from "@/lib/errors";
 import { requireUser, type SessionUser } from "@/lib/auth/session";
+import { humanFieldErrors, humanIssue } from "@/lib/validation/messages";
 
 export type ActionResult<T> = { ok: true; data: T } | { ok: false; error: string; fieldErrors?: Record<string, string[]>; status?: number };
 
+/** The form's message: the problems as sentences (the first three; each field shows its own). */
+function summaryOf(error: z.ZodError): string {
+  const sentences = error.issues.map(humanIssue);
+  const more = sentences.length - 3;
+  return sentences.slice(0, 3).join(" ") + (more > 0 ? ` And ${more} more ${more === 1 ? "problem" : "problems"} below.` : "");
+}
+
 function fieldErrorsOf(error: z.ZodError): Record<string, string[]> {
-  const out: Record<string, string[]> = {};
-  for (const issue of error.issues) {
-    const key = issue.path.join(".") || "_";
-    (out[key] ??= []).push(issue.message);
-  }
-  return out;
+  return humanFieldErrors(error.issues);
 }
 
 /**
@@ -25,7 +28,7 @@ export function action<S extends z.ZodType, T>(schema: S, handler: (input: z.inf
       const raw = input instanceof FormData ? Object.fromEntries(input.entries()) : input;
       const parsed = schema.safeParse(raw);
       if (!parsed.success) {
-        return { ok: false, error: "Some fields need attention.", fieldErrors: fieldErrorsOf(parsed.error), status: 422 };
+        return { ok: false, error: summaryOf(parsed.error), fieldErrors: fieldErrorsOf(parsed.error), status: 422 };
       }
       return { ok: true, data: await handler(parsed.data, user) };
     } catch (caught) {
@@ -44,7 +47,7 @@ export function publicAction<S extends z.ZodType, T>(schema: S, handler: (input:
       const raw = input instanceof FormData ? Object.fromEntries(input.entries()) : input;
       const parsed = schema.safeParse(raw);
       if (!parsed.success) {
-        return { ok: false, error: "Some fields need attention.", fieldErrors: fieldErrorsOf(parsed.error), status: 422 };
+        return { ok: false, error: summaryOf(parsed.error), fieldErrors: fieldErrorsOf(parsed.error), status: 422 };
       }
       return { ok: true, data: await handler(parsed.data) };
     } catch (caught) {
