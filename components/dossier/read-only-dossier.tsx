@@ -58,7 +58,11 @@ export function ReadOnlyDossier({
           return (
             <div key={i} className="my-4 grid items-start gap-3 md:grid-cols-[minmax(0,1fr)_auto] [&_figure.orbit-check]:my-0" data-orbit-check-with-plot="">
               <div className="prose-dossier" dangerouslySetInnerHTML={{ __html: html([piece.node]) }} />
-              {plot && block ? <OrbitPlot plot={plot} title={`Plot of ${block.label || `the ${block.claim.kind} claim`}`} size={220} /> : null}
+              {plot && block ? (
+                <div className="w-56">
+                  <OrbitPlot plot={plot} title={`Plot of ${block.label || `the ${block.claim.kind} claim`}`} size={220} />
+                </div>
+              ) : null}
             </div>
           );
         })}

@@ -244,7 +244,7 @@ export function AttachmentUploader({
                     ) : null}
                   </span>
                 </div>
-                <UploadBar upload={u} />
+                {u.status === "failed" || u.status === "cancelled" ? null : <UploadBar upload={u} />}
                 {u.error ? (
                   <p role="alert" className="text-xs text-void-700">
                     {u.error}
