@@ -6,11 +6,16 @@ import { humanFieldErrors, humanIssue } from "@/lib/validation/messages";
 
 export type ActionResult<T> = { ok: true; data: T } | { ok: false; error: string; fieldErrors?: Record<string, string[]>; status?: number };
 
-/** The form's message: the problems as sentences (the first three; each field shows its own). */
+/**
+ * The form's message. Problems with a field show beside that field (fieldErrors), so the
+ * message only repeats the ones that belong to no field, as sentences.
+ */
 function summaryOf(error: z.ZodError): string {
-  const sentences = error.issues.map(humanIssue);
-  const more = sentences.length - 3;
-  return sentences.slice(0, 3).join(" ") + (more > 0 ? ` And ${more} more ${more === 1 ? "problem" : "problems"} below.` : "");
+  const general = error.issues.filter((i) => i.path.length === 0).map(humanIssue);
+  if (general.length > 0) return general.join(" ");
+  return error.issues.length === 1
+    ? "One field needs attention: its message says what to change."
+    : "Some fields need attention: each message says what to change.";
 }
 
 function fieldErrorsOf(error: z.ZodError): Record<string, string[]> {
