@@ -3,7 +3,7 @@
 // orbit checks, the sections every dossier must have, and reviewers per proposal.
 import { useState } from "react";
 import { useRouter } from "next/navigation";
-import { TextField } from "@/components/ui/form-controls";
+import { CharacterCount, TextField, useCharacterCount } from "@/components/ui/form-controls";
 
 export interface CallFormValues {
   id?: string;
@@ -24,6 +24,7 @@ export function CallForm({ boardId, initial, afterSave }: { boardId: string; ini
   const [fieldErrors, setFieldErrors] = useState<Record<string, string>>({});
   const [saving, setSaving] = useState(false);
   const [saved, setSaved] = useState(false);
+  const descriptionCount = useCharacterCount(initial?.description);
 
   const onSubmit = async (event: React.FormEvent<HTMLFormElement>) => {
     event.preventDefault();
@@ -88,8 +89,11 @@ export function CallForm({ boardId, initial, afterSave }: { boardId: string; ini
           rows={3}
           defaultValue={initial?.description}
           maxLength={5000}
+          aria-describedby="call-description-count"
+          onInput={descriptionCount.onInput}
           className="mt-1 block w-full rounded-chip border border-ink-300 bg-white px-3 py-2"
         />
+        <CharacterCount id="call-description-count" length={descriptionCount.length} max={5000} />
       </div>
       <div className="grid gap-4 sm:grid-cols-2">
         <TextField

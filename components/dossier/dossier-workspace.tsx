@@ -11,8 +11,19 @@ import { deltaVBudget, evaluateBlocks, extractOrbitChecks, type ToleranceInput }
 import { mergeDocuments } from "@/lib/dossier/merge";
 import { renderDossierHtml } from "@/lib/dossier/render";
 import { DossierSummary } from "./dossier-summary";
+import { formatDateTime, formatTime } from "@/lib/format/dates";
 
 export const AUTOSAVE_DELAY_MS = 1500;
+
+// A keepalive request may carry at most 64 KiB; larger drafts rely on the unload warning.
+const KEEPALIVE_LIMIT = 60_000;
+
+/**
+ * Saves still running after their workspace unmounted (Back, a link), by proposal: a workspace
+ * mounting again waits for them before it asks the server for the latest revision, so it
+ * never shows, or builds on, the text from before them.
+ */
+const pendingFlushes = new Map<string, Promise<unknown>>();
 
 type SaveState =
   { kind: "saved"; at: string | null } | { kind: "dirty" } | { kind: "saving" } | { kind: "conflict"; message: string } | { kind: "error"; message: string };
@@ -55,14 +66,14 @@ export function DossierWorkspace(props: DossierWorkspaceProps) {
 
   // The save and schedule functions read only refs, so the editor's onUpdate (bound once)
   // always reaches the current ones through saveRef.
-  const saveRef = useRef<() => Promise<boolean>>(async () => false);
+  const saveRef = useRef<(options?: { keepalive?: boolean }) => Promise<boolean>>(async () => false);
 
   const schedule = () => {
     if (timer.current) clearTimeout(timer.current);
     timer.current = setTimeout(() => void saveRef.current(), AUTOSAVE_DELAY_MS);
   };
 
-  const save = async (): Promise<boolean> => {
+  const save = async ({ keepalive = false }: { keepalive?: boolean } = {}): Promise<boolean> => {
     if (conflicted.current) return false;
     if (inFlight.current) {
       await inFlight.current;
@@ -72,10 +83,13 @@ export function DossierWorkspace(props: DossierWorkspaceProps) {
       dirty.current = false;
       setSaveState({ kind: "saving" });
       const sent = latestDoc.current;
+      const payload = JSON.stringify({ revision: revision.current, document: sent });
       const response = await fetch(`/api/v1/boards/${boardId}/proposals/${proposalId}/draft`, {
         method: "PUT",
         headers: { "content-type": "application/json" },
-        body: JSON.stringify({ revision: revision.current, document: sent }),
+        body: payload,
+        // Leaving the page (pagehide, a hidden tab) must not cancel the save.
+        keepalive: keepalive && payload.length < KEEPALIVE_LIMIT,
       }).catch(() => null);
       if (!response) {
         dirty.current = true;
@@ -121,16 +135,72 @@ export function DossierWorkspace(props: DossierWorkspaceProps) {
 
   const editor = useDossierEditor({ content: props.draft.document, tolerance: props.tolerance, onUpdate });
 
+  // Nothing typed is lost by leaving: a pending autosave is sent at once when the page is hidden
+  // or left (pagehide, a hidden tab, Back or a link inside the app unmounting the workspace),
+  // and closing or reloading the page with unsaved text asks first.
   useEffect(() => {
+    const flush = () => {
+      if (!dirty.current || conflicted.current) return null;
+      if (timer.current) clearTimeout(timer.current);
+      timer.current = null;
+      return saveRef.current({ keepalive: true });
+    };
     const warn = (e: BeforeUnloadEvent) => {
-      if (dirty.current) e.preventDefault();
+      if (!dirty.current) return;
+      e.preventDefault();
+      e.returnValue = "";
+    };
+    const onPageHide = () => void flush();
+    const onVisibility = () => {
+      if (document.visibilityState === "hidden") void flush();
     };
     window.addEventListener("beforeunload", warn);
+    window.addEventListener("pagehide", onPageHide);
+    document.addEventListener("visibilitychange", onVisibility);
     return () => {
       window.removeEventListener("beforeunload", warn);
+      window.removeEventListener("pagehide", onPageHide);
+      document.removeEventListener("visibilitychange", onVisibility);
+      const pending = flush() ?? inFlight.current;
       if (timer.current) clearTimeout(timer.current);
+      if (pending) {
+        const done = pending.finally(() => {
+          if (pendingFlushes.get(proposalId) === done) pendingFlushes.delete(proposalId);
+        });
+        pendingFlushes.set(proposalId, done);
+      }
     };
-  }, []);
+  }, [proposalId]);
+
+  // Back and Forward can bring back this page as the router cached it, with an older revision
+  // than the server now holds (a save sent on leaving, another tab). Once any save still
+  // running from before has landed, load the latest and show it unless something was typed.
+  useEffect(() => {
+    if (!editor) return;
+    let cancelled = false;
+    const refresh = async () => {
+      await pendingFlushes.get(proposalId)?.catch(() => undefined);
+      const response = await fetch(`/api/v1/boards/${boardId}/proposals/${proposalId}/draft`, { cache: "no-store" }).catch(() => null);
+      if (cancelled || !response?.ok) return;
+      const { draft } = (await response.json()) as { draft: { revision: number; document: Record<string, unknown>; updatedAt: string } };
+      if (cancelled || draft.revision <= revision.current || dirty.current || inFlight.current || conflicted.current) return;
+      revision.current = draft.revision;
+      baseDoc.current = draft.document;
+      latestDoc.current = draft.document;
+      editor.commands.setContent(draft.document, { emitUpdate: false });
+      setDoc(draft.document);
+      setSaveState({ kind: "saved", at: draft.updatedAt });
+    };
+    void refresh();
+    const onPageShow = (e: PageTransitionEvent) => {
+      if (e.persisted) void refresh();
+    };
+    window.addEventListener("pageshow", onPageShow);
+    return () => {
+      cancelled = true;
+      window.removeEventListener("pageshow", onPageShow);
+    };
+  }, [editor, boardId, proposalId]);
 
   /**
    * Loads the latest revision and merges this tab's changes into it block by block. When both
@@ -242,8 +312,8 @@ export function DossierWorkspace(props: DossierWorkspaceProps) {
           </h2>
           <p className="text-xs text-ink-600">
             {props.requiredSections.length > 0 ? `Required sections: ${props.requiredSections.join(", ")}. ` : ""}
-            {props.callOpen ? `The call closes ${new Date(props.callClosesAt).toUTCString()}.` : "The call is not open for submissions."} The server recomputes
-            every claim when you submit.
+            {props.callOpen ? `The call closes ${formatDateTime(props.callClosesAt)}.` : "The call is not open for submissions."} The server recomputes every
+            claim when you submit.
           </p>
           <button
             type="button"
@@ -294,7 +364,7 @@ function SaveStatus({ state, onSaveNow, onReapply }: { state: SaveState; onSaveN
   const text =
     state.kind === "saved"
       ? state.at
-        ? `All changes saved (${new Date(state.at).toLocaleTimeString("en-GB")})`
+        ? `All changes saved (${formatTime(state.at)})`
         : "All changes saved"
       : state.kind === "saving"
         ? "Saving…"

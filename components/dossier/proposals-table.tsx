@@ -1,6 +1,7 @@
 "use client";
 // The proposer's list: pages fetched from /api/v1 with TanStack Query; paging, sorting and
 // the search live in the URL (the shared DataTable writes them), the server does the work.
+import { formatDateTime } from "@/lib/format/dates";
 import Link from "next/link";
 import { useSearchParams } from "next/navigation";
 import { keepPreviousData, useQuery } from "@tanstack/react-query";
@@ -35,7 +36,6 @@ const STATUS_TEXT: Record<ProposalListRow["status"], string> = {
   withdrawn: "Withdrawn",
 };
 
-const dateFormat = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
 const column = createColumnHelper<ProposalListRow>();
 
 export function ProposalsTable({ boardId }: { boardId: string }) {
@@ -71,7 +71,7 @@ export function ProposalsTable({ boardId }: { boardId: string }) {
     column.accessor("missionType", { id: "missionType", header: "Mission type", enableSorting: false }),
     column.accessor("status", { id: "status", header: "Status", cell: (info) => STATUS_TEXT[info.getValue()] }),
     column.accessor("latestVersion", { id: "latestVersion", header: "Version", cell: (info) => (info.getValue() === 0 ? "—" : `v${info.getValue()}`) }),
-    column.accessor("updatedAt", { id: "updatedAt", header: "Last change (UTC)", cell: (info) => dateFormat.format(new Date(info.getValue())) }),
+    column.accessor("updatedAt", { id: "updatedAt", header: "Last change", cell: (info) => formatDateTime(info.getValue()) }),
   ];
 
   const status = searchParams.get("status") ?? "";

@@ -38,14 +38,20 @@ export function useDossierEditor({
 }
 
 const EDITOR_PROPS = {
-  attributes: { class: "prose-dossier min-h-[24rem] px-5 py-4 focus:outline-none", "aria-label": "Dossier text", "aria-multiline": "true", role: "textbox" },
+  // A visible focus ring inside the panel's border (the page-wide outline would be clipped).
+  attributes: {
+    class: "prose-dossier min-h-[24rem] rounded-b-panel px-5 py-4 focus:outline-2 focus:-outline-offset-4 focus:outline-trajectory-500",
+    "aria-label": "Dossier text",
+    "aria-multiline": "true",
+    role: "textbox",
+  },
 };
 
 export function DossierEditor({ editor, images }: { editor: Editor | null; images?: ImageChoice[] }) {
   if (!editor)
     return <div className="min-h-[24rem] animate-pulse rounded-panel border border-ink-200 bg-white" aria-busy="true" aria-label="Loading the editor" />;
   return (
-    <div className="rounded-panel border border-ink-200 bg-white">
+    <div className="rounded-panel border border-ink-200 bg-white focus-within:border-trajectory-500">
       <Toolbar editor={editor} images={images} />
       <EditorContent editor={editor} />
     </div>

@@ -22,5 +22,4 @@ export async function callApi<T>(url: string, init: { method?: string; body?: un
 
 export const formatScore = (value: number | null | undefined, digits = 2) => (value === null || value === undefined ? "–" : value.toFixed(digits));
 
-export const dateTime = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
-export const dateOnly = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeZone: "UTC" });
+// Dates and times: formatDateTime / formatDate from lib/format/dates (one format, UTC, zone shown).

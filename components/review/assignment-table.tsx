@@ -1,12 +1,13 @@
 "use client";
 // The chair's assignment table: submitted proposals (latest version) with who reviews them,
 // row checkboxes for bulk assignment, and the board's reviewers with their current load.
+import { formatDateTime } from "@/lib/format/dates";
 import { useMemo, useState } from "react";
 import { useRouter } from "next/navigation";
 import { createColumnHelper, getCoreRowModel, getSortedRowModel, useReactTable, type RowSelectionState, type SortingState } from "@tanstack/react-table";
 import { TableView } from "@/components/data-table/table-view";
 import type { AssignmentBoard } from "@/lib/dal/assignments";
-import { callApi, dateOnly } from "./api";
+import { callApi } from "./api";
 
 type Row = AssignmentBoard["proposals"][number];
 const column = createColumnHelper<Row>();
@@ -60,7 +61,7 @@ export function AssignmentTable({ boardId, data }: { boardId: string; data: Assi
           </div>
         ),
       }),
-      column.accessor("submittedAt", { header: "Submitted", cell: (info) => dateOnly.format(new Date(info.getValue())) }),
+      column.accessor("submittedAt", { header: "Submitted", cell: (info) => formatDateTime(info.getValue()) }),
       column.accessor((r) => r.assigned.length, {
         id: "coverage",
         header: `Reviewers (target ${target})`,
@@ -82,7 +83,7 @@ export function AssignmentTable({ boardId, data }: { boardId: string; data: Assi
               <li key={a.assignmentId} className="flex flex-wrap items-center gap-1 text-xs">
                 <span className="font-semibold">{a.reviewerName}</span>
                 <span className="rounded-chip bg-ink-100 px-1.5">{a.reviewStatus}</span>
-                <span className="text-ink-600">due {dateOnly.format(new Date(a.dueAt))}</span>
+                <span className="text-ink-600">due {formatDateTime(a.dueAt)}</span>
                 {data.conflicts[`${a.reviewerId}:${row.original.id}`]?.some((f) => f.strength === "conflict") ? (
                   <span className="text-void-700">conflict declared</span>
                 ) : null}

@@ -1,9 +1,11 @@
 "use client";
 // A reviewer declares conflicts of interest: with one proposal (and why), or with an organisation.
+import { formatDate } from "@/lib/format/dates";
 import { useState } from "react";
 import { useRouter } from "next/navigation";
 import type { ConflictCandidate, ConflictView } from "@/lib/dal/conflicts";
-import { callApi, dateOnly } from "./api";
+import { callApi } from "./api";
+import { CharacterCount } from "@/components/ui/form-controls";
 
 export function ConflictDeclarations({ boardId, conflicts, candidates }: { boardId: string; conflicts: ConflictView[]; candidates: ConflictCandidate[] }) {
   const router = useRouter();
@@ -61,16 +63,20 @@ export function ConflictDeclarations({ boardId, conflicts, candidates }: { board
             </select>
           </label>
         ) : (
-          <label className="block text-sm font-semibold">
-            Organisation
-            <input
-              value={organisation}
-              onChange={(e) => setOrganisation(e.target.value)}
-              required
-              maxLength={200}
-              className="mt-1 block w-full rounded-chip border border-ink-300 px-2 py-1.5 font-normal"
-            />
-          </label>
+          <>
+            <label className="block text-sm font-semibold">
+              Organisation
+              <input
+                value={organisation}
+                onChange={(e) => setOrganisation(e.target.value)}
+                required
+                maxLength={200}
+                aria-describedby="conflict-organisation-count"
+                className="mt-1 block w-full rounded-chip border border-ink-300 px-2 py-1.5 font-normal"
+              />
+            </label>
+            <CharacterCount id="conflict-organisation-count" length={organisation.length} max={200} />
+          </>
         )}
         <label className="block text-sm font-semibold">
           Reason
@@ -81,9 +87,11 @@ export function ConflictDeclarations({ boardId, conflicts, candidates }: { board
             minLength={3}
             maxLength={2000}
             rows={3}
+            aria-describedby="conflict-reason-count"
             className="mt-1 block w-full rounded-chip border border-ink-300 px-2 py-1.5 font-normal"
           />
         </label>
+        <CharacterCount id="conflict-reason-count" length={reason.length} max={2000} />
         {answer ? (
           <p role={answer.ok ? "status" : "alert"} className={`text-sm ${answer.ok ? "text-holds-700" : "text-void-700"}`}>
             {answer.text}
@@ -103,7 +111,7 @@ export function ConflictDeclarations({ boardId, conflicts, candidates }: { board
             <li key={c.id} className="flex items-start justify-between gap-3 py-2 text-sm">
               <span>
                 <span className="font-semibold">{c.proposalTitle ?? c.organisation}</span> — {c.reason}
-                <span className="block text-xs text-ink-500">{dateOnly.format(new Date(c.createdAt))}</span>
+                <span className="block text-xs text-ink-500">{formatDate(c.createdAt)}</span>
               </span>
               <button
                 type="button"

@@ -1,9 +1,10 @@
 "use client";
 // Review items with their threads. Names are as the server labelled them for this viewer:
 // proposers only ever see "Reviewer 1", "Reviewer 2"...
+import { formatDateTime } from "@/lib/format/dates";
 import { useState } from "react";
 import type { ReviewItemView } from "@/lib/dal/review-items";
-import { callApi, dateTime } from "./api";
+import { callApi } from "./api";
 import { SeverityChip } from "./severity-chip";
 
 export function ReviewItemsPanel({
@@ -100,7 +101,7 @@ function ItemCard({
       <blockquote className="mt-1 border-l-2 border-ink-200 pl-2 text-sm italic text-ink-600">{item.anchor.quote}</blockquote>
       <p className="mt-1 whitespace-pre-wrap text-sm">{item.body}</p>
       <p className="mt-1 text-xs text-ink-500">
-        {item.authorLabel} · version {item.versionNumber} · {dateTime.format(new Date(item.createdAt))} UTC
+        {item.authorLabel} · version {item.versionNumber} · {formatDateTime(item.createdAt)}
       </p>
       {item.replies.length ? (
         <ul className="mt-2 space-y-1 border-l-2 border-trajectory-100 pl-3">

@@ -2,6 +2,7 @@
 // The review screen: the submitted dossier (read-only, with the server's verdicts) beside the
 // rubric as an editable table. Scores autosave with the review's revision; a stale save is
 // refused by the server (409) and what the reviewer typed stays on screen.
+import { formatDateTime } from "@/lib/format/dates";
 import { useCallback, useEffect, useMemo, useRef, useState } from "react";
 import { createColumnHelper, getCoreRowModel, useReactTable } from "@tanstack/react-table";
 import { TableView } from "@/components/data-table/table-view";
@@ -10,7 +11,7 @@ import type { CheckRow, ReviewScreen, ReviewState } from "@/lib/dal/reviews";
 import type { ReviewItemView } from "@/lib/dal/review-items";
 import { anchorForTypedQuote, makeAnchor, resolveAnchor, type Anchor } from "@/lib/review/anchors";
 import { weightedTotal, type CriterionScore, type RubricCriterion } from "@/lib/review/rubric";
-import { callApi, dateTime, formatScore } from "./api";
+import { callApi, formatScore } from "./api";
 import { domText, highlight, offsetOf } from "./dossier-text";
 import { ReviewItemsPanel } from "./review-items-panel";
 
@@ -153,7 +154,7 @@ export function ReviewWorkspace({ boardId, screen, items: initialItems, canRaise
             </h2>
             <p role="status" aria-live="polite" data-save-state={saveState} className="text-sm text-ink-600">
               {saveText[saveState]}
-              {review.updatedAt && saveState === "saved" ? ` · ${dateTime.format(new Date(review.updatedAt))} UTC` : ""}
+              {review.updatedAt && saveState === "saved" ? ` · ${formatDateTime(review.updatedAt)}` : ""}
             </p>
           </div>
           {!screen.rubric ? (
@@ -239,7 +240,7 @@ export function ReviewWorkspace({ boardId, screen, items: initialItems, canRaise
             ) : null}
             <span className="text-sm text-ink-600">
               Status: <strong data-testid="review-status">{review.status}</strong>
-              {review.submittedAt ? ` · submitted ${dateTime.format(new Date(review.submittedAt))} UTC` : ""}
+              {review.submittedAt ? ` · submitted ${formatDateTime(review.submittedAt)}` : ""}
             </span>
           </div>
           {screen.canReopen && review.status === "submitted" ? <ReopenForm base={base} onReopened={(r) => setReview(r)} /> : null}

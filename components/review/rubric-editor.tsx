@@ -6,6 +6,7 @@ import type { RubricView } from "@/lib/dal/rubrics";
 import type { RubricCriterion } from "@/lib/review/rubric";
 import { rubricProblems, weightSum } from "@/lib/review/rubric";
 import { callApi } from "./api";
+import { CharacterCount } from "@/components/ui/form-controls";
 
 const defaultLevels = (min: number, max: number, old: string[] = []) => Array.from({ length: max - min + 1 }, (_, i) => old[i] ?? "");
 
@@ -87,16 +88,20 @@ export function RubricEditor({ boardId, callId, rubric }: { boardId: string; cal
         </p>
       ) : null}
       <div className="grid gap-4 sm:grid-cols-3">
-        <label className="text-sm font-semibold sm:col-span-1">
-          Rubric name
-          <input
-            value={name}
-            onChange={(e) => setName(e.target.value)}
-            required
-            maxLength={200}
-            className="mt-1 block w-full rounded-chip border border-ink-300 px-3 py-1.5 font-normal"
-          />
-        </label>
+        <div className="sm:col-span-1">
+          <label className="text-sm font-semibold">
+            Rubric name
+            <input
+              value={name}
+              onChange={(e) => setName(e.target.value)}
+              required
+              maxLength={200}
+              aria-describedby="rubric-name-count"
+              className="mt-1 block w-full rounded-chip border border-ink-300 px-3 py-1.5 font-normal"
+            />
+          </label>
+          <CharacterCount id="rubric-name-count" length={name.length} max={200} />
+        </div>
         <label className="text-sm font-semibold">
           Scale from
           <input
@@ -124,16 +129,20 @@ export function RubricEditor({ boardId, callId, rubric }: { boardId: string; cal
         {criteria.map((c, i) => (
           <li key={i} className="rounded-panel border border-ink-200 bg-white p-4" data-criterion-editor={c.id}>
             <div className="grid gap-3 sm:grid-cols-[1fr_8rem_10rem]">
-              <label className="text-sm font-semibold">
-                Criterion {i + 1}
-                <input
-                  value={c.title}
-                  onChange={(e) => update(i, { title: e.target.value })}
-                  required
-                  maxLength={200}
-                  className="mt-1 block w-full rounded-chip border border-ink-300 px-3 py-1.5 font-normal"
-                />
-              </label>
+              <div>
+                <label className="text-sm font-semibold">
+                  Criterion {i + 1}
+                  <input
+                    value={c.title}
+                    onChange={(e) => update(i, { title: e.target.value })}
+                    required
+                    maxLength={200}
+                    aria-describedby={`criterion-${i}-title-count`}
+                    className="mt-1 block w-full rounded-chip border border-ink-300 px-3 py-1.5 font-normal"
+                  />
+                </label>
+                <CharacterCount id={`criterion-${i}-title-count`} length={c.title.length} max={200} />
+              </div>
               <label className="text-sm font-semibold">
                 Weight (%)
                 <input
@@ -169,9 +178,11 @@ export function RubricEditor({ boardId, callId, rubric }: { boardId: string; cal
                 onChange={(e) => update(i, { description: e.target.value })}
                 rows={2}
                 maxLength={4000}
+                aria-describedby={`criterion-${i}-description-count`}
                 className="mt-1 block w-full rounded-chip border border-ink-300 px-3 py-1.5 font-normal"
               />
             </label>
+            <CharacterCount id={`criterion-${i}-description-count`} length={c.description.length} max={4000} />
             <fieldset className="mt-3">
               <legend className="text-sm font-semibold">Level descriptors</legend>
               <div className="mt-1 grid gap-2 sm:grid-cols-5">

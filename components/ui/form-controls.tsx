@@ -25,6 +25,26 @@ export function useActionForm<T>(run: (input: FormData) => Promise<ActionAnswer<
 const inputClass =
   "mt-1 block w-full rounded-chip border border-ink-300 bg-white px-3 py-2 text-ink-900 shadow-sm placeholder:text-ink-400 focus:border-trajectory-500 aria-[invalid=true]:border-void-500";
 
+/**
+ * "12 of 200 characters" under a field with a length limit; turns to a warning in the last
+ * tenth. Linked to the field by aria-describedby (not a live region: it would speak every key).
+ */
+export function CharacterCount({ id, length, max }: { id: string; length: number; max: number }) {
+  const near = length >= max * 0.9;
+  return (
+    <p id={id} data-character-count="" className={`mt-1 text-right text-xs ${near ? "font-semibold text-drift-700" : "text-ink-500"}`}>
+      {length} of {max} characters{length >= max ? " (the limit)" : ""}
+    </p>
+  );
+}
+
+/** Tracks a field's length for its CharacterCount; spread `onInput` on the field. */
+export function useCharacterCount(initial: unknown) {
+  const [length, setLength] = useState(() => String(initial ?? "").length);
+  const onInput = (event: React.FormEvent<HTMLInputElement | HTMLTextAreaElement>) => setLength(event.currentTarget.value.length);
+  return { length, onInput };
+}
+
 export function TextField({
   label,
   hint,
@@ -34,6 +54,11 @@ export function TextField({
   const id = useId();
   const hintId = hint ? `${id}-hint` : undefined;
   const errorId = error ? `${id}-error` : undefined;
+  const limited =
+    typeof input.maxLength === "number" && input.maxLength > 0 && !["email", "password", "number", "datetime-local", "date"].includes(input.type ?? "");
+  const counterId = limited ? `${id}-count` : undefined;
+  const counted = useCharacterCount(input.value ?? input.defaultValue);
+  const length = input.value !== undefined ? String(input.value).length : counted.length;
   return (
     <div>
       <label htmlFor={id} className="block text-sm font-semibold text-ink-800">
@@ -47,10 +72,15 @@ export function TextField({
       <input
         id={id}
         aria-invalid={error ? true : undefined}
-        aria-describedby={[hintId, errorId].filter(Boolean).join(" ") || undefined}
+        aria-describedby={[hintId, errorId, counterId].filter(Boolean).join(" ") || undefined}
         className={inputClass}
         {...input}
+        onInput={(event) => {
+          counted.onInput(event);
+          input.onInput?.(event);
+        }}
       />
+      {limited && counterId ? <CharacterCount id={counterId} length={length} max={input.maxLength!} /> : null}
       {error ? (
         <p id={errorId} className="mt-1 text-sm text-void-700">
           {error}

@@ -1,9 +1,11 @@
 "use client";
 // Attachments: the browser PUTs each file straight to the object store through a
 // short-lived presigned URL (XMLHttpRequest, for progress), then asks the server to
-// confirm it (size, real type, SHA-256). Per file: a progress bar, cancel and retry.
+// confirm it (size, real type, SHA-256). Per file: a progress bar, cancel and retry (only
+// where trying again can help). A file of a type not accepted is refused before any upload,
+// with the allowed types listed; a finished upload shows as a file in the attached list.
 import { useCallback, useEffect, useRef, useState } from "react";
-import { useDropzone } from "react-dropzone";
+import { useDropzone, type FileRejection } from "react-dropzone";
 import { ATTACHMENT_TYPES } from "@/lib/validation/dossier";
 
 export interface AttachmentItem {
@@ -24,7 +26,35 @@ interface Upload {
   status: UploadStatus;
   progress: number;
   error?: string;
+  /** False when trying the same file again cannot succeed (refused type, disguised content). */
+  retryable?: boolean;
   attachmentId?: string;
+}
+
+interface Refusal {
+  key: string;
+  message: string;
+}
+
+const TYPE_NAMES: Record<string, string> = {
+  "application/pdf": "PDF",
+  "image/png": "PNG",
+  "image/jpeg": "JPEG",
+  "text/csv": "CSV",
+  "text/plain": "plain text, including CCSDS OEM/OPM/OMM messages and two-line element sets",
+};
+
+/** The accepted types in words, with their file endings: "PDF (.pdf), PNG (.png), …". */
+export const ALLOWED_TYPES_TEXT = Object.entries(ATTACHMENT_TYPES)
+  .map(([type, endings]) => `${TYPE_NAMES[type] ?? type} (${endings.join(", ")})`)
+  .join("; ");
+
+/** Why the picker or the drop refused a file, as a sentence that says what to do. */
+export function refusalMessage(rejection: { file: { name: string }; errors: readonly { code: string; message: string }[] }): string {
+  const name = rejection.file.name;
+  if (rejection.errors.some((e) => e.code === "file-invalid-type"))
+    return `"${name}" was not attached: files of this type are not accepted. Accepted types: ${ALLOWED_TYPES_TEXT}.`;
+  return `"${name}" was not attached: ${rejection.errors.map((e) => e.message).join("; ")}.`;
 }
 
 /** The allow-listed type for a file, from its name (browsers often report nothing for .oem or .tle). */
@@ -63,6 +93,8 @@ export function AttachmentUploader({
   onAttachmentsChange: (next: AttachmentItem[]) => void;
 }) {
   const [uploads, setUploads] = useState<Upload[]>([]);
+  const [refusals, setRefusals] = useState<Refusal[]>([]);
+  const [justAttached, setJustAttached] = useState<string | null>(null);
   const requests = useRef(new Map<string, XMLHttpRequest>());
   const latest = useRef(attachments);
   useEffect(() => {
@@ -82,7 +114,9 @@ export function AttachmentUploader({
         body: JSON.stringify({ filename: file.name, contentType: declaredTypeOf(file), size: file.size }),
       }).catch(() => null);
       if (!presign || !presign.ok) {
-        patch(key, { status: "failed", error: presign ? await errorText(presign) : "Could not reach the server." });
+        // The server refuses a name, type or size for good; only an outage is worth a retry.
+        const retryable = !presign || presign.status >= 500 || presign.status === 429;
+        patch(key, { status: "failed", error: presign ? await errorText(presign) : "Could not reach the server.", retryable });
         return;
       }
       const { attachment, uploadUrl, headers } = (await presign.json()) as { attachment: { id: string }; uploadUrl: string; headers: Record<string, string> };
@@ -103,17 +137,23 @@ export function AttachmentUploader({
       requests.current.delete(key);
       if (put === "aborted") return;
       if (!put) {
-        patch(key, { status: "failed", error: "The upload to storage failed. Retry." });
+        patch(key, { status: "failed", error: "The upload to storage failed. Retry.", retryable: true });
         return;
       }
       patch(key, { status: "confirming", progress: 100 });
       const confirm = await fetch(`/api/v1/boards/${boardId}/attachments/${attachment.id}/confirm`, { method: "POST" }).catch(() => null);
       if (!confirm || !confirm.ok) {
-        patch(key, { status: "failed", error: confirm ? await errorText(confirm) : "Could not reach the server to confirm the upload." });
+        const error = confirm ? await errorText(confirm) : "Could not reach the server to confirm the upload.";
+        // A file refused after its upload (its content is not what its name says, too large)
+        // was removed: sending it again would be refused again, so no Retry is offered.
+        const retryable = !confirm || confirm.status >= 500 || confirm.status === 429 || /\bretry\b/i.test(error);
+        patch(key, { status: "failed", error, retryable });
         return;
       }
       const confirmed = ((await confirm.json()) as { attachment: AttachmentItem }).attachment;
-      patch(key, { status: "done", progress: 100 });
+      // The finished upload leaves the progress list; the file shows in the attached list.
+      setUploads((all) => all.filter((u) => u.key !== key));
+      setJustAttached(confirmed.id);
       onAttachmentsChange([...latest.current.filter((a) => a.id !== confirmed.id), confirmed]);
     },
     [boardId, proposalId, patch, onAttachmentsChange],
@@ -127,7 +167,8 @@ export function AttachmentUploader({
   };
 
   const onDrop = useCallback(
-    (files: File[]) => {
+    (files: File[], rejected: FileRejection[]) => {
+      setRefusals(rejected.map((r) => ({ key: `${r.file.name}-${Math.random().toString(36).slice(2)}`, message: refusalMessage(r) })));
       for (const file of files) {
         const key = `${file.name}-${file.size}-${Math.random().toString(36).slice(2)}`;
         setUploads((all) => [...all, { key, file, status: "starting", progress: 0 }]);
@@ -158,7 +199,19 @@ export function AttachmentUploader({
         >
           <input {...getInputProps({ "aria-label": "Choose files to attach" })} />
           <p>Drop files here, or press Enter to choose them.</p>
-          <p className="text-xs text-ink-500">PDF, PNG, JPEG, CSV, plain text (CCSDS OEM/OPM/OMM, two-line element sets).</p>
+          <p className="text-xs text-ink-500">Accepted: {ALLOWED_TYPES_TEXT}.</p>
+        </div>
+      ) : null}
+      {refusals.length > 0 ? (
+        <div role="alert" className="space-y-1 rounded-chip border border-void-500/40 bg-void-100 p-2 text-sm text-void-700">
+          <ul className="space-y-1" aria-label="Files not attached">
+            {refusals.map((r) => (
+              <li key={r.key}>{r.message}</li>
+            ))}
+          </ul>
+          <button type="button" onClick={() => setRefusals([])} className="rounded-chip border border-void-500/50 bg-white px-2 text-xs">
+            Dismiss
+          </button>
         </div>
       ) : null}
       {uploads.filter((u) => u.status !== "done").length > 0 ? (
@@ -175,7 +228,7 @@ export function AttachmentUploader({
                         Cancel
                       </button>
                     ) : null}
-                    {["failed", "cancelled"].includes(u.status) ? (
+                    {u.status === "cancelled" || (u.status === "failed" && u.retryable) ? (
                       <button type="button" onClick={() => void start(u.key, u.file)} className="rounded-chip border border-ink-300 px-2 text-xs">
                         Retry
                       </button>
@@ -191,7 +244,7 @@ export function AttachmentUploader({
                     ) : null}
                   </span>
                 </div>
-                <UploadBar upload={u} />
+                {u.status === "failed" || u.status === "cancelled" ? null : <UploadBar upload={u} />}
                 {u.error ? (
                   <p role="alert" className="text-xs text-void-700">
                     {u.error}
@@ -202,23 +255,21 @@ export function AttachmentUploader({
             ))}
         </ul>
       ) : null}
-      {uploads
-        .filter((u) => u.status === "done")
-        .map((u) => (
-          <div key={u.key} className="space-y-1">
-            <UploadBar upload={u} />
-          </div>
-        ))}
       {attachments.length === 0 ? (
         <p className="text-sm text-ink-600">No attachments yet.</p>
       ) : (
         <ul className="divide-y divide-ink-100 text-sm" aria-label="Attached files">
           {attachments.map((a) => (
-            <li key={a.id} className="flex items-center justify-between gap-2 py-1.5">
+            <li key={a.id} className="flex items-center justify-between gap-2 py-1.5" data-just-attached={a.id === justAttached ? "" : undefined}>
               <a href={a.contentPath} className="truncate text-trajectory-700 hover:underline" title={a.sha256 ? `SHA-256 ${a.sha256}` : undefined}>
                 {a.filename}
               </a>
               <span className="flex shrink-0 items-center gap-2 text-xs text-ink-500">
+                {a.id === justAttached ? (
+                  <span role="status" className="rounded-chip bg-holds-100 px-1.5 text-holds-700">
+                    Attached
+                  </span>
+                ) : null}
                 {a.textKind ? <span className="rounded-chip bg-ink-100 px-1.5">{a.textKind}</span> : null}
                 {formatSize(a.size)}
                 {editable ? (

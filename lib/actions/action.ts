@@ -2,16 +2,24 @@ import "server-only";
 import type { z } from "zod";
 import { fromDatabaseInputError, isAppError } from "@/lib/errors";
 import { requireUser, type SessionUser } from "@/lib/auth/session";
+import { humanFieldErrors, humanIssue } from "@/lib/validation/messages";
 
 export type ActionResult<T> = { ok: true; data: T } | { ok: false; error: string; fieldErrors?: Record<string, string[]>; status?: number };
 
+/**
+ * The form's message. Problems with a field show beside that field (fieldErrors), so the
+ * message only repeats the ones that belong to no field, as sentences.
+ */
+function summaryOf(error: z.ZodError): string {
+  const general = error.issues.filter((i) => i.path.length === 0).map(humanIssue);
+  if (general.length > 0) return general.join(" ");
+  return error.issues.length === 1
+    ? "One field needs attention: its message says what to change."
+    : "Some fields need attention: each message says what to change.";
+}
+
 function fieldErrorsOf(error: z.ZodError): Record<string, string[]> {
-  const out: Record<string, string[]> = {};
-  for (const issue of error.issues) {
-    const key = issue.path.join(".") || "_";
-    (out[key] ??= []).push(issue.message);
-  }
-  return out;
+  return humanFieldErrors(error.issues);
 }
 
 /**
@@ -25,7 +33,7 @@ export function action<S extends z.ZodType, T>(schema: S, handler: (input: z.inf
       const raw = input instanceof FormData ? Object.fromEntries(input.entries()) : input;
       const parsed = schema.safeParse(raw);
       if (!parsed.success) {
-        return { ok: false, error: "Some fields need attention.", fieldErrors: fieldErrorsOf(parsed.error), status: 422 };
+        return { ok: false, error: summaryOf(parsed.error), fieldErrors: fieldErrorsOf(parsed.error), status: 422 };
       }
       return { ok: true, data: await handler(parsed.data, user) };
     } catch (caught) {
@@ -44,7 +52,7 @@ export function publicAction<S extends z.ZodType, T>(schema: S, handler: (input:
       const raw = input instanceof FormData ? Object.fromEntries(input.entries()) : input;
       const parsed = schema.safeParse(raw);
       if (!parsed.success) {
-        return { ok: false, error: "Some fields need attention.", fieldErrors: fieldErrorsOf(parsed.error), status: 422 };
+        return { ok: false, error: summaryOf(parsed.error), fieldErrors: fieldErrorsOf(parsed.error), status: 422 };
       }
       return { ok: true, data: await handler(parsed.data) };
     } catch (caught) {

@@ -4,6 +4,7 @@ import CredentialsProvider from "next-auth/providers/credentials";
 import { recordAudit } from "@/lib/dal/audit";
 import { consumeAccountToken, findUserForSignIn, openSession, recordSignInAttempt, revokeSession, SESSION_DAYS, signInRetryAfter } from "@/lib/dal/sessions";
 import { verifyPassword } from "./passwords";
+import { formatWait } from "@/lib/format/dates";
 
 type HeaderBag = Record<string, string | string[] | undefined> | Headers | undefined;
 
@@ -21,8 +22,7 @@ export function clientAddress(headers: HeaderBag): string {
 
 /** Message shown on the sign-in page; next-auth passes it through as the `error` parameter. */
 export function tooManyAttemptsMessage(retryAfterSeconds: number): string {
-  const minutes = Math.ceil(retryAfterSeconds / 60);
-  return `Too many failed sign-in attempts. Try again in ${minutes} minute${minutes === 1 ? "" : "s"} (retry after ${retryAfterSeconds} s).`;
+  return `Too many failed sign-in attempts. Try again ${formatWait(retryAfterSeconds)}.`;
 }
 
 export const INVALID_CREDENTIALS = "That e-mail and password do not match an active account.";

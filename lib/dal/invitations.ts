@@ -14,6 +14,7 @@ import { enqueueMail } from "@/lib/mail/outbox";
 import { renderMail } from "@/lib/mail/templates/layout";
 import { INVITATION_DAYS, type acceptInvitationSchema, type createInvitationSchema, type InvitationListQuery } from "@/lib/validation/accounts";
 import type { z } from "zod";
+import { formatDateTime } from "@/lib/format/dates";
 
 export type InvitationStatus = "pending" | "accepted" | "revoked" | "expired";
 
@@ -146,7 +147,7 @@ export async function createInvitation(
       heading: `Join the ${board.name}`,
       paragraphs: [
         `${input.name ? `Hello ${input.name}, ` : ""}${user.name} invites you to take part in the ${board.name} on VisViva as ${roleWords[input.role]}.`,
-        `The link works once and expires on ${expiresAt.toUTCString()}. If you already have a VisViva account, accepting adds this board to it.`,
+        `The link works once and expires on ${formatDateTime(expiresAt)}. If you already have a VisViva account, accepting adds this board to it.`,
       ],
       action: { label: "Accept the invitation", url: invitationUrl(token) },
       footnote: "You receive this because a chair or administrator of a VisViva review board entered your address. If you did not expect it, ignore it.",

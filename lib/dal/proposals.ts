@@ -38,6 +38,7 @@ import { boardRole, isUuid } from "./boards";
 import { callState, loadCall } from "./calls";
 import { isConflicted as reviewerIsConflicted } from "./conflicts";
 import { enqueueSubmissionReceipt } from "@/lib/mail/notices";
+import { formatDateTime } from "@/lib/format/dates";
 
 type Db = Database | Transaction;
 
@@ -281,7 +282,7 @@ export async function createProposal(user: SessionUser, boardId: string, input: 
   const call = await loadCall(boardId, input.callId);
   if (!call) throw unprocessable("That call is not one of this board's calls.", { field: "callId" });
   if (callState(call) === "closed")
-    throw unprocessable(`The call "${call.title}" closed on ${call.closesAt.toISOString().slice(0, 10)}; choose an open call.`, { field: "callId" });
+    throw unprocessable(`The call "${call.title}" closed on ${formatDateTime(call.closesAt)}; choose an open call.`, { field: "callId" });
   return db().transaction(async (tx) => {
     const coauthors = await checkCoauthors(boardId, user.id, input.coauthorIds, tx);
     const [row] = await tx
@@ -483,7 +484,7 @@ export async function submitProposal(user: SessionUser, boardId: string, proposa
         throw conflict(
           `The call "${call.title}" closed on ${call.closesAt.toISOString().replace("T", " ").slice(0, 16)} UTC; it no longer accepts submissions. Contact the board's chair.`,
         );
-      if (state === "upcoming") throw conflict(`The call "${call.title}" opens on ${call.opensAt.toISOString().slice(0, 10)}; submit once it is open.`);
+      if (state === "upcoming") throw conflict(`The call "${call.title}" opens on ${formatDateTime(call.opensAt)}; submit once it is open.`);
 
       const [draft] = await tx
         .select({ document: proposalDrafts.document, revision: proposalDrafts.revision })

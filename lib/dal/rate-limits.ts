@@ -3,6 +3,7 @@ import { lt, sql } from "drizzle-orm";
 import { db } from "@/db/client";
 import { rateLimitBuckets } from "@/db/schema";
 import { tooManyRequests } from "@/lib/errors";
+import { formatWait } from "@/lib/format/dates";
 
 // Fixed-window rate limits in PostgreSQL: one row per key, so a limit holds across every app
 // instance behind the load balancer. A window opens with the first request after the last
@@ -36,10 +37,7 @@ export async function consumeRateLimit(key: string, max: number, windowSeconds: 
   const decision = await takeRateLimit(key, max, windowSeconds);
   if (!decision.ok) {
     const retryAfter = decision.retryAfterSeconds;
-    throw tooManyRequests(
-      `${message} Try again in ${Math.ceil(retryAfter / 60)} minute${retryAfter > 60 ? "s" : ""} (retry after ${retryAfter} s).`,
-      retryAfter,
-    );
+    throw tooManyRequests(`${message} Try again ${formatWait(retryAfter)}.`, retryAfter);
   }
 }
 

@@ -74,7 +74,7 @@ describe("merge fields", () => {
     expect(unknownMergeFields(blocks)).toEqual([]);
     const out = renderLetterText(applyMergeFields(blocks, values));
     expect(out).toContain("Dear Ada Okafor,");
-    expect(out).toContain("version 3 of “Tern Cubesat”, submitted on 2031-04-02 to Call 7.");
+    expect(out).toContain("version 3 of “Tern Cubesat”, submitted on 2 Apr 2031 (UTC) to Call 7.");
     expect(out).toContain("Outcome: accepted.");
     expect(out).toContain("weighted totals is 3.14 (spread not available)");
     expect(out).toContain("- [minor] Units\n- [comment] Typo");

@@ -3,6 +3,7 @@
  * Settings → Letter), outcome wording, and the merge values of one decision. Pure.
  */
 import type { MergeValues } from "./merge-fields";
+import { formatDate } from "@/lib/format/dates";
 
 export const OUTCOMES = ["accept", "revise", "decline"] as const;
 export type Outcome = (typeof OUTCOMES)[number];
@@ -72,7 +73,7 @@ export interface MergeFacts {
   chairName: string;
 }
 
-const isoDate = (d: Date) => d.toISOString().slice(0, 10);
+const isoDate = (d: Date) => formatDate(d);
 const twoDecimals = (n: number | null) => (n === null ? "not available" : n.toFixed(2));
 
 export function mergeValues(f: MergeFacts): MergeValues {

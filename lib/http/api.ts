@@ -2,6 +2,7 @@ import "server-only";
 import { NextResponse } from "next/server";
 import type { z } from "zod";
 import { AppError, badRequest, fromDatabaseInputError, isAppError } from "@/lib/errors";
+import { humanIssue } from "@/lib/validation/messages";
 
 export interface ErrorBody {
   error: string;
@@ -65,9 +66,10 @@ export async function readJson<S extends z.ZodType>(request: Request, schema: S,
 export function parseWith<S extends z.ZodType>(schema: S, value: unknown, status: 400 | 422 = 422): z.infer<S> {
   const parsed = schema.safeParse(value);
   if (!parsed.success) {
-    const issues = parsed.error.issues.map((i) => ({ path: i.path.join("."), message: i.message }));
-    const summary = issues.map((i) => (i.path ? `${i.path}: ${i.message}` : i.message)).join("; ");
-    throw new AppError(status, `The request is not valid: ${summary}`, { issues });
+    // Sentences a person can act on ("The title can be at most 200 characters."), each issue
+    // also listed with its field path for programs.
+    const issues = parsed.error.issues.map((i) => ({ path: i.path.join("."), message: humanIssue(i) }));
+    throw new AppError(status, issues.map((i) => i.message).join(" "), { issues });
   }
   return parsed.data;
 }

@@ -2,6 +2,7 @@ import "server-only";
 import path from "node:path";
 import PDFDocument from "pdfkit";
 import type { LetterBlock, LetterRun } from "@/lib/decisions/letter";
+import { formatDate } from "@/lib/format/dates";
 
 /**
  * The decision letter as a PDF, drawn on the server with pdfkit in VisViva's own layout:
@@ -123,7 +124,7 @@ function drawLetterhead(doc: PDFKit.PDFDocument, input: LetterPdfInput) {
 
   doc.y = ruleY + 16;
   const meta: [string, string][] = [
-    ["Date", input.decidedAt.toISOString().slice(0, 10)],
+    ["Date", formatDate(input.decidedAt)],
     ["Proposal", input.proposalTitle],
     ["Version", String(input.versionNumber)],
     ["Decision", input.outcomeLabel],

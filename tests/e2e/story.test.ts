@@ -148,7 +148,6 @@ describe("the whole story of a review round", () => {
 
     const pdf = await summaryPdf("heron-concept-summary.pdf", title, "Saltmarsh Space", ["Drag probe in a 500 km circular orbit."]);
     await proposerPage.locator('input[type="file"]').setInputFiles({ name: pdf.filename, mimeType: pdf.contentType, buffer: pdf.body });
-    await proposerPage.locator('[role="progressbar"][aria-valuenow="100"]').first().waitFor();
     await proposerPage.getByRole("list", { name: "Attached files" }).getByRole("link", { name: pdf.filename }).waitFor();
     await proposerPage.locator('[data-save-state="saved"]').waitFor({ timeout: 30_000 });
     await assertAccessible(proposerPage, "dossier editor");

@@ -25,6 +25,7 @@ import { readObject, statObjectOrNull } from "@/storage/object-store";
 import { asSessionUser } from "../support/factories";
 import { addVersion, decisionScenario, dossierDoc, parkingOrbitBlock } from "./decision-fixtures";
 import { caughtFor, deliver } from "./outbox-support";
+import { formatDate } from "@/lib/format/dates";
 
 const pdfParse = createRequire(import.meta.url)("pdf-parse/lib/pdf-parse.js") as (data: Buffer) => Promise<{ text: string; numpages: number }>;
 
@@ -158,7 +159,7 @@ describe("deciding on a proposal", () => {
     expect(flat).toContain("[minor] Eclipse season");
     expect(flat).toContain("two-body screening estimates, not a substitute for high-fidelity analysis");
     expect(flat).toContain("Page 1 of 1");
-    expect(flat).toContain(view.decidedAt.slice(0, 10));
+    expect(flat).toContain(formatDate(view.decidedAt));
 
     // Authors and the chair may download it; a reviewer may not even see the decision.
     for (const who of [s.chair, s.proposer]) {

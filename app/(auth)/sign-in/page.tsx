@@ -16,7 +16,7 @@ const knownCodes: Record<string, string> = {
   Default: "Signing in did not work. Try again.",
 };
 const ownMessages = [
-  /^Too many failed sign-in attempts\. Try again in \d+ minutes? \(retry after \d+ s\)\.$/,
+  /^Too many failed sign-in attempts\. Try again in (under a minute|about (a|\d+) (minute|minutes|hours|days))\.$/,
   /^That e-mail and password do not match an active account\.$/,
   /^Enter your e-mail and password\.$/,
   /^This sign-in link is invalid, already used or expired\. Ask for a new one\.$/,

@@ -1,8 +1,15 @@
 import { notFound } from "next/navigation";
 import { listCaughtMessages } from "@/lib/mail/catcher-client";
+import { formatDateTime } from "@/lib/format/dates";
 
 export const dynamic = "force-dynamic";
 export const metadata = { title: "Caught mail" };
+
+function formatBytes(n: number): string {
+  if (n >= 1024 * 1024) return `${(n / 1024 / 1024).toFixed(1)} MB`;
+  if (n >= 1024) return `${Math.round(n / 1024)} KB`;
+  return `${n} bytes`;
+}
 
 export default async function CaughtMailPage() {
   const messages = await listCaughtMessages().catch(() => null);
@@ -21,7 +28,7 @@ export default async function CaughtMailPage() {
               <summary className="cursor-pointer">
                 <span className="font-semibold">{m.subject || "(no subject)"}</span>
                 <span className="ml-2 text-sm text-ink-600">to {m.to.join(", ")}</span>
-                <span className="ml-2 text-xs text-ink-500">{new Date(m.receivedAt).toLocaleString("en-GB")}</span>
+                <span className="ml-2 text-xs text-ink-500">{formatDateTime(m.receivedAt)}</span>
               </summary>
               <dl className="mt-3 grid grid-cols-[8rem_1fr] gap-1 text-sm">
                 <dt className="text-ink-500">From</dt>
@@ -29,7 +36,24 @@ export default async function CaughtMailPage() {
                 <dt className="text-ink-500">To</dt>
                 <dd>{m.to.join(", ")}</dd>
                 <dt className="text-ink-500">Attachments</dt>
-                <dd>{m.attachments.length ? m.attachments.map((a) => `${a.filename ?? "unnamed"} (${a.contentType}, ${a.size} B)`).join("; ") : "none"}</dd>
+                <dd>
+                  {m.attachments.length ? (
+                    <ul aria-label={`Attachments of ${m.subject || "this message"}`}>
+                      {m.attachments.map((a, i) => (
+                        <li key={i}>
+                          <a href={a.url} download={a.filename ?? undefined} className="text-trajectory-700 underline">
+                            {a.filename ?? `Attachment ${i + 1}`}
+                          </a>{" "}
+                          <span className="text-ink-500">
+                            ({a.contentType}, {formatBytes(a.size)})
+                          </span>
+                        </li>
+                      ))}
+                    </ul>
+                  ) : (
+                    "none"
+                  )}
+                </dd>
               </dl>
               <pre className="mt-3 whitespace-pre-wrap rounded-chip bg-ink-50 p-3 font-mono text-xs">{m.text}</pre>
               {m.html ? (

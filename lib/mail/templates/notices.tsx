@@ -1,4 +1,5 @@
 import { renderMail } from "./layout";
+import { formatDateTime } from "@/lib/format/dates";
 
 /** The decision letter e-mail: a short lead, the letter itself, and where to read more. */
 export function renderDecisionMail(input: {
@@ -31,13 +32,13 @@ export function renderSubmissionReceipt(input: {
   submittedAt: Date;
   url: string;
 }) {
-  const when = input.submittedAt.toISOString().replace("T", " ").slice(0, 16);
+  const when = formatDateTime(input.submittedAt);
   return renderMail({
     subject: `Received: “${input.proposalTitle}”, version ${input.versionNumber}`,
     preview: `Version ${input.versionNumber} reached ${input.boardName}.`,
     heading: "Your dossier was received",
     paragraphs: [
-      `Version ${input.versionNumber} of “${input.proposalTitle}” was submitted to ${input.callTitle} on ${when} UTC.`,
+      `Version ${input.versionNumber} of “${input.proposalTitle}” was submitted to ${input.callTitle} on ${when}.`,
       "This version is now frozen; the server has recomputed its orbit claims and the board can begin its review. You may keep editing a draft, which becomes the next version when you submit it.",
     ],
     action: { label: "View the submitted version", url: input.url },
@@ -55,13 +56,13 @@ export function renderReviewerAssignment(input: {
 }) {
   return renderMail({
     subject: `${input.resubmission ? "Resubmission to review" : "Review requested"}: “${input.proposalTitle}”`,
-    preview: `Due ${input.dueAt.toISOString().slice(0, 10)}.`,
+    preview: `Due ${formatDateTime(input.dueAt)}.`,
     heading: input.resubmission ? "A resubmitted dossier awaits your review" : "A dossier awaits your review",
     paragraphs: [
       input.resubmission
         ? `The proposers have resubmitted “${input.proposalTitle}” as version ${input.versionNumber} after the board's request for revision, and ${input.boardName} asks you to review it again.`
         : `${input.boardName} asks you to review version ${input.versionNumber} of “${input.proposalTitle}”.`,
-      `Please submit your review by ${input.dueAt.toISOString().slice(0, 10)}. If you have a conflict of interest with this proposal, declare it before you open the dossier.`,
+      `Please submit your review by ${formatDateTime(input.dueAt)}. If you have a conflict of interest with this proposal, declare it before you open the dossier.`,
     ],
     action: { label: "Open the review", url: input.url },
     footnote: "You receive this because you are a reviewer on this board.",
@@ -69,7 +70,7 @@ export function renderReviewerAssignment(input: {
 }
 
 export function renderReviewReminder(input: { boardName: string; proposalTitle: string; dueAt: Date; daysLeft: number; url: string }) {
-  const due = input.dueAt.toISOString().slice(0, 10);
+  const due = formatDateTime(input.dueAt);
   return renderMail({
     subject: `Review due ${input.daysLeft === 1 ? "tomorrow" : `in ${input.daysLeft} days`}: “${input.proposalTitle}”`,
     preview: `Due ${due}.`,

@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { invitationForToken } from "@/lib/dal/invitations";
 import { AcceptInvitationForm } from "./_components/accept-invitation-form";
+import { formatDateTime } from "@/lib/format/dates";
 
 export const metadata: Metadata = { title: "Accept an invitation" };
 
@@ -40,7 +41,8 @@ export default async function AcceptInvitationPage({ params }: { params: Promise
           <p className="text-sm font-semibold uppercase tracking-widest text-trajectory-600">Invitation</p>
           <h1 className="mb-2 text-xl font-bold">Join the {invitation.boardName}</h1>
           <p className="mb-4 text-ink-700">
-            You are invited as <strong>{roleWords[invitation.role]}</strong>. The invitation works once and is open until {invitation.expiresAt.toUTCString()}.
+            You are invited as <strong>{roleWords[invitation.role]}</strong>. The invitation works once and is open until {formatDateTime(invitation.expiresAt)}
+            .
           </p>
           <AcceptInvitationForm token={decodeURIComponent(token)} email={invitation.email} suggestedName={invitation.name} hasAccount={invitation.hasAccount} />
         </>

@@ -1,4 +1,5 @@
 "use client";
+import { formatDateTime } from "@/lib/format/dates";
 import { createColumnHelper } from "@tanstack/react-table";
 import { DataTable } from "@/components/data-table/data-table";
 
@@ -14,13 +15,12 @@ export interface AuditRow {
 }
 
 const column = createColumnHelper<AuditRow>();
-const timeFormat = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "medium", timeZone: "UTC" });
 
 const columns = [
   column.accessor("occurredAt", {
     id: "time",
     header: "Time (UTC)",
-    cell: (info) => <span className="whitespace-nowrap font-mono text-xs">{timeFormat.format(new Date(info.getValue()))}</span>,
+    cell: (info) => <span className="whitespace-nowrap font-mono text-xs">{formatDateTime(info.getValue())}</span>,
   }),
   column.accessor("action", {
     header: "Event",

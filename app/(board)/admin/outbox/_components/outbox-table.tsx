@@ -1,4 +1,5 @@
 "use client";
+import { formatDateTime } from "@/lib/format/dates";
 import { useState, useTransition } from "react";
 import { useRouter } from "next/navigation";
 import { createColumnHelper } from "@tanstack/react-table";
@@ -7,7 +8,6 @@ import type { OutboxRow } from "@/lib/dal/outbox";
 import { requeueOutboxMessageAction } from "../actions";
 
 const column = createColumnHelper<OutboxRow>();
-const timeFormat = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "medium", timeZone: "UTC" });
 const statusClass = {
   queued: "bg-ink-100 text-ink-700",
   sending: "bg-trajectory-100 text-trajectory-700",
@@ -45,7 +45,7 @@ const columns = [
     id: "created",
     header: "Queued (UTC)",
     enableSorting: false,
-    cell: (i) => <span className="whitespace-nowrap font-mono text-xs">{timeFormat.format(new Date(i.getValue()))}</span>,
+    cell: (i) => <span className="whitespace-nowrap font-mono text-xs">{formatDateTime(i.getValue())}</span>,
   }),
   column.accessor("kind", { header: "Kind", enableSorting: false, cell: (i) => <span className="font-mono text-xs">{i.getValue()}</span> }),
   column.accessor("to", { header: "To", enableSorting: false, cell: (i) => <span className="text-xs">{i.getValue().join(", ")}</span> }),
@@ -81,7 +81,7 @@ const columns = [
       i.row.original.status === "failed" ? (
         <SendAgain id={i.row.original.id} />
       ) : i.row.original.sentAt ? (
-        <span className="whitespace-nowrap font-mono text-xs text-ink-500">sent {timeFormat.format(new Date(i.row.original.sentAt))}</span>
+        <span className="whitespace-nowrap font-mono text-xs text-ink-500">sent {formatDateTime(i.row.original.sentAt)}</span>
       ) : null,
   }),
 ];

@@ -1,11 +1,10 @@
 // The board home is a stack of sections; each area (calls, dossiers, reviews, decisions)
 // adds its own section component here and to the list in ../page.tsx.
+import { formatDateTime } from "@/lib/format/dates";
 import Link from "next/link";
 import { Panel } from "@/components/ui/panel";
 import type { BoardCallSummary, BoardView } from "@/lib/dal/boards";
 import type { ProposalRow } from "@/lib/dal/proposals";
-
-const dateFormat = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeZone: "UTC" });
 
 export function BoardCallsSection({ board, calls }: { board: BoardView; calls: BoardCallSummary[] }) {
   return (
@@ -23,7 +22,7 @@ export function BoardCallsSection({ board, calls }: { board: BoardView; calls: B
                 </Link>
                 <span className="text-sm text-ink-600">
                   <span className="mr-2 rounded-chip bg-ink-100 px-2 py-0.5 text-ink-700">{state}</span>
-                  {dateFormat.format(call.opensAt)} – {dateFormat.format(call.closesAt)} (UTC)
+                  {formatDateTime(call.opensAt)} – {formatDateTime(call.closesAt)}
                 </span>
               </li>
             );

@@ -1,3 +1,4 @@
+import { formatDateTime } from "@/lib/format/dates";
 import type { Metadata } from "next";
 import Link from "next/link";
 import { CallForm } from "@/components/dossier/call-form";
@@ -9,7 +10,6 @@ import { listCalls } from "@/lib/dal/calls";
 
 export const metadata: Metadata = { title: "Calls" };
 
-const dateFormat = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
 const STATE_TEXT = { upcoming: "Opens soon", open: "Open", closed: "Closed" } as const;
 
 export default async function CallsPage({ params }: { params: Promise<{ boardId: string }> }) {
@@ -48,8 +48,8 @@ export default async function CallsPage({ params }: { params: Promise<{ boardId:
                     </Link>
                   </td>
                   <td>{STATE_TEXT[c.state]}</td>
-                  <td>{dateFormat.format(new Date(c.opensAt))}</td>
-                  <td>{dateFormat.format(new Date(c.closesAt))}</td>
+                  <td>{formatDateTime(c.opensAt)}</td>
+                  <td>{formatDateTime(c.closesAt)}</td>
                   <td className="font-mono">{(c.tolerance.relative * 100).toFixed(2)} %</td>
                 </tr>
               ))}

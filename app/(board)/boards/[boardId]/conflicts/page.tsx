@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { dateOnly } from "@/components/review/api";
+import { formatDate } from "@/lib/format/dates";
 import { NotAllowed, PageTitle } from "@/components/ui/panel";
 import { ConflictDeclarations } from "@/components/review/conflict-declarations";
 import { orNotFound, pageUser } from "@/lib/auth/page-guard";
@@ -75,7 +75,7 @@ function AllDeclarations({ boardId, boardName, conflicts }: { boardId: string; b
                   <td className="px-3 py-2">{c.reviewerName}</td>
                   <td className="px-3 py-2">{c.proposalTitle ?? `Organisation: ${c.organisation}`}</td>
                   <td className="px-3 py-2">{c.reason}</td>
-                  <td className="px-3 py-2">{dateOnly.format(new Date(c.createdAt))}</td>
+                  <td className="px-3 py-2">{formatDate(c.createdAt)}</td>
                 </tr>
               ))
             )}

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { PageTitle } from "@/components/ui/panel";
-import { dateTime } from "@/components/review/api";
+import { formatDateTime } from "@/lib/format/dates";
 import { orNotFound, pageUser } from "@/lib/auth/page-guard";
 import { getBoard } from "@/lib/dal/boards";
 import { listReviewQueue } from "@/lib/dal/reviews";
@@ -75,7 +75,7 @@ export default async function ReviewQueuePage({ params }: { params: Promise<{ bo
                   </td>
                   <td className="px-3 py-2">{q.callTitle}</td>
                   <td className={`px-3 py-2 ${q.overdue ? "font-semibold text-void-700" : ""}`}>
-                    {dateTime.format(new Date(q.dueAt))}
+                    {formatDateTime(q.dueAt)}
                     {q.overdue ? " · overdue" : ""}
                   </td>
                   <td className="px-3 py-2">

@@ -1,3 +1,4 @@
+import { formatDateTime } from "@/lib/format/dates";
 import type { Metadata } from "next";
 import Link from "next/link";
 import { CallForm } from "@/components/dossier/call-form";
@@ -9,7 +10,6 @@ import { getCall } from "@/lib/dal/calls";
 
 export const metadata: Metadata = { title: "Call" };
 
-const dateFormat = new Intl.DateTimeFormat("en-GB", { dateStyle: "full", timeStyle: "short", timeZone: "UTC" });
 const STATE_TEXT = { upcoming: "Opens soon", open: "Open for submissions", closed: "Closed" } as const;
 
 export default async function CallPage({ params }: { params: Promise<{ boardId: string; callId: string }> }) {
@@ -25,7 +25,7 @@ export default async function CallPage({ params }: { params: Promise<{ boardId: 
       <PageTitle eyebrow={board.name} title={call.title}>
         <p>
           <span className="mr-2 rounded-chip bg-ink-100 px-2 py-0.5 text-sm">{STATE_TEXT[call.state]}</span>
-          {dateFormat.format(new Date(call.opensAt))} – {dateFormat.format(new Date(call.closesAt))} (UTC)
+          {formatDateTime(call.opensAt)} – {formatDateTime(call.closesAt)}
         </p>
         {call.description ? <p className="mt-2 whitespace-pre-line">{call.description}</p> : null}
       </PageTitle>

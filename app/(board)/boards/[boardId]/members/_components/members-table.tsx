@@ -1,4 +1,5 @@
 "use client";
+import { formatDate } from "@/lib/format/dates";
 import { useState, useTransition } from "react";
 import { useRouter } from "next/navigation";
 import { createColumnHelper } from "@tanstack/react-table";
@@ -8,7 +9,6 @@ import type { MemberRow } from "@/lib/dal/members";
 import { updateMemberAction } from "../actions";
 
 const column = createColumnHelper<MemberRow>();
-const dateFormat = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeZone: "UTC" });
 
 export function MembersTable(props: {
   boardId: string;
@@ -87,7 +87,7 @@ export function MembersTable(props: {
         );
       },
     }),
-    column.accessor("joinedAt", { id: "joined", header: "Member since", cell: (info) => dateFormat.format(new Date(info.getValue())) }),
+    column.accessor("joinedAt", { id: "joined", header: "Member since", cell: (info) => formatDate(info.getValue()) }),
     column.display({
       id: "actions",
       header: () => <span className="sr-only">Actions</span>,

@@ -1,3 +1,4 @@
+import { formatDateTime } from "@/lib/format/dates";
 import type { Metadata } from "next";
 import Link from "next/link";
 import { DossierSummary } from "@/components/dossier/dossier-summary";
@@ -15,7 +16,6 @@ import { deltaVBudget, evaluateBlocks, extractOrbitChecks } from "@/lib/dossier/
 export const metadata: Metadata = { title: "Proposal" };
 
 const STATUS_TEXT = { draft: "Draft", submitted: "Submitted", in_review: "In review", decided: "Decided", withdrawn: "Withdrawn" } as const;
-const dateFormat = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
 
 export default async function ProposalPage({ params }: { params: Promise<{ boardId: string; proposalId: string }> }) {
   const { boardId, proposalId } = await params;
@@ -48,8 +48,8 @@ export default async function ProposalPage({ params }: { params: Promise<{ board
                 Version {v.number}
               </Link>
               <span className="text-ink-600">
-                {dateFormat.format(new Date(v.submittedAt))} UTC · server check: {v.counts.consistent} consistent, {v.counts.inconsistent} inconsistent,{" "}
-                {v.counts.invalid} cannot be evaluated
+                {formatDateTime(v.submittedAt)} · server check: {v.counts.consistent} consistent, {v.counts.inconsistent} inconsistent, {v.counts.invalid}{" "}
+                cannot be evaluated
               </span>
             </li>
           ))}
@@ -103,10 +103,7 @@ export default async function ProposalPage({ params }: { params: Promise<{ board
       {header}
       {proposal.editBlockedReason && proposal.owner.id === user.id ? <p className="text-sm text-ink-600">{proposal.editBlockedReason}</p> : null}
       <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_18rem]">
-        <Panel
-          title={`Version ${latest.number}`}
-          description={`Submitted ${dateFormat.format(new Date(latest.submittedAt))} UTC; verdicts are the server's own recomputation.`}
-        >
+        <Panel title={`Version ${latest.number}`} description={`Submitted ${formatDateTime(latest.submittedAt)}; verdicts are the server's own recomputation.`}>
           <ReadOnlyDossier document={latest.document} boardId={boardId} results={latest.checkResults} />
         </Panel>
         <div className="space-y-4">

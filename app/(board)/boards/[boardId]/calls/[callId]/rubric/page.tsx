@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import { NotAllowed, PageTitle } from "@/components/ui/panel";
-import { dateTime } from "@/components/review/api";
+import { formatDateTime } from "@/lib/format/dates";
 import { RubricEditor } from "@/components/review/rubric-editor";
 import { orNotFound, pageUser } from "@/lib/auth/page-guard";
 import { can } from "@/lib/auth/policy";
@@ -29,8 +29,8 @@ export default async function RubricPage({ params }: { params: Promise<{ boardId
           <ul className="text-sm text-ink-700">
             {history.map((h) => (
               <li key={h.id}>
-                v{h.version} · {h.name} · created {dateTime.format(new Date(h.createdAt))} UTC
-                {h.frozenAt ? ` · in use since ${dateTime.format(new Date(h.frozenAt))} UTC` : ""}
+                v{h.version} · {h.name} · created {formatDateTime(h.createdAt)}
+                {h.frozenAt ? ` · in use since ${formatDateTime(h.frozenAt)}` : ""}
               </li>
             ))}
           </ul>

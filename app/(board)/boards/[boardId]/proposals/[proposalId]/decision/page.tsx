@@ -1,3 +1,4 @@
+import { formatDateTime } from "@/lib/format/dates";
 import type { Metadata } from "next";
 import Link from "next/link";
 import { NotAllowed, PageTitle, Panel } from "@/components/ui/panel";
@@ -9,7 +10,6 @@ import { DecisionForm } from "./_components/decision-form";
 
 export const metadata: Metadata = { title: "Decision" };
 
-const dateFormat = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
 const fixed = (n: number | null, digits = 2) => (n === null ? "—" : n.toFixed(digits));
 const verdictClass = { consistent: "bg-holds-100 text-holds-700", inconsistent: "bg-drift-100 text-drift-700", invalid: "bg-void-100 text-void-700" } as const;
 const verdictText = { consistent: "consistent", inconsistent: "inconsistent", invalid: "cannot be evaluated" } as const;
@@ -18,8 +18,7 @@ function IssuedDecision({ boardId, proposalId, decision, chairView }: { boardId:
   return (
     <article className="space-y-3" aria-label={`Decision on version ${decision.versionNumber}`}>
       <p className="text-sm text-ink-700">
-        Version {decision.versionNumber}: <strong className="text-ink-950">{decision.outcomeLabel}</strong> · {dateFormat.format(new Date(decision.decidedAt))}{" "}
-        UTC
+        Version {decision.versionNumber}: <strong className="text-ink-950">{decision.outcomeLabel}</strong> · {formatDateTime(decision.decidedAt)}
         {decision.decidedByName ? ` · ${decision.decidedByName}` : ""}
       </p>
       {chairView && decision.overrideReason ? (
@@ -98,7 +97,7 @@ export default async function DecisionPage({ params }: { params: Promise<{ board
     <div className="space-y-6">
       <PageTitle eyebrow={`Decision · ${w.call.title}`} title={w.proposal.title}>
         <p className="text-sm">
-          {w.version ? `Version ${w.version.number}, submitted ${dateFormat.format(new Date(w.version.submittedAt))} UTC` : "No version submitted yet"} · by{" "}
+          {w.version ? `Version ${w.version.number}, submitted ${formatDateTime(w.version.submittedAt)}` : "No version submitted yet"} · by{" "}
           {w.proposal.ownerName} ·{" "}
           <Link href={`/boards/${boardId}/proposals/${proposalId}`} className="text-trajectory-700 underline">
             read the dossier

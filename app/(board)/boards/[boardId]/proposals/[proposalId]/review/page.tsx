@@ -1,8 +1,9 @@
+import { formatDateTime } from "@/lib/format/dates";
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { PageTitle } from "@/components/ui/panel";
-import { dateTime, formatScore } from "@/components/review/api";
+import { formatScore } from "@/components/review/api";
 import { ReviewWorkspace } from "@/components/review/review-workspace";
 import { orNotFound, pageUser } from "@/lib/auth/page-guard";
 import { can } from "@/lib/auth/policy";
@@ -48,8 +49,8 @@ export default async function ReviewPage({
     <div className="space-y-6">
       <PageTitle eyebrow={`Review · ${screen.proposal.callTitle}`} title={screen.proposal.title}>
         <p>
-          Version {screen.version.number}, submitted {dateTime.format(new Date(screen.version.submittedAt))} UTC
-          {screen.proposal.proposerName ? ` by ${screen.proposal.proposerName}` : ""}. Due {dateTime.format(new Date(screen.assignment.dueAt))} UTC
+          Version {screen.version.number}, submitted {formatDateTime(screen.version.submittedAt)}
+          {screen.proposal.proposerName ? ` by ${screen.proposal.proposerName}` : ""}. Due {formatDateTime(screen.assignment.dueAt)}
           {isChair ? ` · reviewer: ${screen.assignment.reviewerName}` : ""}.
         </p>
       </PageTitle>

@@ -1,3 +1,4 @@
+import { formatDateTime } from "@/lib/format/dates";
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
@@ -10,8 +11,6 @@ import { getProposal, getVersion } from "@/lib/dal/proposals";
 import { deltaVBudget, evaluateBlocks, extractOrbitChecks } from "@/lib/dossier/claims";
 
 export const metadata: Metadata = { title: "Version" };
-
-const dateFormat = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
 
 export default async function VersionPage({ params }: { params: Promise<{ boardId: string; proposalId: string; n: string }> }) {
   const { boardId, proposalId, n } = await params;
@@ -26,7 +25,7 @@ export default async function VersionPage({ params }: { params: Promise<{ boardI
     <div className="space-y-6">
       <PageTitle eyebrow={proposal.callTitle} title={`${version.title}: version ${version.number}`}>
         <p className="text-sm">
-          Submitted {dateFormat.format(new Date(version.submittedAt))} UTC ·{" "}
+          Submitted {formatDateTime(version.submittedAt)} ·{" "}
           <Link href={`/boards/${boardId}/proposals/${proposalId}`} className="text-trajectory-700 underline">
             back to the proposal
           </Link>
