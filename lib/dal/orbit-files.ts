@@ -1,14 +1,17 @@
 import "server-only";
 import { and, eq, inArray } from "drizzle-orm";
-import { db } from "@/db/client";
-import { attachmentOrbitFiles, attachments } from "@/db/schema";
+import { db, type Database, type Transaction } from "@/db/client";
+import { attachmentOrbitFiles, attachments, checkResults } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session";
-import { notFound } from "@/lib/errors";
+import { notFound, unprocessable } from "@/lib/errors";
+import { extractOrbitChecks } from "@/lib/dossier/claims";
+import { opmForBlock } from "@/lib/orbit-files/export-opm";
 import { LIMITS, detectOrbitFormat, parseOrbitFile, type OrbitFile } from "@/lib/orbit-files";
+import { FILE_QUESTION, compareFilesWithText, fileTolerance, type ComparedBlock, type FileComparison, type LinkedFile } from "@/lib/orbit-files/compare";
 import { summarizeOrbitFile, type OrbitSummary } from "@/lib/orbit-files/summary";
 import { readObjectStream } from "@/storage/object-store";
 import { isUuid } from "./boards";
-import { proposalFor } from "./proposals";
+import { getDraft, getVersion, proposalFor } from "./proposals";
 
 export interface OrbitFileView {
   attachmentId: string;
@@ -163,4 +166,106 @@ export async function orbitFilesOfProposal(user: SessionUser, boardId: string, p
       ),
     );
   return rows.map((r) => toView(r as ViewRow));
+}
+
+/** Orbit files of a proposal's confirmed attachments, for comparisons (no authorization: callers have checked). */
+async function linkedFiles(tx: Database | Transaction, boardId: string, proposalId: string): Promise<LinkedFile[]> {
+  const rows = await tx
+    .select(viewColumns)
+    .from(attachmentOrbitFiles)
+    .innerJoin(attachments, eq(attachments.id, attachmentOrbitFiles.attachmentId))
+    .where(
+      and(
+        eq(attachmentOrbitFiles.boardId, boardId),
+        eq(attachments.boardId, boardId),
+        eq(attachments.proposalId, proposalId),
+        eq(attachments.status, "confirmed"),
+      ),
+    );
+  return rows.map((r) => {
+    const v = toView(r as ViewRow);
+    return { attachmentId: v.attachmentId, filename: v.filename, sha256: v.sha256, format: v.format, status: v.status, error: v.error, summaries: v.summaries };
+  });
+}
+
+/** Stored check results of file comparisons use block ids of this form (never a uuid, so never a block's). */
+export function fileComparisonBlockId(blockId: string, attachmentId: string | null): string {
+  return `file:${blockId}:${attachmentId ?? "missing"}`;
+}
+
+/**
+ * The file against the text at submission: compares every named, linked orbit of the
+ * version with its orbit files under the call's file-comparison tolerance and stores each
+ * comparison as a check result (kind "fileAgainstText"), so disagreements count and show as
+ * flags wherever the server's other flags do. Runs in the submission's transaction.
+ */
+export async function recordFileComparisons(
+  tx: Transaction,
+  input: { versionId: string; boardId: string; proposalId: string; blocks: ComparedBlock[]; tolerance: unknown },
+): Promise<FileComparison[]> {
+  const files = await linkedFiles(tx, input.boardId, input.proposalId);
+  const tolerance = fileTolerance((input.tolerance as { fileComparison?: unknown } | null)?.fileComparison);
+  const comparisons = compareFilesWithText(input.blocks, files, tolerance);
+  if (comparisons.length > 0) {
+    await tx.insert(checkResults).values(
+      comparisons.map((c) => ({
+        versionId: input.versionId,
+        boardId: input.boardId,
+        blockId: fileComparisonBlockId(c.blockId, c.attachmentId),
+        label: `${c.label} against ${c.filename}`,
+        kind: "fileAgainstText",
+        status: c.status,
+        claim: { blockId: c.blockId, attachmentId: c.attachmentId, filename: c.filename, tolerance } as Record<string, unknown>,
+        result: {
+          id: c.blockId,
+          kind: "fileAgainstText",
+          question: FILE_QUESTION,
+          status: c.status,
+          computed: {},
+          checks: c.rows.map((r) => ({
+            quantity: r.quantity,
+            claimed: r.text,
+            computed: r.file,
+            unit: r.unit,
+            relativeError: r.text !== 0 ? Math.abs(r.difference / r.text) : null,
+            absoluteError: Math.abs(r.difference),
+            ok: r.ok,
+          })),
+          messages: c.messages,
+        } as Record<string, unknown>,
+      })),
+    );
+  }
+  return comparisons;
+}
+
+/**
+ * A block's orbit as a CCSDS OPM (KVN): from the draft (authors) or a submitted version
+ * (anyone who may view the proposal). The epoch is the linked file's, when the block was
+ * made from one.
+ */
+export async function exportBlockOpm(
+  user: SessionUser,
+  boardId: string,
+  proposalId: string,
+  where: { version: number | null; blockId: string },
+): Promise<{ text: string; filename: string }> {
+  const document =
+    where.version === null ? (await getDraft(user, boardId, proposalId)).document : (await getVersion(user, boardId, proposalId, where.version)).document;
+  const block = extractOrbitChecks(document).find((b) => b.blockId === where.blockId);
+  if (!block) throw notFound("That orbit-check block");
+  let epochIso: string | null = null;
+  let timeSystem: string | undefined;
+  if (block.source) {
+    const files = await linkedFiles(db(), boardId, proposalId);
+    const file = files.find((f) => f.attachmentId === block.source!.attachmentId);
+    const summary = file?.summaries[block.source.index] ?? null;
+    if (summary) {
+      epochIso = summary.epoch;
+      timeSystem = summary.timeSystem;
+    }
+  }
+  const out = opmForBlock(block, { epochIso, timeSystem });
+  if (!out.ok) throw unprocessable(`This block cannot be exported as an OPM: ${out.error}.`);
+  return { text: out.text, filename: out.filename };
 }

@@ -47,7 +47,10 @@ function kvnText(x: string): string {
 }
 
 /** The OPM text for a block, with the epoch given (ISO, UTC) or J2000.0 as a placeholder. */
-export function opmForBlock(block: BlockForExport, options: { epochIso?: string | null; creationDate?: Date; objectId?: string } = {}): OpmExport {
+export function opmForBlock(
+  block: BlockForExport,
+  options: { epochIso?: string | null; timeSystem?: string; creationDate?: Date; objectId?: string } = {},
+): OpmExport {
   const body = typeof block.claim.body === "string" && isBodyName(block.claim.body) ? block.claim.body : block.claim.body === undefined ? "earth" : null;
   if (!body) return { ok: false, error: "blocks with their own body constants cannot be exported; use a body of the constants table" };
   const mu = BODIES[body].mu.value;
@@ -115,7 +118,7 @@ export function opmForBlock(block: BlockForExport, options: { epochIso?: string 
     `OBJECT_ID = ${kvnText(options.objectId ?? `BLOCK-${block.blockId.slice(0, 8)}`)}`,
     `CENTER_NAME = ${body.toUpperCase()}`,
     "REF_FRAME = EME2000",
-    "TIME_SYSTEM = UTC",
+    `TIME_SYSTEM = ${epoch && options.timeSystem && ["UTC", "TAI", "TT"].includes(options.timeSystem) ? options.timeSystem : "UTC"}`,
     `EPOCH = ${epoch ? epoch.slice(0, 23) : "2000-01-01T12:00:00.000"}`,
     `X = ${f(r[0]!, 9)} [km]`,
     `Y = ${f(r[1]!, 9)} [km]`,
