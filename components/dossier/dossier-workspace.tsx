@@ -7,6 +7,7 @@ import { useEffect, useMemo, useRef, useState } from "react";
 import { useRouter } from "next/navigation";
 import { DossierEditor, useDossierEditor } from "@/components/editor/editor";
 import { AttachmentUploader, type AttachmentItem } from "@/components/upload/attachment-uploader";
+import { OrbitFilesPanel } from "@/components/orbit-files/orbit-files-panel";
 import { deltaVBudget, evaluateBlocks, extractOrbitChecks, type ToleranceInput } from "@/lib/dossier/claims";
 import { mergeDocuments } from "@/lib/dossier/merge";
 import { renderDossierHtml } from "@/lib/dossier/render";
@@ -275,6 +276,25 @@ export function DossierWorkspace(props: DossierWorkspaceProps) {
           ) : null}
         </section>
         <AttachmentUploader boardId={boardId} proposalId={proposalId} attachments={attachments} editable onAttachmentsChange={setAttachments} />
+        <OrbitFilesPanel
+          boardId={boardId}
+          proposalId={proposalId}
+          attachmentIds={attachments.map((a) => a.id)}
+          document={doc}
+          tolerance={props.tolerance}
+          exportFrom={{ draft: true }}
+          onMakeClaim={(made) => {
+            // The block goes at the end of the dossier, linked to the file by id and SHA-256.
+            editor
+              ?.chain()
+              .focus("end")
+              .insertContent({
+                type: "orbitCheck",
+                attrs: { blockId: crypto.randomUUID(), label: made.label, claim: made.claim, initialFrom: null, source: made.source },
+              })
+              .run();
+          }}
+        />
       </div>
     </div>
   );
