@@ -132,3 +132,23 @@ describe("export as CCSDS OPM (KVN)", () => {
     });
   });
 });
+
+describe("a block's link to its file survives sanitizing, a forged one does not", () => {
+  it("keeps a well-formed source and drops a malformed one", async () => {
+    const { sanitizeDossier } = await import("@/lib/dossier/sanitize");
+    const block = (source: unknown) => ({
+      type: "doc",
+      content: [
+        {
+          type: "orbitCheck",
+          attrs: { blockId: "0f0e0d0c-0000-4000-8000-000000000000", label: "x", claim: { kind: "orbit", given: { altitude: 500 } }, source },
+        },
+      ],
+    });
+    const good = { attachmentId: "0F0E0D0C-0000-4000-8000-000000000001", sha256: "a".repeat(64), filename: "lantern.tle", index: 2 };
+    const kept = sanitizeDossier(block(good)).doc.content[0]!.attrs!.source;
+    expect(kept).toEqual({ ...good, attachmentId: good.attachmentId.toLowerCase() });
+    const forged = sanitizeDossier(block({ ...good, sha256: "<script>" })).doc.content[0]!.attrs!;
+    expect("source" in forged).toBe(false);
+  });
+});
