@@ -284,15 +284,25 @@ export function DossierWorkspace(props: DossierWorkspaceProps) {
           tolerance={props.tolerance}
           exportFrom={{ draft: true }}
           onMakeClaim={(made) => {
-            // The block goes at the end of the dossier, linked to the file by id and SHA-256.
+            if (!editor) return;
+            // The block goes at the end of the dossier (never replacing a selected block), linked to the file by id and SHA-256.
+            const blockId = crypto.randomUUID();
             editor
-              ?.chain()
-              .focus("end")
-              .insertContent({
+              .chain()
+              .insertContentAt(editor.state.doc.content.size, {
                 type: "orbitCheck",
-                attrs: { blockId: crypto.randomUUID(), label: made.label, claim: made.claim, initialFrom: null, source: made.source },
+                attrs: { blockId, label: made.label, claim: made.claim, initialFrom: null, source: made.source },
               })
               .run();
+            // Focus moves to the new block's first field (its view mounts a frame later).
+            const focusNewBlock = (frames: number) => {
+              const input = editor.view.dom.querySelector<HTMLInputElement>(`[data-block-id="${blockId}"] input`);
+              if (input) {
+                input.scrollIntoView({ block: "center" });
+                input.focus();
+              } else if (frames > 0) requestAnimationFrame(() => focusNewBlock(frames - 1));
+            };
+            requestAnimationFrame(() => focusNewBlock(30));
           }}
         />
       </div>

@@ -62,8 +62,8 @@ describe("orbit files in the browser", () => {
     const made = blocks.nth(1);
     const name = made.getByLabel("Name in the text");
     await expect(name.inputValue()).resolves.toBe("VV-LANTERN");
-    // The proposer names it as the orbit of the text, key by key.
-    await name.click();
+    // Focus went to the new block's name; the proposer names it as the orbit of the text, key by key.
+    await expect.poll(() => name.evaluate((el) => el === document.activeElement)).toBe(true);
     await page.keyboard.press("Control+A");
     await page.keyboard.type("the operational orbit");
     await expect(name.inputValue()).resolves.toBe("the operational orbit");
