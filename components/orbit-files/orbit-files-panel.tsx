@@ -233,7 +233,13 @@ function Comparisons({ comparisons }: { comparisons: FileComparison[] }) {
       </p>
       <ul className="space-y-1 text-xs">
         {comparisons.map((c) => (
-          <li key={`${c.blockId}:${c.attachmentId}`} data-comparison-status={c.status} className="rounded-chip border border-ink-100 p-1.5">
+          <li
+            key={`${c.blockId}:${c.attachmentId}`}
+            // The target of the flag's link in the version summary (its stored block id is file:<block>:<attachment>).
+            id={`orbit-check-file:${c.blockId}:${c.attachmentId ?? "missing"}`}
+            data-comparison-status={c.status}
+            className="rounded-chip border border-ink-100 p-1.5"
+          >
             <p className="font-semibold">{`${c.label || "Unnamed orbit"} against ${c.filename}: ${STATUS_WORDS[c.status]}`}</p>
             <ul className="list-disc pl-4">
               {c.messages.map((m, i) => (
