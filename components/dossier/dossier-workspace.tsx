@@ -7,6 +7,7 @@ import { useEffect, useMemo, useRef, useState } from "react";
 import { useRouter } from "next/navigation";
 import { DossierEditor, useDossierEditor } from "@/components/editor/editor";
 import { AttachmentUploader, type AttachmentItem } from "@/components/upload/attachment-uploader";
+import { OrbitFilesPanel } from "@/components/orbit-files/orbit-files-panel";
 import { deltaVBudget, evaluateBlocks, extractOrbitChecks, type ToleranceInput } from "@/lib/dossier/claims";
 import { mergeDocuments } from "@/lib/dossier/merge";
 import { renderDossierHtml } from "@/lib/dossier/render";
@@ -345,6 +346,35 @@ export function DossierWorkspace(props: DossierWorkspaceProps) {
           ) : null}
         </section>
         <AttachmentUploader boardId={boardId} proposalId={proposalId} attachments={attachments} editable onAttachmentsChange={setAttachments} />
+        <OrbitFilesPanel
+          boardId={boardId}
+          proposalId={proposalId}
+          attachmentIds={attachments.map((a) => a.id)}
+          document={doc}
+          tolerance={props.tolerance}
+          exportFrom={{ draft: true }}
+          onMakeClaim={(made) => {
+            if (!editor) return;
+            // The block goes at the end of the dossier (never replacing a selected block), linked to the file by id and SHA-256.
+            const blockId = crypto.randomUUID();
+            editor
+              .chain()
+              .insertContentAt(editor.state.doc.content.size, {
+                type: "orbitCheck",
+                attrs: { blockId, label: made.label, claim: made.claim, initialFrom: null, source: made.source },
+              })
+              .run();
+            // Focus moves to the new block's first field (its view mounts a frame later).
+            const focusNewBlock = (frames: number) => {
+              const input = editor.view.dom.querySelector<HTMLInputElement>(`[data-block-id="${blockId}"] input`);
+              if (input) {
+                input.scrollIntoView({ block: "center" });
+                input.focus();
+              } else if (frames > 0) requestAnimationFrame(() => focusNewBlock(frames - 1));
+            };
+            requestAnimationFrame(() => focusNewBlock(30));
+          }}
+        />
       </div>
     </div>
   );

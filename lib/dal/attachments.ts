@@ -10,6 +10,7 @@ import { conflict, notFound, unprocessable } from "@/lib/errors";
 import { ATTACHMENT_TYPES, type PresignUploadInput } from "@/lib/validation/dossier";
 import { deleteObject, presignDownload, presignUpload, readObjectHead, readObjectStream, statObjectOrNull } from "@/storage/object-store";
 import { recordAudit } from "./audit";
+import { recordOrbitFile } from "./orbit-files";
 import { isUuid } from "./boards";
 import { editableState, proposalFor } from "./proposals";
 
@@ -91,7 +92,7 @@ function extensionOf(filename: string): string {
   return i >= 0 ? filename.slice(i).toLowerCase() : "";
 }
 
-const ALLOWED_DESCRIPTION = "PDF, PNG, JPEG, CSV or plain text (including CCSDS OEM/OPM/OMM messages and two-line element sets)";
+const ALLOWED_DESCRIPTION = "PDF, PNG, JPEG, CSV or plain text (including CCSDS OEM/OPM/OMM messages, in KVN or XML, and two-line element sets)";
 
 /** Checks a declared file against the allow-list and the cap; returns the normalised type. */
 export function checkDeclaredFile(input: PresignUploadInput, maxBytes = uploadMaxBytes()): string {
@@ -278,6 +279,8 @@ export async function confirmAttachment(
     target: row.id,
     details: { filename: row.filename, size: stat.size, sha256 },
   });
+  // Orbit files (element sets, CCSDS OPM/OMM/OEM) are parsed now; the attachment stays even when unparsed.
+  if (isText) await recordOrbitFile({ attachmentId: row.id, boardId, objectKey: updated.objectKey, sha256, filename: row.filename });
   return toView(updated, isText ? textKindOf(head.toString("utf8")) : null);
 }
 

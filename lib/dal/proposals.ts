@@ -34,6 +34,7 @@ import {
 import type { DraftSaveInput, ProposalCreateInput, ProposalListQuery, ProposalUpdateInput } from "@/lib/validation/dossier";
 import { deleteObject, writeObject } from "@/storage/object-store";
 import { recordAudit } from "./audit";
+import { recordFileComparisons } from "./orbit-files";
 import { boardRole, isUuid } from "./boards";
 import { callState, loadCall } from "./calls";
 import { isConflicted as reviewerIsConflicted } from "./conflicts";
@@ -570,6 +571,8 @@ export async function submitProposal(user: SessionUser, boardId: string, proposa
           })),
         );
       }
+      // The file against the text: named orbits linked to attached orbit files become flags too.
+      await recordFileComparisons(tx, { versionId: version!.id, boardId, proposalId, blocks: extractOrbitChecks(doc), tolerance: call.tolerance });
       await tx.update(proposals).set({ status: "submitted", latestVersion: number, updatedAt: new Date() }).where(eq(proposals.id, proposalId));
       await tx.update(proposalDrafts).set({ basedOnVersion: number }).where(eq(proposalDrafts.proposalId, proposalId));
       const counts = { consistent: 0, inconsistent: 0, invalid: 0 };

@@ -18,6 +18,8 @@ export interface OrbitCheckBlock {
   label: string;
   claim: DossierClaim;
   initialFrom?: string | null;
+  /** The orbit file the block was made from, when it was. */
+  source?: { attachmentId: string; sha256: string; filename: string; index: number } | null;
 }
 
 /** Every orbit-check block in document order. */
@@ -31,6 +33,7 @@ export function extractOrbitChecks(doc: unknown): OrbitCheckBlock[] {
         label: typeof node.attrs.label === "string" ? node.attrs.label : "",
         claim: node.attrs.claim as DossierClaim,
         initialFrom: (node.attrs.initialFrom as string | null | undefined) ?? null,
+        ...(node.attrs.source ? { source: node.attrs.source as OrbitCheckBlock["source"] } : {}),
       });
     }
     (node.content ?? []).forEach(walk);

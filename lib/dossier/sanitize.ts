@@ -69,6 +69,17 @@ export function cleanClaim(v: unknown): DossierClaim {
   return claim;
 }
 
+/** The link of a block made from an orbit file: attachment id, SHA-256, file name, orbit index. */
+export function cleanSource(v: unknown): { attachmentId: string; sha256: string; filename: string; index: number } | null {
+  if (!isRecord(v)) return null;
+  const { attachmentId, sha256, filename, index } = v;
+  if (typeof attachmentId !== "string" || !/^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(attachmentId)) return null;
+  if (typeof sha256 !== "string" || !/^[0-9a-f]{64}$/.test(sha256)) return null;
+  if (typeof filename !== "string" || filename.length === 0 || filename.length > 255) return null;
+  const i = typeof index === "number" && Number.isInteger(index) && index >= 0 && index < 10_000 ? index : 0;
+  return { attachmentId: attachmentId.toLowerCase(), sha256, filename, index: i };
+}
+
 interface WalkState {
   dropped: string[];
   orbitChecks: number;
@@ -173,6 +184,8 @@ function cleanNode(node: unknown, depth: number, state: WalkState): DossierNode[
       claim: cleanClaim(a.claim),
       initialFrom: typeof a.initialFrom === "string" && a.initialFrom !== blockId ? a.initialFrom : null,
     };
+    const source = cleanSource(a.source);
+    if (source) out.attrs.source = source;
     return [out];
   }
   if (attrs) out.attrs = attrs;

@@ -25,6 +25,8 @@ export interface OrbitCheckAttrs {
   claim: DossierClaim;
   /** blockId of another block whose orbit is this transfer's initial orbit. */
   initialFrom?: string | null;
+  /** The orbit file the block was made from (attachment id and SHA-256). */
+  source?: { attachmentId: string; sha256: string; filename: string; index: number } | null;
 }
 
 export interface DossierMark {
@@ -50,6 +52,15 @@ export const EMPTY_DOSSIER: DossierDoc = { type: "doc", content: [{ type: "parag
 /** Headings the editor offers (level 1 to 3). */
 export const HEADING_LEVELS = [1, 2, 3] as const;
 
+function parseSource(text: string | null): unknown {
+  if (!text) return null;
+  try {
+    return JSON.parse(text);
+  } catch {
+    return null;
+  }
+}
+
 /** The orbit-check atom without a node view; the editor extends it with its React view. */
 export const OrbitCheckNode = Node.create({
   name: "orbitCheck",
@@ -63,6 +74,8 @@ export const OrbitCheckNode = Node.create({
       label: { default: "" },
       claim: { default: { kind: "orbit", body: "earth", given: {}, claimed: {} } },
       initialFrom: { default: null },
+      /** The orbit file the block was made from: { attachmentId, sha256, filename, index } (lib/orbit-files/compare.ts). */
+      source: { default: null },
     };
   },
   parseHTML() {
@@ -82,6 +95,7 @@ export const OrbitCheckNode = Node.create({
             label: el.getAttribute("data-label") ?? "",
             claim: claim ?? undefined,
             initialFrom: el.getAttribute("data-initial-from"),
+            source: parseSource(el.getAttribute("data-source")),
           };
         },
       },
@@ -93,8 +107,9 @@ export const OrbitCheckNode = Node.create({
       mergeAttributes(
         { "data-orbit-check": "", "data-block-id": node.attrs.blockId, "data-label": node.attrs.label, "data-claim": JSON.stringify(node.attrs.claim) },
         node.attrs.initialFrom ? { "data-initial-from": node.attrs.initialFrom } : {},
+        node.attrs.source ? { "data-source": JSON.stringify(node.attrs.source) } : {},
         // HTMLAttributes carries the attrs again under their own names; drop the JSON one.
-        Object.fromEntries(Object.entries(HTMLAttributes).filter(([k]) => !["claim", "blockId", "label", "initialFrom"].includes(k))),
+        Object.fromEntries(Object.entries(HTMLAttributes).filter(([k]) => !["claim", "blockId", "label", "initialFrom", "source"].includes(k))),
       ),
     ];
   },
@@ -205,6 +220,8 @@ export const NODE_ATTRS: Record<string, Record<string, AttrCleaner>> = {
     initialFrom: (v) => (typeof v === "string" && UUID.test(v) ? v.toLowerCase() : undefined),
     // The claim is cleaned in sanitize.ts (it has its own shape).
     claim: (v) => v,
+    // The orbit-file link is cleaned in sanitize.ts (cleanSource).
+    source: (v) => (v && typeof v === "object" ? v : undefined),
   },
 };
 

@@ -121,6 +121,8 @@ export const ATTACHMENT_TYPES: Record<string, readonly string[]> = {
   "text/csv": [".csv"],
   // Plain text covers CCSDS orbit data messages in KVN and two-line element sets.
   "text/plain": [".txt", ".oem", ".opm", ".omm", ".kvn", ".tle", ".3le"],
+  // CCSDS orbit data messages in their XML form (read with entities off).
+  "text/xml": [".xml"],
 };
 
 export const presignUploadSchema = z.strictObject({

@@ -5,6 +5,14 @@ import { dossierRouteCases } from "./dossiers";
 import { systemRouteCases } from "./system";
 import { accountActionCases, accountRouteCases } from "./accounts";
 import { decisionActionCases, decisionRouteCases } from "./decisions";
+import { orbitFileRouteCases } from "./orbit-files";
 
-export const routeCases: RouteCase[] = [...dossierRouteCases, ...systemRouteCases, ...accountRouteCases, ...reviewRouteCases, ...decisionRouteCases];
+export const routeCases: RouteCase[] = [
+  ...dossierRouteCases,
+  ...systemRouteCases,
+  ...accountRouteCases,
+  ...reviewRouteCases,
+  ...decisionRouteCases,
+  ...orbitFileRouteCases,
+];
 export const actionCases: ActionCase[] = [...accountActionCases, ...decisionActionCases];

@@ -5,6 +5,7 @@ import { DossierSummary } from "@/components/dossier/dossier-summary";
 import { DossierWorkspace } from "@/components/dossier/dossier-workspace";
 import { ReadOnlyDossier } from "@/components/dossier/read-only-dossier";
 import { AttachmentList } from "@/components/dossier/attachment-list";
+import { OrbitFilesPanel } from "@/components/orbit-files/orbit-files-panel";
 import { PageTitle, Panel } from "@/components/ui/panel";
 import { orNotFound, pageUser } from "@/lib/auth/page-guard";
 import { listAttachments } from "@/lib/dal/attachments";
@@ -110,6 +111,14 @@ export default async function ProposalPage({ params }: { params: Promise<{ board
           <DossierSummary items={items} budget={budget} source="server" />
           <AttachmentList
             attachments={latest.attachments.map((a) => ({ ...a, contentPath: `/api/v1/boards/${boardId}/attachments/${a.attachmentId}/content` }))}
+          />
+          <OrbitFilesPanel
+            boardId={boardId}
+            proposalId={proposalId}
+            attachmentIds={latest.attachments.map((a) => a.attachmentId)}
+            document={latest.document}
+            tolerance={proposal.tolerance}
+            exportFrom={{ version: latest.number }}
           />
         </div>
       </div>

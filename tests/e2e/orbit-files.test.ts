@@ -1,0 +1,88 @@
+// A proposer in a real browser attaches an element set, reads what the server made of it,
+// makes an orbit-check block from it, names that block as the orbit the text describes, and
+// sees the file disagree with the text; the block's orbit downloads as an OPM.
+import crypto from "node:crypto";
+import { describe, expect, it } from "vitest";
+import { tleChecksum } from "@/lib/orbit-files";
+import { saveDraft } from "@/lib/dal/proposals";
+import { browserSession, signInThroughPage } from "../support/browser";
+import { asSessionUser, createBoardWithCast, TEST_PASSWORD } from "../support/factories";
+import { dossierDoc, makeProposal } from "../integration/matrix/dossiers";
+
+/** Invented satellite 99006 "VV-LANTERN" at about 548 km and 97.6° (mean elements). */
+function lanternTle(): string {
+  const l1 = "1 99006U 26005A   26060.50000000  .00000000  00000-0  00000-0 0  999";
+  const l2 = "2 99006  97.6000  10.0000 0001000  90.0000   0.0000 15.06000000    1";
+  return `VV-LANTERN\n${l1}${tleChecksum(l1)}\n${l2}${tleChecksum(l2)}\n`;
+}
+
+describe("orbit files in the browser", () => {
+  const { page: openPage } = browserSession();
+
+  it("attaches an element set, makes a block from it and sees the comparison with the text", async () => {
+    const cast = await createBoardWithCast();
+    const { proposal } = await makeProposal({ cast });
+    await saveDraft(asSessionUser(cast.proposer), cast.board.id, proposal.id, {
+      revision: 1,
+      document: dossierDoc([
+        { type: "paragraph", content: [{ type: "text", text: "The operational orbit is 540 km sun-synchronous." }] },
+        {
+          type: "orbitCheck",
+          attrs: {
+            blockId: crypto.randomUUID(),
+            label: "the operational orbit",
+            claim: { kind: "sunSynchronous", body: "earth", given: { altitude: 540 }, claimed: {} },
+            initialFrom: null,
+          },
+        },
+      ]),
+    });
+    const page = await openPage();
+    const errors: string[] = [];
+    page.on("pageerror", (e) => errors.push(e.message));
+    await signInThroughPage(page, cast.proposer.email, TEST_PASSWORD);
+    await page.goto("/boards");
+    await page.getByRole("link", { name: cast.board.name }).click();
+    await page.getByRole("link", { name: proposal.title }).click();
+    await page.waitForURL(new RegExp(`/proposals/${proposal.id}$`));
+    await page.getByRole("textbox", { name: "Dossier text" }).waitFor();
+
+    await page.locator('input[type="file"]').setInputFiles({ name: "lantern.tle", mimeType: "", buffer: Buffer.from(lanternTle()) });
+    const card = page.locator("[data-orbit-file]");
+    await card.waitFor({ timeout: 30_000 });
+    await expect(card.getByRole("heading", { level: 3 }).textContent()).resolves.toBe("lantern.tle· Two-line element sets");
+    await card.getByText("Sun-synchronous").waitFor();
+    const orbit = card.locator("dl").first();
+    await expect(orbit.textContent()).resolves.toMatch(/Altitude range \(mean\)54\d\.\d – 5\d\d\.\d km/);
+    await expect(card.textContent()).resolves.toContain("Mean (SGP4) and osculating elements differ");
+
+    await card.getByRole("button", { name: "Make a claim from this file" }).click();
+    const blocks = page.locator("[data-orbit-check-block]");
+    await expect.poll(() => blocks.count()).toBe(2);
+    const made = blocks.nth(1);
+    const name = made.getByLabel("Name in the text");
+    await expect(name.inputValue()).resolves.toBe("VV-LANTERN");
+    // Focus went to the new block's name; the proposer names it as the orbit of the text, key by key.
+    await expect.poll(() => name.evaluate((el) => el === document.activeElement)).toBe(true);
+    await page.keyboard.press("Control+A");
+    await page.keyboard.type("the operational orbit");
+    await expect(name.inputValue()).resolves.toBe("the operational orbit");
+
+    const disagreement = page.locator('[data-comparison-status="inconsistent"]');
+    await disagreement.waitFor();
+    await expect(disagreement.textContent()).resolves.toMatch(
+      /^the operational orbit against lantern\.tle: disagreesthe attached element set gives 54\d\.\d km altitude, the text claims 540 km \(the operational orbit; tolerance ±5 km\)/,
+    );
+    await page.locator('[data-comparison-status="consistent"]').waitFor();
+
+    // The block's orbit as an OPM once the draft is saved.
+    await page.locator('[data-save-state="saved"]').waitFor({ timeout: 30_000 });
+    const link = page.getByRole("link", { name: "OPM of the operational orbit" }).last();
+    const href = await link.getAttribute("href");
+    expect(href).toMatch(/\/draft\/orbit-checks\/[0-9a-f-]{36}\/opm$/);
+    const opm = await page.evaluate(async (url) => (await fetch(url!)).text(), href);
+    expect(opm.split("\n")[0]).toBe("CCSDS_OPM_VERS = 2.0");
+    expect(opm).toContain("EPOCH = 2026-03-01T12:00:00.000");
+    expect(errors).toEqual([]);
+  });
+});
