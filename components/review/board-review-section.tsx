@@ -59,7 +59,7 @@ export async function BoardReviewSection({ user, board, calls }: { user: Session
                     Assign reviewers
                   </Link>
                   <Link href={`/boards/${board.id}/calls/${call.id}/overview`} className={linkClass}>
-                    Overview
+                    Overview, reviews and decisions
                   </Link>
                 </span>
               </li>
