@@ -15,7 +15,7 @@ import { callApi, dateTime, formatScore } from "./api";
 import { domText, highlight, offsetOf } from "./dossier-text";
 import { ReviewItemsPanel } from "./review-items-panel";
 
-type SaveState = "idle" | "dirty" | "saving" | "saved" | "stale" | "locked" | "error";
+type SaveState = "idle" | "dirty" | "saving" | "saved" | "stale" | "locked" | "closed" | "error";
 
 interface Props {
   boardId: string;
@@ -32,6 +32,7 @@ const saveText: Record<SaveState, string> = {
   saved: "All changes saved",
   stale: "Not saved: changed elsewhere",
   locked: "Submitted and locked",
+  closed: "Closed: the proposal is decided",
   error: "Not saved",
 };
 
@@ -42,7 +43,8 @@ export function ReviewWorkspace({ boardId, screen, items: initialItems, canRaise
   const [scores, setScores] = useState<Record<string, CriterionScore>>(screen.review.scores);
   const [summary, setSummary] = useState(screen.review.summary);
   const [canEdit, setCanEdit] = useState(screen.canEdit);
-  const [saveState, setSaveState] = useState<SaveState>(screen.review.status === "submitted" ? "locked" : "idle");
+  const [saveState, setSaveState] = useState<SaveState>(screen.closedReason ? "closed" : screen.review.status === "submitted" ? "locked" : "idle");
+  const [closedReason, setClosedReason] = useState(screen.closedReason);
   const [message, setMessage] = useState<string | null>(null);
   const [problems, setProblems] = useState<string[]>([]);
   const [stale, setStale] = useState<{ server: ReviewState; base: Draft; overlaps: Overlap[] } | null>(null);
@@ -91,7 +93,14 @@ export function ReviewWorkspace({ boardId, screen, items: initialItems, canRaise
           setSaveState("saved");
           return true;
         }
-        const details = answer.details as { review?: ReviewState; issues?: { message: string }[] } | undefined;
+        const details = answer.details as { review?: ReviewState; issues?: { message: string }[]; closed?: boolean } | undefined;
+        if (answer.status === 409 && details?.closed) {
+          // The version was decided meanwhile: the review is closed; what is on screen stays visible.
+          setCanEdit(false);
+          setClosedReason(answer.error);
+          setSaveState("closed");
+          return false;
+        }
         if (answer.status === 409 && details?.review?.status === "submitted") {
           setSaveState("locked");
           setCanEdit(false);
@@ -138,6 +147,11 @@ export function ReviewWorkspace({ boardId, screen, items: initialItems, canRaise
     const answer = await callApi<ReviewScreen>(base);
     if (!answer.ok) return;
     const server = answer.data.review;
+    if (answer.data.closedReason && !closedReason) {
+      setClosedReason(answer.data.closedReason);
+      setCanEdit(false);
+      setSaveState("closed");
+    }
     if (server.revision === revision.current && server.status === review.status) return;
     if (changedKeys(baseline.current, latest.current).length > 0 && answer.data.canEdit) {
       // Unsaved edits on screen: the save merges them with the newer saved state.
@@ -149,10 +163,11 @@ export function ReviewWorkspace({ boardId, screen, items: initialItems, canRaise
     show(baseline.current);
     setReview(server);
     setCanEdit(answer.data.canEdit);
+    setClosedReason(answer.data.closedReason);
     setStale(null);
     setMessage(null);
-    setSaveState(server.status === "submitted" ? "locked" : "saved");
-  }, [base, review.status, save, show]);
+    setSaveState(answer.data.closedReason ? "closed" : server.status === "submitted" ? "locked" : "saved");
+  }, [base, closedReason, review.status, save, show]);
 
   const refreshRef = useRef(refresh);
   useEffect(() => {
@@ -226,6 +241,11 @@ export function ReviewWorkspace({ boardId, screen, items: initialItems, canRaise
               {review.updatedAt && saveState === "saved" ? ` · ${dateTime.format(new Date(review.updatedAt))} UTC` : ""}
             </p>
           </div>
+          {closedReason ? (
+            <p data-testid="review-closed" className="mb-3 rounded-chip border border-ink-300 bg-ink-50 px-3 py-2 text-sm text-ink-800">
+              {closedReason}
+            </p>
+          ) : null}
           {!screen.rubric ? (
             <p className="text-ink-600">The chair has not set up the rubric for this call yet.</p>
           ) : (
