@@ -235,7 +235,10 @@ describe("the whole story of a review round", () => {
     await preview.getByText(`Dear ${proposer.name},`).waitFor();
     await preview.getByText(`[major] ${itemTitle}`, { exact: false }).waitFor();
     await assertAccessible(chairPage, "decision page (chair)");
-    await chairPage.getByRole("button", { name: "Send the decision" }).click();
+    // Sending shows the letter as it goes out and asks to confirm before anything is stored.
+    await chairPage.getByRole("button", { name: "Send the decision…" }).click();
+    await chairPage.getByRole("region", { name: "Check the letter, then confirm" }).getByText(`Dear ${proposer.name},`).waitFor();
+    await chairPage.getByRole("button", { name: "Confirm and send the decision" }).click();
     await chairPage.getByRole("heading", { name: "Decision issued" }).waitFor({ timeout: 60_000 });
 
     // 5. The letter e-mail with its PDF reaches the proposer's inbox (sent by the app's outbox worker).

@@ -85,7 +85,7 @@ describe("deciding on a proposal", () => {
     expect(view.letterText).toContain(`Dear ${s.proposer.name},`);
     expect(view.letterText).toContain("- [major] Drift orbit period: The stated period does not follow from the altitudes.");
     expect(view.letterText).not.toContain("Eclipse season");
-    expect(view.letterText).toContain("flagged 1.");
+    expect(view.letterText).toContain("The server checked the 2 orbit claims of this version and flagged 1 as inconsistent.");
     expect(view.letterHtml).toContain("<strong>revise and resubmit</strong>");
 
     const [proposal] = await db().select({ status: proposals.status }).from(proposals).where(eq(proposals.id, s.proposal.id));
