@@ -348,9 +348,12 @@ export async function getDecisionWorkspace(user: SessionUser, boardId: string, p
       .where(and(eq(checkResults.boardId, boardId), eq(checkResults.versionId, version.id)))
       .orderBy(asc(checkResults.createdAt));
     claimCounts = countClaims(checkRows);
-    checks = checkRows.map(({ result, claim: _claim, ...c }) => ({
-      ...c,
-      messages: Array.isArray(result.messages) ? (result.messages as unknown[]).map(String) : [],
+    checks = checkRows.map((c) => ({
+      blockId: c.blockId,
+      label: c.label,
+      kind: c.kind,
+      status: c.status,
+      messages: Array.isArray(c.result.messages) ? (c.result.messages as unknown[]).map(String) : [],
     }));
   }
 
