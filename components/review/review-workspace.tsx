@@ -49,6 +49,17 @@ export function ReviewWorkspace({ boardId, screen, items: initialItems, canRaise
   const [problems, setProblems] = useState<string[]>([]);
   const [stale, setStale] = useState<{ server: ReviewState; base: Draft; overlaps: Overlap[] } | null>(null);
   const [notice, setNotice] = useState<string | null>(null);
+  const [raised, setRaised] = useState<ReviewItemView | null>(null);
+
+  // After raising an item: bring it into view in the list and say so (the live region below).
+  useEffect(() => {
+    if (!raised) return;
+    const li = document.querySelector<HTMLElement>(`li[data-item="${CSS.escape(raised.id)}"]`);
+    if (!li) return;
+    li.scrollIntoView({ block: "center" });
+    if (!li.hasAttribute("tabindex")) li.setAttribute("tabindex", "-1");
+    li.focus({ preventScroll: true });
+  }, [raised]);
   const [items, setItems] = useState(initialItems);
   const [activeItem, setActiveItem] = useState<string | null>(null);
 
@@ -228,9 +239,15 @@ export function ReviewWorkspace({ boardId, screen, items: initialItems, canRaise
         activeItem={activeItem}
         onActivate={setActiveItem}
         canRaise={canRaise || canEdit}
-        onRaised={(item) => setItems((prev) => [...prev, item])}
+        onRaised={(item) => {
+          setItems((prev) => [...prev, item]);
+          setRaised(item);
+        }}
       />
       <div className="space-y-6">
+        <p role="status" aria-live="polite" className="sr-only" data-testid="raised-announcement">
+          {raised ? `Review item “${raised.title}” raised; it is listed under the review items.` : ""}
+        </p>
         <section aria-labelledby="rubric-heading" className="rounded-panel border border-ink-200 bg-white p-4 shadow-panel">
           <div className="mb-3 flex flex-wrap items-baseline justify-between gap-2">
             <h2 id="rubric-heading" className="text-lg font-semibold">
@@ -624,7 +641,10 @@ function DossierPane({
   onRaised: (item: ReviewItemView) => void;
 }) {
   const ref = useRef<HTMLDivElement>(null);
+  const pane = useRef<HTMLElement>(null);
   const [selection, setSelection] = useState<{ anchor: Anchor | null; quote: string } | null>(null);
+  // Where the selection ends, from the top of the pane: the raise-item form opens there.
+  const [selectionTop, setSelectionTop] = useState<number | null>(null);
   const [unplaced, setUnplaced] = useState<string[]>([]);
 
   // Re-render the dossier and its highlights whenever the items change.
@@ -653,13 +673,16 @@ function DossierPane({
       // Map the browser's selection onto the server's text by quote and context.
       const resolved = resolveAnchor(serverText, dom);
       setSelection({ anchor: resolved ? makeAnchor(serverText, resolved.from, resolved.to) : null, quote: dom.quote });
+      const paneBox = pane.current?.getBoundingClientRect();
+      const rangeBox = range.getBoundingClientRect();
+      setSelectionTop(paneBox ? rangeBox.bottom - paneBox.top + 8 : null);
     };
     document.addEventListener("selectionchange", onChange);
     return () => document.removeEventListener("selectionchange", onChange);
   }, [serverText]);
 
   return (
-    <section aria-labelledby="dossier-heading" className="min-w-0">
+    <section ref={pane} aria-labelledby="dossier-heading" className="relative min-w-0">
       <h2 id="dossier-heading" className="sr-only">
         Dossier
       </h2>
@@ -682,10 +705,18 @@ function DossierPane({
           proposalId={proposalId}
           selection={selection}
           serverText={serverText}
+          // Beside the selected words when there is a selection; at the foot of the dossier otherwise.
+          top={selection && selectionTop !== null ? selectionTop : null}
           onTyped={setSelection}
+          onClose={() => {
+            setSelection(null);
+            setSelectionTop(null);
+            window.getSelection()?.removeAllRanges();
+          }}
           onRaised={(item) => {
             onRaised(item);
             setSelection(null);
+            setSelectionTop(null);
             window.getSelection()?.removeAllRanges();
           }}
         />
@@ -699,14 +730,19 @@ function RaiseItemForm({
   proposalId,
   selection,
   serverText,
+  top,
   onTyped,
+  onClose,
   onRaised,
 }: {
   boardId: string;
   proposalId: string;
   selection: { anchor: Anchor | null; quote: string } | null;
   serverText: string;
+  /** Offset from the top of the dossier pane to open the form at (beside a selection), or null. */
+  top: number | null;
   onTyped: (selection: { anchor: Anchor | null; quote: string } | null) => void;
+  onClose: () => void;
   onRaised: (item: ReviewItemView) => void;
 }) {
   const [severity, setSeverity] = useState<"major" | "minor" | "comment">("minor");
@@ -719,8 +755,10 @@ function RaiseItemForm({
   return (
     <form
       data-review-ui=""
+      data-placement={top !== null ? "beside-selection" : "foot"}
       aria-labelledby="raise-heading"
-      className="mt-4 space-y-2 rounded-panel border border-trajectory-400/60 bg-trajectory-100/40 p-4"
+      style={top !== null ? { top } : undefined}
+      className={`space-y-2 rounded-panel border border-trajectory-400/60 p-4 ${top !== null ? "absolute right-2 left-8 z-20 bg-white shadow-panel ring-2 ring-trajectory-400/40" : "mt-4 bg-trajectory-100/40"}`}
       onSubmit={async (e) => {
         e.preventDefault();
         if (!selection?.anchor) return;
@@ -740,9 +778,16 @@ function RaiseItemForm({
         } else setError(answer.error);
       }}
     >
-      <h3 id="raise-heading" className="font-semibold">
-        Raise a review item
-      </h3>
+      <div className="flex items-baseline justify-between gap-2">
+        <h3 id="raise-heading" className="font-semibold">
+          Raise a review item
+        </h3>
+        {top !== null ? (
+          <button type="button" onClick={onClose} className="text-sm text-trajectory-700 underline">
+            Close
+          </button>
+        ) : null}
+      </div>
       {selection ? (
         <p className="text-sm">
           On:{" "}
