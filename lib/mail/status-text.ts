@@ -2,6 +2,9 @@
  * Says in words what happened to an outbox message and what comes next, for the chair's
  * decision page and the admin outbox. Pure (no server-only imports), so the browser can use it.
  */
+/** Transient failures before the outbox gives a message up (lib/mail/outbox.ts uses this one). */
+export const OUTBOX_MAX_ATTEMPTS = 12;
+
 export interface OutboxState {
   status: string;
   attempts: number;
@@ -14,7 +17,7 @@ const time = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: 
 const at = (iso: string | null | undefined) => (iso ? `${time.format(new Date(iso))} UTC` : null);
 const attemptsText = (n: number) => `${n} ${n === 1 ? "attempt" : "attempts"}`;
 
-export function outboxStatusText(m: OutboxState, maxAttempts: number): string {
+export function outboxStatusText(m: OutboxState, maxAttempts = OUTBOX_MAX_ATTEMPTS): string {
   const error = m.lastError ? ` The mail server said: “${m.lastError}”.` : "";
   switch (m.status) {
     case "sent":
