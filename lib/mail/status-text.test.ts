@@ -15,6 +15,12 @@ describe("outbox status in words", () => {
     expect(outboxStatusText({ status: "failed", attempts: 12, lastError: "mailbox unavailable" }, 12)).toContain(
       "Not sent: delivery was given up after 12 attempts. The mail server said: “mailbox unavailable”.",
     );
-    expect(outboxStatusText({ status: "sending", attempts: 0, lastError: null }, 12)).not.toContain("after 1 attempt");
+    // A message being sent counts the try in progress as an attempt.
+    expect(outboxStatusText({ status: "sending", attempts: 1, lastError: null }, 12)).toBe(
+      "Being handed to the mail server now (first attempt). Nothing to do.",
+    );
+    expect(outboxStatusText({ status: "sending", attempts: 3, lastError: "timeout" }, 12)).toBe(
+      "Being sent again now (attempt 3 of at most 12). The mail server said: “timeout”. If this try fails too, it is retried automatically.",
+    );
   });
 });

@@ -25,9 +25,10 @@ export function outboxStatusText(m: OutboxState, maxAttempts = OUTBOX_MAX_ATTEMP
     case "failed":
       return `Not sent: delivery was given up after ${attemptsText(m.attempts)}.${error} Check the address; an administrator can send it again from the Outbox page.`;
     case "sending":
-      return m.attempts > 0
-        ? `Being sent again now (${attemptsText(m.attempts)} so far).${error} It is retried automatically, up to ${maxAttempts} attempts.`
-        : "Being handed to the mail server now. Nothing to do.";
+      // `attempts` already counts the try in progress.
+      return m.attempts > 1
+        ? `Being sent again now (attempt ${m.attempts} of at most ${maxAttempts}).${error} If this try fails too, it is retried automatically.`
+        : "Being handed to the mail server now (first attempt). Nothing to do.";
     default: {
       if (m.attempts === 0) return "Waiting to be sent: it goes out with the mail sender's next run. Nothing to do.";
       const next = at(m.nextAttemptAt);
