@@ -1,0 +1,41 @@
+import { describe, it } from "vitest";
+import { createDecision } from "@/lib/dal/decisions";
+import { DEFAULT_LETTER_TEMPLATE } from "@/lib/decisions/template";
+import { browserSession } from "../support/browser";
+import { asSessionUser } from "../support/factories";
+import { decisionScenario } from "../integration/decision-fixtures";
+
+describe("tmp shots", () => {
+  const { as } = browserSession();
+  it("shots", { timeout: 300_000 }, async () => {
+    const s = await decisionScenario();
+    const chair = await as(s.chair.email);
+    await chair.goto("/boards");
+    await chair.getByRole("link", { name: s.board.name }).click();
+    await chair.getByRole("link", { name: "Overview, reviews and decisions" }).first().click();
+    await chair.getByRole("heading", { name: "Review overview" }).waitFor();
+    await chair.screenshot({ path: "/tmp/round/overview.png", fullPage: true });
+    await chair.getByRole("link", { name: `Decision on ${s.proposal.title}` }).click();
+    await chair.getByRole("heading", { name: s.proposal.title }).waitFor();
+    await chair.locator("details summary").first().click();
+    await chair.getByRole("radio", { name: /Revise and resubmit/ }).check();
+    await chair.getByRole("textbox", { name: "Letter text" }).waitFor();
+    await chair.getByRole("button", { name: "Send the decision…" }).click();
+    await chair.getByRole("button", { name: "Confirm and send the decision" }).waitFor();
+    await chair.screenshot({ path: "/tmp/round/decision.png", fullPage: true });
+    await chair.getByRole("button", { name: "Confirm and send the decision" }).click();
+    await chair.getByRole("heading", { name: "Decision issued" }).waitFor({ timeout: 60_000 });
+    await chair.screenshot({ path: "/tmp/round/decided.png", fullPage: true });
+    const rev = await as(s.reviewer2.email);
+    await rev.goto("/boards");
+    await rev.getByRole("link", { name: s.board.name }).click();
+    await rev.screenshot({ path: "/tmp/round/board-reviewer2.png", fullPage: true });
+    await rev.getByRole("link", { name: /My reviews/ }).click();
+    await rev.getByRole("heading", { name: "My reviews" }).waitFor();
+    await rev.screenshot({ path: "/tmp/round/queue.png", fullPage: true });
+    await rev.getByRole("link", { name: s.proposal.title }).click();
+    await rev.getByTestId("review-closed").waitFor();
+    await rev.screenshot({ path: "/tmp/round/closed.png" });
+    void createDecision; void DEFAULT_LETTER_TEMPLATE; void asSessionUser;
+  });
+});
