@@ -19,7 +19,7 @@ describe("review API over HTTP", () => {
     await appUrl();
   });
 
-  it("a decided version's review is closed: GET says so and PUT, submit and check notes get a 409 saying why", async () => {
+  it("a decided version's review is closed: GET says so and PUT and submit get a 409 saying why", async () => {
     const s = await decisionScenario({ submitted: 1, required: 1 });
     await createDecision(asSessionUser(s.chair), s.board.id, s.proposal.id, { outcome: "accept", letter: DEFAULT_LETTER_TEMPLATE, selectedReviewItemIds: [] });
     const reviewer = await signedIn(s.reviewer2.email);
