@@ -17,7 +17,7 @@ interface Crawl {
 async function visibleLinks(page: Page, scope: string): Promise<string[]> {
   const hrefs = await page.evaluate(() =>
     [...document.querySelectorAll<HTMLAnchorElement>("main a[href], header a[href]")]
-      .filter((a) => a.getClientRects().length > 0 && !a.hasAttribute("download"))
+      .filter((a) => a.getClientRects().length > 0 && !a.hasAttribute("download") && !a.target)
       .map((a) => a.getAttribute("href") ?? ""),
   );
   const out = new Set<string>();
