@@ -332,7 +332,7 @@ export function DossierWorkspace(props: DossierWorkspaceProps) {
                   {submitError.problems.map((p, i) => (
                     <li key={i}>
                       {p.blockId ? (
-                        <a href={`#orbit-check-${p.blockId}`} className="underline">
+                        <a href={`#orbit-check-${p.blockId}`} className="underline" onClick={(e) => focusBlock(e, p.blockId!)}>
                           {p.message}
                         </a>
                       ) : (
@@ -378,6 +378,19 @@ export function DossierWorkspace(props: DossierWorkspaceProps) {
       </div>
     </div>
   );
+}
+
+/** A "Fix …" link moves focus into the block it names (its first field), not only the scroll position. */
+function focusBlock(e: React.MouseEvent<HTMLAnchorElement>, blockId: string) {
+  const block = document.getElementById(`orbit-check-${blockId}`);
+  if (!block) return;
+  e.preventDefault();
+  const field = block.querySelector<HTMLElement>("input:not([disabled]), select:not([disabled]), textarea:not([disabled]), button:not([disabled])");
+  const target = field ?? block;
+  if (!field && !block.hasAttribute("tabindex")) block.setAttribute("tabindex", "-1");
+  block.scrollIntoView({ block: "center" });
+  target.focus({ preventScroll: true });
+  history.replaceState(null, "", `#orbit-check-${blockId}`);
 }
 
 function SaveStatus({ state, onSaveNow, onReapply }: { state: SaveState; onSaveNow: () => void; onReapply: () => void }) {

@@ -15,7 +15,7 @@ export async function BoardReviewSection({ user, board, calls }: { user: Session
   const isReviewer = board.myRole === "reviewer";
   if (!isChair && !isReviewer) return null;
   const queue = isReviewer ? await listReviewQueue(user, board.id) : [];
-  const open = queue.filter((q) => q.status !== "submitted" && !q.conflicted).length;
+  const open = queue.filter((q) => q.status !== "submitted" && !q.conflicted && !q.decidedAt).length;
   return (
     <Panel
       id="reviews"
@@ -59,7 +59,7 @@ export async function BoardReviewSection({ user, board, calls }: { user: Session
                     Assign reviewers
                   </Link>
                   <Link href={`/boards/${board.id}/calls/${call.id}/overview`} className={linkClass}>
-                    Overview
+                    Overview, reviews and decisions
                   </Link>
                 </span>
               </li>

@@ -1,6 +1,7 @@
 "use client";
 // The chair's overview of a call: sortable, filterable, with a score-distribution chart per
 // proposal and a CSV export (the server builds the file).
+import Link from "next/link";
 import { useMemo, useState } from "react";
 import { createColumnHelper, getCoreRowModel, getFilteredRowModel, getSortedRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
 import { TableView } from "@/components/data-table/table-view";
@@ -24,10 +25,29 @@ export function OverviewTable({ boardId, overview }: { boardId: string; overview
       column.accessor("title", {
         header: "Proposal",
         cell: (info) => (
-          <a href={`/boards/${boardId}/proposals/${info.row.original.proposalId}/review`} className="font-semibold text-trajectory-700 hover:underline">
-            {info.getValue()}
-            <span className="ml-1 text-xs font-normal text-ink-500">v{info.row.original.versionNumber}</span>
-          </a>
+          <div>
+            {/* The chair's view of the proposal; its reviews and the decision are one click on. */}
+            <Link href={`/boards/${boardId}/proposals/${info.row.original.proposalId}`} className="font-semibold text-trajectory-700 hover:underline">
+              {info.getValue()}
+              <span className="ml-1 text-xs font-normal text-ink-500">v{info.row.original.versionNumber}</span>
+            </Link>
+            <span className="mt-1 flex gap-3 text-xs">
+              <Link
+                href={`/boards/${boardId}/proposals/${info.row.original.proposalId}/review`}
+                aria-label={`Reviews of ${info.getValue()}`}
+                className="text-trajectory-700 underline"
+              >
+                Reviews
+              </Link>
+              <Link
+                href={`/boards/${boardId}/proposals/${info.row.original.proposalId}/decision`}
+                aria-label={`Decision on ${info.getValue()}`}
+                className="text-trajectory-700 underline"
+              >
+                Decision
+              </Link>
+            </span>
+          </div>
         ),
       }),
       column.accessor("weightedMean", {
@@ -61,8 +81,9 @@ export function OverviewTable({ boardId, overview }: { boardId: string; overview
           const o = info.row.original.openItems;
           return (
             <span className="text-xs">
-              <span className="font-semibold text-void-700">{o.major} major</span> · <span className="text-drift-700">{o.minor} minor</span> · {o.comment}{" "}
-              comment
+              <span className={o.major > 0 ? "font-semibold text-void-700" : "text-ink-600"}>{o.major} major</span> ·{" "}
+              <span className={o.minor > 0 ? "text-drift-700" : "text-ink-600"}>{o.minor} minor</span> ·{" "}
+              <span className="text-ink-600">{o.comment} comment</span>
             </span>
           );
         },
@@ -74,7 +95,8 @@ export function OverviewTable({ boardId, overview }: { boardId: string; overview
           const c = info.row.original.checks;
           return (
             <span className="text-xs">
-              <span className="text-drift-700">{c.inconsistent} inconsistent</span> · <span className="text-void-700">{c.invalid} invalid</span>
+              <span className={c.inconsistent > 0 ? "font-semibold text-drift-700" : "text-ink-600"}>{c.inconsistent} inconsistent</span> ·{" "}
+              <span className={c.invalid > 0 ? "font-semibold text-void-700" : "text-ink-600"}>{c.invalid} cannot be evaluated</span>
             </span>
           );
         },

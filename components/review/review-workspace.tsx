@@ -9,13 +9,14 @@ import { TableView } from "@/components/data-table/table-view";
 import { VerdictBadge } from "@/components/dossier/verdict-badge";
 import type { CheckRow, ReviewScreen, ReviewState } from "@/lib/dal/reviews";
 import type { ReviewItemView } from "@/lib/dal/review-items";
+import { changedKeys, keepBoth, mergeDrafts, type Draft, type Overlap } from "@/lib/review/draft-merge";
 import { anchorForTypedQuote, makeAnchor, resolveAnchor, type Anchor } from "@/lib/review/anchors";
 import { weightedTotal, type CriterionScore, type RubricCriterion } from "@/lib/review/rubric";
 import { callApi, formatScore } from "./api";
 import { domText, highlight, offsetOf } from "./dossier-text";
 import { ReviewItemsPanel } from "./review-items-panel";
 
-type SaveState = "idle" | "dirty" | "saving" | "saved" | "stale" | "locked" | "error";
+type SaveState = "idle" | "dirty" | "saving" | "saved" | "stale" | "locked" | "closed" | "error";
 
 interface Props {
   boardId: string;
@@ -32,6 +33,7 @@ const saveText: Record<SaveState, string> = {
   saved: "All changes saved",
   stale: "Not saved: changed elsewhere",
   locked: "Submitted and locked",
+  closed: "Closed: the proposal is decided",
   error: "Not saved",
 };
 
@@ -42,15 +44,30 @@ export function ReviewWorkspace({ boardId, screen, items: initialItems, canRaise
   const [scores, setScores] = useState<Record<string, CriterionScore>>(screen.review.scores);
   const [summary, setSummary] = useState(screen.review.summary);
   const [canEdit, setCanEdit] = useState(screen.canEdit);
-  const [saveState, setSaveState] = useState<SaveState>(screen.review.status === "submitted" ? "locked" : "idle");
+  const [saveState, setSaveState] = useState<SaveState>(screen.closedReason ? "closed" : screen.review.status === "submitted" ? "locked" : "idle");
+  const [closedReason, setClosedReason] = useState(screen.closedReason);
   const [message, setMessage] = useState<string | null>(null);
   const [problems, setProblems] = useState<string[]>([]);
-  const [stale, setStale] = useState<ReviewState | null>(null);
+  const [stale, setStale] = useState<{ server: ReviewState; base: Draft; overlaps: Overlap[] } | null>(null);
+  const [notice, setNotice] = useState<string | null>(null);
+  const [raised, setRaised] = useState<ReviewItemView | null>(null);
+
+  // After raising an item: bring it into view in the list and say so (the live region below).
+  useEffect(() => {
+    if (!raised) return;
+    const li = document.querySelector<HTMLElement>(`li[data-item="${CSS.escape(raised.id)}"]`);
+    if (!li) return;
+    li.scrollIntoView({ block: "center" });
+    if (!li.hasAttribute("tabindex")) li.setAttribute("tabindex", "-1");
+    li.focus({ preventScroll: true });
+  }, [raised]);
   const [items, setItems] = useState(initialItems);
   const [activeItem, setActiveItem] = useState<string | null>(null);
 
   const revision = useRef(screen.review.revision);
-  const latest = useRef({ scores, summary });
+  const latest = useRef<Draft>({ scores, summary });
+  // The saved state the edits on screen started from: the base of the three-way merge.
+  const baseline = useRef<Draft>({ scores: screen.review.scores, summary: screen.review.summary });
   const saving = useRef(false);
   const again = useRef(false);
   const timer = useRef<ReturnType<typeof setTimeout> | null>(null);
@@ -58,6 +75,12 @@ export function ReviewWorkspace({ boardId, screen, items: initialItems, canRaise
   useEffect(() => {
     latest.current = { scores, summary };
   }, [scores, summary]);
+
+  const show = useCallback((draft: Draft) => {
+    latest.current = draft;
+    setScores(draft.scores);
+    setSummary(draft.summary);
+  }, []);
 
   const save = useCallback(async (): Promise<boolean> => {
     if (saving.current) {
@@ -68,26 +91,58 @@ export function ReviewWorkspace({ boardId, screen, items: initialItems, canRaise
     saving.current = true;
     setSaveState("saving");
     try {
-      for (;;) {
+      for (let merges = 0; ;) {
         again.current = false;
-        const answer = await callApi<{ review: ReviewState }>(base, { method: "PUT", body: { revision: revision.current, ...latest.current } });
+        const sent = latest.current;
+        const answer = await callApi<{ review: ReviewState }>(base, { method: "PUT", body: { revision: revision.current, ...sent } });
         if (answer.ok) {
           revision.current = answer.data.review.revision;
+          baseline.current = { scores: answer.data.review.scores, summary: answer.data.review.summary };
           setReview(answer.data.review);
           setMessage(null);
           setProblems([]);
-          if (again.current) continue;
+          if (again.current || changedKeys(sent, latest.current).length > 0) continue;
           setSaveState("saved");
           return true;
         }
-        const details = answer.details as { review?: ReviewState; issues?: { message: string }[] } | undefined;
+        const details = answer.details as { review?: ReviewState; issues?: { message: string }[]; closed?: boolean } | undefined;
+        if (answer.status === 409 && details?.closed) {
+          // The version was decided meanwhile: the review is closed; what is on screen stays visible.
+          setCanEdit(false);
+          setClosedReason(answer.error);
+          setSaveState("closed");
+          return false;
+        }
         if (answer.status === 409 && details?.review?.status === "submitted") {
           setSaveState("locked");
           setCanEdit(false);
           setReview(details.review);
         } else if (answer.status === 409 && details?.review !== undefined) {
-          setStale(details.review);
+          // Saved elsewhere since this screen loaded (another tab, or a page restored by Back).
+          // Merge: one-sided changes are kept from both; only true overlaps ask the reviewer.
+          const server = details.review;
+          const base = baseline.current;
+          const { merged, overlaps } = mergeDrafts(base, latest.current, server);
+          revision.current = server.revision;
+          baseline.current = { scores: server.scores, summary: server.summary };
+          setReview(server);
+          if (overlaps.length === 0 && merges < 3) {
+            merges++;
+            show(merged);
+            setNotice("A newer save of this review was found; your changes were added to it.");
+            if (changedKeys(merged, baseline.current).length === 0) {
+              setSaveState("saved");
+              return true;
+            }
+            continue;
+          }
+          setStale({ server, base, overlaps });
           setSaveState("stale");
+          setMessage(
+            "This review was saved elsewhere (another tab or device) with different values in the fields listed below. Your text is still on screen and nothing has been overwritten; choose how to go on.",
+          );
+          setProblems([]);
+          return false;
         } else setSaveState("error");
         setMessage(answer.error);
         setProblems(details?.issues?.map((i) => i.message) ?? []);
@@ -96,7 +151,48 @@ export function ReviewWorkspace({ boardId, screen, items: initialItems, canRaise
     } finally {
       saving.current = false;
     }
-  }, [base]);
+  }, [base, show]);
+
+  // The page may be shown from a cache (Back/Forward, the router's cache or the browser's
+  // back-forward cache): ask the server for the saved review whenever the screen appears.
+  const refresh = useCallback(async () => {
+    const answer = await callApi<ReviewScreen>(base);
+    if (!answer.ok) return;
+    const server = answer.data.review;
+    if (answer.data.closedReason && !closedReason) {
+      setClosedReason(answer.data.closedReason);
+      setCanEdit(false);
+      setSaveState("closed");
+    }
+    if (server.revision === revision.current && server.status === review.status) return;
+    if (changedKeys(baseline.current, latest.current).length > 0 && answer.data.canEdit) {
+      // Unsaved edits on screen: the save merges them with the newer saved state.
+      void save();
+      return;
+    }
+    revision.current = server.revision;
+    baseline.current = { scores: server.scores, summary: server.summary };
+    show(baseline.current);
+    setReview(server);
+    setCanEdit(answer.data.canEdit);
+    setClosedReason(answer.data.closedReason);
+    setStale(null);
+    setMessage(null);
+    setSaveState(answer.data.closedReason ? "closed" : server.status === "submitted" ? "locked" : "saved");
+  }, [base, closedReason, review.status, save, show]);
+
+  const refreshRef = useRef(refresh);
+  useEffect(() => {
+    refreshRef.current = refresh;
+  }, [refresh]);
+  useEffect(() => {
+    void refreshRef.current();
+    const onShow = (e: PageTransitionEvent) => {
+      if (e.persisted) void refreshRef.current();
+    };
+    window.addEventListener("pageshow", onShow);
+    return () => window.removeEventListener("pageshow", onShow);
+  }, []);
 
   const schedule = useCallback(() => {
     setSaveState("dirty");
@@ -144,9 +240,15 @@ export function ReviewWorkspace({ boardId, screen, items: initialItems, canRaise
         activeItem={activeItem}
         onActivate={setActiveItem}
         canRaise={canRaise || canEdit}
-        onRaised={(item) => setItems((prev) => [...prev, item])}
+        onRaised={(item) => {
+          setItems((prev) => [...prev, item]);
+          setRaised(item);
+        }}
       />
       <div className="space-y-6">
+        <p role="status" aria-live="polite" className="sr-only" data-testid="raised-announcement">
+          {raised ? `Review item “${raised.title}” raised; it is listed under the review items.` : ""}
+        </p>
         <section aria-labelledby="rubric-heading" className="rounded-panel border border-ink-200 bg-white p-4 shadow-panel">
           <div className="mb-3 flex flex-wrap items-baseline justify-between gap-2">
             <h2 id="rubric-heading" className="text-lg font-semibold">
@@ -157,6 +259,11 @@ export function ReviewWorkspace({ boardId, screen, items: initialItems, canRaise
               {review.updatedAt && saveState === "saved" ? ` · ${formatDateTime(review.updatedAt)}` : ""}
             </p>
           </div>
+          {closedReason ? (
+            <p data-testid="review-closed" className="mb-3 rounded-chip border border-ink-300 bg-ink-50 px-3 py-2 text-sm text-ink-800">
+              {closedReason}
+            </p>
+          ) : null}
           {!screen.rubric ? (
             <p className="text-ink-600">The chair has not set up the rubric for this call yet.</p>
           ) : (
@@ -198,34 +305,60 @@ export function ReviewWorkspace({ boardId, screen, items: initialItems, canRaise
               ) : null}
             </div>
           ) : null}
+          {notice && !message ? (
+            <p role="status" className="mt-3 rounded-chip border border-trajectory-400/60 bg-trajectory-100/40 px-3 py-2 text-sm">
+              {notice}
+            </p>
+          ) : null}
           {stale ? (
-            <div className="mt-3 flex flex-wrap gap-2">
-              <button
-                type="button"
-                className="rounded-chip bg-trajectory-600 px-3 py-1.5 text-sm font-semibold text-white hover:bg-trajectory-700"
-                onClick={() => {
-                  revision.current = stale.revision;
-                  setStale(null);
-                  void save();
-                }}
-              >
-                Keep what I typed and save it
-              </button>
-              <button
-                type="button"
-                className="rounded-chip border border-ink-300 px-3 py-1.5 text-sm font-semibold hover:border-trajectory-500"
-                onClick={() => {
-                  revision.current = stale.revision;
-                  setScores(stale.scores);
-                  setSummary(stale.summary);
-                  setReview(stale);
-                  setStale(null);
-                  setMessage(null);
-                  setSaveState("saved");
-                }}
-              >
-                Load the saved version
-              </button>
+            <div data-testid="save-conflict" className="mt-3 space-y-2">
+              <ul className="space-y-2 text-sm">
+                {stale.overlaps.map((o) => (
+                  <li key={o.key} className="rounded-chip border border-ink-200 p-2">
+                    <p className="font-semibold">{fieldLabel(o.key, criteria)}</p>
+                    <p>
+                      Saved: <span className="whitespace-pre-wrap">{o.theirs === null || o.theirs === "" ? "(empty)" : String(o.theirs)}</span>
+                    </p>
+                    <p>
+                      Yours: <span className="whitespace-pre-wrap">{o.mine === null || o.mine === "" ? "(empty)" : String(o.mine)}</span>
+                    </p>
+                  </li>
+                ))}
+              </ul>
+              <div className="flex flex-wrap gap-2">
+                <button
+                  type="button"
+                  className="rounded-chip bg-trajectory-600 px-3 py-1.5 text-sm font-semibold text-white hover:bg-trajectory-700"
+                  onClick={() => {
+                    const serverDraft = { scores: stale.server.scores, summary: stale.server.summary };
+                    const { merged, overlaps } = mergeDrafts(stale.base, latest.current, serverDraft);
+                    show(keepBoth(merged, overlaps));
+                    setStale(null);
+                    setMessage(null);
+                    setNotice("Kept both: your text first, then the saved text under “— saved elsewhere —”; your scores are used. Edit as you like.");
+                    void save();
+                  }}
+                >
+                  Keep both texts and save
+                </button>
+                <button
+                  type="button"
+                  className="rounded-chip border border-ink-300 px-3 py-1.5 text-sm font-semibold hover:border-trajectory-500"
+                  onClick={() => {
+                    const serverDraft = { scores: stale.server.scores, summary: stale.server.summary };
+                    const { merged } = mergeDrafts(stale.base, latest.current, serverDraft);
+                    show(merged);
+                    setStale(null);
+                    setMessage(null);
+                    setNotice(null);
+                    const pending = changedKeys(merged, baseline.current).length > 0;
+                    setSaveState(pending ? "dirty" : "saved");
+                    if (pending) void save();
+                  }}
+                >
+                  Use the saved text
+                </button>
+              </div>
             </div>
           ) : null}
           <div className="mt-4 flex flex-wrap items-center gap-3">
@@ -258,105 +391,119 @@ export function ReviewWorkspace({ boardId, screen, items: initialItems, canRaise
   );
 }
 
+function fieldLabel(key: string, criteria: RubricCriterion[]): string {
+  if (key === "summary") return "Summary for the chair";
+  const id = key.slice(key.indexOf(":") + 1);
+  const title = criteria.find((c) => c.id === id)?.title ?? id;
+  return key.startsWith("score:") ? `Score for ${title}` : `Comment on ${title}`;
+}
+
 const column = createColumnHelper<RubricCriterion>();
 
-function RubricTable({
-  criteria,
-  scores,
-  editable,
-  onChange,
-}: {
-  criteria: RubricCriterion[];
+/** What the rubric cells read on each render: the table's meta, so the columns stay the same objects. */
+interface RubricMeta {
   scores: Record<string, CriterionScore>;
   editable: boolean;
   onChange: (id: string, patch: Partial<CriterionScore>) => void;
-}) {
-  const columns = [
-    column.display({
-      id: "criterion",
-      header: "Criterion",
-      cell: ({ row }) => (
-        <div>
-          <p className="font-semibold">{row.original.title}</p>
-          <p className="text-xs text-ink-500">Weight {row.original.weight} %</p>
-          {row.original.description ? <p className="mt-1 text-xs text-ink-600">{row.original.description}</p> : null}
-        </div>
-      ),
-    }),
-    column.display({
-      id: "score",
-      header: "Score",
-      cell: ({ row }) => {
-        const c = row.original;
-        const current = scores[c.id]?.score ?? null;
-        const levels = Array.from({ length: c.scaleMax - c.scaleMin + 1 }, (_, i) => c.scaleMin + i);
-        return (
-          <fieldset>
-            <legend className="sr-only">Score for {c.title}</legend>
-            <div className={`flex gap-1 ${levels.length > 6 ? "flex-wrap" : "flex-nowrap"}`}>
-              {levels.map((level) => (
-                <label
-                  key={level}
-                  title={c.levels[level - c.scaleMin]}
-                  className={`cursor-pointer rounded-chip border px-2 py-1 font-mono text-sm has-[:checked]:border-trajectory-600 has-[:checked]:bg-trajectory-100 has-[:focus-visible]:outline-2 ${editable ? "" : "cursor-default opacity-80"}`}
-                >
-                  <input
-                    type="radio"
-                    className="sr-only"
-                    name={`score-${c.id}`}
-                    value={level}
-                    checked={current === level}
-                    disabled={!editable}
-                    aria-label={`${c.title}: ${level} – ${c.levels[level - c.scaleMin] ?? ""}`}
-                    onChange={() => onChange(c.id, { score: level })}
-                  />
-                  {level}
-                </label>
-              ))}
-            </div>
-            <p className="mt-1 text-xs text-ink-600">{current !== null ? c.levels[current - c.scaleMin] : "Not scored"}</p>
-          </fieldset>
-        );
-      },
-    }),
-    column.display({
-      id: "comment",
-      header: "Comment",
-      cell: ({ row }) => {
-        const c = row.original;
-        const entry = scores[c.id];
-        const required = c.commentRequiredBelow !== null && entry?.score !== null && entry?.score !== undefined && entry.score < c.commentRequiredBelow;
-        const missing = required && !(entry?.comment ?? "").trim();
-        return (
-          <div>
-            <textarea
-              aria-label={`Comment on ${c.title}`}
-              aria-invalid={missing || undefined}
-              value={entry?.comment ?? ""}
-              disabled={!editable}
-              rows={2}
-              maxLength={8000}
-              onChange={(e) => onChange(c.id, { comment: e.target.value })}
-              className="block w-full min-w-40 rounded-chip border border-ink-300 px-2 py-1 text-sm aria-[invalid=true]:border-void-500 disabled:bg-ink-50"
-            />
-            {c.commentRequiredBelow !== null ? (
-              <p className={`text-xs ${missing ? "text-void-700" : "text-ink-500"}`}>Required below {c.commentRequiredBelow}</p>
-            ) : null}
+}
+const rubricMeta = (meta: unknown) => meta as RubricMeta;
+
+// The columns are defined once, outside any component. TanStack's flexRender renders a cell
+// function as a React component, so a column list rebuilt on every render gave each cell a
+// new component type: React unmounted and remounted the comment box and the score buttons
+// after every keystroke or arrow key, which kept one character and dropped focus.
+const rubricColumns = [
+  column.display({
+    id: "criterion",
+    header: "Criterion",
+    cell: ({ row }) => (
+      <div>
+        <p className="font-semibold">{row.original.title}</p>
+        <p className="text-xs text-ink-500">Weight {row.original.weight} %</p>
+        {row.original.description ? <p className="mt-1 text-xs text-ink-600">{row.original.description}</p> : null}
+      </div>
+    ),
+  }),
+  column.display({
+    id: "score",
+    header: "Score",
+    cell: ({ row, table }) => {
+      const { scores, editable, onChange } = rubricMeta(table.options.meta);
+      const c = row.original;
+      const current = scores[c.id]?.score ?? null;
+      const levels = Array.from({ length: c.scaleMax - c.scaleMin + 1 }, (_, i) => c.scaleMin + i);
+      return (
+        <fieldset>
+          <legend className="sr-only">Score for {c.title}</legend>
+          <div className={`flex gap-1 ${levels.length > 6 ? "flex-wrap" : "flex-nowrap"}`}>
+            {levels.map((level) => (
+              <label
+                key={level}
+                title={c.levels[level - c.scaleMin]}
+                data-selected={current === level || undefined}
+                className={`cursor-pointer rounded-chip border px-2 py-1 font-mono text-sm has-[:checked]:border-2 has-[:checked]:border-trajectory-700 has-[:checked]:bg-trajectory-100 has-[:checked]:font-bold has-[:checked]:before:mr-0.5 has-[:checked]:before:content-['✓'] has-[:focus-visible]:outline-2 has-[:focus-visible]:outline-offset-2 has-[:focus-visible]:outline-trajectory-600 ${editable ? "" : "cursor-default opacity-80"}`}
+              >
+                <input
+                  type="radio"
+                  className="sr-only"
+                  name={`score-${c.id}`}
+                  value={level}
+                  checked={current === level}
+                  disabled={!editable}
+                  aria-label={`${c.title}: ${level} – ${c.levels[level - c.scaleMin] ?? ""}`}
+                  onChange={() => onChange(c.id, { score: level })}
+                />
+                {level}
+              </label>
+            ))}
           </div>
-        );
-      },
-    }),
-    column.display({
-      id: "points",
-      header: () => <span title="weight × score / 100">Points</span>,
-      cell: ({ row }) => {
-        const s = scores[row.original.id]?.score;
-        return <span className="font-mono">{s === null || s === undefined ? "–" : ((row.original.weight * s) / 100).toFixed(2)}</span>;
-      },
-    }),
-  ];
+          <p className="mt-1 text-xs text-ink-600">{current !== null ? `Selected ${current}: ${c.levels[current - c.scaleMin] ?? ""}` : "Not scored"}</p>
+        </fieldset>
+      );
+    },
+  }),
+  column.display({
+    id: "comment",
+    header: "Comment",
+    cell: ({ row, table }) => {
+      const { scores, editable, onChange } = rubricMeta(table.options.meta);
+      const c = row.original;
+      const entry = scores[c.id];
+      const required = c.commentRequiredBelow !== null && entry?.score !== null && entry?.score !== undefined && entry.score < c.commentRequiredBelow;
+      const missing = required && !(entry?.comment ?? "").trim();
+      return (
+        <div>
+          <textarea
+            aria-label={`Comment on ${c.title}`}
+            aria-invalid={missing || undefined}
+            value={entry?.comment ?? ""}
+            disabled={!editable}
+            rows={2}
+            maxLength={8000}
+            onChange={(e) => onChange(c.id, { comment: e.target.value })}
+            className="block w-full min-w-40 rounded-chip border border-ink-300 px-2 py-1 text-sm aria-[invalid=true]:border-void-500 disabled:bg-ink-50"
+          />
+          {c.commentRequiredBelow !== null ? (
+            <p className={`text-xs ${missing ? "text-void-700" : "text-ink-500"}`}>Required below {c.commentRequiredBelow}</p>
+          ) : null}
+        </div>
+      );
+    },
+  }),
+  column.display({
+    id: "points",
+    header: () => <span title="weight × score / 100">Points</span>,
+    cell: ({ row, table }) => {
+      const s = rubricMeta(table.options.meta).scores[row.original.id]?.score;
+      return <span className="font-mono">{s === null || s === undefined ? "–" : ((row.original.weight * s) / 100).toFixed(2)}</span>;
+    },
+  }),
+];
+
+function RubricTable({ criteria, scores, editable, onChange }: RubricMeta & { criteria: RubricCriterion[] }) {
+  const meta: RubricMeta = { scores, editable, onChange };
   // eslint-disable-next-line react-hooks/incompatible-library
-  const table = useReactTable({ data: criteria, columns, getRowId: (c) => c.id, getCoreRowModel: getCoreRowModel() });
+  const table = useReactTable({ data: criteria, columns: rubricColumns, meta, getRowId: (c) => c.id, getCoreRowModel: getCoreRowModel() });
   return (
     <div className="overflow-x-auto">
       <TableView table={table} caption="Rubric criteria with your scores and comments" dense rowData={(row) => ({ "data-criterion": row.id })} />
@@ -495,7 +642,10 @@ function DossierPane({
   onRaised: (item: ReviewItemView) => void;
 }) {
   const ref = useRef<HTMLDivElement>(null);
+  const pane = useRef<HTMLElement>(null);
   const [selection, setSelection] = useState<{ anchor: Anchor | null; quote: string } | null>(null);
+  // Where the selection ends, from the top of the pane: the raise-item form opens there.
+  const [selectionTop, setSelectionTop] = useState<number | null>(null);
   const [unplaced, setUnplaced] = useState<string[]>([]);
 
   // Re-render the dossier and its highlights whenever the items change.
@@ -524,13 +674,16 @@ function DossierPane({
       // Map the browser's selection onto the server's text by quote and context.
       const resolved = resolveAnchor(serverText, dom);
       setSelection({ anchor: resolved ? makeAnchor(serverText, resolved.from, resolved.to) : null, quote: dom.quote });
+      const paneBox = pane.current?.getBoundingClientRect();
+      const rangeBox = range.getBoundingClientRect();
+      setSelectionTop(paneBox ? rangeBox.bottom - paneBox.top + 8 : null);
     };
     document.addEventListener("selectionchange", onChange);
     return () => document.removeEventListener("selectionchange", onChange);
   }, [serverText]);
 
   return (
-    <section aria-labelledby="dossier-heading" className="min-w-0">
+    <section ref={pane} aria-labelledby="dossier-heading" className="relative min-w-0">
       <h2 id="dossier-heading" className="sr-only">
         Dossier
       </h2>
@@ -553,10 +706,18 @@ function DossierPane({
           proposalId={proposalId}
           selection={selection}
           serverText={serverText}
+          // Beside the selected words when there is a selection; at the foot of the dossier otherwise.
+          top={selection && selectionTop !== null ? selectionTop : null}
           onTyped={setSelection}
+          onClose={() => {
+            setSelection(null);
+            setSelectionTop(null);
+            window.getSelection()?.removeAllRanges();
+          }}
           onRaised={(item) => {
             onRaised(item);
             setSelection(null);
+            setSelectionTop(null);
             window.getSelection()?.removeAllRanges();
           }}
         />
@@ -570,14 +731,19 @@ function RaiseItemForm({
   proposalId,
   selection,
   serverText,
+  top,
   onTyped,
+  onClose,
   onRaised,
 }: {
   boardId: string;
   proposalId: string;
   selection: { anchor: Anchor | null; quote: string } | null;
   serverText: string;
+  /** Offset from the top of the dossier pane to open the form at (beside a selection), or null. */
+  top: number | null;
   onTyped: (selection: { anchor: Anchor | null; quote: string } | null) => void;
+  onClose: () => void;
   onRaised: (item: ReviewItemView) => void;
 }) {
   const [severity, setSeverity] = useState<"major" | "minor" | "comment">("minor");
@@ -590,8 +756,10 @@ function RaiseItemForm({
   return (
     <form
       data-review-ui=""
+      data-placement={top !== null ? "beside-selection" : "foot"}
       aria-labelledby="raise-heading"
-      className="mt-4 space-y-2 rounded-panel border border-trajectory-400/60 bg-trajectory-100/40 p-4"
+      style={top !== null ? { top } : undefined}
+      className={`space-y-2 rounded-panel border border-trajectory-400/60 p-4 ${top !== null ? "absolute right-2 left-8 z-20 bg-white shadow-panel ring-2 ring-trajectory-400/40" : "mt-4 bg-trajectory-100/40"}`}
       onSubmit={async (e) => {
         e.preventDefault();
         if (!selection?.anchor) return;
@@ -611,9 +779,16 @@ function RaiseItemForm({
         } else setError(answer.error);
       }}
     >
-      <h3 id="raise-heading" className="font-semibold">
-        Raise a review item
-      </h3>
+      <div className="flex items-baseline justify-between gap-2">
+        <h3 id="raise-heading" className="font-semibold">
+          Raise a review item
+        </h3>
+        {top !== null ? (
+          <button type="button" onClick={onClose} className="text-sm text-trajectory-700 underline">
+            Close
+          </button>
+        ) : null}
+      </div>
       {selection ? (
         <p className="text-sm">
           On:{" "}

@@ -22,6 +22,7 @@ import { authorize, can } from "@/lib/auth/policy";
 import type { SessionUser } from "@/lib/auth/session";
 import { compareClaims, diffText, type ClaimComparison, type TextDiff, type VersionCheck } from "@/lib/decisions/compare";
 import { letterBlocks, letterIsEmpty, renderLetterHtml, renderLetterText, type LetterBlock } from "@/lib/decisions/letter";
+import { countClaims, type ClaimCounts } from "@/lib/decisions/claim-counts";
 import { applyMergeFields, MERGE_FIELDS, unknownMergeFields, type MergeFieldInfo } from "@/lib/decisions/merge-fields";
 import { DEFAULT_LETTER_TEMPLATE, mergeValues, OUTCOME_LABELS, reviewItemLine } from "@/lib/decisions/template";
 import { dossierPlainText } from "@/lib/dossier";
@@ -37,6 +38,7 @@ import { recordAudit } from "./audit";
 import { isUuid } from "./boards";
 import { startRevisionDraft } from "./proposals";
 import { reviewAggregate } from "./reviews";
+import { loadTemplate } from "./rubrics";
 
 type Db = Database | Transaction;
 
@@ -63,7 +65,7 @@ export interface DecisionView {
   decidedByName: string | null;
   hasPdf: boolean;
   /** The letter e-mail's state in the outbox (null for readers who may not see it). */
-  mail: { status: string; attempts: number; lastError: string | null } | null;
+  mail: { status: string; attempts: number; lastError: string | null; nextAttemptAt: string | null; sentAt: string | null } | null;
 }
 
 export function letterObjectKey(boardId: string, proposalId: string, decisionId: string): string {
@@ -148,7 +150,8 @@ export interface WorkspaceReview {
   weightedTotal: number | null;
   summary: string;
   submittedAt: string | null;
-  scores: { criterion: string; score: number | null; comment: string }[];
+  /** In the rubric's order; `title` is the criterion's name (the id only when the rubric is gone). */
+  scores: { criterion: string; title: string; score: number | null; comment: string }[];
 }
 
 export interface WorkspaceItem {
@@ -184,6 +187,8 @@ export interface DecisionWorkspace {
   reviews: WorkspaceReview[];
   reviewItems: WorkspaceItem[];
   checks: WorkspaceCheck[];
+  /** Claimed values (not blocks) across the version's orbit checks, and how many are flagged. */
+  claimCounts: ClaimCounts;
   /** The decision on the version under decision, once issued. */
   decision: DecisionView | null;
   /** Decisions on earlier versions, newest first. */
@@ -216,10 +221,17 @@ async function decisionViews(boardId: string, proposalId: string, withMail: bool
     .leftJoin(users, eq(users.id, decisions.decidedBy))
     .where(and(eq(decisions.boardId, boardId), eq(decisions.proposalId, proposalId)))
     .orderBy(desc(proposalVersions.number));
-  const mail = new Map<string, { status: string; attempts: number; lastError: string | null }>();
+  const mail = new Map<string, NonNullable<DecisionView["mail"]>>();
   if (withMail && rows.length) {
     const found = await tx
-      .select({ dedupeKey: outboxMessages.dedupeKey, status: outboxMessages.status, attempts: outboxMessages.attempts, lastError: outboxMessages.lastError })
+      .select({
+        dedupeKey: outboxMessages.dedupeKey,
+        status: outboxMessages.status,
+        attempts: outboxMessages.attempts,
+        lastError: outboxMessages.lastError,
+        nextAttemptAt: outboxMessages.nextAttemptAt,
+        sentAt: outboxMessages.sentAt,
+      })
       .from(outboxMessages)
       .where(
         inArray(
@@ -227,7 +239,14 @@ async function decisionViews(boardId: string, proposalId: string, withMail: bool
           rows.map((r) => `decision:${r.id}`),
         ),
       );
-    for (const m of found) mail.set(m.dedupeKey, { status: m.status, attempts: m.attempts, lastError: m.lastError });
+    for (const m of found)
+      mail.set(m.dedupeKey, {
+        status: m.status,
+        attempts: m.attempts,
+        lastError: m.lastError,
+        nextAttemptAt: m.nextAttemptAt.toISOString(),
+        sentAt: m.sentAt?.toISOString() ?? null,
+      });
   }
   return rows.map(({ pdfKey, decidedAt, ...r }) => ({
     ...r,
@@ -258,6 +277,7 @@ export async function getDecisionWorkspace(user: SessionUser, boardId: string, p
   let reviewList: WorkspaceReview[] = [];
   let items: WorkspaceItem[] = [];
   let checks: WorkspaceCheck[] = [];
+  let claimCounts: ClaimCounts = countClaims([]);
   let aggregate: DecisionWorkspace["aggregate"] = { weightedMean: null, spread: null, count: 0, assigned: 0, totals: [], scale: null };
   if (version) {
     const agg = await reviewAggregate(boardId, proposalId, version.id, tx);
@@ -271,12 +291,26 @@ export async function getDecisionWorkspace(user: SessionUser, boardId: string, p
         summary: reviews.summary,
         submittedAt: reviews.submittedAt,
         scores: reviews.scores,
+        rubricTemplateId: reviews.rubricTemplateId,
       })
       .from(assignments)
       .innerJoin(users, eq(users.id, assignments.reviewerId))
       .leftJoin(reviews, eq(reviews.assignmentId, assignments.id))
       .where(and(eq(assignments.boardId, boardId), eq(assignments.versionId, version.id)))
       .orderBy(asc(assignments.createdAt));
+    const rubrics = new Map<string, { id: string; title: string }[]>();
+    for (const id of new Set(rows.map((r) => r.rubricTemplateId).filter((t): t is string => Boolean(t))))
+      rubrics.set(id, (await loadTemplate(boardId, id, tx))?.criteria.map((c) => ({ id: c.id, title: c.title })) ?? []);
+    const namedScores = (templateId: string | null, scores: Record<string, { score: number | null; comment: string }>) => {
+      const criteria = (templateId ? rubrics.get(templateId) : undefined) ?? [];
+      const order = (id: string) => {
+        const at = criteria.findIndex((c) => c.id === id);
+        return at < 0 ? criteria.length : at;
+      };
+      return Object.entries(scores)
+        .map(([criterion, s]) => ({ criterion, title: criteria.find((c) => c.id === criterion)?.title ?? criterion, score: s.score, comment: s.comment }))
+        .sort((a, b) => order(a.criterion) - order(b.criterion));
+    };
     reviewList = rows.map((r) => ({
       assignmentId: r.assignmentId,
       reviewerName: r.reviewerName,
@@ -284,7 +318,7 @@ export async function getDecisionWorkspace(user: SessionUser, boardId: string, p
       weightedTotal: r.status === "submitted" ? r.weightedTotal : null,
       summary: r.status === "submitted" ? (r.summary ?? "") : "",
       submittedAt: r.submittedAt?.toISOString() ?? null,
-      scores: r.status === "submitted" ? Object.entries(r.scores ?? {}).map(([criterion, s]) => ({ criterion, score: s.score, comment: s.comment })) : [],
+      scores: r.status === "submitted" ? namedScores(r.rubricTemplateId, r.scores ?? {}) : [],
     }));
     items = (
       await tx
@@ -301,13 +335,26 @@ export async function getDecisionWorkspace(user: SessionUser, boardId: string, p
         .where(and(eq(reviewItems.boardId, boardId), eq(reviewItems.versionId, version.id)))
         .orderBy(asc(reviewItems.createdAt))
     ).map((i) => ({ ...i }));
-    checks = (
-      await tx
-        .select({ blockId: checkResults.blockId, label: checkResults.label, kind: checkResults.kind, status: checkResults.status, result: checkResults.result })
-        .from(checkResults)
-        .where(and(eq(checkResults.boardId, boardId), eq(checkResults.versionId, version.id)))
-        .orderBy(asc(checkResults.createdAt))
-    ).map(({ result, ...c }) => ({ ...c, messages: Array.isArray(result.messages) ? (result.messages as unknown[]).map(String) : [] }));
+    const checkRows = await tx
+      .select({
+        blockId: checkResults.blockId,
+        label: checkResults.label,
+        kind: checkResults.kind,
+        status: checkResults.status,
+        claim: checkResults.claim,
+        result: checkResults.result,
+      })
+      .from(checkResults)
+      .where(and(eq(checkResults.boardId, boardId), eq(checkResults.versionId, version.id)))
+      .orderBy(asc(checkResults.createdAt));
+    claimCounts = countClaims(checkRows);
+    checks = checkRows.map((c) => ({
+      blockId: c.blockId,
+      label: c.label,
+      kind: c.kind,
+      status: c.status,
+      messages: Array.isArray(c.result.messages) ? (c.result.messages as unknown[]).map(String) : [],
+    }));
   }
 
   let blocked: string | null = null;
@@ -331,6 +378,7 @@ export async function getDecisionWorkspace(user: SessionUser, boardId: string, p
     reviews: reviewList,
     reviewItems: items,
     checks,
+    claimCounts,
     decision,
     earlier: all.filter((d) => d !== decision),
     template: ctx.board.letterTemplate ?? DEFAULT_LETTER_TEMPLATE,
@@ -393,7 +441,12 @@ async function composeLetter(
     .select({ n: sql<number>`count(*)::int` })
     .from(reviewItems)
     .where(and(eq(reviewItems.versionId, ctx.version.id), eq(reviewItems.status, "open")));
-  const checks = await tx.select({ status: checkResults.status }).from(checkResults).where(eq(checkResults.versionId, ctx.version.id));
+  const checks = countClaims(
+    await tx
+      .select({ status: checkResults.status, claim: checkResults.claim, result: checkResults.result })
+      .from(checkResults)
+      .where(eq(checkResults.versionId, ctx.version.id)),
+  );
   const reviewsSubmitted = await submittedReviewCount(ctx.version.id, tx);
   const values = mergeValues({
     proposalTitle: ctx.version.title || ctx.proposal.title,
@@ -411,8 +464,10 @@ async function composeLetter(
     reviewsRequired: ctx.call.reviewersPerProposal,
     selectedItems: selected.map(reviewItemLine),
     openItemCount: openItems?.n ?? 0,
-    checksTotal: checks.length,
-    checksFlagged: checks.filter((c) => c.status !== "consistent").length,
+    checksTotal: checks.claims,
+    checksFlagged: checks.flagged,
+    checksInconsistent: checks.inconsistent,
+    checksInvalid: checks.invalid,
     chairName: user.name,
   });
   const merged = applyMergeFields(blocks, values);

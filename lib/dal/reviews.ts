@@ -62,8 +62,10 @@ export interface ReviewScreen {
   rubric: RubricView | null;
   review: ReviewState;
   checks: CheckRow[];
-  /** The caller is the assigned reviewer and the review is not submitted. */
+  /** The caller is the assigned reviewer, the review is not submitted and its version is not decided. */
   canEdit: boolean;
+  /** Set once the reviewed version has a decision: the review is closed to further work. */
+  closedReason: string | null;
   canReopen: boolean;
 }
 
@@ -105,6 +107,21 @@ function toState(row: ReviewRow | undefined): ReviewState {
     updatedAt: row.updatedAt.toISOString(),
   };
 }
+
+const dayFormat = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeZone: "UTC" });
+
+/** The decision on a version, if there is one: a decided version's reviews are closed. */
+async function versionDecision(boardId: string, versionId: string, tx: Db): Promise<{ decidedAt: Date } | null> {
+  const [row] = await tx
+    .select({ decidedAt: decisions.decidedAt })
+    .from(decisions)
+    .where(and(eq(decisions.versionId, versionId), eq(decisions.boardId, boardId)))
+    .limit(1);
+  return row ?? null;
+}
+
+const closedText = (versionNumber: number | null, decidedAt: Date) =>
+  `The board decided on ${versionNumber ? `version ${versionNumber}` : "this version"} on ${dayFormat.format(decidedAt)} (UTC), so this review is closed: nothing more is needed from you and it can no longer be changed.`;
 
 async function loadAssignment(boardId: string, assignmentId: string, tx: Db) {
   if (!isUuid(boardId) || !isUuid(assignmentId)) return null;
@@ -194,6 +211,8 @@ export async function getReviewScreen(user: SessionUser, boardId: string, assign
     .where(eq(proposals.id, assignment.proposalId));
   const hideProposer = access.board.hideProposerNames && access.role !== "chair" && !user.isAdmin;
   const state = toState(review);
+  const decision = await versionDecision(boardId, version.id, db());
+  const closedReason = decision ? closedText(version.number, decision.decidedAt) : null;
   return {
     assignment: { id: assignment.id, dueAt: assignment.dueAt.toISOString(), reviewerId: assignment.reviewerId, reviewerName: assignment.reviewerName },
     proposal: {
@@ -207,8 +226,9 @@ export async function getReviewScreen(user: SessionUser, boardId: string, assign
     rubric,
     review: state,
     checks: checkRows,
-    canEdit: own && state.status !== "submitted" && can(user, "review.write", { ...access.facts, isAssigned: true }),
-    canReopen: state.status === "submitted" && can(user, "review.reopen", { role: access.role }),
+    canEdit: own && !closedReason && state.status !== "submitted" && can(user, "review.write", { ...access.facts, isAssigned: true }),
+    closedReason,
+    canReopen: state.status === "submitted" && !closedReason && can(user, "review.reopen", { role: access.role }),
   };
 }
 
@@ -227,6 +247,11 @@ async function writableReview(user: SessionUser, boardId: string, assignmentId: 
   authorize(user, "review.write", { ...access.facts, isAssigned: own });
   if (!own) throw notFound("That review");
   const [existing] = await tx.select(reviewColumns).from(reviews).where(eq(reviews.assignmentId, assignment.id));
+  const decision = await versionDecision(boardId, assignment.versionId, tx);
+  if (decision) {
+    const [version] = await tx.select({ number: proposalVersions.number }).from(proposalVersions).where(eq(proposalVersions.id, assignment.versionId));
+    throw conflict(closedText(version?.number ?? null, decision.decidedAt), { closed: true });
+  }
   if (existing?.status === "submitted")
     throw conflict("This review is submitted and locked. Ask the chair to reopen it to change it.", { review: toState(existing) });
   const current = existing?.revision ?? 0;
@@ -411,6 +436,8 @@ export interface QueueEntry {
   scored: number;
   criteria: number;
   conflicted: boolean;
+  /** When the reviewed version was decided (ISO), or null: a decided version asks for no more work. */
+  decidedAt: string | null;
 }
 
 /** The caller's assignments on a board, with due date and progress (criteria scored / total). */
@@ -430,12 +457,14 @@ export async function listReviewQueue(user: SessionUser, boardId: string): Promi
       scores: reviews.scores,
       reviewTemplate: reviews.rubricTemplateId,
       callTemplate: calls.rubricTemplateId,
+      decidedAt: decisions.decidedAt,
     })
     .from(assignments)
     .innerJoin(proposals, eq(proposals.id, assignments.proposalId))
     .innerJoin(calls, eq(calls.id, proposals.callId))
     .innerJoin(proposalVersions, eq(proposalVersions.id, assignments.versionId))
     .leftJoin(reviews, eq(reviews.assignmentId, assignments.id))
+    .leftJoin(decisions, and(eq(decisions.versionId, assignments.versionId), eq(decisions.boardId, assignments.boardId)))
     .where(and(eq(assignments.boardId, boardId), eq(assignments.reviewerId, user.id)))
     .orderBy(asc(assignments.dueAt));
   const templateIds = [...new Set(rows.map((r) => r.reviewTemplate ?? r.callTemplate).filter((t): t is string => Boolean(t)))];
@@ -453,11 +482,12 @@ export async function listReviewQueue(user: SessionUser, boardId: string): Promi
       callTitle: r.callTitle,
       versionNumber: r.versionNumber,
       dueAt: r.dueAt.toISOString(),
-      overdue: status !== "submitted" && r.dueAt.getTime() < now,
+      overdue: status !== "submitted" && !r.decidedAt && r.dueAt.getTime() < now,
       status,
       scored: weightedTotal(criteria, r.scores ?? {}).scored,
       criteria: criteria.length,
       conflicted: await isConflicted(boardId, user.id, r.proposalId),
+      decidedAt: r.decidedAt?.toISOString() ?? null,
     });
   }
   return out;

@@ -76,9 +76,50 @@ describe("merge fields", () => {
     expect(out).toContain("Dear Ada Okafor,");
     expect(out).toContain("version 3 of “Tern Cubesat”, submitted on 2 Apr 2031 (UTC) to Call 7.");
     expect(out).toContain("Outcome: accepted.");
-    expect(out).toContain("weighted totals is 3.14 (spread not available)");
+    expect(out).toContain("The panel returned 2 reviews; the mean of their weighted totals is 3.14.");
+    expect(out).toContain("The server recomputed all 5 orbit claims of this version and found them consistent.");
+    expect(out).toContain("The full reviews and review items are open to you on VisViva.");
     expect(out).toContain("- [minor] Units\n- [comment] Typo");
     expect(out).toContain("Ravi Lund\nChair, Harbour Board");
+  });
+
+  it("words a decision taken without reviews, and counts claims with their flags", () => {
+    const facts = {
+      proposalTitle: "Tern Cubesat",
+      missionType: "",
+      proposerName: "Ada Okafor",
+      boardName: "Harbour Board",
+      callTitle: "Call 7",
+      versionNumber: 1,
+      versionSubmittedAt: new Date("2031-04-02T10:00:00Z"),
+      outcome: "decline" as const,
+      decidedAt: new Date("2031-05-01T09:00:00Z"),
+      weightedMean: null,
+      spread: null,
+      reviewsSubmitted: 0,
+      reviewsRequired: 2,
+      selectedItems: [],
+      openItemCount: 0,
+      checksTotal: 3,
+      checksFlagged: 2,
+      checksInconsistent: 2,
+      checksInvalid: 0,
+      chairName: "Ravi Lund",
+    };
+    const out = renderLetterText(applyMergeFields(letterBlocks(DEFAULT_LETTER_TEMPLATE), mergeValues(facts)));
+    expect(out).toContain("The board took this decision without written reviews from the panel.");
+    expect(out).toContain("The server checked the 3 orbit claims of this version and flagged 2 as inconsistent.");
+    expect(out).toContain("No written reviews accompany this decision.");
+    expect(out).not.toContain("0 reviews");
+    expect(out).not.toContain("full reviews");
+    const mixed = renderLetterText(
+      applyMergeFields(
+        letterBlocks(DEFAULT_LETTER_TEMPLATE),
+        mergeValues({ ...facts, reviewsSubmitted: 1, weightedMean: 3.6, checksInvalid: 1, checksInconsistent: 1 }),
+      ),
+    );
+    expect(mixed).toContain("The panel returned one review; its weighted total is 3.60.");
+    expect(mixed).toContain("flagged 2: 1 inconsistent and 1 that could not be evaluated.");
   });
 
   it("writes a list field inline with semicolons, and 'none' when empty", () => {

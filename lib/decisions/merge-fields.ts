@@ -31,8 +31,11 @@ export const MERGE_FIELDS: readonly MergeFieldInfo[] = [
   { name: "reviews.required", description: "Number of reviews the call asks for" },
   { name: "reviewItems.selected", description: "The review items the chair ticked, one per line", list: true },
   { name: "reviewItems.openCount", description: "Number of review items still open on this version" },
-  { name: "checks.total", description: "Number of orbit claims the server recomputed" },
-  { name: "checks.flagged", description: "Number of those found inconsistent or invalid" },
+  { name: "checks.total", description: "Number of orbit claims (claimed values, not blocks) the server recomputed" },
+  { name: "checks.flagged", description: "Number of those claims found inconsistent or that could not be evaluated" },
+  { name: "reviews.summary", description: "A sentence on the submitted reviews, worded for none, one or several" },
+  { name: "checks.summary", description: "A sentence on the recomputed orbit claims and how many were flagged" },
+  { name: "reviews.whereToRead", description: "A sentence saying where the reviews and items can be read (only what exists)" },
   { name: "chair.name", description: "Name of the chair issuing the decision" },
 ];
 

@@ -32,12 +32,10 @@ export const DEFAULT_LETTER_TEMPLATE: Record<string, unknown> = {
         { type: "text", text: "." },
       ],
     },
-    p(
-      "The panel returned {{reviews.submitted}} reviews; the mean of their weighted totals is {{score.weighted}} (spread {{score.spread}}). The server recomputed {{checks.total}} orbit claims of this version and flagged {{checks.flagged}}.",
-    ),
+    p("{{reviews.summary}} {{checks.summary}}"),
     p("The board asks you to consider these review items:"),
     p("{{reviewItems.selected}}"),
-    p("The full reviews and review items are open to you on VisViva. A copy of this letter is attached as a PDF."),
+    p("{{reviews.whereToRead}} A copy of this letter is attached as a PDF."),
     {
       type: "paragraph",
       content: [
@@ -68,9 +66,47 @@ export interface MergeFacts {
   /** "[major] Title: body" lines of the items the chair selected. */
   selectedItems: string[];
   openItemCount: number;
+  /** Claimed values across the version's orbit-check blocks (not the number of blocks). */
   checksTotal: number;
+  /** Claims found inconsistent or that could not be evaluated. */
   checksFlagged: number;
+  checksInconsistent?: number;
+  checksInvalid?: number;
   chairName: string;
+}
+
+const count = (n: number, one: string, many: string) => `${n === 1 ? "one" : n} ${n === 1 ? one : many}`;
+
+/** One sentence on the reviews, worded for none, one and several. */
+export function reviewsSentence(f: Pick<MergeFacts, "reviewsSubmitted" | "weightedMean" | "spread">): string {
+  if (f.reviewsSubmitted === 0) return "The board took this decision without written reviews from the panel.";
+  if (f.reviewsSubmitted === 1) return `The panel returned one review; its weighted total is ${twoDecimals(f.weightedMean)}.`;
+  return `The panel returned ${f.reviewsSubmitted} reviews; the mean of their weighted totals is ${twoDecimals(f.weightedMean)}${f.spread === null ? "" : ` (spread ${twoDecimals(f.spread)})`}.`;
+}
+
+/** One sentence on the recomputed orbit claims, counting claims, not blocks. */
+export function checksSentence(f: Pick<MergeFacts, "checksTotal" | "checksFlagged" | "checksInconsistent" | "checksInvalid">): string {
+  if (f.checksTotal === 0) return "This version states no orbit claims for the server to recompute.";
+  if (f.checksFlagged === 0)
+    return f.checksTotal === 1
+      ? "The server recomputed the one orbit claim of this version and found it consistent."
+      : `The server recomputed all ${f.checksTotal} orbit claims of this version and found them consistent.`;
+  const inconsistent = f.checksInconsistent ?? f.checksFlagged;
+  const invalid = f.checksInvalid ?? 0;
+  const what =
+    inconsistent > 0 && invalid > 0
+      ? `flagged ${f.checksFlagged}: ${inconsistent} inconsistent and ${invalid} that could not be evaluated`
+      : invalid > 0
+        ? `could not evaluate ${invalid}`
+        : `flagged ${inconsistent} as inconsistent`;
+  return `The server checked the ${count(f.checksTotal, "orbit claim", "orbit claims")} of this version and ${what}.`;
+}
+
+/** Where the proposers read more: only what exists is promised. */
+export function whereToReadSentence(f: Pick<MergeFacts, "reviewsSubmitted" | "selectedItems" | "openItemCount">): string {
+  if (f.reviewsSubmitted > 0) return "The full reviews and review items are open to you on VisViva.";
+  if (f.selectedItems.length > 0 || f.openItemCount > 0) return "The review items raised on this version are open to you on VisViva.";
+  return "No written reviews accompany this decision.";
 }
 
 const isoDate = (d: Date) => formatDate(d);
@@ -95,6 +131,9 @@ export function mergeValues(f: MergeFacts): MergeValues {
     "reviewItems.openCount": String(f.openItemCount),
     "checks.total": String(f.checksTotal),
     "checks.flagged": String(f.checksFlagged),
+    "reviews.summary": reviewsSentence(f),
+    "checks.summary": checksSentence(f),
+    "reviews.whereToRead": whereToReadSentence(f),
     "chair.name": f.chairName,
   };
 }

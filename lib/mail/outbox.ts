@@ -3,6 +3,7 @@ import { and, asc, eq, inArray, sql } from "drizzle-orm";
 import { db, type Database, type Transaction } from "@/db/client";
 import { outboxMessages } from "@/db/schema";
 import { readObject } from "@/storage/object-store";
+import { OUTBOX_MAX_ATTEMPTS } from "./status-text";
 import { mailFrom, mailTransport } from "./transport";
 
 /*
@@ -63,7 +64,7 @@ export async function enqueueMail(mail: OutgoingMail, tx: Database | Transaction
   return { id: existing!.id, duplicate: true };
 }
 
-export const MAX_ATTEMPTS = 12;
+export const MAX_ATTEMPTS = OUTBOX_MAX_ATTEMPTS;
 
 /** How long a claimed message belongs to its worker before another may take it over. */
 export const DEFAULT_LEASE_SECONDS = 5 * 60;

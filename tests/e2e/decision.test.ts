@@ -22,7 +22,12 @@ describe("deciding, resubmitting and comparing in the browser", () => {
 
     // The chair decides.
     const chair = await as(s.chair.email);
-    await chair.goto(decisionPath);
+    // By links from /boards: the board, the call's overview, the proposal's decision.
+    await chair.goto("/boards");
+    await chair.getByRole("link", { name: s.board.name }).click();
+    await chair.getByRole("link", { name: "Overview, reviews and decisions" }).first().click();
+    await chair.getByRole("link", { name: `Decision on ${s.proposal.title}` }).click();
+    await chair.waitForURL((url) => url.pathname === decisionPath);
     await chair.getByRole("heading", { name: s.proposal.title }).waitFor();
     expect(await chair.getByTestId("weighted-mean").textContent()).toBe("4.00");
     await chair.getByText("1 of 2 claims flagged by the server").waitFor();
@@ -33,7 +38,10 @@ describe("deciding, resubmitting and comparing in the browser", () => {
     const preview = chair.getByRole("region", { name: "Letter preview" });
     await preview.getByText(`Dear ${s.proposer.name},`).waitFor();
     await preview.getByText("[major] Drift orbit period", { exact: false }).waitFor();
-    await chair.getByRole("button", { name: "Send the decision" }).click();
+    // Sending shows the letter as it goes out and asks to confirm before anything is stored.
+    await chair.getByRole("button", { name: "Send the decision…" }).click();
+    await chair.getByRole("region", { name: "Check the letter, then confirm" }).getByText(`Dear ${s.proposer.name},`).waitFor();
+    await chair.getByRole("button", { name: "Confirm and send the decision" }).click();
     await chair.getByRole("heading", { name: "Decision issued" }).waitFor({ timeout: 60_000 });
     await chair.getByRole("link", { name: "Download the letter (PDF)" }).waitFor();
 
@@ -52,7 +60,7 @@ describe("deciding, resubmitting and comparing in the browser", () => {
     await waitFor(
       async () => {
         await chair.reload();
-        return (await chair.getByText(/Letter e-mail: sent/).count()) > 0 || undefined;
+        return /Sent: the mail server accepted it/.test((await chair.getByTestId("letter-mail-status").textContent()) ?? "") || undefined;
       },
       30_000,
       "the decision page showing the letter as sent",
@@ -61,7 +69,10 @@ describe("deciding, resubmitting and comparing in the browser", () => {
 
     // The proposer reads the decision, downloads the PDF, revises the dossier and submits version 2.
     const proposer = await as(s.proposer.email);
-    await proposer.goto(decisionPath);
+    await proposer.goto("/boards");
+    await proposer.getByRole("link", { name: s.board.name }).click();
+    await proposer.getByRole("link", { name: "the decision" }).click();
+    await proposer.waitForURL((url) => url.pathname === decisionPath);
     const pdfLink = proposer.getByRole("link", { name: "Download the letter (PDF)" });
     const download = await proposer.request.get(`${await pdfLink.getAttribute("href")}`);
     expect(download.status()).toBe(200);

@@ -3,7 +3,7 @@
 // server's own flag on the inconsistent claim.
 import { describe, expect, it } from "vitest";
 import type { Locator, Page } from "playwright-core";
-import { signInThroughPage, browserSession } from "../support/browser";
+import { signInThroughPage, browserSession, typeInto } from "../support/browser";
 import { createBoardWithCast, TEST_PASSWORD } from "../support/factories";
 import { makeCall } from "../integration/matrix/dossiers";
 
@@ -13,11 +13,11 @@ const PDF = Buffer.from(
 );
 
 async function fillBlock(page: Page, block: Locator, name: string, altitude: string, period: string) {
-  await block.getByLabel("Name in the text").fill(name);
-  await block.getByLabel("altitude", { exact: true }).fill(altitude);
+  await typeInto(block.getByLabel("Name in the text"), name);
+  await typeInto(block.getByLabel("altitude", { exact: true }), altitude);
   await block.getByLabel("Add a claimed value").selectOption("period");
   await block.getByRole("button", { name: "Add claim" }).click();
-  await block.getByLabel("claimed period", { exact: true }).fill(period);
+  await typeInto(block.getByLabel("claimed period", { exact: true }), period);
 }
 
 /** The label of the focused element when it lies inside `scope`, else null. */
@@ -55,7 +55,7 @@ describe("writing and submitting a dossier in the browser", () => {
       await page.goto(`/boards/${cast.board.id}/proposals`);
       await page.getByText("No proposals yet.").waitFor();
       const form = page.locator("#new-proposal");
-      await form.getByLabel("Title").fill("Lantern lunar pathfinder");
+      await typeInto(form.getByLabel("Title"), "Lantern lunar pathfinder");
       await form.getByLabel("Call").selectOption(call.id);
       await form.getByRole("button", { name: "Start proposal" }).click();
       await page.waitForURL(/\/proposals\/[0-9a-f-]{36}$/);

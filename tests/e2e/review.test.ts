@@ -8,7 +8,7 @@ import { db } from "@/db/client";
 import { assignments, reviewItems, reviews } from "@/db/schema";
 import { assignReviewers } from "@/lib/dal/assignments";
 import { saveReviewDraft, submitReview } from "@/lib/dal/reviews";
-import { signInThroughPage, browserSession } from "../support/browser";
+import { signInThroughPage, browserSession, typeInto } from "../support/browser";
 import { asSessionUser, TEST_PASSWORD } from "../support/factories";
 import { createReviewRound, inFuture } from "../integration/review-fixtures";
 
@@ -72,22 +72,22 @@ describe("reviewing in the browser", () => {
     });
     await expect.poll(async () => page.getByTestId("selected-quote").textContent()).toBe("95.6 minutes");
     await page.getByLabel("Severity").selectOption("major");
-    await page.getByLabel("Title").fill("Period does not match the altitude");
-    await page.getByLabel("What needs attention").fill("At 550 km the two-body period is about 95.7 minutes; state the constants used.");
+    await typeInto(page.getByLabel("Title"), "Period does not match the altitude");
+    await typeInto(page.getByLabel("What needs attention"), "At 550 km the two-body period is about 95.7 minutes; state the constants used.");
     await page.getByRole("button", { name: "Raise item" }).click();
     await page.locator("li[data-item]", { hasText: "Period does not match the altitude" }).waitFor();
     await expect.poll(async () => page.getByTestId("dossier").locator("mark[data-item-id]").first().textContent()).toBe("95.6 minutes");
 
     // Without a mouse: type the words instead of selecting them.
     const typed = page.getByLabel("Or type the words to anchor to");
-    await typed.fill("ninety-five minutes");
+    await typeInto(typed, "ninety-five minutes");
     await page.getByText("Those words do not occur in the dossier's text.").waitFor();
     expect(await page.getByRole("button", { name: "Raise item" }).isDisabled()).toBe(true);
-    await typed.fill("95.6   MINUTES");
+    await typeInto(typed, "95.6   MINUTES");
     await expect.poll(async () => page.getByTestId("selected-quote").textContent()).toBe("95.6 minutes");
     await page.getByLabel("Severity").selectOption("comment");
-    await page.getByLabel("Title").fill("Constants used");
-    await page.getByLabel("What needs attention").fill("Name the gravitational parameter and radius behind this figure.");
+    await typeInto(page.getByLabel("Title"), "Constants used");
+    await typeInto(page.getByLabel("What needs attention"), "Name the gravitational parameter and radius behind this figure.");
     await page.getByRole("button", { name: "Raise item" }).click();
     await page.locator("li[data-item]", { hasText: "Constants used" }).waitFor();
     await expect.poll(() => typed.inputValue()).toBe("");
@@ -144,14 +144,14 @@ describe("chairing a review round in the browser", () => {
     await signInThroughPage(page, round.chair.email, TEST_PASSWORD);
 
     await page.goto(`/boards/${round.board.id}/calls/${round.call.id}/rubric`);
-    await page.getByLabel("Criterion 1").fill("Science return");
-    await page.getByLabel("Weight (%)").fill("90");
+    await typeInto(page.getByLabel("Criterion 1"), "Science return");
+    await typeInto(page.getByLabel("Weight (%)"), "90");
     await page.getByText("Weights add up to 90 % (must be 100 %)").waitFor();
     for (const [i, text] of ["Negligible", "Limited", "Useful", "Significant", "Outstanding"].entries())
-      await page.getByLabel(String(i + 1), { exact: true }).fill(text);
+      await typeInto(page.getByLabel(String(i + 1), { exact: true }), text);
     await page.getByRole("button", { name: "Save rubric" }).click();
     await page.getByRole("alert").getByText("The weights add up to 90 %; they must add up to 100 %.").waitFor();
-    await page.getByLabel("Weight (%)").fill("100");
+    await typeInto(page.getByLabel("Weight (%)"), "100");
     await page.getByRole("button", { name: "Save rubric" }).click();
     await page.getByRole("status").getByText("Saved (version 1).").waitFor();
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { browserSession } from "../support/browser";
+import { browserSession, typeInto } from "../support/browser";
 
 describe("smoke: the landing page in a real browser", () => {
   const { page: openPage } = browserSession();
@@ -21,7 +21,7 @@ describe("smoke: the landing page in a real browser", () => {
     await page.getByText("consistent — holds").first().waitFor();
     await page.getByLabel("Start from").selectOption("a claim off by more than the tolerance");
     await page.getByText("inconsistent — off by more than the tolerance").first().waitFor();
-    await page.getByLabel("Request (JSON)").fill("{ not json");
+    await typeInto(page.getByLabel("Request (JSON)"), "{ not json");
     await page.getByText("The request is not valid JSON").waitFor();
   });
 });

@@ -15,18 +15,18 @@ import { summaryPdf } from "@/db/seed/files";
 import { DEMO_RUBRIC } from "@/db/seed/scenario";
 import { appUrl } from "../support/app";
 import { describeViolations, seriousViolations } from "../support/axe";
-import { launchBrowser, newPage, signInThroughPage } from "../support/browser";
+import { launchBrowser, newPage, signInThroughPage, typeInto } from "../support/browser";
 import { addMember, asSessionUser, createBoard, createUser, TEST_PASSWORD, unique } from "../support/factories";
 import { waitForMail } from "../support/mail";
 
 const pdfParse = createRequire(import.meta.url)("pdf-parse/lib/pdf-parse.js") as (data: Buffer) => Promise<{ text: string }>;
 
 async function fillBlock(block: Locator, name: string, altitude: number, period: number) {
-  await block.getByLabel("Name in the text").fill(name);
-  await block.getByLabel("altitude", { exact: true }).fill(String(altitude));
+  await typeInto(block.getByLabel("Name in the text"), name);
+  await typeInto(block.getByLabel("altitude", { exact: true }), String(altitude));
   await block.getByLabel("Add a claimed value").selectOption("period");
   await block.getByRole("button", { name: "Add claim" }).click();
-  await block.getByRole("textbox", { name: "claimed period", exact: true }).fill(String(period));
+  await typeInto(block.getByRole("textbox", { name: "claimed period", exact: true }), String(period));
 }
 
 /** Selects `quote` inside the element matching `rootSelector`, as a reader would with the mouse. */
@@ -121,7 +121,7 @@ describe("the whole story of a review round", () => {
     await proposerPage.getByText("No proposals yet.").waitFor();
     await assertAccessible(proposerPage, "proposer's proposals list");
     const form = proposerPage.locator("#new-proposal");
-    await form.getByLabel("Title").fill(title);
+    await typeInto(form.getByLabel("Title"), title);
     await form.getByLabel("Call").selectOption(call.id);
     await form.getByRole("button", { name: "Start proposal" }).click();
     await proposerPage.waitForURL(/\/proposals\/[0-9a-f-]{36}$/);
@@ -188,14 +188,14 @@ describe("the whole story of a review round", () => {
       await score("mission-return", scores[0]);
       await score("orbit-soundness", scores[1]);
       await score("programme-risk", scores[2]);
-      await page.getByLabel("Comment on Orbit and Δv soundness").fill(comment);
+      await typeInto(page.getByLabel("Comment on Orbit and Δv soundness"), comment);
       await page.locator('[data-save-state="saved"]').waitFor({ timeout: 30_000 });
       if (item) {
         await selectText(page, '[data-testid="dossier"]', item.quote);
         await expect.poll(async () => page.getByTestId("selected-quote").textContent()).toBe(item.quote);
         await page.getByLabel("Severity").selectOption("major");
-        await page.getByLabel("Title").fill(item.title);
-        await page.getByLabel("What needs attention").fill(item.body);
+        await typeInto(page.getByLabel("Title"), item.title);
+        await typeInto(page.getByLabel("What needs attention"), item.body);
         await page.getByRole("button", { name: "Raise item" }).click();
         await page.locator("li[data-item]", { hasText: item.title }).waitFor();
         await assertAccessible(page, "review screen");
@@ -234,7 +234,10 @@ describe("the whole story of a review round", () => {
     await preview.getByText(`Dear ${proposer.name},`).waitFor();
     await preview.getByText(`[major] ${itemTitle}`, { exact: false }).waitFor();
     await assertAccessible(chairPage, "decision page (chair)");
-    await chairPage.getByRole("button", { name: "Send the decision" }).click();
+    // Sending shows the letter as it goes out and asks to confirm before anything is stored.
+    await chairPage.getByRole("button", { name: "Send the decision…" }).click();
+    await chairPage.getByRole("region", { name: "Check the letter, then confirm" }).getByText(`Dear ${proposer.name},`).waitFor();
+    await chairPage.getByRole("button", { name: "Confirm and send the decision" }).click();
     await chairPage.getByRole("heading", { name: "Decision issued" }).waitFor({ timeout: 60_000 });
 
     // 5. The letter e-mail with its PDF reaches the proposer's inbox (sent by the app's outbox worker).

@@ -19,6 +19,7 @@ import {
   reassignPreviousReviewers,
   saveLetterTemplate,
 } from "@/lib/dal/decisions";
+import { getReviewScreen, listReviewQueue, saveReviewDraft } from "@/lib/dal/reviews";
 import { DEFAULT_LETTER_TEMPLATE } from "@/lib/decisions/template";
 import { isAppError } from "@/lib/errors";
 import { readObject, statObjectOrNull } from "@/storage/object-store";
@@ -85,7 +86,7 @@ describe("deciding on a proposal", () => {
     expect(view.letterText).toContain(`Dear ${s.proposer.name},`);
     expect(view.letterText).toContain("- [major] Drift orbit period: The stated period does not follow from the altitudes.");
     expect(view.letterText).not.toContain("Eclipse season");
-    expect(view.letterText).toContain("flagged 1.");
+    expect(view.letterText).toContain("The server checked the 2 orbit claims of this version and flagged 1 as inconsistent.");
     expect(view.letterHtml).toContain("<strong>revise and resubmit</strong>");
 
     const [proposal] = await db().select({ status: proposals.status }).from(proposals).where(eq(proposals.id, s.proposal.id));
@@ -125,6 +126,29 @@ describe("deciding on a proposal", () => {
     expect(caught[0]!.attachments.map((a) => a.contentType)).toEqual(["application/pdf"]);
     const attached = await pdfParse(Buffer.from(caught[0]!.attachments[0]!.contentBase64, "base64"));
     expect(attached.text).toContain("revise and resubmit");
+  });
+
+  it("closes the reviews of a decided version: the queue marks them, the screen is read-only and the server refuses writes (409)", async () => {
+    const s = await decisionScenario({ submitted: 1, required: 1 });
+    const draftReviewer = asSessionUser(s.reviewer2);
+    const assignmentId = s.assignments[1]!.id;
+    const before = await listReviewQueue(draftReviewer, s.board.id);
+    expect(before.find((q) => q.assignmentId === assignmentId)?.decidedAt).toBeNull();
+    await createDecision(asSessionUser(s.chair), s.board.id, s.proposal.id, { outcome: "accept", letter: DEFAULT_LETTER_TEMPLATE, selectedReviewItemIds: [] });
+
+    const queue = await listReviewQueue(draftReviewer, s.board.id);
+    const entry = queue.find((q) => q.assignmentId === assignmentId);
+    expect(entry?.decidedAt).toEqual(expect.any(String));
+    expect(entry?.overdue).toBe(false);
+    const screen = await getReviewScreen(draftReviewer, s.board.id, assignmentId);
+    expect(screen.canEdit).toBe(false);
+    expect(screen.closedReason).toMatch(/^The board decided on version 1 on .+, so this review is closed/);
+    const refused = await failure(
+      saveReviewDraft(draftReviewer, s.board.id, assignmentId, { revision: screen.review.revision, scores: screen.review.scores, summary: "Late words" }),
+    );
+    expect(refused.status).toBe(409);
+    expect(refused.message).toContain("can no longer be changed");
+    expect(refused.details).toEqual({ closed: true });
   });
 
   it("draws the letter PDF with the letterhead, the merged letter and the two-body caution (text extracted with pdf-parse)", async () => {

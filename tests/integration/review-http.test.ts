@@ -8,11 +8,33 @@ import { dossierPlainText } from "@/lib/dossier";
 import { makeAnchor } from "@/lib/review/anchors";
 import { appUrl } from "../support/app";
 import { signedIn } from "../support/http";
+import { createDecision } from "@/lib/dal/decisions";
+import { DEFAULT_LETTER_TEMPLATE } from "@/lib/decisions/template";
+import { asSessionUser } from "../support/factories";
+import { decisionScenario } from "./decision-fixtures";
 import { createReviewRound, dossierDocument, inFuture, rubricInput } from "./review-fixtures";
 
 describe("review API over HTTP", () => {
   beforeAll(async () => {
     await appUrl();
+  });
+
+  it("a decided version's review is closed: GET says so and PUT and submit get a 409 saying why", async () => {
+    const s = await decisionScenario({ submitted: 1, required: 1 });
+    await createDecision(asSessionUser(s.chair), s.board.id, s.proposal.id, { outcome: "accept", letter: DEFAULT_LETTER_TEMPLATE, selectedReviewItemIds: [] });
+    const reviewer = await signedIn(s.reviewer2.email);
+    const url = `/api/v1/boards/${s.board.id}/reviews/${s.assignments[1]!.id}`;
+    const screen = await reviewer.request(url);
+    expect(screen.status).toBe(200);
+    const body = await screen.json();
+    expect(body.canEdit).toBe(false);
+    expect(body.closedReason).toMatch(/so this review is closed: nothing more is needed from you/);
+    const put = await reviewer.request(url, { method: "PUT", json: { revision: body.review.revision, scores: body.review.scores, summary: "Too late" } });
+    expect(put.status).toBe(409);
+    expect(await put.json()).toEqual({ error: body.closedReason, details: { closed: true } });
+    const submit = await reviewer.post(`${url}/submit`, { revision: body.review.revision });
+    expect(submit.status).toBe(409);
+    expect((await submit.json()).error).toBe(body.closedReason);
   });
 
   it("runs a round: rubric, assignment, autosave, stale save, submit, overview CSV", async () => {

@@ -1,5 +1,5 @@
 // Debian's chromium driven by playwright-core (no browser download).
-import { chromium, type Browser, type Page } from "playwright-core";
+import { chromium, type Browser, type Locator, type Page } from "playwright-core";
 import { afterAll, beforeAll } from "vitest";
 import { appUrl } from "./app";
 import { TEST_PASSWORD } from "./factories";
@@ -66,4 +66,18 @@ export function browserSession(options: { onPage?: (page: Page, email: string | 
     return opened;
   };
   return { page, as };
+}
+
+/**
+ * Types into a text field as a person does: click it, select its text, then key by key with
+ * `page.keyboard.type` (never `fill`, which pastes and hides bugs that lose keystrokes or
+ * focus). Fails when the field did not keep exactly what was typed.
+ */
+export async function typeInto(field: Locator, text: string): Promise<void> {
+  await field.click();
+  // Select what is there so the first key replaces it (as a person selects and types over).
+  await field.press("ControlOrMeta+a");
+  await field.page().keyboard.type(text);
+  const kept = await field.inputValue();
+  if (kept !== text) throw new Error(`typed "${text}" but the field kept "${kept}"`);
 }

@@ -18,7 +18,13 @@ const decision = z.object({
   decidedByName: z.string().nullable(),
   hasPdf: z.boolean(),
   mail: z
-    .object({ status: z.string(), attempts: z.number().int(), lastError: z.string().nullable() })
+    .object({
+      status: z.string(),
+      attempts: z.number().int(),
+      lastError: z.string().nullable(),
+      nextAttemptAt: z.string().nullable(),
+      sentAt: z.string().nullable(),
+    })
     .nullable()
     .describe("The letter e-mail's outbox state (chair only)"),
 });

@@ -214,7 +214,14 @@ export const reviewOperations = defineOperations([
     tag: "reviews",
     access: "signed-in",
     response: z
-      .object({ review: reviewState, rubric: rubric.nullable(), checks: z.array(z.object({}).loose()), canEdit: z.boolean(), canReopen: z.boolean() })
+      .object({
+        review: reviewState,
+        rubric: rubric.nullable(),
+        checks: z.array(z.object({}).loose()),
+        canEdit: z.boolean(),
+        canReopen: z.boolean(),
+        closedReason: z.string().nullable().describe("Set once the reviewed version is decided: the review is closed and cannot be changed"),
+      })
       .loose(),
   },
   {
@@ -226,7 +233,9 @@ export const reviewOperations = defineOperations([
     access: "signed-in",
     body: reviewDraftInput,
     response: z.object({ review: reviewState }),
-    errors: { 409: "Stale revision (details.review holds the saved one), or the review is submitted" },
+    errors: {
+      409: "Stale revision (details.review holds the saved one), the review is submitted, or the version is decided (details.closed: the review is closed)",
+    },
   },
   {
     method: "post",

@@ -5,6 +5,7 @@ import { useRouter } from "next/navigation";
 import { createColumnHelper } from "@tanstack/react-table";
 import { DataTable } from "@/components/data-table/data-table";
 import type { OutboxRow } from "@/lib/dal/outbox";
+import { outboxStatusText } from "@/lib/mail/status-text";
 import { requeueOutboxMessageAction } from "../actions";
 
 const column = createColumnHelper<OutboxRow>();
@@ -66,7 +67,12 @@ const columns = [
   column.accessor("status", {
     header: "Status",
     enableSorting: false,
-    cell: (i) => <span className={`rounded-chip px-2 py-0.5 text-xs font-semibold ${statusClass[i.getValue()]}`}>{i.getValue()}</span>,
+    cell: (i) => (
+      <span className="block max-w-72">
+        <span className={`rounded-chip px-2 py-0.5 text-xs font-semibold ${statusClass[i.getValue()]}`}>{i.getValue()}</span>
+        <span className="mt-1 block text-xs text-ink-700">{outboxStatusText({ ...i.row.original, lastError: null })}</span>
+      </span>
+    ),
   }),
   column.accessor("attempts", { header: "Attempts", enableSorting: false, cell: (i) => <span className="font-mono text-xs">{i.getValue()}</span> }),
   column.accessor("lastError", {

@@ -14,7 +14,8 @@ export default async function ReviewQueuePage({ params }: { params: Promise<{ bo
   const { boardId } = await params;
   const user = await pageUser(`/boards/${boardId}/reviews`);
   const board = await orNotFound(getBoard(user, boardId));
-  const queue = await listReviewQueue(user, boardId);
+  // Open assignments first; those whose version the board has decided follow, marked closed.
+  const queue = (await listReviewQueue(user, boardId)).sort((a, b) => Number(Boolean(a.decidedAt)) - Number(Boolean(b.decidedAt)));
   return (
     <div className="space-y-6">
       <PageTitle eyebrow={board.name} title="My reviews">
@@ -75,7 +76,7 @@ export default async function ReviewQueuePage({ params }: { params: Promise<{ bo
                   </td>
                   <td className="px-3 py-2">{q.callTitle}</td>
                   <td className={`px-3 py-2 ${q.overdue ? "font-semibold text-void-700" : ""}`}>
-                    {formatDateTime(q.dueAt)}
+                    {q.decidedAt ? "—" : formatDateTime(q.dueAt)}
                     {q.overdue ? " · overdue" : ""}
                   </td>
                   <td className="px-3 py-2">
@@ -95,7 +96,13 @@ export default async function ReviewQueuePage({ params }: { params: Promise<{ bo
                     </span>
                   </td>
                   <td className="px-3 py-2">
-                    <span className={`rounded-chip px-2 py-0.5 text-xs font-semibold ${statusStyle[q.status]}`}>{q.status}</span>
+                    {q.decidedAt ? (
+                      <span className="rounded-chip bg-ink-100 px-2 py-0.5 text-xs font-semibold text-ink-700">
+                        closed: decided {formatDateTime(q.decidedAt)}{q.status === "submitted" ? "" : `, review ${q.status}`}
+                      </span>
+                    ) : (
+                      <span className={`rounded-chip px-2 py-0.5 text-xs font-semibold ${statusStyle[q.status]}`}>{q.status}</span>
+                    )}
                   </td>
                 </tr>
               ))

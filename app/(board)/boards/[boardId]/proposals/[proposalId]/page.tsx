@@ -8,6 +8,8 @@ import { AttachmentList } from "@/components/dossier/attachment-list";
 import { OrbitFilesPanel } from "@/components/orbit-files/orbit-files-panel";
 import { PageTitle, Panel } from "@/components/ui/panel";
 import { orNotFound, pageUser } from "@/lib/auth/page-guard";
+import { can } from "@/lib/auth/policy";
+import { proposalAccess } from "@/lib/dal/assignments";
 import { listAttachments } from "@/lib/dal/attachments";
 import { listReviewItems } from "@/lib/dal/review-items";
 import { ProposalReviewItems } from "@/components/review/proposal-review-items";
@@ -28,6 +30,32 @@ export default async function ProposalPage({ params }: { params: Promise<{ board
     // Only the items the policy lets this viewer see: for proposers, none before a decision.
     proposal.latestVersion > 0 ? listReviewItems(user, boardId, proposalId) : Promise.resolve([]),
   ]);
+  // The chair's way on from the proposal: its reviews and the decision page.
+  const access = await proposalAccess(user, boardId, proposalId);
+  const chairLinks = can(user, "decision.make", { role: access.role }) ? (
+    <nav aria-label="Chair" className="flex flex-wrap gap-3 text-sm">
+      <Link
+        href={`/boards/${boardId}/proposals/${proposalId}/decision`}
+        className="rounded-chip bg-trajectory-600 px-3 py-1.5 font-semibold text-white hover:bg-trajectory-700"
+      >
+        {proposal.status === "decided" ? "The decision" : "Write the decision"}
+      </Link>
+      {proposal.latestVersion > 0 ? (
+        <Link
+          href={`/boards/${boardId}/proposals/${proposalId}/review`}
+          className="rounded-chip border border-ink-300 px-3 py-1.5 font-semibold hover:border-trajectory-500"
+        >
+          Reviews of this proposal
+        </Link>
+      ) : null}
+      <Link
+        href={`/boards/${boardId}/calls/${proposal.callId}/overview`}
+        className="rounded-chip border border-ink-300 px-3 py-1.5 font-semibold hover:border-trajectory-500"
+      >
+        Call overview
+      </Link>
+    </nav>
+  ) : null;
   const reviewItemsPanel = reviewItems.length > 0 ? <ProposalReviewItems boardId={boardId} initialItems={reviewItems} /> : null;
 
   const header = (
@@ -37,6 +65,12 @@ export default async function ProposalPage({ params }: { params: Promise<{ board
         by {[proposal.owner, ...proposal.coauthors].map((a) => a.name).join(", ")}
       </p>
     </PageTitle>
+  );
+  const headerWithLinks = (
+    <>
+      {header}
+      {chairLinks}
+    </>
   );
 
   const versionList =
@@ -62,7 +96,7 @@ export default async function ProposalPage({ params }: { params: Promise<{ board
     const draft = await getDraft(user, boardId, proposalId);
     return (
       <div className="space-y-6">
-        {header}
+        {headerWithLinks}
         {proposal.status === "decided" ? (
           <p className="rounded-panel border border-drift-500/40 bg-drift-100 p-3 text-sm text-drift-700">
             The board asked for a revision. Your changes will be submitted as version {proposal.latestVersion + 1}.
@@ -88,7 +122,7 @@ export default async function ProposalPage({ params }: { params: Promise<{ board
   if (versions.length === 0) {
     return (
       <div className="space-y-6">
-        {header}
+        {headerWithLinks}
         <Panel title="Not submitted yet">
           <p className="text-ink-600">{proposal.editBlockedReason ?? "This proposal has no submitted version yet."}</p>
         </Panel>
@@ -101,7 +135,7 @@ export default async function ProposalPage({ params }: { params: Promise<{ board
   const budget = deltaVBudget(evaluateBlocks(extractOrbitChecks(latest.document), proposal.tolerance));
   return (
     <div className="space-y-6">
-      {header}
+      {headerWithLinks}
       {proposal.editBlockedReason && proposal.owner.id === user.id ? <p className="text-sm text-ink-600">{proposal.editBlockedReason}</p> : null}
       <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_18rem]">
         <Panel title={`Version ${latest.number}`} description={`Submitted ${formatDateTime(latest.submittedAt)}; verdicts are the server's own recomputation.`}>

@@ -6,6 +6,8 @@ import { orNotFound, pageUser } from "@/lib/auth/page-guard";
 import { can } from "@/lib/auth/policy";
 import { proposalAccess } from "@/lib/dal/assignments";
 import { getDecisionWorkspace, listProposalDecisions, type DecisionView } from "@/lib/dal/decisions";
+import { MAX_ATTEMPTS } from "@/lib/mail/outbox";
+import { outboxStatusText } from "@/lib/mail/status-text";
 import { DecisionForm } from "./_components/decision-form";
 
 export const metadata: Metadata = { title: "Decision" };
@@ -25,10 +27,8 @@ function IssuedDecision({ boardId, proposalId, decision, chairView }: { boardId:
         <p className="rounded-chip bg-drift-100 px-3 py-2 text-sm text-drift-700">Decided without the required reviews: {decision.overrideReason}</p>
       ) : null}
       {chairView && decision.mail ? (
-        <p className="text-sm text-ink-600">
-          Letter e-mail: <span className="font-semibold">{decision.mail.status}</span>
-          {decision.mail.attempts ? ` after ${decision.mail.attempts} attempt${decision.mail.attempts === 1 ? "" : "s"}` : ""}
-          {decision.mail.lastError ? ` — last error: ${decision.mail.lastError}` : ""}
+        <p className="text-sm text-ink-600" data-testid="letter-mail-status">
+          <span className="font-semibold">Letter e-mail:</span> {outboxStatusText(decision.mail, MAX_ATTEMPTS)}
         </p>
       ) : null}
       <div className="prose-dossier rounded-panel border border-ink-200 bg-paper p-5" dangerouslySetInnerHTML={{ __html: decision.letterHtml }} />
@@ -91,7 +91,7 @@ export default async function DecisionPage({ params }: { params: Promise<{ board
 
   const w = await getDecisionWorkspace(user, boardId, proposalId);
   const submitted = w.reviews.filter((r) => r.status === "submitted").length;
-  const flagged = w.checks.filter((c) => c.status !== "consistent");
+  const claims = w.claimCounts;
   const openItems = w.reviewItems.filter((i) => i.status === "open");
   return (
     <div className="space-y-6">
@@ -137,7 +137,10 @@ export default async function DecisionPage({ params }: { params: Promise<{ board
             ) : null}
           </dl>
         </Panel>
-        <Panel title="Orbit checks" description={`${flagged.length} of ${w.checks.length} claims flagged by the server`}>
+        <Panel
+          title="Orbit checks"
+          description={`${claims.flagged} of ${claims.claims} ${claims.claims === 1 ? "claim" : "claims"} flagged by the server, in ${claims.blocks} orbit-check ${claims.blocks === 1 ? "block" : "blocks"}`}
+        >
           <ul className="space-y-1 text-sm">
             {w.checks.map((c) => (
               <li key={c.blockId} className="flex items-start justify-between gap-2">
@@ -167,9 +170,16 @@ export default async function DecisionPage({ params }: { params: Promise<{ board
       <Panel title="Reviews">
         <div className="space-y-3">
           {w.reviews.map((r) => (
-            <details key={r.assignmentId} className="rounded-panel border border-ink-200 p-3">
-              <summary className="flex cursor-pointer flex-wrap justify-between gap-2 text-sm">
-                <span className="font-semibold text-ink-900">{r.reviewerName}</span>
+            <details key={r.assignmentId} className="group rounded-panel border border-ink-200 p-3">
+              <summary className="flex cursor-pointer flex-wrap items-center justify-between gap-2 rounded-chip text-sm focus-visible:outline-2 focus-visible:outline-trajectory-600">
+                <span className="flex items-center gap-2 font-semibold text-ink-900">
+                  <span aria-hidden className="inline-block w-3 text-trajectory-700 transition-transform group-open:rotate-90">
+                    ▶
+                  </span>
+                  {r.reviewerName}
+                  <span className="text-xs font-normal text-trajectory-700 underline group-open:hidden">show the review</span>
+                  <span className="hidden text-xs font-normal text-trajectory-700 underline group-open:inline">hide</span>
+                </span>
                 <span className="text-ink-600">
                   {r.status}
                   {r.weightedTotal !== null ? ` · weighted total ${r.weightedTotal.toFixed(2)}` : ""}
@@ -188,7 +198,7 @@ export default async function DecisionPage({ params }: { params: Promise<{ board
                     <tbody>
                       {r.scores.map((s) => (
                         <tr key={s.criterion} className="border-t border-ink-100">
-                          <td className="py-1 font-mono text-xs">{s.criterion}</td>
+                          <td className="py-1 font-semibold">{s.title}</td>
                           <td className="py-1 font-mono">{s.score ?? "—"}</td>
                           <td className="py-1">{s.comment}</td>
                         </tr>

@@ -54,6 +54,34 @@ export default async function ReviewPage({
           {isChair ? ` · reviewer: ${screen.assignment.reviewerName}` : ""}.
         </p>
       </PageTitle>
+      <nav aria-label="Around this review" className="flex flex-wrap gap-3 text-sm">
+        {isChair ? (
+          <>
+            <Link
+              href={`/boards/${boardId}/proposals/${proposalId}/decision`}
+              className="rounded-chip bg-trajectory-600 px-3 py-1.5 font-semibold text-white hover:bg-trajectory-700"
+            >
+              {access.proposal.status === "decided" ? "The decision" : "Write the decision"}
+            </Link>
+            <Link
+              href={`/boards/${boardId}/proposals/${proposalId}`}
+              className="rounded-chip border border-ink-300 px-3 py-1.5 font-semibold hover:border-trajectory-500"
+            >
+              The proposal
+            </Link>
+            <Link
+              href={`/boards/${boardId}/calls/${access.proposal.callId}/overview`}
+              className="rounded-chip border border-ink-300 px-3 py-1.5 font-semibold hover:border-trajectory-500"
+            >
+              Call overview
+            </Link>
+          </>
+        ) : (
+          <Link href={`/boards/${boardId}/reviews`} className="rounded-chip border border-ink-300 px-3 py-1.5 font-semibold hover:border-trajectory-500">
+            My reviews
+          </Link>
+        )}
+      </nav>
       {isChair && reviews.length > 0 ? (
         <nav aria-label="Reviews of this proposal" className="flex flex-wrap gap-2 text-sm">
           {reviews.map((r) => (

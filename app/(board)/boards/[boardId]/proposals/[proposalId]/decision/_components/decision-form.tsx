@@ -1,5 +1,5 @@
 "use client";
-import { useState, useTransition } from "react";
+import { useEffect, useRef, useState, useTransition } from "react";
 import { useRouter } from "next/navigation";
 import { FormNotice } from "@/components/ui/form-controls";
 import { issueDecisionAction, previewDecisionAction } from "../actions";
@@ -29,8 +29,17 @@ export function DecisionForm({ boardId, proposalId, template, fields, items, nee
   const [overrideReason, setOverrideReason] = useState("");
   const [error, setError] = useState<string | null>(null);
   const [preview, setPreview] = useState<{ subject: string; letterHtml: string } | null>(null);
+  // "Send the decision" first shows the letter as it will go out, then asks to confirm.
+  const [confirming, setConfirming] = useState(false);
   const [pending, startTransition] = useTransition();
-  const editor = useLetterEditor(template, () => setPreview(null));
+  const previewHeading = useRef<HTMLHeadingElement>(null);
+  const editor = useLetterEditor(template, () => {
+    setPreview(null);
+    setConfirming(false);
+  });
+  useEffect(() => {
+    if (preview) previewHeading.current?.focus();
+  }, [preview, confirming]);
 
   const payload = () => ({
     boardId,
@@ -41,12 +50,22 @@ export function DecisionForm({ boardId, proposalId, template, fields, items, nee
     overrideReason: overrideReason.trim() || undefined,
   });
 
-  const runPreview = () =>
+  const runPreview = (thenConfirm = false) =>
     startTransition(async () => {
       setError(null);
+      if (thenConfirm && !outcome) {
+        setError("Choose the outcome first.");
+        return;
+      }
       const answer = await previewDecisionAction(payload());
-      if (answer.ok) setPreview({ subject: answer.data.subject, letterHtml: answer.data.letterHtml });
-      else setError(answer.error);
+      if (answer.ok) {
+        setPreview({ subject: answer.data.subject, letterHtml: answer.data.letterHtml });
+        setConfirming(thenConfirm);
+      } else {
+        setPreview(null);
+        setConfirming(false);
+        setError(answer.error);
+      }
     });
 
   const send = () =>
@@ -71,7 +90,18 @@ export function DecisionForm({ boardId, proposalId, template, fields, items, nee
               key={c.value}
               className={`cursor-pointer rounded-panel border p-3 ${outcome === c.value ? "border-trajectory-500 bg-trajectory-100" : "border-ink-200 bg-white"}`}
             >
-              <input type="radio" name="outcome" value={c.value} checked={outcome === c.value} onChange={() => setOutcome(c.value)} className="mr-2" />
+              <input
+                type="radio"
+                name="outcome"
+                value={c.value}
+                checked={outcome === c.value}
+                onChange={() => {
+                  setOutcome(c.value);
+                  setPreview(null);
+                  setConfirming(false);
+                }}
+                className="mr-2"
+              />
               <span className="font-semibold text-ink-900">{c.label}</span>
               <span className="mt-1 block text-xs text-ink-600">{c.hint}</span>
             </label>
@@ -132,7 +162,7 @@ export function DecisionForm({ boardId, proposalId, template, fields, items, nee
       <div className="flex flex-wrap gap-3">
         <button
           type="button"
-          onClick={runPreview}
+          onClick={() => runPreview(false)}
           disabled={pending}
           className="rounded-chip border border-ink-300 bg-white px-4 py-2 font-semibold text-ink-800 disabled:opacity-50"
         >
@@ -140,19 +170,49 @@ export function DecisionForm({ boardId, proposalId, template, fields, items, nee
         </button>
         <button
           type="button"
-          onClick={send}
+          onClick={() => runPreview(true)}
           disabled={pending || !outcome}
           className="rounded-chip bg-trajectory-600 px-4 py-2 font-semibold text-white disabled:opacity-50"
         >
-          {pending ? "Working…" : "Send the decision"}
+          {pending ? "Working…" : "Send the decision…"}
         </button>
       </div>
+      {!outcome ? <p className="text-xs text-ink-600">Choose the outcome above to send the decision.</p> : null}
 
       {preview ? (
-        <section aria-label="Letter preview" className="rounded-panel border border-trajectory-400 bg-paper p-5">
+        <section aria-labelledby="letter-preview-heading" className="rounded-panel border border-trajectory-400 bg-paper p-5">
+          <h3 id="letter-preview-heading" ref={previewHeading} tabIndex={-1} className="mb-2 text-sm font-semibold text-ink-800 focus:outline-none">
+            {confirming ? "Check the letter, then confirm" : "Letter preview"}
+          </h3>
           <p className="text-xs uppercase tracking-widest text-ink-500">Subject</p>
           <p className="mb-3 font-semibold text-ink-900">{preview.subject}</p>
           <div className="prose-dossier" dangerouslySetInnerHTML={{ __html: preview.letterHtml }} />
+          {confirming ? (
+            <div className="mt-4 space-y-2 border-t border-ink-200 pt-3">
+              <p className="text-sm text-ink-800">
+                Sending records the decision ({choices.find((c) => c.value === outcome)?.label.toLowerCase()}) for good and e-mails this letter, with its PDF,
+                to the proposal&apos;s authors. It cannot be undone.
+              </p>
+              <div className="flex flex-wrap gap-3">
+                <button
+                  type="button"
+                  onClick={send}
+                  disabled={pending}
+                  className="rounded-chip bg-trajectory-600 px-4 py-2 font-semibold text-white disabled:opacity-50"
+                >
+                  {pending ? "Sending…" : "Confirm and send the decision"}
+                </button>
+                <button
+                  type="button"
+                  onClick={() => setConfirming(false)}
+                  disabled={pending}
+                  className="rounded-chip border border-ink-300 bg-white px-4 py-2 font-semibold text-ink-800"
+                >
+                  Not yet: keep editing
+                </button>
+              </div>
+            </div>
+          ) : null}
         </section>
       ) : null}
     </div>
