@@ -98,7 +98,8 @@ export default async function ReviewQueuePage({ params }: { params: Promise<{ bo
                   <td className="px-3 py-2">
                     {q.decidedAt ? (
                       <span className="rounded-chip bg-ink-100 px-2 py-0.5 text-xs font-semibold text-ink-700">
-                        closed: decided {formatDateTime(q.decidedAt)}{q.status === "submitted" ? "" : `, review ${q.status}`}
+                        closed: decided {formatDateTime(q.decidedAt)}
+                        {q.status === "submitted" ? "" : `, review ${q.status}`}
                       </span>
                     ) : (
                       <span className={`rounded-chip px-2 py-0.5 text-xs font-semibold ${statusStyle[q.status]}`}>{q.status}</span>
