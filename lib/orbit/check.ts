@@ -6,7 +6,7 @@
 import { resolveBody } from "./bodies";
 import { OrbitInputError } from "./errors";
 import { allowedGiven, defaultBodyOf, type Evaluation, Inputs, kindDef, KIND_NAMES, usesBody } from "./kinds";
-import { DEFAULT_ABSOLUTE_TOLERANCE, DEFAULT_RELATIVE_TOLERANCE, quantityInfo } from "./quantities";
+import { DEFAULT_ABSOLUTE_TOLERANCE, DEFAULT_RELATIVE_TOLERANCE, quantityInfoFor } from "./quantities";
 import {
   type CheckRow,
   type ClaimResult,
@@ -37,8 +37,8 @@ export function mergeTolerance(base: Tolerance, input?: { relative?: number; abs
 const MAX_CLAIMED_VALUES = 200;
 
 /** Compares one claimed value with the computed one. */
-export function compareQuantity(quantity: string, claimed: unknown, computed: ComputedValue, tolerance: Tolerance): CheckRow | string {
-  const info = quantityInfo(quantity);
+export function compareQuantity(quantity: string, claimed: unknown, computed: ComputedValue, tolerance: Tolerance, kind = ""): CheckRow | string {
+  const info = quantityInfoFor(kind, quantity);
   const unit = info?.unit ?? "";
   const row = (relativeError: number | null, absoluteError: number | null, ok: boolean): CheckRow => ({
     quantity,
@@ -145,7 +145,7 @@ export function evaluateClaim(claim: unknown, tolerance: Tolerance = DEFAULT_TOL
         problems.push(ev.unavailable[q] ?? `${q} cannot be computed for these inputs`);
         continue;
       }
-      const r = compareQuantity(q, value, comp, tol);
+      const r = compareQuantity(q, value, comp, tol, kind);
       if (typeof r === "string") problems.push(r);
       else checks.push(r);
     }

@@ -40,13 +40,14 @@ import { inclinationForNodalRate, j2SecularRates } from "./j2";
 import { lambert } from "./lambert";
 import { biElliptic, combinedPlaneChange, hohmann, simplePlaneChange } from "./maneuvers";
 import { propagate } from "./propagation";
-import { quantityInfo } from "./quantities";
+import { quantityInfo, quantityInfoFor } from "./quantities";
 import { deltaVBudget, solveRocket } from "./rocket";
 import type { ComputedValue } from "./schema";
 import { elementsToState, stateToElements } from "./state-vectors";
 import { eclipseFraction } from "./eclipse";
 import { contactGeometry, maxPassDuration } from "./ground-contact";
 import { DEG, RAD, norm, type Vec3 } from "./vector";
+import { contactTimeKind } from "./kinds/contact-time";
 
 /** One conic to draw with r(θ) = p / (1 + e cos θ), rotated by argPeriapsis in the plot plane. */
 export interface PlotConic {
@@ -960,6 +961,8 @@ const KIND_DEFS: Record<string, KindDef> = {
       );
     },
   },
+
+  contactTime: contactTimeKind,
 };
 
 export const KIND_NAMES = Object.keys(KIND_DEFS);
@@ -980,7 +983,7 @@ export function defaultBodyOf(kind: string): BodyName {
 export const ORBIT_CHECK_KINDS: readonly KindInfo[] = KIND_NAMES.map((kind) => {
   const d = KIND_DEFS[kind]!;
   const info = (name: string) => {
-    const q = quantityInfo(name);
+    const q = quantityInfoFor(kind, name);
     if (!q) throw new Error(`quantity ${name} missing from the quantities table`);
     return q;
   };

@@ -3,7 +3,7 @@
  * same thing, in the same unit, in every kind that uses it.
  */
 
-export type QuantityType = "number" | "vector" | "text" | "boolean" | "body" | "maneuvers";
+export type QuantityType = "number" | "vector" | "text" | "boolean" | "body" | "maneuvers" | "stations";
 
 export interface QuantityInfo {
   unit: string;
@@ -114,9 +114,61 @@ export const QUANTITIES = {
   maxPassDuration: n("s", "duration of an overhead pass"),
   earthCentralAngle: n("deg", "central angle from the sub-satellite point to the edge of coverage"),
   maxSlantRange: n("km", "slant range at the minimum elevation"),
+  // Coverage and links (contactTime, linkBudget, repeatGroundTrack)
+  stations: {
+    unit: "",
+    type: "stations",
+    description: "ground stations: [{ name, latitude deg, longitude deg, altitude km, minimumElevation deg }]",
+  } as QuantityInfo,
+  days: n("day", "span of the contact search in days (default 7, at most 30)"),
+  dataRate: n("bit/s", "downlink data rate"),
+  passesPerDay: n("1/day", "passes per day over the station(s), mean over the span"),
+  passesPerDayMin: n("1/day", "fewest passes in one day of the span"),
+  passesPerDayMax: n("1/day", "most passes in one day of the span"),
+  contactPerDay: n("s", "contact time per day, mean over the span"),
+  contactPerDayMin: n("s", "contact time of the day with the least contact"),
+  longestPass: n("s", "longest pass"),
+  shortestPass: n("s", "shortest pass (passes cut by the span's ends left out)"),
+  longestGap: n("s", "longest time without contact within the span"),
+  dataVolumePerDay: n("Gbit", "data brought down per day: mean daily contact time × data rate"),
+  dataVolumePerDayMin: n("Gbit", "data brought down on the day with the least contact"),
+  frequency: n("GHz", "carrier frequency"),
+  transmitPower: n("W", "transmitter output power"),
+  transmitGain: n("dBi", "transmit antenna gain"),
+  receiveGain: n("dBi", "receive antenna gain"),
+  transmitDiameter: n("m", "transmit dish diameter (gain from diameter and efficiency)"),
+  receiveDiameter: n("m", "receive dish diameter (gain from diameter and efficiency)"),
+  antennaEfficiency: n(DIMENSIONLESS, "aperture efficiency of the dishes (default 0.55)"),
+  gOverT: n("dB/K", "receiving system figure of merit G/T"),
+  systemNoiseTemperature: n("K", "receiving system noise temperature"),
+  losses: n("dB", "other losses in total: line, pointing, atmospheric, polarisation"),
+  requiredEbN0: n("dB", "Eb/N0 the modulation and coding need"),
+  range: n("km", "distance from transmitter to receiver"),
+  eirp: n("dBW", "effective isotropic radiated power"),
+  pathLoss: n("dB", "free-space path loss"),
+  cOverN0: n("dB-Hz", "received carrier-to-noise-density ratio"),
+  ebN0: n("dB", "received energy per bit over noise density"),
+  linkMargin: n("dB", "received Eb/N0 minus the required Eb/N0"),
+  revolutionsPerCycle: n(DIMENSIONLESS, "revolutions in one repeat cycle"),
+  daysPerCycle: n("day", "nodal days in one repeat cycle"),
+  nodalPeriod: n("s", "time between ascending node crossings"),
+  trackSpacing: n("km", "distance between adjacent tracks at the equator"),
+  revolutionsPerDay: n("rev/day", "revolutions per nodal day"),
 } satisfies Record<string, QuantityInfo>;
 
 export type QuantityName = keyof typeof QUANTITIES;
+
+/** Quantities whose unit in one kind differs from the table (the contract fixes these names). */
+const KIND_QUANTITIES: Record<string, Record<string, QuantityInfo>> = {
+  linkBudget: { margin: n("dB", "received Eb/N0 minus the required Eb/N0") },
+};
+
+/** The quantity as one kind uses it (the table entry unless the kind overrides it). */
+export function quantityInfoFor(kind: string, name: string): QuantityInfo | undefined {
+  const own = Object.prototype.hasOwnProperty.call(KIND_QUANTITIES, kind) ? KIND_QUANTITIES[kind] : undefined;
+  if (own && Object.prototype.hasOwnProperty.call(own, name)) return own[name];
+  return quantityInfo(name);
+}
 
 export function quantityInfo(name: string): QuantityInfo | undefined {
   return Object.prototype.hasOwnProperty.call(QUANTITIES, name) ? (QUANTITIES as Record<string, QuantityInfo>)[name] : undefined;
@@ -131,6 +183,9 @@ export const DEFAULT_ABSOLUTE_TOLERANCE: Readonly<Record<string, number>> = {
   kg: 0.1,
   "deg/day": 0.001,
   [DIMENSIONLESS]: 1e-4,
+  dB: 0.05,
+  dBW: 0.05,
+  "dB-Hz": 0.05,
 };
 
 export const DEFAULT_RELATIVE_TOLERANCE = 0.01;
