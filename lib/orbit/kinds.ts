@@ -48,6 +48,8 @@ import { eclipseFraction } from "./eclipse";
 import { contactGeometry, maxPassDuration } from "./ground-contact";
 import { DEG, RAD, norm, type Vec3 } from "./vector";
 import { contactTimeKind } from "./kinds/contact-time";
+import { linkBudgetKind } from "./kinds/link-budget";
+import { repeatGroundTrackKind } from "./kinds/repeat-ground-track";
 
 /** One conic to draw with r(θ) = p / (1 + e cos θ), rotated by argPeriapsis in the plot plane. */
 export interface PlotConic {
@@ -963,6 +965,8 @@ const KIND_DEFS: Record<string, KindDef> = {
   },
 
   contactTime: contactTimeKind,
+  linkBudget: linkBudgetKind,
+  repeatGroundTrack: repeatGroundTrackKind,
 };
 
 export const KIND_NAMES = Object.keys(KIND_DEFS);
