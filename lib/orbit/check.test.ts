@@ -268,6 +268,9 @@ describe("requests", () => {
       "lambert",
       "eclipse",
       "groundContact",
+      "contactTime",
+      "linkBudget",
+      "repeatGroundTrack",
     ];
     expect([...KIND_NAMES].sort()).toEqual([...contractKinds].sort());
     for (const k of ORBIT_CHECK_KINDS) {

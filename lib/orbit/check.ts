@@ -5,6 +5,7 @@
  */
 import { resolveBody } from "./bodies";
 import { OrbitInputError } from "./errors";
+import { CONTACT_BUDGET_MESSAGE, claimsOverContactBudget } from "./kinds/contact-time";
 import { allowedGiven, defaultBodyOf, type Evaluation, Inputs, kindDef, KIND_NAMES, usesBody } from "./kinds";
 import { DEFAULT_ABSOLUTE_TOLERANCE, DEFAULT_RELATIVE_TOLERANCE, quantityInfoFor } from "./quantities";
 import {
@@ -159,6 +160,14 @@ export function evaluateClaim(claim: unknown, tolerance: Tolerance = DEFAULT_TOL
   }
 }
 
+/** The id a claim's result carries (as evaluateClaim assigns it). */
+function claimIdOf(claim: unknown, index: number): string {
+  const id = typeof claim === "object" && claim !== null ? (claim as { id?: unknown }).id : undefined;
+  if (typeof id === "string" && id.length > 0) return id.slice(0, 200);
+  if (typeof id === "number" && Number.isFinite(id)) return String(id);
+  return `claim-${index + 1}`;
+}
+
 /** Checks a whole request (any JSON value). Never throws. */
 export function checkOrbitClaims(request: unknown): OrbitCheckResponse {
   try {
@@ -171,7 +180,12 @@ export function checkOrbitClaims(request: unknown): OrbitCheckResponse {
       };
     }
     const tolerance = mergeTolerance(DEFAULT_TOLERANCE, env.data.tolerance);
-    return { results: env.data.claims.map((c, i) => evaluateClaim(c, tolerance, i)) };
+    const overBudget = claimsOverContactBudget(env.data.claims);
+    return {
+      results: env.data.claims.map((c, i) =>
+        overBudget.has(i) ? invalid(claimIdOf(c, i), "contactTime", [CONTACT_BUDGET_MESSAGE]) : evaluateClaim(c, tolerance, i),
+      ),
+    };
   } catch {
     return { error: "the engine could not read this request (internal error)", results: [] };
   }

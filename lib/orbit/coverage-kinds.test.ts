@@ -251,3 +251,13 @@ describe("contactTime", () => {
     expect(["consistent", "invalid"]).toContain(geo.status);
   });
 });
+
+describe("contact search budget per request", () => {
+  it("claims beyond 300 station-days in one request are invalid with a message; the others are checked", () => {
+    const claim = (id: string) => ({ id, kind: "contactTime", given: { altitude: 550, inclination: 97.6, stations: [north, south], days: 30 } });
+    const res = checkOrbitClaims({ claims: [claim("a"), claim("b"), claim("c"), claim("d"), claim("e"), claim("f")] });
+    expect(res.results.map((r) => r.status)).toEqual(["consistent", "consistent", "consistent", "consistent", "consistent", "invalid"]);
+    expect(res.results[5]).toMatchObject({ id: "f", kind: "contactTime" });
+    expect(res.results[5]!.messages.join(" ")).toMatch(/station-days/);
+  });
+});

@@ -148,7 +148,6 @@ export const QUANTITIES = {
   pathLoss: n("dB", "free-space path loss"),
   cOverN0: n("dB-Hz", "received carrier-to-noise-density ratio"),
   ebN0: n("dB", "received energy per bit over noise density"),
-  linkMargin: n("dB", "received Eb/N0 minus the required Eb/N0"),
   revolutionsPerCycle: n(DIMENSIONLESS, "revolutions in one repeat cycle"),
   daysPerCycle: n("day", "nodal days in one repeat cycle"),
   nodalPeriod: n("s", "time between ascending node crossings"),

@@ -91,3 +91,27 @@ export const contactTimeKind: CoverageKindDef = {
     return evaluation(r.values, body, { unavailable: r.unavailable, messages: r.messages });
   },
 };
+
+/** Station-days of contact search one request may ask for (one claim of 10 stations × 30 days). */
+export const MAX_CONTACT_STATION_DAYS_PER_REQUEST = 300;
+
+/**
+ * Indexes of the contactTime claims of a request that go beyond its search budget (counted in
+ * request order), so a single request cannot keep the server busy for long.
+ */
+export function claimsOverContactBudget(claims: readonly unknown[]): Set<number> {
+  const over = new Set<number>();
+  let used = 0;
+  claims.forEach((c, index) => {
+    if (typeof c !== "object" || c === null || (c as { kind?: unknown }).kind !== "contactTime") return;
+    const given = (c as { given?: unknown }).given;
+    const g = typeof given === "object" && given !== null ? (given as Record<string, unknown>) : {};
+    const stations = Array.isArray(g.stations) ? Math.max(1, g.stations.length) : 1;
+    const days = typeof g.days === "number" && Number.isFinite(g.days) && g.days > 0 ? Math.min(g.days, MAX_CONTACT_DAYS) : DEFAULT_CONTACT_DAYS;
+    used += stations * days;
+    if (used > MAX_CONTACT_STATION_DAYS_PER_REQUEST) over.add(index);
+  });
+  return over;
+}
+
+export const CONTACT_BUDGET_MESSAGE = `this request asks for more than ${MAX_CONTACT_STATION_DAYS_PER_REQUEST} station-days of contact search in all; send this claim in another request`;

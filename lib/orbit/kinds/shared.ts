@@ -89,7 +89,7 @@ export function readContactOrbit(g: Inputs, body: Body): ContactOrbit {
   };
 }
 
-export const MAX_STATIONS = 20;
+export const MAX_STATIONS = 10;
 
 /** Reads given.stations: an array of { name, latitude, longitude, altitude?, minimumElevation }. */
 export function readStations(g: Inputs): Station[] {
