@@ -3,3 +3,4 @@ export * from "./boards";
 export * from "./proposals";
 export * from "./reviews";
 export * from "./decisions";
+export * from "./coverage";

@@ -5,9 +5,17 @@ import { accountOperations } from "./operations/accounts";
 import { dossierOperations } from "./operations/dossiers";
 import { reviewOperations } from "./operations/review";
 import { decisionOperations } from "./operations/decisions";
+import { stationOperations } from "./operations/stations";
 
 /** Every /api/v1 operation. Each feature area adds its list here. */
-export const apiOperations: ApiOperation[] = [...systemOperations, ...accountOperations, ...dossierOperations, ...reviewOperations, ...decisionOperations];
+export const apiOperations: ApiOperation[] = [
+  ...systemOperations,
+  ...accountOperations,
+  ...dossierOperations,
+  ...reviewOperations,
+  ...decisionOperations,
+  ...stationOperations,
+];
 
 export function openApiDocument() {
   return buildOpenApiDocument(apiOperations, packageJson.version);

@@ -64,7 +64,7 @@ describe("POST /api/v1/orbit-checks", () => {
           },
         ],
       }),
-      "192.0.2.14",
+      "192.0.2.41",
     );
     expect(res.status).toBe(200);
     const json = await res.json();

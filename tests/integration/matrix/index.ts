@@ -5,6 +5,14 @@ import { dossierRouteCases } from "./dossiers";
 import { systemRouteCases } from "./system";
 import { accountActionCases, accountRouteCases } from "./accounts";
 import { decisionActionCases, decisionRouteCases } from "./decisions";
+import { stationActionCases, stationRouteCases } from "./stations";
 
-export const routeCases: RouteCase[] = [...dossierRouteCases, ...systemRouteCases, ...accountRouteCases, ...reviewRouteCases, ...decisionRouteCases];
-export const actionCases: ActionCase[] = [...accountActionCases, ...decisionActionCases];
+export const routeCases: RouteCase[] = [
+  ...dossierRouteCases,
+  ...systemRouteCases,
+  ...accountRouteCases,
+  ...reviewRouteCases,
+  ...decisionRouteCases,
+  ...stationRouteCases,
+];
+export const actionCases: ActionCase[] = [...accountActionCases, ...decisionActionCases, ...stationActionCases];
