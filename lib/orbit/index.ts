@@ -19,6 +19,7 @@ import type { ClaimResult, OrbitCheckResponse, ToleranceInput } from "./schema";
 import { toleranceSchema } from "./schema";
 
 export { checkOrbitClaims, exitCodeFor, DEFAULT_TOLERANCE, compareQuantity } from "./check";
+export { contactPicture, type ContactPicture } from "./contact-picture";
 export type { Tolerance } from "./check";
 export { ORBIT_CHECK_KINDS, KIND_NAMES } from "./kinds";
 export type { KindInfo, GivenInfo, ComputedInfo, PlotConic } from "./kinds";

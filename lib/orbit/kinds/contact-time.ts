@@ -7,7 +7,7 @@ import { contactStatistics, stationPasses, unionOfPasses, type Pass } from "../c
 import { fail, fmt } from "../errors";
 import type { Inputs } from "../kinds";
 import type { ComputedValue } from "../schema";
-import { evaluation, ORBIT_SHAPE_NAMES, readContactOrbit, readStations, type CoverageKindDef } from "./shared";
+import { evaluation, ORBIT_SHAPE_NAMES, readClosedShape, readContactOrbit, readStations, type CoverageKindDef } from "./shared";
 
 export const DEFAULT_CONTACT_DAYS = 7;
 export const MAX_CONTACT_DAYS = 30;
@@ -88,7 +88,13 @@ export const contactTimeKind: CoverageKindDef = {
   ],
   evaluate(g, body) {
     const r = contactFromInputs(g, body);
-    return evaluation(r.values, body, { unavailable: r.unavailable, messages: r.messages });
+    const { a, e } = readClosedShape(g, body);
+    const p = a * (1 - e * e);
+    return evaluation(r.values, body, {
+      unavailable: r.unavailable,
+      messages: r.messages,
+      conics: [{ label: "orbit", p, e, periapsisRadius: a * (1 - e), apoapsisRadius: a * (1 + e), argPeriapsis: g.optNum("argPeriapsis") ?? 0 }],
+    });
   },
 };
 

@@ -105,6 +105,10 @@ export const repeatGroundTrackKind: CoverageKindDef = {
     if (k > 1) messages.push(`${revs} revolutions in ${days} days repeat already after ${revs / k} revolutions in ${days / k} day(s)`);
     if (e > 0) messages.push("altitude is the semi-major axis minus the equatorial radius (a mean altitude)");
     const { semiMajorAxis, altitude, nodalPeriod, trackSpacing, revolutionsPerDay } = s;
-    return evaluation({ semiMajorAxis, altitude, nodalPeriod, trackSpacing, revolutionsPerDay }, body, { messages });
+    const p = semiMajorAxis * (1 - e * e);
+    return evaluation({ semiMajorAxis, altitude, nodalPeriod, trackSpacing, revolutionsPerDay }, body, {
+      messages,
+      conics: [{ label: "orbit", p, e, periapsisRadius: semiMajorAxis * (1 - e), apoapsisRadius: semiMajorAxis * (1 + e), argPeriapsis: 0 }],
+    });
   },
 };

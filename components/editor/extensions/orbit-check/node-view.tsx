@@ -11,6 +11,8 @@ import type { DossierClaim } from "@/lib/dossier/schema";
 import { formatValue } from "@/lib/dossier/render";
 import { OrbitPlot } from "@/components/orbit-plot/orbit-plot";
 import { VerdictBadge } from "@/components/dossier/verdict-badge";
+import { ContactPictures } from "@/components/coverage/contact-pictures";
+import { StationsInput } from "@/components/coverage/stations-input";
 
 /** All orbit-check blocks of the editor's document, in order. */
 export function blocksOf(editor: Editor): OrbitCheckBlock[] {
@@ -298,6 +300,7 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
                 if (g.type === "vector")
                   return <VectorInput key={key} label={g.name} unit={g.unit} value={claim.given[g.name]} onChange={(v) => setGiven(g.name, v)} />;
                 if (g.type === "maneuvers") return <ManeuversInput key={key} value={claim.given[g.name]} onChange={(v) => setGiven(g.name, v)} />;
+                if (g.type === "stations") return <StationsInput key={key} value={claim.given[g.name]} onChange={(v) => setGiven(g.name, v)} />;
                 if (g.type === "body")
                   return (
                     <SelectInput
@@ -452,6 +455,7 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
         </div>
         <OrbitPlot plot={plot} title={`Plot of ${label || `the ${info.kind} claim`}`} />
       </div>
+      {claim.kind === "contactTime" ? <ContactPictures claim={resolved} label={label} computed={result.computed} /> : null}
     </NodeViewWrapper>
   );
 }
