@@ -8,7 +8,7 @@ import { groundTrack, type Interval, type Pass, unionOfPasses } from "./contact"
 import { OrbitInputError } from "./errors";
 import { Inputs } from "./kinds";
 import { contactFromInputs } from "./kinds/contact-time";
-import { readContactOrbit, readStations } from "./kinds/shared";
+import { readContactOrbit, readStations } from "./kinds/coverage-shared";
 
 export interface ContactPicture {
   /** Name of the central body; only the earth gets coastlines. */

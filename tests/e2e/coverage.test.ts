@@ -1,10 +1,11 @@
 // Ground coverage in a real browser: the chair adds a ground station to the board's list; a
 // proposer adds a contact check to the dossier, picks the station, types the orbit key by key
-// and sees passes per day and the 24-hour contact timeline; Back returns to the board.
+// and sees passes per day and the 24-hour contact timeline, stored with the draft.
 import { describe, expect, it } from "vitest";
 import type { Locator, Page } from "playwright-core";
 import { browserSession } from "../support/browser";
 import { asSessionUser } from "../support/factories";
+import { getDraft } from "@/lib/dal/proposals";
 import { listStations } from "@/lib/dal/stations";
 import { makeProposal } from "../integration/matrix/dossiers";
 
@@ -82,9 +83,11 @@ describe("ground stations and contact checks in the browser", () => {
       expect(await timeline.locator("rect title").count()).toBeGreaterThan(20); // about seven contacts a day for 7 days
       await block.getByRole("img", { name: /Ground track of downlink contact/ }).waitFor();
       await page.locator('[data-save-state="saved"]').waitFor({ timeout: 20_000 });
-      await page.goBack();
-      await page.getByRole("link", { name: proposal.title }).first().waitFor();
-      await page.goForward();
+      // Stored with the station's values copied into the claim, and shown again after a reload.
+      const draft = JSON.stringify((await getDraft(asSessionUser(cast.proposer), cast.board.id, proposal.id)).document);
+      expect(draft).toContain(stationName);
+      expect(draft).toContain('"kind":"contactTime"');
+      await page.reload();
       const again = page.locator("[data-orbit-check-block]").first();
       await again.getByRole("img", { name: /Contact timeline of downlink contact/ }).waitFor();
       expect(await again.getByRole("checkbox", { name: new RegExp(stationName) }).isChecked()).toBe(true);

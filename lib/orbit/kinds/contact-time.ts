@@ -7,7 +7,7 @@ import { contactStatistics, stationPasses, unionOfPasses, type Pass } from "../c
 import { fail, fmt } from "../errors";
 import type { Inputs } from "../kinds";
 import type { ComputedValue } from "../schema";
-import { evaluation, ORBIT_SHAPE_NAMES, readClosedShape, readContactOrbit, readStations, type CoverageKindDef } from "./shared";
+import { evaluation, ORBIT_SHAPE_NAMES, readClosedShape, readContactOrbit, readStations, type CoverageKindDef } from "./coverage-shared";
 
 export const DEFAULT_CONTACT_DAYS = 7;
 export const MAX_CONTACT_DAYS = 30;

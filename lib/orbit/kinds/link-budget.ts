@@ -6,7 +6,7 @@ import type { Body } from "../constants";
 import { fail, fmt } from "../errors";
 import { contactGeometry } from "../ground-contact";
 import type { Inputs } from "../kinds";
-import { DEG, evaluation, type CoverageKindDef } from "./shared";
+import { DEG, evaluation, type CoverageKindDef } from "./coverage-shared";
 
 /** Speed of light, m/s (exact, SI definition). */
 export const SPEED_OF_LIGHT = 299_792_458;

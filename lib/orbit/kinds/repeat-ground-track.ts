@@ -6,7 +6,7 @@ import type { Body } from "../constants";
 import { fail, fmt } from "../errors";
 import { j2SecularRates } from "../j2";
 import type { Inputs } from "../kinds";
-import { DEG, evaluation, type CoverageKindDef } from "./shared";
+import { DEG, evaluation, type CoverageKindDef } from "./coverage-shared";
 
 export const MAX_REPEAT_ITERATIONS = 100;
 
