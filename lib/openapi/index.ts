@@ -3,11 +3,19 @@ import { buildOpenApiDocument, type ApiOperation } from "./registry";
 import { systemOperations } from "./operations/system";
 import { accountOperations } from "./operations/accounts";
 import { dossierOperations } from "./operations/dossiers";
+import { requirementOperations } from "./operations/requirements";
 import { reviewOperations } from "./operations/review";
 import { decisionOperations } from "./operations/decisions";
 
 /** Every /api/v1 operation. Each feature area adds its list here. */
-export const apiOperations: ApiOperation[] = [...systemOperations, ...accountOperations, ...dossierOperations, ...reviewOperations, ...decisionOperations];
+export const apiOperations: ApiOperation[] = [
+  ...systemOperations,
+  ...accountOperations,
+  ...dossierOperations,
+  ...requirementOperations,
+  ...reviewOperations,
+  ...decisionOperations,
+];
 
 export function openApiDocument() {
   return buildOpenApiDocument(apiOperations, packageJson.version);

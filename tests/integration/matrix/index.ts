@@ -2,9 +2,17 @@
 import type { ActionCase, RouteCase } from "./types";
 import { reviewRouteCases } from "./review";
 import { dossierRouteCases } from "./dossiers";
+import { requirementRouteCases } from "./requirements";
 import { systemRouteCases } from "./system";
 import { accountActionCases, accountRouteCases } from "./accounts";
 import { decisionActionCases, decisionRouteCases } from "./decisions";
 
-export const routeCases: RouteCase[] = [...dossierRouteCases, ...systemRouteCases, ...accountRouteCases, ...reviewRouteCases, ...decisionRouteCases];
+export const routeCases: RouteCase[] = [
+  ...dossierRouteCases,
+  ...requirementRouteCases,
+  ...systemRouteCases,
+  ...accountRouteCases,
+  ...reviewRouteCases,
+  ...decisionRouteCases,
+];
 export const actionCases: ActionCase[] = [...accountActionCases, ...decisionActionCases];
