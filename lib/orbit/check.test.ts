@@ -268,6 +268,10 @@ describe("requests", () => {
       "lambert",
       "eclipse",
       "groundContact",
+      // New kinds (issue 13)
+      "lifetime",
+      "disposal",
+      "massBudget",
     ];
     expect([...KIND_NAMES].sort()).toEqual([...contractKinds].sort());
     for (const k of ORBIT_CHECK_KINDS) {

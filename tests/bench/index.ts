@@ -8,6 +8,7 @@
 import { kepler2b, kepler3 } from "astronomia/kepler";
 import { solveKeplerElliptic } from "../../lib/orbit/anomalies/kepler";
 import { checkOrbitClaims } from "../../lib/orbit";
+import { benchLifetime } from "./lifetime";
 
 function lcg(seed: number) {
   let s = seed >>> 0;
@@ -209,3 +210,5 @@ console.log("");
 console.log(`Request of ${claims.length} mixed claims (${templates.length} claim types, every kind), checked in-process, 200 runs`);
 console.log(`  median ${median.toFixed(2)} ms, p95 ${p95.toFixed(2)} ms  (goal: median < 20 ms → ${median < 20 ? "met" : "NOT met"})`);
 console.log(`  statuses: ${JSON.stringify(statuses)}`);
+
+benchLifetime();
