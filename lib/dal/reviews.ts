@@ -166,6 +166,7 @@ export async function getReviewScreen(user: SessionUser, boardId: string, assign
       kind: checkResults.kind,
       status: checkResults.status,
       result: checkResults.result,
+      requirements: checkResults.requirements,
     })
     .from(checkResults)
     .where(and(eq(checkResults.versionId, version.id), eq(checkResults.boardId, boardId)));
@@ -180,6 +181,7 @@ export async function getReviewScreen(user: SessionUser, boardId: string, assign
       status: c.status,
       checks: Array.isArray(result.checks) ? result.checks : [],
       messages: Array.isArray(result.messages) ? result.messages : [],
+      requirements: c.requirements,
     };
     verdicts[c.blockId] = verdict;
     return { id: c.id, blockId: c.blockId, label: c.label, kind: c.kind, status: c.status, verdict, note: noteOf.get(c.id) ?? "" };

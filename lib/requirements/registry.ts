@@ -247,3 +247,14 @@ export function unaddressedRequirements(requirements: readonly CallRequirement[]
     return def !== undefined && !def.kinds.some((k) => kinds.includes(k));
   });
 }
+
+/** The smallest deterministic Δv margin the call asks (for the rail's total margin), 0 without one. */
+export function requiredDeltaVMargin(requirements: readonly Pick<CallRequirement, "type" | "params">[]): number {
+  let m = 0;
+  for (const r of requirements) {
+    if (r.type !== "deltaVMargin") continue;
+    const v = r.params.deterministicMargin;
+    if (typeof v === "number" && Number.isFinite(v)) m = Math.max(m, v);
+  }
+  return m;
+}
