@@ -64,7 +64,9 @@ const deltaVMargin: RequirementDefinition<z.infer<typeof deltaVMarginParams>> = 
         const need = num(claim.computed.propellantRequired);
         const have = num(claim.computed.propellantUsable);
         problems.push(
-          `the budget does not close with its margins${need !== null && have !== null ? `: it needs ${need.toFixed(1)} kg of propellant, ${have.toFixed(1)} kg are usable` : ""}`,
+          `the budget does not close with its margins${need !== null && have !== null ? `: it needs ${need.toFixed(1)} kg of propellant, ${have.toFixed(1)} kg are usable` : ""}${
+            claim.computed.closesWithoutStatisticalMargins === true ? " (it closes only without the statistical phases' margin)" : ""
+          }`,
         );
       }
     } else {
@@ -78,6 +80,8 @@ const deltaVMargin: RequirementDefinition<z.infer<typeof deltaVMarginParams>> = 
         );
     }
     if (problems.length > 0) return { status: "notMet", reason: problems.join("; "), rows };
+    if (!Array.isArray(phases) || phases.length === 0)
+      return { status: "met", reason: `the overall margin is ${pct(rows[0]!.actual!)}, the call asks ${pct(p.deterministicMargin)}`, rows };
     return { status: "met", reason: "every phase carries the margin the call asks, and the budget closes", rows };
   },
 };
