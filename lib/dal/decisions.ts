@@ -1,4 +1,5 @@
 import "server-only";
+import type { RequirementOutcome } from "@/lib/requirements";
 import crypto from "node:crypto";
 import { and, asc, desc, eq, inArray, sql } from "drizzle-orm";
 import { db, type Database, type Transaction } from "@/db/client";
@@ -166,6 +167,8 @@ export interface WorkspaceCheck {
   kind: string;
   status: "consistent" | "inconsistent" | "invalid";
   messages: string[];
+  /** The call's requirements judged on this claim at submission. */
+  requirements: RequirementOutcome[];
 }
 
 export interface DecisionWorkspace {
@@ -303,7 +306,14 @@ export async function getDecisionWorkspace(user: SessionUser, boardId: string, p
     ).map((i) => ({ ...i }));
     checks = (
       await tx
-        .select({ blockId: checkResults.blockId, label: checkResults.label, kind: checkResults.kind, status: checkResults.status, result: checkResults.result })
+        .select({
+          blockId: checkResults.blockId,
+          label: checkResults.label,
+          kind: checkResults.kind,
+          status: checkResults.status,
+          result: checkResults.result,
+          requirements: checkResults.requirements,
+        })
         .from(checkResults)
         .where(and(eq(checkResults.boardId, boardId), eq(checkResults.versionId, version.id)))
         .orderBy(asc(checkResults.createdAt))
@@ -393,7 +403,11 @@ async function composeLetter(
     .select({ n: sql<number>`count(*)::int` })
     .from(reviewItems)
     .where(and(eq(reviewItems.versionId, ctx.version.id), eq(reviewItems.status, "open")));
-  const checks = await tx.select({ status: checkResults.status }).from(checkResults).where(eq(checkResults.versionId, ctx.version.id));
+  const checks = await tx
+    .select({ status: checkResults.status, label: checkResults.label, kind: checkResults.kind, requirements: checkResults.requirements })
+    .from(checkResults)
+    .where(eq(checkResults.versionId, ctx.version.id));
+  const unmet = checks.flatMap((c) => c.requirements.filter((o) => o.status === "notMet").map((o) => `${c.label || c.kind}: ${o.title} — ${o.reason}`));
   const reviewsSubmitted = await submittedReviewCount(ctx.version.id, tx);
   const values = mergeValues({
     proposalTitle: ctx.version.title || ctx.proposal.title,
@@ -413,6 +427,7 @@ async function composeLetter(
     openItemCount: openItems?.n ?? 0,
     checksTotal: checks.length,
     checksFlagged: checks.filter((c) => c.status !== "consistent").length,
+    requirementsNotMet: unmet,
     chairName: user.name,
   });
   const merged = applyMergeFields(blocks, values);

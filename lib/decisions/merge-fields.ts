@@ -33,6 +33,8 @@ export const MERGE_FIELDS: readonly MergeFieldInfo[] = [
   { name: "reviewItems.openCount", description: "Number of review items still open on this version" },
   { name: "checks.total", description: "Number of orbit claims the server recomputed" },
   { name: "checks.flagged", description: "Number of those found inconsistent or invalid" },
+  { name: "requirements.notMetCount", description: "Number of the call's requirements not met on the claims of this version" },
+  { name: "requirements.notMet", description: "Each requirement not met: the claim, the requirement and why, one per line", list: true },
   { name: "chair.name", description: "Name of the chair issuing the decision" },
 ];
 

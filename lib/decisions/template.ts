@@ -76,6 +76,8 @@ export interface MergeFacts {
   openItemCount: number;
   checksTotal: number;
   checksFlagged: number;
+  /** "<claim>: <requirement> — <reason>" for each requirement not met (second verdict axis). */
+  requirementsNotMet?: string[];
   chairName: string;
 }
 
@@ -101,6 +103,9 @@ export function mergeValues(f: MergeFacts): MergeValues {
     "reviewItems.openCount": String(f.openItemCount),
     "checks.total": String(f.checksTotal),
     "checks.flagged": String(f.checksFlagged),
+    "requirements.notMetCount": String(f.requirementsNotMet?.length ?? 0),
+    "requirements.notMet":
+      f.requirementsNotMet && f.requirementsNotMet.length > 0 ? f.requirementsNotMet : ["none: every requirement judged was met or not evaluated"],
     "chair.name": f.chairName,
   };
 }

@@ -3,6 +3,7 @@ import { buildOpenApiDocument, type ApiOperation } from "./registry";
 import { systemOperations } from "./operations/system";
 import { accountOperations } from "./operations/accounts";
 import { dossierOperations } from "./operations/dossiers";
+import { requirementOperations } from "./operations/requirements";
 import { reviewOperations } from "./operations/review";
 import { decisionOperations } from "./operations/decisions";
 import { stationOperations } from "./operations/stations";
@@ -12,6 +13,7 @@ export const apiOperations: ApiOperation[] = [
   ...systemOperations,
   ...accountOperations,
   ...dossierOperations,
+  ...requirementOperations,
   ...reviewOperations,
   ...decisionOperations,
   ...stationOperations,

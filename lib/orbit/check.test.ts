@@ -271,6 +271,10 @@ describe("requests", () => {
       "contactTime",
       "linkBudget",
       "repeatGroundTrack",
+      // New kinds (issue 13)
+      "lifetime",
+      "disposal",
+      "massBudget",
     ];
     expect([...KIND_NAMES].sort()).toEqual([...contractKinds].sort());
     for (const k of ORBIT_CHECK_KINDS) {

@@ -63,12 +63,16 @@ export function compareQuantity(quantity: string, claimed: unknown, computed: Co
     if (typeof claimed !== typeof computed) return `claimed.${quantity} must be a ${typeof computed === "string" ? "text" : "true/false value"}`;
     return row(null, null, claimed === computed);
   }
+  // Tables (decay profiles, budget phases) are shown, not claimed.
+  if (computed.length !== 3 || typeof computed[0] !== "number")
+    return `${quantity} is a table of computed values for plots and reports; claim its single values (e.g. the totals) instead`;
   // Vectors: error is the length of the difference, relative to the computed vector's length.
   if (!Array.isArray(claimed) || claimed.length !== 3 || !claimed.every((c) => typeof c === "number" && Number.isFinite(c)))
     return `claimed.${quantity} must be an array of three finite numbers in ${unit}`;
   const c = claimed as number[];
-  const diff = Math.hypot(c[0]! - computed[0], c[1]! - computed[1], c[2]! - computed[2]);
-  const len = Math.hypot(computed[0], computed[1], computed[2]);
+  const v = computed as [number, number, number];
+  const diff = Math.hypot(c[0]! - v[0], c[1]! - v[1], c[2]! - v[2]);
+  const len = Math.hypot(v[0], v[1], v[2]);
   const rel = len === 0 ? (diff === 0 ? 0 : Infinity) : diff / len;
   return row(rel, diff, within(diff, rel));
 }
@@ -127,7 +131,8 @@ export function evaluateClaim(claim: unknown, tolerance: Tolerance = DEFAULT_TOL
     const computed: Record<string, ComputedValue> = {};
     for (const [k, v] of Object.entries(ev.values)) {
       if (typeof v === "number" && !Number.isFinite(v)) return invalid(id, kind, [...messages, `${k} is not finite for these inputs; check their magnitudes`]);
-      if (Array.isArray(v) && !v.every(Number.isFinite)) return invalid(id, kind, [...messages, `${k} is not finite for these inputs; check their magnitudes`]);
+      if (Array.isArray(v) && v.some((x) => typeof x === "number" && !Number.isFinite(x)))
+        return invalid(id, kind, [...messages, `${k} is not finite for these inputs; check their magnitudes`]);
       computed[k] = v;
     }
     const checks: CheckRow[] = [];

@@ -3,7 +3,7 @@
  * same thing, in the same unit, in every kind that uses it.
  */
 
-export type QuantityType = "number" | "vector" | "text" | "boolean" | "body" | "maneuvers" | "stations";
+export type QuantityType = "number" | "vector" | "text" | "boolean" | "body" | "maneuvers" | "phases" | "massItems" | "table" | "stations";
 
 export interface QuantityInfo {
   unit: string;
@@ -153,6 +153,49 @@ export const QUANTITIES = {
   nodalPeriod: n("s", "time between ascending node crossings"),
   trackSpacing: n("km", "distance between adjacent tracks at the equator"),
   revolutionsPerDay: n("rev/day", "revolutions per nodal day"),
+  // Budgets, lifetime and disposal
+  mass: n("kg", "spacecraft mass"),
+  dragArea: n("m²", "mean cross-section area facing the flow"),
+  dragCoefficient: n(DIMENSIONLESS, "drag coefficient Cd (2.2 is common practice for a compact spacecraft)"),
+  ballisticCoefficient: n("kg/m²", "ballistic coefficient m/(Cd·A)"),
+  solarActivity: { unit: "", type: "text", description: "solar activity level: low, mean or high" } as QuantityInfo,
+  lifetimeYears: n("years", "time until the perigee falls below 100 km"),
+  naturalLifetimeYears: n("years", "lifetime without a disposal burn"),
+  reentered: { unit: "", type: "boolean", description: "the orbit decays within the integration horizon" } as QuantityInfo,
+  decayProfile: { unit: "", type: "table", description: "about 50 samples { years, periapsisAltitude, apoapsisAltitude } for a plot" } as QuantityInfo,
+  targetPerigeeAltitude: n("km", "perigee altitude after the disposal burn"),
+  deadlineYears: n("years", "disposal deadline after the end of the mission"),
+  deadlineMet: { unit: "", type: "boolean", description: "the lifetime is within the deadline" } as QuantityInfo,
+  items: { unit: "kg", type: "massItems", description: "list of { name, mass (kg), maturity: new, modified or offTheShelf }" } as QuantityInfo,
+  systemMargin: n(DIMENSIONLESS, "system margin as a fraction of the dry mass with growth allowances"),
+  launchAllowance: n("kg", "mass the launch allows"),
+  basicMass: n("kg", "sum of the items' masses"),
+  growthAllowance: n("kg", "sum of the items' growth allowances"),
+  massWithGrowth: n("kg", "dry mass including growth allowances"),
+  systemMarginMass: n("kg", "system margin"),
+  totalWithMargin: n("kg", "dry mass with growth allowances and system margin"),
+  wetMass: n("kg", "total with margin plus propellant"),
+  allowanceMargin: n(DIMENSIONLESS, "(launch allowance − wet mass) / launch allowance"),
+  systemMarginAvailable: n(DIMENSIONLESS, "system margin the launch allowance leaves over the dry mass with growth"),
+  fits: { unit: "", type: "boolean", description: "the wet mass is within the launch allowance" } as QuantityInfo,
+  massItems: { unit: "", type: "table", description: "each item with its growth allowance" } as QuantityInfo,
+  phases: { unit: "km/s", type: "phases", description: "Δv budget phases with their type, margin and manoeuvres" } as QuantityInfo,
+  thrusterSpecificImpulse: n("s", "specific impulse of the thrusters"),
+  residualFraction: n(DIMENSIONLESS, "residual and reserve propellant as a fraction of the loaded propellant"),
+  lossFactor: n(DIMENSIONLESS, "the proposer's stated Δv loss for finite burns or low thrust, as a fraction"),
+  deltaVWithMargins: n("km/s", "sum of the phases' Δv with their margins"),
+  phaseDeltaV: { unit: "km/s", type: "table", description: "Δv with margin per phase" } as QuantityInfo,
+  phasePropellant: { unit: "kg", type: "table", description: "propellant per phase" } as QuantityInfo,
+  propellantRequired: n("kg", "propellant the phases need with their margins"),
+  propellantLoaded: n("kg", "initial mass − final mass"),
+  propellantUsable: n("kg", "loaded propellant less the residual fraction"),
+  propellantRemaining: n("kg", "usable − required propellant"),
+  closes: { unit: "", type: "boolean", description: "the usable propellant covers every phase with its margin" } as QuantityInfo,
+  closesWithoutStatisticalMargins: {
+    unit: "",
+    type: "boolean",
+    description: "the budget closes when the statistical phases' margins are left out",
+  } as QuantityInfo,
 } satisfies Record<string, QuantityInfo>;
 
 export type QuantityName = keyof typeof QUANTITIES;
@@ -185,6 +228,7 @@ export const DEFAULT_ABSOLUTE_TOLERANCE: Readonly<Record<string, number>> = {
   dB: 0.05,
   dBW: 0.05,
   "dB-Hz": 0.05,
+  years: 0.01,
 };
 
 export const DEFAULT_RELATIVE_TOLERANCE = 0.01;

@@ -8,6 +8,7 @@
 import { kepler2b, kepler3 } from "astronomia/kepler";
 import { solveKeplerElliptic } from "../../lib/orbit/anomalies/kepler";
 import { checkOrbitClaims } from "../../lib/orbit";
+import { benchLifetime } from "./lifetime";
 
 function lcg(seed: number) {
   let s = seed >>> 0;
@@ -244,3 +245,4 @@ console.log(
   `  median ${contactMedian.toFixed(2)} ms  (goal: median < 50 ms → ${contactMedian < 50 ? "met" : "NOT met"}); ` +
     `${(contactResult.computed.passesPerDay as number).toFixed(2)} passes/day, ${((contactResult.computed.contactPerDay as number) / 60).toFixed(1)} min/day`,
 );
+benchLifetime();

@@ -2,6 +2,7 @@
 import type { ActionCase, RouteCase } from "./types";
 import { reviewRouteCases } from "./review";
 import { dossierRouteCases } from "./dossiers";
+import { requirementRouteCases } from "./requirements";
 import { systemRouteCases } from "./system";
 import { accountActionCases, accountRouteCases } from "./accounts";
 import { decisionActionCases, decisionRouteCases } from "./decisions";
@@ -9,6 +10,7 @@ import { stationActionCases, stationRouteCases } from "./stations";
 
 export const routeCases: RouteCase[] = [
   ...dossierRouteCases,
+  ...requirementRouteCases,
   ...systemRouteCases,
   ...accountRouteCases,
   ...reviewRouteCases,

@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { RequirementFlags } from "@/components/dossier/requirement-flags";
 import Link from "next/link";
 import { NotAllowed, PageTitle, Panel } from "@/components/ui/panel";
 import { orNotFound, pageUser } from "@/lib/auth/page-guard";
@@ -138,7 +139,12 @@ export default async function DecisionPage({ params }: { params: Promise<{ board
             ) : null}
           </dl>
         </Panel>
-        <Panel title="Orbit checks" description={`${flagged.length} of ${w.checks.length} claims flagged by the server`}>
+        <Panel
+          title="Orbit checks"
+          description={`${flagged.length} of ${w.checks.length} claims flagged by the server; ${
+            w.checks.flatMap((c) => c.requirements).filter((o) => o.status === "notMet").length
+          } requirement flags not met`}
+        >
           <ul className="space-y-1 text-sm">
             {w.checks.map((c) => (
               <li key={c.blockId} className="flex items-start justify-between gap-2">
@@ -146,6 +152,7 @@ export default async function DecisionPage({ params }: { params: Promise<{ board
                   {c.label || c.kind} <span className="text-xs text-ink-500">({c.kind})</span>
                 </span>
                 <span className={`rounded-chip px-2 py-0.5 text-xs font-semibold ${verdictClass[c.status]}`}>{verdictText[c.status]}</span>
+                <RequirementFlags outcomes={c.requirements} />
               </li>
             ))}
             {w.checks.length === 0 ? <li className="text-ink-500">No orbit claims in this version.</li> : null}
