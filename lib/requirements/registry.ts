@@ -202,6 +202,129 @@ const maxEclipse: RequirementDefinition<z.infer<typeof eclipseParams>> = {
 };
 
 // ---------------------------------------------------------------------------------------
+// Coverage and links (contactTime, linkBudget)
+
+const minutesText = (s: number) => `${Number((s / 60).toFixed(1))} min`;
+const hoursText = (s: number) => `${Number((s / 3600).toFixed(1))} h`;
+
+/** Names of the stations a contact claim counts (its given.stations). */
+function claimStationNames(claim: RequirementClaim): string[] {
+  const st = claim.given.stations;
+  return Array.isArray(st) ? st.map((x) => (typeof x === "object" && x !== null ? String((x as { name?: unknown }).name ?? "") : "")).filter(Boolean) : [];
+}
+
+/** The contact claim counts only stations the call names (when it names any). */
+function unnamedStations(names: readonly string[] | undefined, claim: RequirementClaim): string[] {
+  if (!names || names.length === 0) return [];
+  return claimStationNames(claim).filter((n) => !names.includes(n));
+}
+
+const contactParams = z.strictObject({
+  minimumPerDay: z
+    .number({ error: "the minimum daily contact must be a number" })
+    .positive("the minimum daily contact must be more than 0")
+    .max(86400, "the minimum daily contact must be at most a day"),
+  stations: z.array(z.string().trim().min(1).max(80)).max(20, "name at most 20 stations").optional(),
+});
+
+const minDailyContact: RequirementDefinition<z.infer<typeof contactParams>> = {
+  type: "minDailyContact",
+  name: "Minimum daily contact time",
+  description:
+    "On the day with the least contact in the dossier's contact check, the spacecraft is in view of the stations (above their minimum elevation) at least this long. When the call names stations, only those may be counted.",
+  params: contactParams,
+  fields: [{ name: "minimumPerDay", label: "Least contact in any one day", unit: "min", scale: 1 / 60, help: "summed over the day's passes" }],
+  presets: [],
+  defaultRationale: "Data comes home only while a station sees the spacecraft; the board asks for enough contact every day, not only on average.",
+  kinds: ["contactTime"],
+  summary: (p) => `Contact at least ${minutesText(p.minimumPerDay)} every day${p.stations?.length ? ` at ${p.stations.join(", ")}` : ""}`,
+  evaluate(p, claim) {
+    const bad = invalidClaim(claim);
+    if (bad) return bad;
+    const least = num(claim.computed.contactPerDayMin);
+    if (least === null) return notEvaluated("no daily contact could be computed");
+    const rows: RequirementRow[] = [
+      { label: "Least daily contact", actual: least, required: p.minimumPerDay, unit: "s", sense: "min", closeWithin: p.minimumPerDay * 0.1 },
+    ];
+    const others = unnamedStations(p.stations, claim);
+    if (others.length > 0)
+      return { status: "notMet", reason: `the contact counts ${others.join(", ")}, which the call does not name (it names ${p.stations!.join(", ")})`, rows };
+    if (least < p.minimumPerDay)
+      return {
+        status: "notMet",
+        reason: `the day with the least contact has ${minutesText(least)}, the call asks at least ${minutesText(p.minimumPerDay)}: add a station or lower the minimum elevation`,
+        rows,
+      };
+    return { status: "met", reason: `at least ${minutesText(least)} of contact every day`, rows };
+  },
+};
+
+const gapParams = z.strictObject({
+  maximumGap: z
+    .number({ error: "the maximum gap must be a number" })
+    .positive("the maximum gap must be more than 0")
+    .max(30 * 86400, "the maximum gap must be at most 30 days"),
+});
+
+const maxContactGap: RequirementDefinition<z.infer<typeof gapParams>> = {
+  type: "maxContactGap",
+  name: "Maximum gap between contacts",
+  description: "The longest time without contact in the dossier's contact check stays within this duration.",
+  params: gapParams,
+  fields: [
+    { name: "maximumGap", label: "Longest time without contact", unit: "h", scale: 1 / 3600, help: "between the end of one pass and the start of the next" },
+  ],
+  presets: [],
+  defaultRationale: "On-board storage and commanding need a station regularly; the board bounds the longest silence.",
+  kinds: ["contactTime"],
+  summary: (p) => `No more than ${hoursText(p.maximumGap)} without contact`,
+  evaluate(p, claim) {
+    const bad = invalidClaim(claim);
+    if (bad) return bad;
+    const gap = num(claim.computed.longestGap);
+    if (gap === null) return notEvaluated("no gap could be computed");
+    const rows: RequirementRow[] = [{ label: "Longest gap", actual: gap, required: p.maximumGap, unit: "s", sense: "max", closeWithin: p.maximumGap * 0.1 }];
+    if (gap > p.maximumGap) return { status: "notMet", reason: `the longest gap is ${hoursText(gap)}, the call allows ${hoursText(p.maximumGap)}`, rows };
+    return { status: "met", reason: `the longest gap is ${hoursText(gap)}`, rows };
+  },
+};
+
+const linkParams = z.strictObject({
+  minimumMargin: z
+    .number({ error: "the minimum link margin must be a number of dB" })
+    .min(0, "the minimum link margin cannot be negative")
+    .max(30, "the minimum link margin must be at most 30 dB"),
+});
+
+const minLinkMargin: RequirementDefinition<z.infer<typeof linkParams>> = {
+  type: "minLinkMargin",
+  name: "Minimum link margin",
+  description: "The link budget closes with at least this margin in Eb/N0 over what the modulation and coding need.",
+  params: linkParams,
+  fields: [{ name: "minimumMargin", label: "Minimum link margin", unit: "dB", scale: 1, help: "received Eb/N0 minus the required Eb/N0" }],
+  presets: [
+    {
+      label: "3 dB (common practice)",
+      params: { minimumMargin: 3 },
+      rationale: "A 3 dB link margin is common practice for screening, not the rule of any authority.",
+    },
+  ],
+  defaultRationale: "Links lose margin to weather, pointing and ageing; the board asks for a margin on top of the stated losses.",
+  kinds: ["linkBudget"],
+  summary: (p) => `Link margin at least ${p.minimumMargin} dB`,
+  evaluate(p, claim) {
+    const bad = invalidClaim(claim);
+    if (bad) return bad;
+    const margin = num(claim.computed.margin);
+    if (margin === null) return notEvaluated("no link margin could be computed");
+    const rows: RequirementRow[] = [{ label: "Link margin", actual: margin, required: p.minimumMargin, unit: "dB", sense: "min", closeWithin: 1 }];
+    if (margin < p.minimumMargin)
+      return { status: "notMet", reason: `the link margin is ${margin.toFixed(1)} dB, the call asks at least ${p.minimumMargin} dB`, rows };
+    return { status: "met", reason: `the link margin is ${margin.toFixed(1)} dB`, rows };
+  },
+};
+
+// ---------------------------------------------------------------------------------------
 
 /** Every requirement type, in the order the chair's list shows them. Add new types here. */
 export const REQUIREMENT_TYPES: readonly RequirementDefinition[] = [
@@ -209,6 +332,9 @@ export const REQUIREMENT_TYPES: readonly RequirementDefinition[] = [
   systemMassMargin,
   disposalDeadline,
   maxEclipse,
+  minDailyContact,
+  maxContactGap,
+  minLinkMargin,
 ] as unknown as readonly RequirementDefinition[];
 
 export function requirementType(type: string): RequirementDefinition | undefined {
