@@ -5,9 +5,12 @@ import { describe, expect, it } from "vitest";
 import type { Locator, Page } from "playwright-core";
 import { browserSession } from "../support/browser";
 import { asSessionUser } from "../support/factories";
-import { getDraft } from "@/lib/dal/proposals";
+import { createProposal, getDraft, saveDraft, submitProposal } from "@/lib/dal/proposals";
+import { assignReviewers } from "@/lib/dal/assignments";
+import { createStation } from "@/lib/dal/stations";
 import { listStations } from "@/lib/dal/stations";
-import { makeProposal } from "../integration/matrix/dossiers";
+import { dossierDoc, makeCall, makeProposal, orbitBlock } from "../integration/matrix/dossiers";
+import { createBoardWithCast } from "../support/factories";
 
 async function typeInto(page: Page, field: Locator, text: string) {
   await field.click();
@@ -93,6 +96,80 @@ describe("ground stations and contact checks in the browser", () => {
       expect(await again.getByRole("checkbox", { name: new RegExp(stationName) }).isChecked()).toBe(true);
     } finally {
       await page.close();
+    }
+  });
+
+  it("chair requires daily contact; the reviewer sees the dossier's contact check flagged not met", { timeout: 240_000 }, async () => {
+    const cast = await createBoardWithCast();
+    const call = await makeCall(cast);
+    const chairUser = asSessionUser(cast.chair);
+    const station = await createStation(chairUser, cast.board.id, {
+      name: "North site",
+      latitude: 64.8,
+      longitude: -147.7,
+      altitude: 0.2,
+      minimumElevation: 10,
+    });
+
+    // The chair: board → call → add the requirement, typing 90 minutes a day.
+    const chair = await as(cast.chair.email);
+    try {
+      await chair.goto("/boards");
+      await chair.getByRole("link", { name: cast.board.name }).first().click();
+      await chair.getByRole("link", { name: call.title }).first().click();
+      await chair.getByRole("heading", { name: "Add a requirement" }).waitFor();
+      await chair.getByLabel("Requirement", { exact: true }).selectOption("minDailyContact");
+      await chair.getByLabel("Least contact in any one day (min)").click();
+      await chair.keyboard.type("90");
+      await chair.getByRole("button", { name: "Add requirement" }).click();
+      await chair.getByText("Added: Contact at least 90 min every day.").waitFor();
+    } finally {
+      await chair.close();
+    }
+
+    // A dossier whose contact check gives about 41 minutes a day at that station, submitted and assigned.
+    const proposer = asSessionUser(cast.proposer);
+    const proposal = await createProposal(proposer, cast.board.id, {
+      title: "Petrel downlink demonstrator",
+      missionType: "science",
+      callId: call.id,
+      coauthorIds: [],
+    });
+    const stationValues = {
+      name: station.name,
+      latitude: station.latitude,
+      longitude: station.longitude,
+      altitude: station.altitude,
+      minimumElevation: station.minimumElevation,
+    };
+    await saveDraft(proposer, cast.board.id, proposal.id, {
+      revision: 1,
+      document: dossierDoc([
+        { type: "heading", attrs: { level: 2 }, content: [{ type: "text", text: "Ground segment" }] },
+        orbitBlock("downlink contact", { kind: "contactTime", body: "earth", given: { altitude: 550, inclination: 97.6, stations: [stationValues] } }),
+      ]),
+    });
+    await submitProposal(proposer, cast.board.id, proposal.id);
+    await assignReviewers(chairUser, cast.board.id, {
+      proposalIds: [proposal.id],
+      reviewerIds: [cast.reviewer.id],
+      dueAt: new Date(Date.now() + 7 * 86_400_000),
+      confirmLikelyConflicts: true,
+    });
+
+    // The reviewer: board → reviews → the dossier; the contact requirement is flagged.
+    const reviewer = await as(cast.reviewer.email);
+    try {
+      await reviewer.goto("/boards");
+      await reviewer.getByRole("link", { name: cast.board.name }).first().click();
+      await reviewer.locator(`a[href="/boards/${cast.board.id}/reviews"]`).first().click();
+      await reviewer.getByRole("link", { name: "Petrel downlink demonstrator" }).click();
+      const checks = reviewer.locator("section[aria-labelledby=checks-heading]");
+      await checks.locator('[data-requirement-outcome="notMet"]').waitFor();
+      await expect(checks.textContent()).resolves.toMatch(/Requirement not met.*Contact at least 90 min every day/);
+      await expect(checks.textContent()).resolves.toMatch(/the day with the least contact has \d+\.\d min/);
+    } finally {
+      await reviewer.close();
     }
   });
 });
