@@ -54,6 +54,30 @@ describe("orbit-check command line", { timeout: 60_000 }, () => {
     expect(r.code).toBe(0);
   });
 
+  it("checks contact time, a link budget and a repeating ground track from a file", () => {
+    const r = run([path.join(examples, "coverage-claims.json")]);
+    expect(r.json!.results.map((x) => [x.id, x.status])).toEqual([
+      ["contact-north", "consistent"],
+      ["downlink", "consistent"],
+      ["repeat", "consistent"],
+    ]);
+    expect(r.code).toBe(0);
+    const bad = run(
+      [],
+      JSON.stringify({
+        claims: [
+          {
+            id: "b",
+            kind: "contactTime",
+            given: { altitude: 550, inclination: 97.6, stations: [{ name: "S", latitude: 95, longitude: 0, minimumElevation: 5 }] },
+          },
+        ],
+      }),
+    );
+    expect(bad.code).toBe(2);
+    expect(bad.json!.results[0]!.messages.join(" ")).toMatch(/latitude must lie between −90° and 90°/);
+  });
+
   it("exits 1 when a claim is wrong", () => {
     const r = run([path.join(examples, "wrong-claim.json")]);
     expect(r.code).toBe(1);

@@ -13,7 +13,27 @@ export interface SummaryItem {
 
 const kms = (v: number) => `${v.toFixed(3)} km/s`;
 
-export function DossierSummary({ items, budget, source }: { items: SummaryItem[]; budget: DeltaVBudget; source: "live" | "server" }) {
+/** Margin against the call's: red below, amber within 5 points, green above, always with words. */
+function marginBand(margin: number, required: number): { text: string; className: string } {
+  const req = `${(required * 100).toFixed(0)} %`;
+  if (margin < required) return { text: required > 0 ? `below the call's ${req}` : "negative: the budget does not close", className: "text-void-700" };
+  if (margin - required <= 0.05) return { text: `within 5 points of ${req}`, className: "text-drift-700" };
+  return { text: `above ${req}`, className: "text-holds-700" };
+}
+
+export function DossierSummary({
+  items,
+  budget,
+  source,
+  requiredMargin = 0,
+}: {
+  items: SummaryItem[];
+  budget: DeltaVBudget;
+  source: "live" | "server";
+  /** The call's minimum deterministic Δv margin (fraction); 0 without a requirement. */
+  requiredMargin?: number;
+}) {
+  const band = budget.margin === null ? null : marginBand(budget.margin, requiredMargin);
   const counts = { consistent: 0, inconsistent: 0, invalid: 0 };
   for (const i of items) counts[i.status] += 1;
   return (
@@ -76,8 +96,9 @@ export function DossierSummary({ items, budget, source }: { items: SummaryItem[]
                 <th scope="row" className="py-0.5 text-left">
                   Margin
                 </th>
-                <td className={`text-right font-mono ${budget.margin === null ? "" : budget.margin >= 0 ? "text-holds-700" : "text-void-700"}`} data-dv-margin>
+                <td className={`text-right font-mono ${band?.className ?? ""}`} data-dv-margin>
                   {budget.margin !== null ? `${(budget.margin * 100).toFixed(1)} %` : "—"}
+                  {band ? <span className="block font-sans text-2xs">{band.text}</span> : null}
                 </td>
               </tr>
             </tbody>

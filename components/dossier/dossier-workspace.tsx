@@ -13,6 +13,8 @@ import { mergeDocuments } from "@/lib/dossier/merge";
 import { renderDossierHtml } from "@/lib/dossier/render";
 import { DossierSummary } from "./dossier-summary";
 import { formatDateTime, formatTime } from "@/lib/format/dates";
+import { BudgetRail, type RailRequirement } from "./budget-rail";
+import { requiredDeltaVMargin } from "@/lib/requirements";
 
 export const AUTOSAVE_DELAY_MS = 1500;
 
@@ -39,6 +41,8 @@ export interface DossierWorkspaceProps {
   proposalId: string;
   draft: { revision: number; document: Record<string, unknown>; updatedAt: string };
   tolerance: ToleranceInput;
+  /** The call's requirements, judged live in the rail. */
+  requirements?: RailRequirement[];
   requiredSections: string[];
   attachments: AttachmentItem[];
   nextVersion: number;
@@ -306,7 +310,8 @@ export function DossierWorkspace(props: DossierWorkspaceProps) {
         <DossierEditor editor={editor} images={images} />
       </div>
       <div className="space-y-4">
-        <DossierSummary items={items} budget={budget} source="live" />
+        <DossierSummary items={items} budget={budget} source="live" requiredMargin={requiredDeltaVMargin(props.requirements ?? [])} />
+        <BudgetRail evaluations={evaluations} requirements={props.requirements ?? []} budget={budget} />
         <section aria-labelledby="submit-heading" className="space-y-2 rounded-panel border border-ink-200 bg-white p-4 shadow-panel">
           <h2 id="submit-heading" className="text-base font-semibold text-ink-900">
             Submit

@@ -17,6 +17,8 @@ const FIGURE_STYLES = [
   "[&_[data-status=consistent]]:border-holds-500 [&_.orbit-check-verdict[data-status=consistent]]:bg-holds-100 [&_.orbit-check-verdict[data-status=consistent]]:text-holds-700",
   "[&_figure[data-status=inconsistent]]:border-drift-500 [&_.orbit-check-verdict[data-status=inconsistent]]:bg-drift-100 [&_.orbit-check-verdict[data-status=inconsistent]]:text-drift-700",
   "[&_figure[data-status=invalid]]:border-void-500 [&_.orbit-check-verdict[data-status=invalid]]:bg-void-100 [&_.orbit-check-verdict[data-status=invalid]]:text-void-700",
+  "[&_.orbit-check-requirements]:mt-2 [&_.orbit-check-requirements]:rounded-chip [&_.orbit-check-requirements]:border [&_.orbit-check-requirements]:border-ink-200 [&_.orbit-check-requirements]:p-2 [&_.orbit-check-requirements]:text-sm",
+  "[&_[data-requirement-status=notMet]]:text-void-700 [&_[data-requirement-status=met]]:text-holds-700",
   "[&_img]:max-w-full [&_img]:rounded-chip",
 ].join(" ");
 
@@ -24,6 +26,8 @@ export interface StoredCheckResult {
   blockId: string;
   status: BlockVerdict["status"];
   result: Record<string, unknown>;
+  /** The call's requirements judged on the claim at submission. */
+  requirements?: BlockVerdict["requirements"];
 }
 
 export function ReadOnlyDossier({
@@ -37,7 +41,9 @@ export function ReadOnlyDossier({
   results?: StoredCheckResult[];
   className?: string;
 }) {
-  const verdicts = results ? Object.fromEntries(results.map((r) => [r.blockId, { ...(r.result as unknown as BlockVerdict), status: r.status }])) : undefined;
+  const verdicts = results
+    ? Object.fromEntries(results.map((r) => [r.blockId, { ...(r.result as unknown as BlockVerdict), status: r.status, requirements: r.requirements }]))
+    : undefined;
   const { doc } = sanitizeDossier(document, { boardId });
   const blocks = extractOrbitChecks(doc);
   // Runs of ordinary blocks as one piece of HTML; each orbit-check block with its plot.

@@ -17,7 +17,7 @@ export function OverviewTable({ boardId, overview }: { boardId: string; overview
   const [onlyFlagged, setOnlyFlagged] = useState(false);
   const scale = overview.scale;
   const data = useMemo(
-    () => (onlyFlagged ? overview.rows.filter((r) => r.checks.inconsistent + r.checks.invalid + r.openItems.major > 0) : overview.rows),
+    () => (onlyFlagged ? overview.rows.filter((r) => r.checks.inconsistent + r.checks.invalid + r.openItems.major + r.requirementsNotMet > 0) : overview.rows),
     [overview.rows, onlyFlagged],
   );
   const columns = useMemo(
@@ -100,6 +100,15 @@ export function OverviewTable({ boardId, overview }: { boardId: string; overview
             </span>
           );
         },
+      }),
+      column.accessor((r) => r.requirementsNotMet, {
+        id: "requirements",
+        header: "Requirements not met",
+        cell: (info) => (
+          <span className={`text-xs ${info.getValue() > 0 ? "font-semibold text-void-700" : "text-ink-600"}`} data-requirements-not-met={info.getValue()}>
+            {info.getValue() > 0 ? `${info.getValue()} not met` : "none"}
+          </span>
+        ),
       }),
       column.display({
         id: "chart",

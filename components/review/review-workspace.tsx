@@ -8,6 +8,7 @@ import { createColumnHelper, getCoreRowModel, useReactTable } from "@tanstack/re
 import { TableView } from "@/components/data-table/table-view";
 import { VerdictBadge } from "@/components/dossier/verdict-badge";
 import type { CheckRow, ReviewScreen, ReviewState } from "@/lib/dal/reviews";
+import { RequirementFlags } from "@/components/dossier/requirement-flags";
 import type { ReviewItemView } from "@/lib/dal/review-items";
 import { changedKeys, keepBoth, mergeDrafts, type Draft, type Overlap } from "@/lib/review/draft-merge";
 import { anchorForTypedQuote, makeAnchor, resolveAnchor, type Anchor } from "@/lib/review/anchors";
@@ -555,13 +556,15 @@ function ChecksPanel({ base, checks, editable, onRevision }: { base: string; che
   const [state, setState] = useState<Record<string, string>>({});
   if (checks.length === 0) return null;
   const flagged = checks.filter((c) => c.status !== "consistent").length;
+  const unmet = checks.filter((c) => (c.verdict.requirements ?? []).some((o) => o.status === "notMet")).length;
   return (
     <section aria-labelledby="checks-heading" className="rounded-panel border border-ink-200 bg-white p-4 shadow-panel">
       <h2 id="checks-heading" className="text-lg font-semibold">
         Orbit checks recomputed by the server
       </h2>
       <p className="mb-3 text-sm text-ink-600">
-        {checks.length} blocks, {flagged} flagged. Two-body screening estimates, not a substitute for high-fidelity analysis.
+        {checks.length} blocks, {flagged} flagged{unmet > 0 ? `, ${unmet} with a requirement not met` : ""}. Two-body screening estimates, not a substitute for
+        high-fidelity analysis.
       </p>
       <ul className="space-y-3">
         {checks.map((c) => (
@@ -589,6 +592,7 @@ function ChecksPanel({ base, checks, editable, onRevision }: { base: string; che
                 {m}
               </p>
             ))}
+            <RequirementFlags outcomes={c.verdict.requirements} showRows />
             {editable || notes[c.id] ? (
               <label className="mt-2 block text-xs font-semibold text-ink-700">
                 Your note on this verdict

@@ -4,3 +4,4 @@ export * from "./proposals";
 export * from "./reviews";
 export * from "./decisions";
 export * from "./orbit-files";
+export * from "./coverage";

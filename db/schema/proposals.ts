@@ -1,6 +1,7 @@
 import { bigint, index, integer, jsonb, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { users } from "./accounts";
 import { boards } from "./boards";
+import type { RequirementOutcome } from "../../lib/requirements/types";
 
 /** The tolerance a call applies when the server recomputes orbit claims (contract units). */
 export interface TolerancePolicy {
@@ -143,6 +144,8 @@ export const checkResults = pgTable(
     status: text("status", { enum: ["consistent", "inconsistent", "invalid"] }).notNull(),
     claim: jsonb("claim").$type<Record<string, unknown>>().notNull(),
     result: jsonb("result").$type<Record<string, unknown>>().notNull(),
+    /** The call's requirements judged on this claim at submission (met / not met / not evaluated). */
+    requirements: jsonb("requirements").$type<RequirementOutcome[]>().notNull().default([]),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [uniqueIndex("check_results_version_block_key").on(t.versionId, t.blockId), index("check_results_version_status_idx").on(t.versionId, t.status)],
@@ -173,4 +176,27 @@ export const attachments = pgTable(
     confirmedAt: timestamp("confirmed_at", { withTimezone: true }),
   },
   (t) => [uniqueIndex("attachments_object_key").on(t.objectKey), index("attachments_proposal_idx").on(t.proposalId)],
+);
+
+/**
+ * A requirement a call sets on every dossier (lib/requirements: the type names its
+ * parameters and how claims are judged). Parameters are stored as validated at creation.
+ */
+export const callRequirements = pgTable(
+  "call_requirements",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    boardId: uuid("board_id")
+      .notNull()
+      .references(() => boards.id, { onDelete: "cascade" }),
+    callId: uuid("call_id")
+      .notNull()
+      .references(() => calls.id, { onDelete: "cascade" }),
+    type: text("type").notNull(),
+    params: jsonb("params").$type<Record<string, unknown>>().notNull(),
+    rationale: text("rationale").notNull().default(""),
+    createdBy: uuid("created_by").references(() => users.id, { onDelete: "set null" }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("call_requirements_call_idx").on(t.callId)],
 );

@@ -980,7 +980,173 @@ function vesper(): DossierSpec {
   };
 }
 
+// ---------------------------------------------------------------------------------------
+// Round 8: two dossiers judged against the call's requirements (budgets and disposal)
+
+/** No propulsion: natural decay from 720 km takes decades, beyond the call's 25 years. */
+function plover(): DossierSpec {
+  // 6U: 11.2 kg, 0.06 m² mean cross-section, Cd 2.2 (the usual value for a compact body).
+  const drag = { mass: 11.2, dragArea: 0.06, dragCoefficient: 2.2 };
+  const orbit = consistent({ label: "the survey orbit", kind: "orbit", body: "earth", given: { altitude: 720 }, claim: { period: 0 } });
+  const eclipse = consistent({
+    label: "the longest eclipse",
+    kind: "eclipse",
+    body: "earth",
+    given: { altitude: 720, betaAngle: 0 },
+    claim: { eclipseDuration: 0 },
+  });
+  const disposal = consistent({
+    label: "end of life by natural decay",
+    kind: "disposal",
+    body: "earth",
+    given: { altitude: 720, ...drag, solarActivity: "mean", deadlineYears: 25 },
+    claim: { lifetimeYears: 1, deltaV: 3, deadlineMet: true },
+  });
+  return {
+    key: "plover",
+    call: "open",
+    owner: "kofi",
+    title: "Plover Sea-Ice Radar Altimeter",
+    missionType: "earth-observation",
+    blocks: [orbit, eclipse, disposal],
+    doc: doc({
+      "Mission objectives": [p("Plover measures sea-ice freeboard in the Barents Sea with a compact Ka-band radar altimeter for two winters.")],
+      "Orbit design": [
+        p(
+          `A 720 km circular orbit (period ${minutes(claimed(orbit, "period"))}) keeps the altimeter footprint small; the longest eclipse lasts ${minutes(claimed(eclipse, "eclipseDuration"))}.`,
+        ),
+        orbit,
+        eclipse,
+      ],
+      "Propulsion and Δv budget": [p("Plover carries no propulsion: the 6U bus has no room for a thruster next to the radar.")],
+      "Operations and risks": [
+        p(
+          `Without a thruster Plover leaves its orbit by drag alone. With a ballistic coefficient of ${fixed(value(disposal, "ballisticCoefficient"), 0)} kg/m² and mean solar activity, `,
+          { b: `re-entry takes about ${fixed(claimed(disposal, "lifetimeYears"), 0)} years` },
+          ".",
+        ),
+        disposal,
+        list("A drag sail was considered and left out for mass.", "Solar maximum in the second winter would shorten the decay."),
+      ],
+    }),
+    files: async () => [
+      await summaryPdf("plover-concept-summary.pdf", "Plover Sea-Ice Radar Altimeter", "Meridian Polar Systems Cooperative", [
+        "6U cubesat, 720 km circular orbit, no propulsion.",
+      ]),
+    ],
+  };
+}
+
+/** Phased budget whose tank holds the deterministic phases with margin but not the statistical margin. */
+function curlew(): DossierSpec {
+  const m0 = 152;
+  const isp = 220;
+  const phases = [
+    {
+      name: "orbit raising",
+      type: "deterministic",
+      margin: 0.1,
+      maneuvers: [
+        { name: "raise apogee", deltaV: 0.061 },
+        { name: "circularise", deltaV: 0.06 },
+      ],
+    },
+    { name: "station keeping, 4 years", type: "deterministic", margin: 0.1, maneuvers: [{ name: "drag make-up", deltaV: 0.028 }] },
+    {
+      name: "dispersion corrections",
+      type: "statistical",
+      margin: 0.2,
+      maneuvers: [
+        { name: "insertion dispersion", deltaV: 0.035 },
+        { name: "collision avoidance", deltaV: 0.012, engine: "thrusters" },
+      ],
+    },
+    { name: "disposal", type: "deterministic", margin: 0.1, maneuvers: [{ name: "perigee to 250 km", deltaV: 0.128 }] },
+  ];
+  const base = { specificImpulse: isp, thrusterSpecificImpulse: 200, initialMass: m0, residualFraction: 0.03 };
+  // Propellant the engine asks for with every margin, and with the statistical margin left out.
+  const full = value(consistent({ label: "sizing", kind: "deltaVBudget", given: { ...base, finalMass: 1, phases }, claim: {} }), "propellantRequired");
+  const lean = value(
+    consistent({
+      label: "sizing",
+      kind: "deltaVBudget",
+      given: { ...base, finalMass: 1, phases: phases.map((ph) => (ph.type === "statistical" ? { ...ph, margin: 0 } : ph)) },
+      claim: {},
+    }),
+    "propellantRequired",
+  );
+  // The tank was sized for the lean figure (plus the residual): the budget closes only without the statistical margin.
+  const finalMass = rounded(m0 - (lean * 1.005) / (1 - base.residualFraction), 1);
+  const loaded = m0 - finalMass;
+  if (!(loaded * (1 - base.residualFraction) > lean && loaded * (1 - base.residualFraction) < full))
+    throw new Error("curlew's tank is not between the two budgets");
+  const dv = consistent({
+    label: "the phased Δv budget",
+    kind: "deltaVBudget",
+    given: { ...base, finalMass, phases },
+    claim: { deltaVRequired: 3, deltaVWithMargins: 3, propellantRequired: 1, closes: true, closesWithoutStatisticalMargins: true },
+  });
+  const mass = consistent({
+    label: "the mass budget",
+    kind: "massBudget",
+    given: {
+      items: [
+        { name: "structure and harness", mass: 21.5, maturity: "new" },
+        { name: "propulsion module (dry)", mass: 14.2, maturity: "modified" },
+        { name: "avionics and radio", mass: 9.8, maturity: "offTheShelf" },
+        { name: "power", mass: 17.4, maturity: "modified" },
+        { name: "hyperspectral imager", mass: 31, maturity: "new" },
+      ],
+      systemMargin: 0.2,
+      launchAllowance: 160,
+      propellantMass: rounded(loaded, 1),
+    },
+    claim: { totalWithMargin: 1, wetMass: 1, fits: true },
+  });
+  return {
+    key: "curlew",
+    call: "open",
+    owner: "lise",
+    title: "Curlew Hyperspectral Coastal Imager",
+    missionType: "earth-observation",
+    blocks: [dv, mass],
+    doc: doc({
+      "Mission objectives": [p("Curlew maps algal blooms along temperate coasts with a hyperspectral imager, revisiting each site every three days.")],
+      "Orbit design": [
+        p("Curlew is released at 480 km and raises itself to a 560 km circular orbit, where it stays for four years before lowering its perigee."),
+      ],
+      "Propulsion and Δv budget": [
+        p(
+          `The budget is phased: deterministic phases carry 10 % and the dispersion corrections 20 %. With every margin the phases need ${fixed(value(dv, "propellantRequired"), 2)} kg of propellant; `,
+          { b: `the tank holds ${fixed(loaded, 1)} kg, of which ${fixed(value(dv, "propellantUsable"), 2)} kg are usable` },
+          ".",
+        ),
+        dv,
+        mass,
+      ],
+      "Operations and risks": [p("The tank is the largest the bus takes; a larger one would need a new structure.")],
+    }),
+    files: async () => [
+      await summaryPdf("curlew-concept-summary.pdf", "Curlew Hyperspectral Coastal Imager", "Perihelion Instruments", [
+        "Phased Δv budget with 10 % (deterministic) and 20 % (statistical) margins.",
+      ]),
+    ],
+  };
+}
+
 /** Every demo dossier, version 1. */
 export function demoDossiers(): DossierSpec[] {
-  return [tern1(), skiffEp(1), wisp(), lantern(), aurora(), harrow(), quill(), petrel(), kite(), sable(), glint(), vesper()];
+  return [tern1(), skiffEp(1), wisp(), lantern(), aurora(), harrow(), quill(), petrel(), kite(), sable(), glint(), vesper(), plover(), curlew()];
 }
+
+/** The requirements the open call sets (added before any dossier is submitted). */
+export const OPEN_CALL_REQUIREMENTS = [
+  {
+    type: "deltaVMargin",
+    params: { deterministicMargin: 0.1, statisticalMargin: 0.2 },
+    rationale: "Round 8 budgets carry 10 % on planned manoeuvres and 20 % on corrections sized from dispersions, and must close with them.",
+  },
+  { type: "systemMassMargin", params: { minimumMargin: 0.2 }, rationale: "" },
+  { type: "disposalDeadline", params: { years: 25 }, rationale: "" },
+  { type: "maxEclipse", params: { maximumDuration: 40 * 60 }, rationale: "The board's reference battery is sized for 40 minutes of shadow per orbit." },
+] as const;

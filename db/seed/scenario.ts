@@ -12,6 +12,8 @@ import type { SessionUser } from "@/lib/auth/session";
 import { assignReviewers } from "@/lib/dal/assignments";
 import { confirmAttachment, presignAttachmentUpload } from "@/lib/dal/attachments";
 import { createCall, updateCall } from "@/lib/dal/calls";
+import { addRequirement } from "@/lib/dal/requirements";
+import { requirementInputSchema } from "@/lib/validation/requirements";
 import { declareConflict } from "@/lib/dal/conflicts";
 import { createInvitation, revokeInvitation } from "@/lib/dal/invitations";
 import { createDecision, getLetterTemplate, reassignPreviousReviewers } from "@/lib/dal/decisions";
@@ -23,7 +25,7 @@ import { dossierPlainText, type DossierNode } from "@/lib/dossier";
 import { callInputSchema } from "@/lib/validation/dossier";
 import type { RubricInput } from "@/lib/validation/review";
 import { DEMO_BOARD, ensureBoard, ensurePerson, type SeedBoard } from "./accounts";
-import { demoDossiers, REQUIRED_SECTIONS, skiffEp, type CallKey, type DossierSpec } from "./dossiers";
+import { demoDossiers, OPEN_CALL_REQUIREMENTS, REQUIRED_SECTIONS, skiffEp, type CallKey, type DossierSpec } from "./dossiers";
 import type { SeedFile } from "./files";
 import { DEMO_PEOPLE, type PersonKey } from "./people";
 
@@ -480,6 +482,8 @@ export async function seedScenario(database: Database, options: { board?: SeedBo
       reviewersPerProposal: 2,
     }),
   );
+  // The open call's requirements, set before any dossier is submitted so each is judged.
+  for (const r of OPEN_CALL_REQUIREMENTS) await addRequirement(chair, boardId, openCall.id, requirementInputSchema.parse(r));
   const callIds: Record<CallKey, string> = { decided: decidedCall.id, open: openCall.id };
   await saveCallRubric(chair, boardId, decidedCall.id, DEMO_RUBRIC);
   await saveCallRubric(chair, boardId, openCall.id, DEMO_RUBRIC);

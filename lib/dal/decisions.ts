@@ -1,4 +1,5 @@
 import "server-only";
+import type { RequirementOutcome } from "@/lib/requirements";
 import crypto from "node:crypto";
 import { and, asc, desc, eq, inArray, sql } from "drizzle-orm";
 import { db, type Database, type Transaction } from "@/db/client";
@@ -169,6 +170,8 @@ export interface WorkspaceCheck {
   kind: string;
   status: "consistent" | "inconsistent" | "invalid";
   messages: string[];
+  /** The call's requirements judged on this claim at submission. */
+  requirements: RequirementOutcome[];
 }
 
 export interface DecisionWorkspace {
@@ -343,6 +346,7 @@ export async function getDecisionWorkspace(user: SessionUser, boardId: string, p
         status: checkResults.status,
         claim: checkResults.claim,
         result: checkResults.result,
+        requirements: checkResults.requirements,
       })
       .from(checkResults)
       .where(and(eq(checkResults.boardId, boardId), eq(checkResults.versionId, version.id)))
@@ -353,6 +357,7 @@ export async function getDecisionWorkspace(user: SessionUser, boardId: string, p
       label: c.label,
       kind: c.kind,
       status: c.status,
+      requirements: c.requirements,
       messages: Array.isArray(c.result.messages) ? (c.result.messages as unknown[]).map(String) : [],
     }));
   }
@@ -441,12 +446,19 @@ async function composeLetter(
     .select({ n: sql<number>`count(*)::int` })
     .from(reviewItems)
     .where(and(eq(reviewItems.versionId, ctx.version.id), eq(reviewItems.status, "open")));
-  const checks = countClaims(
-    await tx
-      .select({ status: checkResults.status, claim: checkResults.claim, result: checkResults.result })
-      .from(checkResults)
-      .where(eq(checkResults.versionId, ctx.version.id)),
-  );
+  const checkRows = await tx
+    .select({
+      status: checkResults.status,
+      claim: checkResults.claim,
+      result: checkResults.result,
+      label: checkResults.label,
+      kind: checkResults.kind,
+      requirements: checkResults.requirements,
+    })
+    .from(checkResults)
+    .where(eq(checkResults.versionId, ctx.version.id));
+  const checks = countClaims(checkRows);
+  const unmet = checkRows.flatMap((c) => c.requirements.filter((o) => o.status === "notMet").map((o) => `${c.label || c.kind}: ${o.title} — ${o.reason}`));
   const reviewsSubmitted = await submittedReviewCount(ctx.version.id, tx);
   const values = mergeValues({
     proposalTitle: ctx.version.title || ctx.proposal.title,
@@ -468,6 +480,7 @@ async function composeLetter(
     checksFlagged: checks.flagged,
     checksInconsistent: checks.inconsistent,
     checksInvalid: checks.invalid,
+    requirementsNotMet: unmet,
     chairName: user.name,
   });
   const merged = applyMergeFields(blocks, values);

@@ -40,6 +40,9 @@ import { callState, loadCall } from "./calls";
 import { isConflicted as reviewerIsConflicted } from "./conflicts";
 import { enqueueSubmissionReceipt } from "@/lib/mail/notices";
 import { formatDateTime } from "@/lib/format/dates";
+import { countOutcomes, judgeBlocks } from "@/lib/dossier/requirements";
+import type { RequirementOutcome } from "@/lib/requirements";
+import { loadRequirements, type CallRequirementView } from "./requirements";
 
 type Db = Database | Transaction;
 
@@ -308,6 +311,8 @@ export interface ProposalDetail extends ProposalRecord {
   callState: "upcoming" | "open" | "closed";
   requiredSections: string[];
   tolerance: { relative: number; absolute?: Record<string, number> };
+  /** The call's requirements, shown to proposers with their rationale and judged live in the rail. */
+  requirements: CallRequirementView[];
   owner: { id: string; name: string };
   coauthors: { id: string; name: string }[];
   canEdit: boolean;
@@ -334,6 +339,7 @@ export async function getProposal(user: SessionUser, boardId: string, proposalId
     callState: callState(call),
     requiredSections: call.requiredSections,
     tolerance: call.tolerance,
+    requirements: await loadRequirements(boardId, proposal.callId),
     owner: owner ?? { id: proposal.ownerId, name: "(unknown)" },
     coauthors,
     canEdit: isAuthor && state.editable,
@@ -460,7 +466,15 @@ export interface SubmissionResult {
   versionId: string;
   number: number;
   counts: { consistent: number; inconsistent: number; invalid: number };
-  results: { blockId: string; label: string; kind: string; status: "consistent" | "inconsistent" | "invalid" }[];
+  /** The call's requirements judged on the claims (second axis). */
+  requirementCounts: { met: number; notMet: number; notEvaluated: number };
+  results: {
+    blockId: string;
+    label: string;
+    kind: string;
+    status: "consistent" | "inconsistent" | "invalid";
+    requirements: { requirementId: string; status: "met" | "notMet" | "notEvaluated"; reason: string }[];
+  }[];
 }
 
 /**
@@ -521,8 +535,13 @@ export async function submitProposal(user: SessionUser, boardId: string, proposa
       }
 
       const number = fresh.latestVersion + 1;
+      // The second axis: the call's requirements judged on each claim, stored with it.
+      const outcomes = judgeBlocks(evaluations, await loadRequirements(boardId, fresh.callId, tx));
       const verdicts: Record<string, BlockVerdict> = Object.fromEntries(
-        evaluations.map((e) => [e.block.blockId, { status: e.result.status, checks: e.result.checks, messages: e.result.messages }]),
+        evaluations.map((e) => [
+          e.block.blockId,
+          { status: e.result.status, checks: e.result.checks, messages: e.result.messages, requirements: outcomes[e.block.blockId] ?? [] },
+        ]),
       );
       const html = renderDossierHtml(doc, { verdicts });
       const documentKey = versionObjectKey(boardId, proposalId, number, "document.json");
@@ -568,6 +587,7 @@ export async function submitProposal(user: SessionUser, boardId: string, proposa
             status: e.result.status,
             claim: e.claim as unknown as Record<string, unknown>,
             result: e.result as unknown as Record<string, unknown>,
+            requirements: outcomes[e.block.blockId] ?? [],
           })),
         );
       }
@@ -578,7 +598,14 @@ export async function submitProposal(user: SessionUser, boardId: string, proposa
       const counts = { consistent: 0, inconsistent: 0, invalid: 0 };
       for (const e of evaluations) counts[e.result.status] += 1;
       await recordAudit(
-        { action: "proposal.submit", actorId: user.id, actorEmail: user.email, boardId, target: proposalId, details: { version: number, ...counts } },
+        {
+          action: "proposal.submit",
+          actorId: user.id,
+          actorEmail: user.email,
+          boardId,
+          target: proposalId,
+          details: { version: number, ...counts, requirementsNotMet: countOutcomes(Object.values(outcomes)).notMet },
+        },
         tx,
       );
       // The receipt commits with the version, so every submitted version gets exactly one.
@@ -607,7 +634,14 @@ export async function submitProposal(user: SessionUser, boardId: string, proposa
         versionId: version!.id,
         number,
         counts,
-        results: evaluations.map((e) => ({ blockId: e.block.blockId, label: e.block.label, kind: e.block.claim.kind, status: e.result.status })),
+        requirementCounts: countOutcomes(Object.values(outcomes)),
+        results: evaluations.map((e) => ({
+          blockId: e.block.blockId,
+          label: e.block.label,
+          kind: e.block.claim.kind,
+          status: e.result.status,
+          requirements: (outcomes[e.block.blockId] ?? []).map((o) => ({ requirementId: o.requirementId, status: o.status, reason: o.reason })),
+        })),
       };
     });
   } catch (error) {
@@ -702,6 +736,8 @@ export interface CheckResultView {
   status: "consistent" | "inconsistent" | "invalid";
   claim: Record<string, unknown>;
   result: Record<string, unknown>;
+  /** The call's requirements judged on this claim at submission. */
+  requirements: RequirementOutcome[];
 }
 
 async function loadVersion(boardId: string, proposalId: string, n: number, tx: Db = db()) {
@@ -733,6 +769,7 @@ export async function versionCheckResults(boardId: string, versionId: string, tx
       status: checkResults.status,
       claim: checkResults.claim,
       result: checkResults.result,
+      requirements: checkResults.requirements,
       document: proposalVersions.document,
     })
     .from(checkResults)
@@ -740,7 +777,7 @@ export async function versionCheckResults(boardId: string, versionId: string, tx
     .where(and(eq(checkResults.boardId, boardId), eq(checkResults.versionId, versionId)));
   const order = rows[0] ? extractOrbitChecks(rows[0].document).map((b) => b.blockId) : [];
   return rows
-    .map((r) => ({ blockId: r.blockId, label: r.label, kind: r.kind, status: r.status, claim: r.claim, result: r.result }))
+    .map((r) => ({ blockId: r.blockId, label: r.label, kind: r.kind, status: r.status, claim: r.claim, result: r.result, requirements: r.requirements }))
     .sort((a, b) => order.indexOf(a.blockId) - order.indexOf(b.blockId));
 }
 
@@ -761,6 +798,8 @@ export async function getVersionCheckResults(user: SessionUser, boardId: string,
 /** Rendered HTML of a version (from its JSON, with the server's verdicts beside each block). */
 export async function getVersionHtml(user: SessionUser, boardId: string, proposalId: string, n: number): Promise<string> {
   const version = await getVersion(user, boardId, proposalId, n);
-  const verdicts = Object.fromEntries(version.checkResults.map((r) => [r.blockId, r.result as unknown as BlockVerdict]));
+  const verdicts = Object.fromEntries(
+    version.checkResults.map((r) => [r.blockId, { ...(r.result as unknown as BlockVerdict), status: r.status, requirements: r.requirements }]),
+  );
   return renderDossierHtml(version.document, { boardId, verdicts });
 }

@@ -183,6 +183,7 @@ export async function getReviewScreen(user: SessionUser, boardId: string, assign
       kind: checkResults.kind,
       status: checkResults.status,
       result: checkResults.result,
+      requirements: checkResults.requirements,
     })
     .from(checkResults)
     .where(and(eq(checkResults.versionId, version.id), eq(checkResults.boardId, boardId)));
@@ -197,6 +198,7 @@ export async function getReviewScreen(user: SessionUser, boardId: string, assign
       status: c.status,
       checks: Array.isArray(result.checks) ? result.checks : [],
       messages: Array.isArray(result.messages) ? result.messages : [],
+      requirements: c.requirements,
     };
     verdicts[c.blockId] = verdict;
     return { id: c.id, blockId: c.blockId, label: c.label, kind: c.kind, status: c.status, verdict, note: noteOf.get(c.id) ?? "" };
@@ -613,6 +615,8 @@ export interface OverviewRow {
   distribution: { level: number; count: number }[];
   openItems: { major: number; minor: number; comment: number };
   checks: { inconsistent: number; invalid: number };
+  /** The call's requirements not met on the latest version's claims (second verdict axis). */
+  requirementsNotMet: number;
 }
 
 export interface CallOverview {
@@ -658,6 +662,16 @@ export async function getCallOverview(user: SessionUser, boardId: string, callId
     : [];
   const itemCounts = new Map(items.map((x) => [`${x.versionId}|${x.severity}`, x.n]));
   const flagCounts = new Map(flags.map((x) => [`${x.versionId}|${x.status}`, x.n]));
+  const unmet = versionIds.length
+    ? await db()
+        .select({
+          versionId: checkResults.versionId,
+          n: sql<number>`coalesce(sum((select count(*) from jsonb_array_elements(${checkResults.requirements}) o where o->>'status' = 'notMet')), 0)::int`,
+        })
+        .from(checkResults)
+        .where(and(eq(checkResults.boardId, boardId), inArray(checkResults.versionId, versionIds)))
+        .groupBy(checkResults.versionId)
+    : [];
   const template = call.rubricTemplateId ? await loadTemplate(boardId, call.rubricTemplateId) : null;
   const scale =
     aggregates.find((a) => a.scale)?.scale ?? (template?.criteria[0] ? { min: template.criteria[0].scaleMin, max: template.criteria[0].scaleMax } : null);
@@ -682,6 +696,7 @@ export async function getCallOverview(user: SessionUser, boardId: string, callId
         distribution: scale ? histogram(a.totals, scale.min, scale.max) : [],
         openItems: { major: count("major"), minor: count("minor"), comment: count("comment") },
         checks: { inconsistent: flag("inconsistent"), invalid: flag("invalid") },
+        requirementsNotMet: unmet.find((x) => x.versionId === r.versionId)?.n ?? 0,
       };
     }),
   };
@@ -712,6 +727,7 @@ export async function getCallOverviewCsv(user: SessionUser, boardId: string, cal
     "open_comment",
     "checks_inconsistent",
     "checks_invalid",
+    "requirements_not_met",
   ];
   const fmt = (v: number | null) => (v === null ? "" : v.toFixed(3));
   const lines = [header.join(",")];
@@ -732,6 +748,7 @@ export async function getCallOverviewCsv(user: SessionUser, boardId: string, cal
         r.openItems.comment,
         r.checks.inconsistent,
         r.checks.invalid,
+        r.requirementsNotMet,
       ]
         .map(csvCell)
         .join(","),

@@ -36,6 +36,8 @@ export const MERGE_FIELDS: readonly MergeFieldInfo[] = [
   { name: "reviews.summary", description: "A sentence on the submitted reviews, worded for none, one or several" },
   { name: "checks.summary", description: "A sentence on the recomputed orbit claims and how many were flagged" },
   { name: "reviews.whereToRead", description: "A sentence saying where the reviews and items can be read (only what exists)" },
+  { name: "requirements.notMetCount", description: "Number of the call's requirements not met on the claims of this version" },
+  { name: "requirements.notMet", description: "Each requirement not met: the claim, the requirement and why, one per line", list: true },
   { name: "chair.name", description: "Name of the chair issuing the decision" },
 ];
 

@@ -72,6 +72,8 @@ export interface MergeFacts {
   checksFlagged: number;
   checksInconsistent?: number;
   checksInvalid?: number;
+  /** "<claim>: <requirement> — <reason>" for each requirement not met (second verdict axis). */
+  requirementsNotMet?: string[];
   chairName: string;
 }
 
@@ -134,6 +136,9 @@ export function mergeValues(f: MergeFacts): MergeValues {
     "reviews.summary": reviewsSentence(f),
     "checks.summary": checksSentence(f),
     "reviews.whereToRead": whereToReadSentence(f),
+    "requirements.notMetCount": String(f.requirementsNotMet?.length ?? 0),
+    "requirements.notMet":
+      f.requirementsNotMet && f.requirementsNotMet.length > 0 ? f.requirementsNotMet : ["none: every requirement judged was met or not evaluated"],
     "chair.name": f.chairName,
   };
 }

@@ -187,8 +187,52 @@ function num(v: unknown): number | null {
   return typeof v === "number" && Number.isFinite(v) ? v : null;
 }
 
-/** Totals the maneuver claims against the propulsion claim (rocket or deltaVBudget). */
+/**
+ * The dossier's own Δv budget block, counted in full: every manoeuvre (or phase) it lists,
+ * not only those that also have a block of their own. Null without a budget block that
+ * evaluates.
+ */
+function ownBudget(evaluations: readonly BlockEvaluation[]): DeltaVBudget | null {
+  const ev = evaluations.find((e) => e.block.claim.kind === "deltaVBudget" && num(e.result.computed.deltaVRequired) !== null);
+  if (!ev) return null;
+  const label = ev.block.label || "Δv budget";
+  const computed = ev.result.computed as Record<string, unknown>;
+  const maneuvers: DeltaVBudget["maneuvers"] = [];
+  if (Array.isArray(computed.phases)) {
+    (computed.phases as Record<string, unknown>[]).forEach((p, i) => {
+      const dv = num(p.deltaV);
+      if (dv !== null)
+        maneuvers.push({ blockId: `${ev.block.blockId}:${i}`, label: `${String(p.name)} (${String(p.type)})`, kind: "phase", deltaV: dv, claimedDeltaV: null });
+    });
+  } else if (Array.isArray(ev.claim.given.maneuvers)) {
+    (ev.claim.given.maneuvers as Record<string, unknown>[]).forEach((m, i) => {
+      const dv = num(m?.deltaV);
+      if (dv !== null)
+        maneuvers.push({
+          blockId: `${ev.block.blockId}:${i}`,
+          label: String(m.name ?? `manoeuvre ${i + 1}`),
+          kind: "maneuver",
+          deltaV: dv,
+          claimedDeltaV: null,
+        });
+    });
+  }
+  return {
+    maneuvers,
+    required: num(computed.deltaVRequired)!,
+    available: num(computed.deltaVAvailable),
+    propulsionLabel: label,
+    margin: num(computed.margin),
+  };
+}
+
+/**
+ * The Δv budget of a dossier: its own budget block when it has one (counted in full), else
+ * the maneuver claims totalled against the propulsion claim (rocket or deltaVBudget).
+ */
 export function deltaVBudget(evaluations: readonly BlockEvaluation[]): DeltaVBudget {
+  const own = ownBudget(evaluations);
+  if (own) return own;
   const maneuvers: DeltaVBudget["maneuvers"] = [];
   let available: number | null = null;
   let propulsionLabel: string | null = null;

@@ -4,6 +4,7 @@
  * is escaped here, and only the elements below can appear.
  */
 import { quantityInfo } from "@/lib/orbit";
+import { REQUIREMENT_STATUS_LABELS, type RequirementOutcome } from "@/lib/requirements/types";
 import { sanitizeDossier } from "./sanitize";
 import type { DossierClaim, DossierMark, DossierNode, SanitizeContext } from "./schema";
 
@@ -16,6 +17,8 @@ export interface BlockVerdict {
   status: "consistent" | "inconsistent" | "invalid";
   checks?: { quantity: string; claimed: unknown; computed: unknown; unit: string; relativeError: number | null; ok: boolean }[];
   messages?: string[];
+  /** The call's requirements judged on this claim at submission. */
+  requirements?: RequirementOutcome[];
 }
 
 export interface RenderOptions extends SanitizeContext {
@@ -94,6 +97,15 @@ function formatPercent(fraction: number): string {
   return `${pct >= 10 ? pct.toFixed(0) : pct >= 0.1 ? pct.toFixed(2) : pct.toPrecision(1)} %`;
 }
 
+/** "Requirement not met: Re-entry within 25 years … — re-entry takes 57.7 years …" per outcome. */
+function requirementsHtml(outcomes: RequirementOutcome[] | undefined): string {
+  if (!outcomes || outcomes.length === 0) return "";
+  const line = (o: RequirementOutcome) =>
+    `<li data-requirement-status="${escapeHtml(o.status)}"><strong>Requirement ${escapeHtml(REQUIREMENT_STATUS_LABELS[o.status])}:</strong> ` +
+    `${escapeHtml(o.title)} — ${escapeHtml(o.reason)}</li>`;
+  return `<div class="orbit-check-requirements"><strong>Call requirements</strong><ul>${outcomes.map(line).join("")}</ul></div>`;
+}
+
 function renderOrbitCheck(node: DossierNode, options: RenderOptions): string {
   const a = node.attrs ?? {};
   const blockId = String(a.blockId ?? "");
@@ -114,7 +126,8 @@ function renderOrbitCheck(node: DossierNode, options: RenderOptions): string {
     ? `<div class="orbit-check-verdict" data-status="${escapeHtml(verdict.status)}"><strong>Server check: ${escapeHtml(STATUS_TEXT[verdict.status])}</strong>` +
       (verdict.checks ?? []).map((c) => `<div data-check-ok="${c.ok}">${escapeHtml(checkLine(c))}</div>`).join("") +
       (verdict.messages ?? []).map((m) => `<div>${escapeHtml(m)}</div>`).join("") +
-      `</div>`
+      `</div>` +
+      requirementsHtml(verdict.requirements)
     : "";
   return (
     `<figure class="orbit-check" id="orbit-check-${escapeHtml(blockId)}" data-orbit-check="" data-block-id="${escapeHtml(blockId)}" data-kind="${escapeHtml(claim.kind)}"${verdict ? attr("data-status", verdict.status) : ""}>` +

@@ -33,17 +33,24 @@ function isRecord(v: unknown): v is Record<string, unknown> {
   return typeof v === "object" && v !== null && !Array.isArray(v);
 }
 
-/** A claim value: numbers, short strings, booleans, small arrays and objects (vectors, maneuvers, body overrides). */
-function cleanValue(v: unknown, depth: number): unknown {
+/**
+ * A claim value: numbers, short strings, booleans, small arrays and objects (vectors,
+ * maneuvers, body overrides, Δv budget phases with their manoeuvres, mass items). Objects
+ * nest at most three deep; a list does not count as a level, but a list directly inside a
+ * list does, so every value stays shallow.
+ */
+function cleanValue(v: unknown, depth: number, inList = false): unknown {
   if (typeof v === "number") return Number.isFinite(v) ? v : undefined;
   if (typeof v === "string") return v.slice(0, 200);
   if (typeof v === "boolean") return v;
   if (depth >= 3) return undefined;
-  if (Array.isArray(v))
+  if (Array.isArray(v)) {
+    const d = inList ? depth + 1 : depth;
     return v
       .slice(0, 50)
-      .map((x) => cleanValue(x, depth + 1))
+      .map((x) => cleanValue(x, d, true))
       .filter((x) => x !== undefined);
+  }
   if (isRecord(v)) return cleanRecord(v, depth + 1, 30);
   return undefined;
 }

@@ -292,6 +292,13 @@ describe("requests", () => {
       "lambert",
       "eclipse",
       "groundContact",
+      "contactTime",
+      "linkBudget",
+      "repeatGroundTrack",
+      // New kinds (issue 13)
+      "lifetime",
+      "disposal",
+      "massBudget",
     ];
     expect([...KIND_NAMES].sort()).toEqual([...contractKinds].sort());
     for (const k of ORBIT_CHECK_KINDS) {

@@ -7,9 +7,10 @@ import { resolveBody } from "./bodies";
 import { isBodyName, type Body, type BodyName } from "./constants";
 import { readClaimedNumber } from "./decimal";
 import { OrbitInputError } from "./errors";
+import { CONTACT_BUDGET_MESSAGE, claimsOverContactBudget } from "./kinds/contact-time";
 import { findHint } from "./hints";
 import { allowedGiven, defaultBodyOf, type Evaluation, Inputs, kindDef, KIND_NAMES, usesBody } from "./kinds";
-import { quantityInfo } from "./quantities";
+import { quantityInfoFor } from "./quantities";
 import { type CheckRow, type ClaimResult, type ClaimStatus, type ComputedValue, type OrbitCheckResponse, requestEnvelopeSchema } from "./schema";
 import { boundFor, DEFAULT_TOLERANCE, mergeTolerance, parseTolerancePolicy, scalarError, type Tolerance } from "./tolerance";
 
@@ -53,14 +54,17 @@ function readClaimed(quantity: string, claimed: unknown, computed: ComputedValue
  * Compares one claimed value with the computed one under contract version 2's rule.
  * Returns the check row, or a message when the claimed value cannot be read.
  */
-export function compareQuantity(quantity: string, claimed: unknown, computed: ComputedValue, tolerance: Tolerance): CheckRow | string {
-  const info = quantityInfo(quantity);
+export function compareQuantity(quantity: string, claimed: unknown, computed: ComputedValue, tolerance: Tolerance, kind = ""): CheckRow | string {
+  const info = quantityInfoFor(kind, quantity);
   const unit = info?.unit ?? "";
   const finite = (x: number) => (Number.isFinite(x) ? x : null);
   if (typeof computed === "string" || typeof computed === "boolean") {
     if (typeof claimed !== typeof computed) return `claimed.${quantity} must be a ${typeof computed === "string" ? "text" : "true/false value"}`;
     return { quantity, claimed, computed, unit, relativeError: null, absoluteError: null, ok: claimed === computed, allowance: null, basis: "exact" };
   }
+  // Tables (decay profiles, budget phases) are shown, not claimed.
+  if (typeof computed !== "number" && (computed.length !== 3 || typeof computed[0] !== "number"))
+    return `${quantity} is a table of computed values for plots and reports; claim its single values (e.g. the totals) instead`;
   const read = readClaimed(quantity, claimed, computed, unit);
   if (typeof read === "string") return read;
   if ("scalar" in read) {
@@ -174,7 +178,8 @@ export function evaluateClaim(claim: unknown, tolerance: Tolerance = DEFAULT_TOL
     const computed: Record<string, ComputedValue> = {};
     for (const [k, v] of Object.entries(ev.values)) {
       if (typeof v === "number" && !Number.isFinite(v)) return invalid(id, kind, [...messages, `${k} is not finite for these inputs; check their magnitudes`]);
-      if (Array.isArray(v) && !v.every(Number.isFinite)) return invalid(id, kind, [...messages, `${k} is not finite for these inputs; check their magnitudes`]);
+      if (Array.isArray(v) && v.some((x) => typeof x === "number" && !Number.isFinite(x)))
+        return invalid(id, kind, [...messages, `${k} is not finite for these inputs; check their magnitudes`]);
       computed[k] = v;
     }
     const checks: CheckRow[] = [];
@@ -195,16 +200,16 @@ export function evaluateClaim(claim: unknown, tolerance: Tolerance = DEFAULT_TOL
         problems.push(ev.unavailable[q] ?? `${q} cannot be computed for these inputs`);
         continue;
       }
-      const r = compareQuantity(q, value, comp, tol);
+      const r = compareQuantity(q, value, comp, tol, kind);
       if (typeof r === "string") problems.push(r);
       else {
-        if (!r.ok && options.hints !== false && typeof comp !== "string" && typeof comp !== "boolean") {
+        if (!r.ok && options.hints !== false && (typeof comp === "number" || (Array.isArray(comp) && comp.every((c) => typeof c === "number")))) {
           const hint = findHint({
             quantity: q,
             unit: r.unit,
             claimed: Array.isArray(value) ? value.map((x) => Number(x)) : Number(value),
             precision: Array.isArray(r.precision) ? Math.hypot(...r.precision) : (r.precision ?? 0),
-            computed: comp,
+            computed: comp as number | readonly number[],
             tolerance: tol,
             computedAll: computed,
             kind,
@@ -249,6 +254,14 @@ export function evaluateClaimWithPolicy(claim: unknown, policy?: unknown, index 
   return evaluateClaim(claim, t.tolerance, index);
 }
 
+/** The id a claim's result carries (as evaluateClaim assigns it). */
+function claimIdOf(claim: unknown, index: number): string {
+  const id = typeof claim === "object" && claim !== null ? (claim as { id?: unknown }).id : undefined;
+  if (typeof id === "string" && id.length > 0) return id.slice(0, 200);
+  if (typeof id === "number" && Number.isFinite(id)) return String(id);
+  return `claim-${index + 1}`;
+}
+
 /** Checks a whole request (any JSON value). Never throws. */
 export function checkOrbitClaims(request: unknown): OrbitCheckResponse {
   try {
@@ -268,7 +281,14 @@ export function checkOrbitClaims(request: unknown): OrbitCheckResponse {
       };
     }
     const tolerance = mergeTolerance(DEFAULT_TOLERANCE, env.data.tolerance);
-    return { contractVersion: CONTRACT_VERSION, notice: NOTICE, results: env.data.claims.map((c, i) => evaluateClaim(c, tolerance, i)) };
+    const overBudget = claimsOverContactBudget(env.data.claims);
+    return {
+      contractVersion: CONTRACT_VERSION,
+      notice: NOTICE,
+      results: env.data.claims.map((c, i) =>
+        overBudget.has(i) ? invalid(claimIdOf(c, i), "contactTime", [CONTACT_BUDGET_MESSAGE]) : evaluateClaim(c, tolerance, i),
+      ),
+    };
   } catch {
     return { contractVersion: CONTRACT_VERSION, notice: NOTICE, error: "the engine could not read this request (internal error)", results: [] };
   }

@@ -142,7 +142,7 @@ type Value = number | readonly number[];
 function agrees(claimed: Value, computed: ComputedValue | Value | undefined, unit: string, precision: number, tol: Tolerance): boolean {
   if (computed === undefined) return false;
   if (typeof claimed === "number") return typeof computed === "number" && scalarAgrees(claimed, computed, unit, precision, tol);
-  return Array.isArray(computed) && vectorAgrees(claimed, computed, unit, precision, tol);
+  return Array.isArray(computed) && computed.every((c) => typeof c === "number") && vectorAgrees(claimed, computed as readonly number[], unit, precision, tol);
 }
 
 const times = (v: Value, f: number): Value => (typeof v === "number" ? v * f : v.map((c) => c * f));
@@ -186,6 +186,8 @@ function search(ctx: HintContext): Hint | undefined {
   // other-quantity: equals another quantity the kind computed in the same unit.
   for (const [k, v] of Object.entries(ctx.computedAll)) {
     if (k === q || ALIASES[q] === k || typeof v === "string" || typeof v === "boolean") continue;
+    // Tables (decay profiles, budget phases) are never a slip for a single value.
+    if (Array.isArray(v) && !v.every((c) => typeof c === "number")) continue;
     if (quantityInfo(k)?.unit !== unit) continue;
     if (agrees(claimed, v, unit, precision, tol))
       return make("other-quantity", `${q} as written equals the computed ${k} (${shown(v)}): was ${k} written where ${q} was meant?`, { quantity: k });

@@ -18,6 +18,7 @@ import { defaultBodyOf, Inputs, kindDef, type PlotConic } from "./kinds";
 import type { ClaimResult, OrbitCheckResponse, ToleranceInput } from "./schema";
 
 export { checkOrbitClaims, exitCodeFor, DEFAULT_TOLERANCE, compareQuantity, evaluateClaimWithPolicy, CONTRACT_VERSION, NOTICE } from "./check";
+export { contactPicture, type ContactPicture } from "./contact-picture";
 export type { Tolerance } from "./check";
 export { parseTolerancePolicy, toleranceSummary, mergeTolerance, boundFor, ANGLE_UNIT } from "./tolerance";
 export type { ToleranceIssue, Bound } from "./tolerance";

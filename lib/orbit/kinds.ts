@@ -40,13 +40,20 @@ import { inclinationForNodalRate, j2SecularRates } from "./j2";
 import { lambert } from "./lambert";
 import { biElliptic, combinedPlaneChange, hohmann, simplePlaneChange } from "./maneuvers";
 import { propagate } from "./propagation";
-import { quantityInfo } from "./quantities";
+import { quantityInfo, quantityInfoFor } from "./quantities";
 import { deltaVBudget, solveRocket } from "./rocket";
 import type { ComputedValue } from "./schema";
 import { elementsToState, stateToElements } from "./state-vectors";
 import { eclipseFraction } from "./eclipse";
 import { contactGeometry, maxPassDuration } from "./ground-contact";
 import { DEG, RAD, norm, type Vec3 } from "./vector";
+import { contactTimeKind } from "./kinds/contact-time";
+import { linkBudgetKind } from "./kinds/link-budget";
+import { repeatGroundTrackKind } from "./kinds/repeat-ground-track";
+import { lifetimeKind } from "./kinds/lifetime";
+import { disposalKind } from "./kinds/disposal";
+import { massBudgetKind } from "./kinds/mass-budget";
+import { phasedDeltaVBudget, phasedValues, readPhases } from "./kinds/delta-v-budget";
 
 /** One conic to draw with r(θ) = p / (1 + e cos θ), rotated by argPeriapsis in the plot plane. */
 export interface PlotConic {
@@ -345,7 +352,7 @@ function angleBetweenZeroAnd(g: Inputs, name: string, maxDeg: number): number {
 // ---------------------------------------------------------------------------------------
 // The kinds
 
-interface KindDef {
+export interface KindDef {
   summary: string;
   givenRule: string;
   given: [string, GivenInfo["use"]][];
@@ -729,16 +736,53 @@ const KIND_DEFS: Record<string, KindDef> = {
   deltaVBudget: {
     usesBody: false,
     summary: "Δv budget against the vehicle's rocket-equation capability",
-    givenRule: "maneuvers [{ name, deltaV (km/s) }], specificImpulse (s), initialMass and finalMass (kg), optional requiredMargin (fraction)",
+    givenRule:
+      "maneuvers [{ name, deltaV (km/s) }] or phases [{ name, type: deterministic or statistical, margin (fraction), maneuvers: [{ name, deltaV, specificImpulse? or engine: main or thrusters }] }], specificImpulse (s, main engine), optional thrusterSpecificImpulse (s), initialMass and finalMass (kg), optional requiredMargin, residualFraction and lossFactor (fractions)",
     given: [
-      ["maneuvers", "required"],
+      ["maneuvers", "choice"],
+      ["phases", "choice"],
       ["specificImpulse", "required"],
+      ["thrusterSpecificImpulse", "optional"],
       ["initialMass", "required"],
       ["finalMass", "required"],
       ["requiredMargin", "optional"],
+      ["residualFraction", "optional"],
+      ["lossFactor", "optional"],
     ],
-    computed: ["deltaVRequired", "deltaVAvailable", "margin", "marginOk"],
+    computed: [
+      "deltaVRequired",
+      "deltaVAvailable",
+      "margin",
+      "marginOk",
+      "deltaVWithMargins",
+      "phases",
+      "phaseDeltaV",
+      "phasePropellant",
+      "propellantRequired",
+      "propellantLoaded",
+      "propellantUsable",
+      "propellantRemaining",
+      "closes",
+      "closesWithoutStatisticalMargins",
+    ],
     evaluate(g, body, options) {
+      if (g.has("phases")) {
+        if (g.has("maneuvers")) fail("give maneuvers (a single list) or phases, not both");
+        const isp = g.num("specificImpulse", "positive");
+        const b = phasedDeltaVBudget(
+          readPhases(g, isp),
+          isp,
+          g.num("initialMass", "positive"),
+          g.num("finalMass", "positive"),
+          g.optNum("residualFraction", "nonNegative") ?? 0,
+          g.optNum("lossFactor", "nonNegative") ?? 0,
+        );
+        const loss = g.optNum("lossFactor");
+        return result(phasedValues(b, g.optNum("requiredMargin")), body, {
+          messages: loss ? [`a loss factor of ${fmt(loss * 100)} % is the proposer's stated assumption for finite burns or low thrust`] : [],
+        });
+      }
+      if (!g.has("maneuvers")) fail("give maneuvers [{ name, deltaV }] or phases [{ name, type, margin, maneuvers }]");
       const raw = g.value("maneuvers");
       if (!Array.isArray(raw)) fail('given.maneuvers must be an array such as [{ "name": "orbit raising", "deltaV": 0.12 }]');
       if (raw.length > 500) fail("given.maneuvers has more than 500 entries");
@@ -963,6 +1007,10 @@ const KIND_DEFS: Record<string, KindDef> = {
     },
   },
 
+  lifetime: lifetimeKind,
+  disposal: disposalKind,
+  massBudget: massBudgetKind,
+
   groundContact: {
     summary: "ground-station coverage geometry and the longest pass of a circular orbit",
     givenRule: "altitude (km, circular orbit) and minimumElevation (deg)",
@@ -994,6 +1042,10 @@ const KIND_DEFS: Record<string, KindDef> = {
       );
     },
   },
+
+  contactTime: contactTimeKind,
+  linkBudget: linkBudgetKind,
+  repeatGroundTrack: repeatGroundTrackKind,
 };
 
 export const KIND_NAMES = Object.keys(KIND_DEFS);
@@ -1014,7 +1066,7 @@ export function defaultBodyOf(kind: string): BodyName {
 export const ORBIT_CHECK_KINDS: readonly KindInfo[] = KIND_NAMES.map((kind) => {
   const d = KIND_DEFS[kind]!;
   const info = (name: string) => {
-    const q = quantityInfo(name);
+    const q = quantityInfoFor(kind, name);
     if (!q) throw new Error(`quantity ${name} missing from the quantities table`);
     return q;
   };

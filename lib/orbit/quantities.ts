@@ -3,7 +3,7 @@
  * same thing, in the same unit, in every kind that uses it.
  */
 
-export type QuantityType = "number" | "vector" | "text" | "boolean" | "body" | "maneuvers";
+export type QuantityType = "number" | "vector" | "text" | "boolean" | "body" | "maneuvers" | "phases" | "massItems" | "table" | "stations";
 
 export interface QuantityInfo {
   unit: string;
@@ -116,9 +116,103 @@ export const QUANTITIES = {
   centralAngle: n("deg", "central angle at the body's centre from the sub-satellite point to the edge of coverage"),
   earthCentralAngle: n("deg", "old name of centralAngle (contract version 1), accepted and emitted for one more version"),
   maxSlantRange: n("km", "slant range at the minimum elevation"),
+  // Coverage and links (contactTime, linkBudget, repeatGroundTrack)
+  stations: {
+    unit: "",
+    type: "stations",
+    description: "ground stations: [{ name, latitude deg, longitude deg, altitude km, minimumElevation deg }]",
+  } as QuantityInfo,
+  days: n("day", "span of the contact search in days (default 7, at most 30)"),
+  dataRate: n("bit/s", "downlink data rate"),
+  passesPerDay: n("1/day", "passes per day over the station(s), mean over the span"),
+  passesPerDayMin: n("1/day", "fewest passes in one day of the span"),
+  passesPerDayMax: n("1/day", "most passes in one day of the span"),
+  contactPerDay: n("s", "contact time per day, mean over the span"),
+  contactPerDayMin: n("s", "contact time of the day with the least contact"),
+  longestPass: n("s", "longest pass"),
+  shortestPass: n("s", "shortest pass (passes cut by the span's ends left out)"),
+  longestGap: n("s", "longest time without contact within the span"),
+  dataVolumePerDay: n("Gbit", "data brought down per day: mean daily contact time × data rate"),
+  dataVolumePerDayMin: n("Gbit", "data brought down on the day with the least contact"),
+  frequency: n("GHz", "carrier frequency"),
+  transmitPower: n("W", "transmitter output power"),
+  transmitGain: n("dBi", "transmit antenna gain"),
+  receiveGain: n("dBi", "receive antenna gain"),
+  transmitDiameter: n("m", "transmit dish diameter (gain from diameter and efficiency)"),
+  receiveDiameter: n("m", "receive dish diameter (gain from diameter and efficiency)"),
+  antennaEfficiency: n(DIMENSIONLESS, "aperture efficiency of the dishes (default 0.55)"),
+  gOverT: n("dB/K", "receiving system figure of merit G/T"),
+  systemNoiseTemperature: n("K", "receiving system noise temperature"),
+  losses: n("dB", "other losses in total: line, pointing, atmospheric, polarisation"),
+  requiredEbN0: n("dB", "Eb/N0 the modulation and coding need"),
+  range: n("km", "distance from transmitter to receiver"),
+  eirp: n("dBW", "effective isotropic radiated power"),
+  pathLoss: n("dB", "free-space path loss"),
+  cOverN0: n("dB-Hz", "received carrier-to-noise-density ratio"),
+  ebN0: n("dB", "received energy per bit over noise density"),
+  revolutionsPerCycle: n(DIMENSIONLESS, "revolutions in one repeat cycle"),
+  daysPerCycle: n("day", "nodal days in one repeat cycle"),
+  nodalPeriod: n("s", "time between ascending node crossings"),
+  trackSpacing: n("km", "distance between adjacent tracks at the equator"),
+  revolutionsPerDay: n("rev/day", "revolutions per nodal day"),
+  // Budgets, lifetime and disposal
+  mass: n("kg", "spacecraft mass"),
+  dragArea: n("m²", "mean cross-section area facing the flow"),
+  dragCoefficient: n(DIMENSIONLESS, "drag coefficient Cd (2.2 is common practice for a compact spacecraft)"),
+  ballisticCoefficient: n("kg/m²", "ballistic coefficient m/(Cd·A)"),
+  solarActivity: { unit: "", type: "text", description: "solar activity level: low, mean or high" } as QuantityInfo,
+  lifetimeYears: n("years", "time until the perigee falls below 100 km"),
+  naturalLifetimeYears: n("years", "lifetime without a disposal burn"),
+  reentered: { unit: "", type: "boolean", description: "the orbit decays within the integration horizon" } as QuantityInfo,
+  decayProfile: { unit: "", type: "table", description: "about 50 samples { years, periapsisAltitude, apoapsisAltitude } for a plot" } as QuantityInfo,
+  targetPerigeeAltitude: n("km", "perigee altitude after the disposal burn"),
+  deadlineYears: n("years", "disposal deadline after the end of the mission"),
+  deadlineMet: { unit: "", type: "boolean", description: "the lifetime is within the deadline" } as QuantityInfo,
+  items: { unit: "kg", type: "massItems", description: "list of { name, mass (kg), maturity: new, modified or offTheShelf }" } as QuantityInfo,
+  systemMargin: n(DIMENSIONLESS, "system margin as a fraction of the dry mass with growth allowances"),
+  launchAllowance: n("kg", "mass the launch allows"),
+  basicMass: n("kg", "sum of the items' masses"),
+  growthAllowance: n("kg", "sum of the items' growth allowances"),
+  massWithGrowth: n("kg", "dry mass including growth allowances"),
+  systemMarginMass: n("kg", "system margin"),
+  totalWithMargin: n("kg", "dry mass with growth allowances and system margin"),
+  wetMass: n("kg", "total with margin plus propellant"),
+  allowanceMargin: n(DIMENSIONLESS, "(launch allowance − wet mass) / launch allowance"),
+  systemMarginAvailable: n(DIMENSIONLESS, "system margin the launch allowance leaves over the dry mass with growth"),
+  fits: { unit: "", type: "boolean", description: "the wet mass is within the launch allowance" } as QuantityInfo,
+  massItems: { unit: "", type: "table", description: "each item with its growth allowance" } as QuantityInfo,
+  phases: { unit: "km/s", type: "phases", description: "Δv budget phases with their type, margin and manoeuvres" } as QuantityInfo,
+  thrusterSpecificImpulse: n("s", "specific impulse of the thrusters"),
+  residualFraction: n(DIMENSIONLESS, "residual and reserve propellant as a fraction of the loaded propellant"),
+  lossFactor: n(DIMENSIONLESS, "the proposer's stated Δv loss for finite burns or low thrust, as a fraction"),
+  deltaVWithMargins: n("km/s", "sum of the phases' Δv with their margins"),
+  phaseDeltaV: { unit: "km/s", type: "table", description: "Δv with margin per phase" } as QuantityInfo,
+  phasePropellant: { unit: "kg", type: "table", description: "propellant per phase" } as QuantityInfo,
+  propellantRequired: n("kg", "propellant the phases need with their margins"),
+  propellantLoaded: n("kg", "initial mass − final mass"),
+  propellantUsable: n("kg", "loaded propellant less the residual fraction"),
+  propellantRemaining: n("kg", "usable − required propellant"),
+  closes: { unit: "", type: "boolean", description: "the usable propellant covers every phase with its margin" } as QuantityInfo,
+  closesWithoutStatisticalMargins: {
+    unit: "",
+    type: "boolean",
+    description: "the budget closes when the statistical phases' margins are left out",
+  } as QuantityInfo,
 } satisfies Record<string, QuantityInfo>;
 
 export type QuantityName = keyof typeof QUANTITIES;
+
+/** Quantities whose unit in one kind differs from the table (the contract fixes these names). */
+const KIND_QUANTITIES: Record<string, Record<string, QuantityInfo>> = {
+  linkBudget: { margin: n("dB", "received Eb/N0 minus the required Eb/N0") },
+};
+
+/** The quantity as one kind uses it (the table entry unless the kind overrides it). */
+export function quantityInfoFor(kind: string, name: string): QuantityInfo | undefined {
+  const own = Object.prototype.hasOwnProperty.call(KIND_QUANTITIES, kind) ? KIND_QUANTITIES[kind] : undefined;
+  if (own && Object.prototype.hasOwnProperty.call(own, name)) return own[name];
+  return quantityInfo(name);
+}
 
 export function quantityInfo(name: string): QuantityInfo | undefined {
   return Object.prototype.hasOwnProperty.call(QUANTITIES, name) ? (QUANTITIES as Record<string, QuantityInfo>)[name] : undefined;
@@ -133,6 +227,10 @@ export const DEFAULT_ABSOLUTE_TOLERANCE: Readonly<Record<string, number>> = {
   kg: 0.1,
   "deg/day": 0.001,
   [DIMENSIONLESS]: 1e-4,
+  dB: 0.05,
+  dBW: 0.05,
+  "dB-Hz": 0.05,
+  years: 0.01,
 };
 
 /** Contract version 2: 0.1 %. */

@@ -75,7 +75,10 @@ export const requestEnvelopeSchema = z.object({
 
 export const statusSchema = z.enum(["consistent", "inconsistent", "invalid"]);
 
-const computedValueSchema = z.union([finite, z.string(), z.boolean(), vectorSchema]);
+/** A table computed for plots and reports (e.g. a decay profile, budget phases); not claimable as one value. */
+const computedTableSchema = z.array(z.record(z.string(), z.union([finite, z.string(), z.boolean()])));
+
+const computedValueSchema = z.union([finite, z.string(), z.boolean(), vectorSchema, computedTableSchema]);
 
 /** The hint codes of contract version 2, in the order they are searched. */
 export const HINT_CODES = [

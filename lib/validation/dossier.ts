@@ -174,6 +174,13 @@ export const checkResultSchema = z.object({
   status: z.enum(["consistent", "inconsistent", "invalid"]),
   claim: z.record(z.string(), z.unknown()),
   result: z.record(z.string(), z.unknown()),
+  requirements: z
+    .array(
+      z
+        .object({ requirementId: z.string(), type: z.string(), title: z.string(), status: z.enum(["met", "notMet", "notEvaluated"]), reason: z.string() })
+        .loose(),
+    )
+    .describe("the call's requirements judged on this claim at submission: met, notMet or notEvaluated with the reason"),
 });
 
 export const versionNumberSchema = z.coerce

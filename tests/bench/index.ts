@@ -9,6 +9,7 @@
 import { kepler2b, kepler3 } from "astronomia/kepler";
 import { solveKeplerElliptic } from "../../lib/orbit/anomalies/kepler";
 import { checkOrbitClaims } from "../../lib/orbit";
+import { benchLifetime } from "./lifetime";
 
 function lcg(seed: number) {
   let s = seed >>> 0;
@@ -246,3 +247,39 @@ console.log(
 console.log("  (wall time includes waiting for a core on a shared machine; CPU time does not)");
 console.log(`  statuses: ${JSON.stringify(statuses)}`);
 console.log(`  failing rows searched for hints: ${failingRows.length}; hints found: ${JSON.stringify(hinted)}`);
+
+// ---------------------------------------------------------------------------------------
+// contactTime: 7 days, one station (goal: median < 50 ms).
+const contactRequest = {
+  claims: [
+    {
+      id: "contact",
+      kind: "contactTime",
+      body: EARTH,
+      given: {
+        altitude: 550,
+        inclination: 97.6,
+        raan: 40,
+        stations: [{ name: "North site", latitude: 64.8, longitude: -147.7, minimumElevation: 10 }],
+        days: 7,
+      },
+    },
+  ],
+};
+for (let i = 0; i < 5; i++) checkOrbitClaims(contactRequest);
+const contactTimes: number[] = [];
+for (let i = 0; i < 41; i++) {
+  const t0 = performance.now();
+  checkOrbitClaims(contactRequest);
+  contactTimes.push(performance.now() - t0);
+}
+contactTimes.sort((a, b) => a - b);
+const contactMedian = contactTimes[Math.floor(contactTimes.length / 2)]!;
+const contactResult = checkOrbitClaims(contactRequest).results[0]!;
+console.log("");
+console.log("contactTime, 7 days, 1 station (550 km, 97.6°, station at 64.8° N, 10° mask), 41 runs");
+console.log(
+  `  median ${contactMedian.toFixed(2)} ms  (goal: median < 50 ms → ${contactMedian < 50 ? "met" : "NOT met"}); ` +
+    `${(contactResult.computed.passesPerDay as number).toFixed(2)} passes/day, ${((contactResult.computed.contactPerDay as number) / 60).toFixed(1)} min/day`,
+);
+benchLifetime();

@@ -5,6 +5,7 @@ import {
   attachments,
   boardMembers,
   boards,
+  callRequirements,
   calls,
   checkResults,
   conflicts,
@@ -97,12 +98,12 @@ describe("demo scenario", () => {
     expect(open.opensAt.getTime()).toBeLessThan(Date.now());
     expect(open.closesAt.getTime()).toBeGreaterThan(Date.now());
 
-    // Twelve proposals in their states.
+    // Fourteen proposals in their states.
     const rows = await db()
       .select({ id: proposals.id, title: proposals.title, status: proposals.status, callId: proposals.callId, latestVersion: proposals.latestVersion })
       .from(proposals)
       .where(eq(proposals.boardId, boardId));
-    expect(rows).toHaveLength(12);
+    expect(rows).toHaveLength(14);
     const byKey = (key: string) => rows.find((r) => r.id === s.proposals[key])!;
     expect(byKey("tern-1").status).toBe("decided");
     expect(byKey("wisp").status).toBe("decided");
@@ -110,6 +111,8 @@ describe("demo scenario", () => {
     expect(byKey("kite").status).toBe("draft");
     expect(byKey("glint").status).toBe("draft");
     expect(byKey("quill").status).toBe("submitted");
+    expect(byKey("plover").status).toBe("submitted");
+    expect(byKey("curlew").status).toBe("submitted");
     expect(rows.filter((r) => r.callId === decided.id)).toHaveLength(3);
 
     // The server recomputed every block of every submitted version and agrees with the verdict each block was built for.
@@ -138,6 +141,26 @@ describe("demo scenario", () => {
     const skiffV2 = versionRows.find((v) => v.proposalId === s.proposals["skiff-ep"] && v.number === 2)!;
     expect(results.filter((r) => r.versionId === skiffV2.id).map((r) => r.status)).toEqual(expect.arrayContaining(["consistent"]));
     expect(results.filter((r) => r.versionId === skiffV2.id && r.status !== "consistent")).toEqual([]);
+
+    // The open call's requirements judged each claim at submission (figures from the engine):
+    // Plover has no propulsion and misses the 25-year deadline; Curlew's budget closes only
+    // without its statistical margin; its mass budget meets the 20 % system margin.
+    expect((await db().select({ id: callRequirements.id }).from(callRequirements).where(eq(callRequirements.callId, open.id))).length).toBe(4);
+    const judged = await db()
+      .select({ blockId: checkResults.blockId, versionId: checkResults.versionId, requirements: checkResults.requirements })
+      .from(checkResults)
+      .where(eq(checkResults.boardId, boardId));
+    const outcome = (proposal: string, label: string) => {
+      const b = s.blocks.find((x) => x.proposal === proposal && x.label === label)!;
+      return judged.find((r) => r.blockId === b.blockId)!.requirements;
+    };
+    expect(outcome("plover", "end of life by natural decay")).toMatchObject([{ type: "disposalDeadline", status: "notMet" }]);
+    expect(outcome("curlew", "the phased Δv budget")).toMatchObject([{ type: "deltaVMargin", status: "notMet" }]);
+    expect(outcome("curlew", "the phased Δv budget")[0]!.reason).toMatch(/closes only without the statistical phases' margin/);
+    expect(outcome("curlew", "the mass budget")).toMatchObject([{ type: "systemMassMargin", status: "met" }]);
+    // Claims of the decided call are judged by nothing (that call sets no requirements).
+    const decidedVersions = new Set(versionRows.filter((v) => rows.find((r) => r.id === v.proposalId)?.callId === decided.id).map((v) => v.id));
+    expect(judged.filter((r) => decidedVersions.has(r.versionId)).every((r) => r.requirements.length === 0)).toBe(true);
 
     // Attachments were uploaded to the store and confirmed.
     const files = await db()
@@ -202,7 +225,7 @@ describe("demo scenario", () => {
     // Running it again changes nothing.
     const again = await seedDemo(db(), { mode: "demo", board });
     expect(again.scenario).toMatchObject({ skipped: true, boardId, calls: { decided: decided.id, open: open.id } });
-    expect(await db().select({ id: proposals.id }).from(proposals).where(eq(proposals.boardId, boardId))).toHaveLength(12);
+    expect(await db().select({ id: proposals.id }).from(proposals).where(eq(proposals.boardId, boardId))).toHaveLength(14);
     expect(
       await db()
         .select({ id: decisions.id })

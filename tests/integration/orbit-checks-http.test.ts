@@ -41,6 +41,39 @@ describe("POST /api/v1/orbit-checks", () => {
     expect(json.results[0].checks).toHaveLength(2);
   });
 
+  it("checks contact time, a link budget and a repeating ground track, and refuses a bad station with a reason", async () => {
+    const res = await post(
+      JSON.stringify({
+        claims: [
+          {
+            id: "contact",
+            kind: "contactTime",
+            given: { altitude: 550, inclination: 97.6, stations: [{ name: "North site", latitude: 64.8, longitude: -147.7, minimumElevation: 10 }] },
+          },
+          {
+            id: "link",
+            kind: "linkBudget",
+            given: { frequency: 1.6927, transmitPower: 1, transmitGain: 14.8, losses: 0.6, gOverT: -0.3, range: 41127, dataRate: 9600, requiredEbN0: 5.6 },
+            claimed: { margin: 7.8 },
+          },
+          { id: "repeat", kind: "repeatGroundTrack", given: { revolutionsPerCycle: 20, daysPerCycle: 1, inclination: 50 } },
+          {
+            id: "station",
+            kind: "contactTime",
+            given: { altitude: 550, inclination: 97.6, stations: [{ name: "S", latitude: 91, longitude: 0, minimumElevation: 5 }] },
+          },
+        ],
+      }),
+      "192.0.2.41",
+    );
+    expect(res.status).toBe(200);
+    const json = await res.json();
+    expect(json.results.map((r: { status: string }) => r.status)).toEqual(["consistent", "consistent", "invalid", "invalid"]);
+    expect(json.results[0].computed.passesPerDay).toBeGreaterThan(5);
+    expect(json.results[2].messages.join(" ")).toMatch(/no orbit repeats 20 revolutions/);
+    expect(json.results[3].messages.join(" ")).toMatch(/latitude must lie between/);
+  });
+
   it("answers 200 for inconsistent and invalid claims, with the reasons", async () => {
     const res = await post(
       JSON.stringify({

@@ -26,7 +26,18 @@ const submissionSchema = z.object({
     versionId: z.uuid(),
     number: z.number().int(),
     counts: z.object({ consistent: z.number().int(), inconsistent: z.number().int(), invalid: z.number().int() }),
-    results: z.array(z.object({ blockId: z.string(), label: z.string(), kind: z.string(), status: z.enum(["consistent", "inconsistent", "invalid"]) })),
+    requirementCounts: z
+      .object({ met: z.number().int(), notMet: z.number().int(), notEvaluated: z.number().int() })
+      .describe("the call's requirements judged on the claims"),
+    results: z.array(
+      z.object({
+        blockId: z.string(),
+        label: z.string(),
+        kind: z.string(),
+        status: z.enum(["consistent", "inconsistent", "invalid"]),
+        requirements: z.array(z.object({ requirementId: z.string(), status: z.enum(["met", "notMet", "notEvaluated"]), reason: z.string() })),
+      }),
+    ),
   }),
 });
 

@@ -90,6 +90,7 @@ const overviewRow = z.object({
   distribution: z.array(z.object({ level: z.number().int(), count: z.number().int() })),
   openItems: z.object({ major: z.number().int(), minor: z.number().int(), comment: z.number().int() }),
   checks: z.object({ inconsistent: z.number().int(), invalid: z.number().int() }),
+  requirementsNotMet: z.number().int().describe("the call's requirements not met on the latest version's claims"),
 });
 
 export const reviewOperations = defineOperations([

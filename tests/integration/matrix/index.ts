@@ -2,17 +2,21 @@
 import type { ActionCase, RouteCase } from "./types";
 import { reviewRouteCases } from "./review";
 import { dossierRouteCases } from "./dossiers";
+import { requirementRouteCases } from "./requirements";
 import { systemRouteCases } from "./system";
 import { accountActionCases, accountRouteCases } from "./accounts";
 import { decisionActionCases, decisionRouteCases } from "./decisions";
 import { orbitFileRouteCases } from "./orbit-files";
+import { stationActionCases, stationRouteCases } from "./stations";
 
 export const routeCases: RouteCase[] = [
   ...dossierRouteCases,
+  ...requirementRouteCases,
   ...systemRouteCases,
   ...accountRouteCases,
   ...reviewRouteCases,
   ...decisionRouteCases,
   ...orbitFileRouteCases,
+  ...stationRouteCases,
 ];
-export const actionCases: ActionCase[] = [...accountActionCases, ...decisionActionCases];
+export const actionCases: ActionCase[] = [...accountActionCases, ...decisionActionCases, ...stationActionCases];

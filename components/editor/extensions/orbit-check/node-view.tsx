@@ -11,6 +11,9 @@ import type { DossierClaim } from "@/lib/dossier/schema";
 import { formatValue } from "@/lib/dossier/render";
 import { OrbitPlot } from "@/components/orbit-plot/orbit-plot";
 import { VerdictBadge } from "@/components/dossier/verdict-badge";
+import { ContactPictures } from "@/components/coverage/contact-pictures";
+import { StationsInput } from "@/components/coverage/stations-input";
+import { MassItemsInput, PhasesInput } from "./budget-inputs";
 
 /** All orbit-check blocks of the editor's document, in order. */
 export function blocksOf(editor: Editor): OrbitCheckBlock[] {
@@ -209,7 +212,8 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
     );
   };
   const referenced = reference && initialFrom ? new Set(reference.replaces) : new Set<string>();
-  const unclaimed = info.computed.filter((c) => !claimedRows.includes(c.name));
+  // Tables (decay profile, budget phases) are shown in the rail's charts, not claimed.
+  const unclaimed = info.computed.filter((c) => !claimedRows.includes(c.name) && c.type !== "table");
   const checks = new Map(result.checks.map((c) => [c.quantity, c]));
 
   return (
@@ -298,6 +302,9 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
                 if (g.type === "vector")
                   return <VectorInput key={key} label={g.name} unit={g.unit} value={claim.given[g.name]} onChange={(v) => setGiven(g.name, v)} />;
                 if (g.type === "maneuvers") return <ManeuversInput key={key} value={claim.given[g.name]} onChange={(v) => setGiven(g.name, v)} />;
+                if (g.type === "stations") return <StationsInput key={key} value={claim.given[g.name]} onChange={(v) => setGiven(g.name, v)} />;
+                if (g.type === "phases") return <PhasesInput key={key} value={claim.given[g.name]} onChange={(v) => setGiven(g.name, v)} />;
+                if (g.type === "massItems") return <MassItemsInput key={key} value={claim.given[g.name]} onChange={(v) => setGiven(g.name, v)} />;
                 if (g.type === "body")
                   return (
                     <SelectInput
@@ -313,8 +320,8 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
                     <SelectInput
                       key={key}
                       label={g.name}
-                      value={typeof claim.given[g.name] === "string" ? (claim.given[g.name] as string) : "prograde"}
-                      options={["prograde", "retrograde"]}
+                      value={typeof claim.given[g.name] === "string" ? (claim.given[g.name] as string) : g.name === "solarActivity" ? "mean" : "prograde"}
+                      options={g.name === "solarActivity" ? ["mean", "low", "high"] : ["prograde", "retrograde"]}
                       onChange={(v) => setGiven(g.name, v)}
                     />
                   );
@@ -441,7 +448,9 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
                   <div key={k} className="contents">
                     <dt className="text-ink-600">{k}</dt>
                     <dd>
-                      {formatValue(v)} {unitText(info.computed.find((c) => c.name === k)?.unit ?? "")}
+                      {info.computed.find((c) => c.name === k)?.type === "table" && Array.isArray(v)
+                        ? `${v.length} rows (see the rail's chart)`
+                        : `${formatValue(v)} ${unitText(info.computed.find((c) => c.name === k)?.unit ?? "")}`}
                     </dd>
                   </div>
                 ))}
@@ -452,6 +461,7 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
         </div>
         <OrbitPlot plot={plot} title={`Plot of ${label || `the ${info.kind} claim`}`} />
       </div>
+      {claim.kind === "contactTime" ? <ContactPictures claim={resolved} label={label} computed={result.computed} /> : null}
     </NodeViewWrapper>
   );
 }

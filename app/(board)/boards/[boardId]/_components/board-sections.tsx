@@ -118,6 +118,14 @@ export function BoardStewardshipSection({ board }: { board: BoardView }) {
             Decision letter template
           </Link>
         </li>
+        <li>
+          <Link
+            href={`/boards/${board.id}/stations`}
+            className="inline-block rounded-chip border border-ink-300 px-3 py-1.5 font-semibold hover:border-trajectory-500"
+          >
+            Ground stations
+          </Link>
+        </li>
       </ul>
       {board.openRegistration ? (
         <p className="mt-3 text-sm text-ink-600">

@@ -7,6 +7,8 @@ import { orNotFound, pageUser } from "@/lib/auth/page-guard";
 import { can } from "@/lib/auth/policy";
 import { getBoard } from "@/lib/dal/boards";
 import { getCall } from "@/lib/dal/calls";
+import { listRequirements } from "@/lib/dal/requirements";
+import { CallRequirements } from "@/components/dossier/call-requirements";
 
 export const metadata: Metadata = { title: "Call" };
 
@@ -19,6 +21,7 @@ export default async function CallPage({ params }: { params: Promise<{ boardId: 
   const call = await orNotFound(getCall(user, boardId, callId));
   const isChair = can(user, "call.manage", { role: board.myRole });
   const isProposer = can(user, "proposal.create", { role: board.myRole });
+  const requirements = await listRequirements(user, boardId, callId);
   const abs = Object.entries(call.tolerance.absolute ?? {});
   return (
     <div className="space-y-6">
@@ -51,6 +54,17 @@ export default async function CallPage({ params }: { params: Promise<{ boardId: 
             </Link>
           </p>
         ) : null}
+      </Panel>
+      <Panel
+        title="Requirements"
+        description="What the board demands of every dossier's budgets and orbit. Each claim they concern is judged met, not met or not evaluated at submission, beside its agreement verdict."
+      >
+        <CallRequirements
+          boardId={boardId}
+          callId={callId}
+          editable={isChair}
+          requirements={requirements.map((r) => ({ id: r.id, type: r.type, summary: r.summary, rationale: r.rationale, params: r.params }))}
+        />
       </Panel>
       {isChair ? (
         <Panel title="Call settings" description="Changing the tolerance affects submissions from now on; versions already submitted keep their results.">

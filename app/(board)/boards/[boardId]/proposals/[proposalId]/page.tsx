@@ -3,6 +3,8 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { DossierSummary } from "@/components/dossier/dossier-summary";
 import { DossierWorkspace } from "@/components/dossier/dossier-workspace";
+import { BudgetRail } from "@/components/dossier/budget-rail";
+import { requiredDeltaVMargin } from "@/lib/requirements";
 import { ReadOnlyDossier } from "@/components/dossier/read-only-dossier";
 import { AttachmentList } from "@/components/dossier/attachment-list";
 import { OrbitFilesPanel } from "@/components/orbit-files/orbit-files-panel";
@@ -107,6 +109,7 @@ export default async function ProposalPage({ params }: { params: Promise<{ board
           proposalId={proposalId}
           draft={draft}
           tolerance={proposal.tolerance}
+          requirements={proposal.requirements}
           requiredSections={proposal.requiredSections}
           attachments={attachments}
           nextVersion={proposal.latestVersion + 1}
@@ -132,7 +135,8 @@ export default async function ProposalPage({ params }: { params: Promise<{ board
 
   const latest = await getVersion(user, boardId, proposalId, versions[0]!.number);
   const items = latest.checkResults.map((r) => ({ blockId: r.blockId, label: r.label, kind: r.kind, status: r.status }));
-  const budget = deltaVBudget(evaluateBlocks(extractOrbitChecks(latest.document), proposal.tolerance));
+  const latestEvaluations = evaluateBlocks(extractOrbitChecks(latest.document), proposal.tolerance);
+  const budget = deltaVBudget(latestEvaluations);
   return (
     <div className="space-y-6">
       {headerWithLinks}
@@ -142,7 +146,8 @@ export default async function ProposalPage({ params }: { params: Promise<{ board
           <ReadOnlyDossier document={latest.document} boardId={boardId} results={latest.checkResults} />
         </Panel>
         <div className="space-y-4">
-          <DossierSummary items={items} budget={budget} source="server" />
+          <DossierSummary items={items} budget={budget} source="server" requiredMargin={requiredDeltaVMargin(proposal.requirements)} />
+          <BudgetRail evaluations={latestEvaluations} requirements={proposal.requirements} budget={budget} />
           <AttachmentList
             attachments={latest.attachments.map((a) => ({ ...a, contentPath: `/api/v1/boards/${boardId}/attachments/${a.attachmentId}/content` }))}
           />

@@ -1,5 +1,6 @@
 import { formatDateTime } from "@/lib/format/dates";
 import type { Metadata } from "next";
+import { RequirementFlags } from "@/components/dossier/requirement-flags";
 import Link from "next/link";
 import { NotAllowed, PageTitle, Panel } from "@/components/ui/panel";
 import { orNotFound, pageUser } from "@/lib/auth/page-guard";
@@ -139,7 +140,9 @@ export default async function DecisionPage({ params }: { params: Promise<{ board
         </Panel>
         <Panel
           title="Orbit checks"
-          description={`${claims.flagged} of ${claims.claims} ${claims.claims === 1 ? "claim" : "claims"} flagged by the server, in ${claims.blocks} orbit-check ${claims.blocks === 1 ? "block" : "blocks"}`}
+          description={`${claims.flagged} of ${claims.claims} ${claims.claims === 1 ? "claim" : "claims"} flagged by the server, in ${claims.blocks} orbit-check ${claims.blocks === 1 ? "block" : "blocks"}; ${
+            w.checks.flatMap((c) => c.requirements).filter((o) => o.status === "notMet").length
+          } requirement flags not met`}
         >
           <ul className="space-y-1 text-sm">
             {w.checks.map((c) => (
@@ -148,6 +151,7 @@ export default async function DecisionPage({ params }: { params: Promise<{ board
                   {c.label || c.kind} <span className="text-xs text-ink-500">({c.kind})</span>
                 </span>
                 <span className={`rounded-chip px-2 py-0.5 text-xs font-semibold ${verdictClass[c.status]}`}>{verdictText[c.status]}</span>
+                <RequirementFlags outcomes={c.requirements} />
               </li>
             ))}
             {w.checks.length === 0 ? <li className="text-ink-500">No orbit claims in this version.</li> : null}

@@ -4,6 +4,8 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { AttachmentList } from "@/components/dossier/attachment-list";
 import { DossierSummary } from "@/components/dossier/dossier-summary";
+import { BudgetRail } from "@/components/dossier/budget-rail";
+import { requiredDeltaVMargin } from "@/lib/requirements";
 import { ReadOnlyDossier } from "@/components/dossier/read-only-dossier";
 import { PageTitle, Panel } from "@/components/ui/panel";
 import { orNotFound, pageUser } from "@/lib/auth/page-guard";
@@ -20,7 +22,8 @@ export default async function VersionPage({ params }: { params: Promise<{ boardI
   const proposal = await orNotFound(getProposal(user, boardId, proposalId));
   const version = await orNotFound(getVersion(user, boardId, proposalId, number));
   const items = version.checkResults.map((r) => ({ blockId: r.blockId, label: r.label, kind: r.kind, status: r.status }));
-  const budget = deltaVBudget(evaluateBlocks(extractOrbitChecks(version.document), proposal.tolerance));
+  const evaluations = evaluateBlocks(extractOrbitChecks(version.document), proposal.tolerance);
+  const budget = deltaVBudget(evaluations);
   return (
     <div className="space-y-6">
       <PageTitle eyebrow={proposal.callTitle} title={`${version.title}: version ${version.number}`}>
@@ -36,7 +39,8 @@ export default async function VersionPage({ params }: { params: Promise<{ boardI
           <ReadOnlyDossier document={version.document} boardId={boardId} results={version.checkResults} />
         </Panel>
         <div className="space-y-4">
-          <DossierSummary items={items} budget={budget} source="server" />
+          <DossierSummary items={items} budget={budget} source="server" requiredMargin={requiredDeltaVMargin(proposal.requirements)} />
+          <BudgetRail evaluations={evaluations} requirements={proposal.requirements} budget={budget} />
           <AttachmentList
             attachments={version.attachments.map((a) => ({ ...a, contentPath: `/api/v1/boards/${boardId}/attachments/${a.attachmentId}/content` }))}
           />

@@ -1,0 +1,175 @@
+// Ground coverage in a real browser: the chair adds a ground station to the board's list; a
+// proposer adds a contact check to the dossier, picks the station, types the orbit key by key
+// and sees passes per day and the 24-hour contact timeline, stored with the draft.
+import { describe, expect, it } from "vitest";
+import type { Locator, Page } from "playwright-core";
+import { browserSession } from "../support/browser";
+import { asSessionUser } from "../support/factories";
+import { createProposal, getDraft, saveDraft, submitProposal } from "@/lib/dal/proposals";
+import { assignReviewers } from "@/lib/dal/assignments";
+import { createStation } from "@/lib/dal/stations";
+import { listStations } from "@/lib/dal/stations";
+import { dossierDoc, makeCall, makeProposal, orbitBlock } from "../integration/matrix/dossiers";
+import { createBoardWithCast } from "../support/factories";
+
+async function typeInto(page: Page, field: Locator, text: string) {
+  await field.click();
+  await page.keyboard.type(text);
+}
+
+describe("ground stations and contact checks in the browser", () => {
+  const { as } = browserSession();
+
+  it("chair adds a station; proposer picks it in a contact check and sees passes per day and the timeline", async () => {
+    const { cast, proposal } = await makeProposal();
+    const stationName = `Tallvik ${crypto.randomUUID().slice(0, 6)}`;
+
+    // The chair, from /boards by links only.
+    const chair = await as(cast.chair.email);
+    try {
+      await chair.goto("/boards");
+      await chair.getByRole("link", { name: cast.board.name }).first().click();
+      await chair.getByRole("link", { name: "Ground stations" }).click();
+      await chair.getByRole("heading", { name: "Ground stations", level: 1 }).waitFor();
+      const form = chair.getByRole("form", { name: "Add a ground station" });
+      // A bad latitude is refused with a message that says what to give.
+      await typeInto(chair, form.getByLabel("Station name"), stationName);
+      await typeInto(chair, form.getByLabel("Latitude (°)"), "95");
+      await typeInto(chair, form.getByLabel("Longitude (°)"), "147.7° W");
+      await typeInto(chair, form.getByLabel("Height above sea level"), "210 m");
+      await typeInto(chair, form.getByLabel("Minimum elevation (°)"), "10");
+      await form.getByRole("button", { name: "Add station" }).click();
+      await form.getByText("latitude must lie between −90° (south) and 90° (north)").waitFor();
+      // The typed values stay; the chair fixes only the latitude.
+      expect(await form.getByLabel("Station name").inputValue()).toBe(stationName);
+      await form.getByLabel("Latitude (°)").click();
+      await chair.keyboard.press("Control+A");
+      await chair.keyboard.type("64.8° N");
+      await form.getByRole("button", { name: "Add station" }).click();
+      await chair.getByRole("rowheader", { name: stationName }).waitFor();
+      await chair.getByRole("cell", { name: "147.700° W" }).first().waitFor();
+      const stored = await listStations(asSessionUser(cast.chair), cast.board.id);
+      expect(stored.stations).toEqual([expect.objectContaining({ name: stationName, latitude: 64.8, longitude: -147.7, minimumElevation: 10 })]);
+      expect(stored.stations[0]!.altitude).toBeCloseTo(0.21, 9);
+      await chair.goBack();
+      await chair.getByRole("link", { name: "Ground stations" }).waitFor();
+    } finally {
+      await chair.close();
+    }
+
+    // The proposer, from /boards to the proposal by links.
+    const page = await as(cast.proposer.email);
+    try {
+      await page.goto("/boards");
+      await page.getByRole("link", { name: cast.board.name }).first().click();
+      await page.getByRole("link", { name: proposal.title }).first().click();
+      const editor = page.getByRole("textbox", { name: "Dossier text" });
+      await editor.waitFor();
+      await editor.click();
+      await page.keyboard.press("Control+End");
+      await page.keyboard.type("Our downlink station sees the spacecraft about seven times a day.");
+      await page.getByRole("button", { name: "Insert orbit check" }).click();
+      const block = page.locator("[data-orbit-check-block]").first();
+      await block.waitFor();
+      await typeInto(page, block.getByLabel("Name in the text"), "downlink contact");
+      await block.getByLabel("Kind").selectOption("contactTime");
+      await typeInto(page, block.getByLabel("altitude", { exact: true }), "550");
+      await typeInto(page, block.getByLabel("inclination", { exact: true }), "97.6");
+      await block.getByRole("checkbox", { name: new RegExp(stationName) }).check();
+      const figures = block.getByLabel("Contact figures of downlink contact");
+      await figures.getByText(/on average \(\d+ to \d+\)/).waitFor();
+      const passes = Number((await figures.getByText(/on average \(\d+ to \d+\)/).innerText()).split(" ")[0]);
+      expect(passes).toBeGreaterThan(5);
+      expect(passes).toBeLessThan(9);
+      const timeline = block.getByRole("img", { name: /Contact timeline of downlink contact/ });
+      await timeline.waitFor();
+      expect(await timeline.locator("rect title").count()).toBeGreaterThan(20); // about seven contacts a day for 7 days
+      await block.getByRole("img", { name: /Ground track of downlink contact/ }).waitFor();
+      await page.locator('[data-save-state="saved"]').waitFor({ timeout: 20_000 });
+      // Stored with the station's values copied into the claim, and shown again after a reload.
+      const draft = JSON.stringify((await getDraft(asSessionUser(cast.proposer), cast.board.id, proposal.id)).document);
+      expect(draft).toContain(stationName);
+      expect(draft).toContain('"kind":"contactTime"');
+      await page.reload();
+      const again = page.locator("[data-orbit-check-block]").first();
+      await again.getByRole("img", { name: /Contact timeline of downlink contact/ }).waitFor();
+      expect(await again.getByRole("checkbox", { name: new RegExp(stationName) }).isChecked()).toBe(true);
+    } finally {
+      await page.close();
+    }
+  });
+
+  it("chair requires daily contact; the reviewer sees the dossier's contact check flagged not met", { timeout: 240_000 }, async () => {
+    const cast = await createBoardWithCast();
+    const call = await makeCall(cast);
+    const chairUser = asSessionUser(cast.chair);
+    const station = await createStation(chairUser, cast.board.id, {
+      name: "North site",
+      latitude: 64.8,
+      longitude: -147.7,
+      altitude: 0.2,
+      minimumElevation: 10,
+    });
+
+    // The chair: board → call → add the requirement, typing 90 minutes a day.
+    const chair = await as(cast.chair.email);
+    try {
+      await chair.goto("/boards");
+      await chair.getByRole("link", { name: cast.board.name }).first().click();
+      await chair.getByRole("link", { name: call.title }).first().click();
+      await chair.getByRole("heading", { name: "Add a requirement" }).waitFor();
+      await chair.getByRole("combobox", { name: /^Requirement/ }).selectOption("minDailyContact");
+      await chair.getByLabel("Least contact in any one day (min)").click();
+      await chair.keyboard.type("90");
+      await chair.getByRole("button", { name: "Add requirement" }).click();
+      await chair.getByText("Added: Contact at least 90 min every day.").waitFor();
+    } finally {
+      await chair.close();
+    }
+
+    // A dossier whose contact check gives about 41 minutes a day at that station, submitted and assigned.
+    const proposer = asSessionUser(cast.proposer);
+    const proposal = await createProposal(proposer, cast.board.id, {
+      title: "Petrel downlink demonstrator",
+      missionType: "science",
+      callId: call.id,
+      coauthorIds: [],
+    });
+    const stationValues = {
+      name: station.name,
+      latitude: station.latitude,
+      longitude: station.longitude,
+      altitude: station.altitude,
+      minimumElevation: station.minimumElevation,
+    };
+    await saveDraft(proposer, cast.board.id, proposal.id, {
+      revision: 1,
+      document: dossierDoc([
+        { type: "heading", attrs: { level: 2 }, content: [{ type: "text", text: "Ground segment" }] },
+        orbitBlock("downlink contact", { kind: "contactTime", body: "earth", given: { altitude: 550, inclination: 97.6, stations: [stationValues] } }),
+      ]),
+    });
+    await submitProposal(proposer, cast.board.id, proposal.id);
+    await assignReviewers(chairUser, cast.board.id, {
+      proposalIds: [proposal.id],
+      reviewerIds: [cast.reviewer.id],
+      dueAt: new Date(Date.now() + 7 * 86_400_000),
+      confirmLikelyConflicts: true,
+    });
+
+    // The reviewer: board → reviews → the dossier; the contact requirement is flagged.
+    const reviewer = await as(cast.reviewer.email);
+    try {
+      await reviewer.goto("/boards");
+      await reviewer.getByRole("link", { name: cast.board.name }).first().click();
+      await reviewer.locator(`a[href="/boards/${cast.board.id}/reviews"]`).first().click();
+      await reviewer.getByRole("link", { name: "Petrel downlink demonstrator" }).click();
+      const checks = reviewer.locator("section[aria-labelledby=checks-heading]");
+      await checks.locator('[data-requirement-outcome="notMet"]').waitFor();
+      await expect(checks.textContent()).resolves.toMatch(/Requirement not met.*Contact at least 90 min every day/);
+      await expect(checks.textContent()).resolves.toMatch(/the day with the least contact has 4\d(\.\d)? min, the call asks at least 90 min/);
+    } finally {
+      await reviewer.close();
+    }
+  });
+});
