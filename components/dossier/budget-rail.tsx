@@ -76,6 +76,7 @@ export function BudgetRail({
           </ul>
         )}
       </div>
+      <MassLink evaluations={evaluations} />
       {budget.maneuvers.length > 0 && budget.required > 0 ? <DeltaVWaterfall budget={budget} /> : null}
       {decay ? (
         <DecayCurve
@@ -200,5 +201,23 @@ export function DecayCurve({ label, profile, deadlineYears }: { label: string; p
       </svg>
       <p className="text-2xs text-ink-600">{text}</p>
     </figure>
+  );
+}
+
+/** The mass budget's wet mass against the Δv budget's initial mass: the two must describe one spacecraft. */
+function MassLink({ evaluations }: { evaluations: readonly BlockEvaluation[] }) {
+  const mass = evaluations.find((e) => e.block.claim.kind === "massBudget" && typeof e.result.computed.wetMass === "number");
+  const dv = evaluations.find((e) => e.block.claim.kind === "deltaVBudget" && typeof e.claim.given.initialMass === "number");
+  if (!mass || !dv) return null;
+  const wet = mass.result.computed.wetMass as number;
+  const initial = dv.claim.given.initialMass as number;
+  const apart = Math.abs(wet - initial) / initial;
+  const same = apart <= 0.01;
+  return (
+    <p data-mass-link={same ? "agrees" : "differs"} className={`text-xs ${same ? "text-holds-700" : "text-drift-700"}`}>
+      Mass budget wet mass {wet.toFixed(1)} kg {same ? "agrees with" : `differs by ${(apart * 100).toFixed(1)} % from`} the Δv budget&apos;s initial mass{" "}
+      {initial.toFixed(1)} kg
+      {same ? "." : ": the two budgets should describe the same spacecraft."}
+    </p>
   );
 }

@@ -126,9 +126,12 @@ export function CallRequirements({
           <h3 id={`${formId}-title`} className="font-semibold text-ink-900">
             Add a requirement
           </h3>
-          <label className="block text-sm font-semibold">
-            Requirement
+          <div>
+            <label htmlFor={`${formId}-type`} className="block text-sm font-semibold">
+              Requirement
+            </label>
             <select
+              id={`${formId}-type`}
               value={type}
               onChange={(e) => {
                 setType(e.target.value);
@@ -136,7 +139,7 @@ export function CallRequirements({
                 setErrors({});
                 setRationale("");
               }}
-              className="mt-1 block rounded-chip border border-ink-300 bg-white px-2 py-1 font-normal"
+              className="mt-1 block rounded-chip border border-ink-300 bg-white px-2 py-1"
             >
               {REQUIREMENT_TYPES.map((d) => (
                 <option key={d.type} value={d.type}>
@@ -144,7 +147,7 @@ export function CallRequirements({
                 </option>
               ))}
             </select>
-          </label>
+          </div>
           <p className="text-sm text-ink-600">{def.description}</p>
           {def.presets.length > 0 ? (
             <fieldset className="space-y-1">
@@ -158,33 +161,37 @@ export function CallRequirements({
           ) : null}
           {def.fields.map((f) => (
             <div key={f.name}>
-              <label className="block text-sm font-semibold">
+              <label htmlFor={`${formId}-${f.name}`} className="block text-sm font-semibold">
                 {f.label} ({f.unit})
-                <input
-                  inputMode="decimal"
-                  value={values[f.name] ?? ""}
-                  aria-invalid={errors[f.name] ? true : undefined}
-                  aria-describedby={`${formId}-${f.name}-help`}
-                  onChange={(e) => setValues((v) => ({ ...v, [f.name]: e.target.value }))}
-                  className="mt-1 block w-32 rounded-chip border border-ink-300 px-2 py-1 font-mono font-normal aria-[invalid=true]:border-void-500"
-                />
               </label>
+              <input
+                id={`${formId}-${f.name}`}
+                inputMode="decimal"
+                value={values[f.name] ?? ""}
+                aria-invalid={errors[f.name] ? true : undefined}
+                aria-describedby={`${formId}-${f.name}-help`}
+                onChange={(e) => setValues((v) => ({ ...v, [f.name]: e.target.value }))}
+                className="mt-1 block w-32 rounded-chip border border-ink-300 px-2 py-1 font-mono aria-[invalid=true]:border-void-500"
+              />
               <p id={`${formId}-${f.name}-help`} className="text-xs text-ink-600">
                 {errors[f.name] ? <span className="text-void-700">{errors[f.name]} </span> : null}
                 {f.help}
               </p>
             </div>
           ))}
-          <label className="block text-sm font-semibold">
-            Rationale shown to proposers (optional; the type&apos;s own wording when empty)
+          <div>
+            <label htmlFor={`${formId}-rationale`} className="block text-sm font-semibold">
+              Rationale shown to proposers (optional; the type&apos;s own wording when empty)
+            </label>
             <textarea
+              id={`${formId}-rationale`}
               value={rationale}
               maxLength={2000}
               rows={2}
               onChange={(e) => setRationale(e.target.value)}
-              className="mt-1 block w-full rounded-chip border border-ink-300 px-2 py-1 font-normal"
+              className="mt-1 block w-full rounded-chip border border-ink-300 px-2 py-1"
             />
-          </label>
+          </div>
           {errors.form ? <p className="text-sm text-void-700">{errors.form}</p> : null}
           <button
             type="submit"

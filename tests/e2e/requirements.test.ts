@@ -82,7 +82,6 @@ describe("call requirements in the browser", () => {
     await author.keyboard.type("250");
     await rail.locator('[data-rail-outcome="met"]').waitFor();
     await expect(rail.textContent()).resolves.toMatch(/Requirement met.*re-entry in \d+\.\d years after the disposal burn/);
-    await author.getByText("All changes saved", { exact: false }).waitFor({ timeout: 30_000 });
     await author.getByRole("button", { name: "Submit version 2" }).click();
     await expect
       .poll(async () => (await getVersion(proposer, cast.board.id, proposal.id, 2).catch(() => null))?.checkResults[0]?.requirements[0]?.status, {
