@@ -17,6 +17,11 @@ const schema = z.object({
   MAIL_CATCHER_URL: z.string().url().optional(),
   APP_URL: z.string().url(),
   NEXTAUTH_SECRET: z.string().min(16),
+  /**
+   * Proxies in front of the app that each append to X-Forwarded-For. 0 (the default): the
+   * header is ignored and the connecting peer is the client (lib/http/client-address.ts).
+   */
+  TRUSTED_PROXY_HOPS: z.coerce.number().int().min(0).max(10).default(0),
   UPLOAD_MAX_BYTES: z.coerce
     .number()
     .int()
