@@ -158,7 +158,7 @@ export const memberSchema = z.object({
   organisation: z.string().nullable(),
   role: boardRoleSchema,
   status: membershipStatusSchema,
-  accountStatus: membershipStatusSchema,
+  accountStatus: z.enum(["active", "deactivated", "unverified"]),
   joinedAt: z.date().or(z.string()),
 });
 
