@@ -1,6 +1,7 @@
 import { NextResponse, type NextRequest } from "next/server";
 import { methodTable } from "@/lib/http/allowed-methods";
 import { contentSecurityPolicy } from "@/lib/http/csp";
+import { crossSiteRefusal } from "@/lib/http/cross-site";
 import { apiOperations } from "@/lib/openapi";
 
 // For /api/v1: a method the path does not allow gets a JSON 405 with an Allow header (Next's
@@ -35,6 +36,9 @@ export function proxy(request: NextRequest) {
         { status: 405, headers: { allow: allowed.join(", "), "cache-control": "no-store" } },
       );
     }
+    // Cross-site writes: JSON bodies only, and nothing a browser marks as from another origin.
+    const refusal = crossSiteRefusal({ method: request.method, pathname, headers: request.headers, appOrigin: process.env.APP_URL ?? request.nextUrl.origin });
+    if (refusal) return NextResponse.json({ error: refusal.error }, { status: refusal.status, headers: { "cache-control": "no-store" } });
     return NextResponse.next();
   }
   const isProtected = protectedPrefixes.some((p) => pathname === p || pathname.startsWith(`${p}/`));

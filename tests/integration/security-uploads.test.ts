@@ -5,7 +5,7 @@ import crypto from "node:crypto";
 import { describe, expect, it } from "vitest";
 import { attachmentDownloadUrl, confirmAttachment, presignAttachmentUpload, stagingObjectKey, UPLOAD_URL_SECONDS } from "@/lib/dal/attachments";
 import { submitProposal } from "@/lib/dal/proposals";
-import { readObject, statObjectOrNull } from "@/storage/object-store";
+import { bucket, objectStore, presignDownload, readObject, statObjectOrNull, writeObject } from "@/storage/object-store";
 import { asSessionUser } from "../support/factories";
 import { attachmentRow, makeProposal } from "./matrix/dossiers";
 
@@ -55,5 +55,21 @@ describe("upload integrity", () => {
     expect(download.headers.get("content-type")).toBe("application/pdf");
     expect(download.headers.get("content-disposition")).toMatch(/^attachment;/);
     expect(sha256(Buffer.from(await download.arrayBuffer()))).toBe(sha256(PDF));
+  });
+});
+
+describe("stored objects are served as downloads", () => {
+  it("answers every GET from the store with Content-Disposition: attachment and X-Content-Type-Options: nosniff", async () => {
+    const key = `tests/security/${crypto.randomUUID()}/page.html`;
+    await writeObject(key, "<!doctype html><script>parent.postMessage(document.cookie, '*')</script>", "text/html");
+    // Even a presigned GET without response overrides (as a forged link would be).
+    const plain = await fetch(await objectStore().presignedGetObject(bucket(), key, 60));
+    expect(plain.status).toBe(200);
+    expect(plain.headers.get("x-content-type-options")).toBe("nosniff");
+    expect(plain.headers.get("content-disposition")).toMatch(/^attachment/);
+    const named = await fetch(await presignDownload(key, "page.html", 60, "text/plain; charset=utf-8"));
+    expect(named.headers.get("content-disposition")).toMatch(/^attachment; filename="page.html"/);
+    expect(named.headers.get("content-type")).toBe("text/plain; charset=utf-8");
+    expect(named.headers.get("x-content-type-options")).toBe("nosniff");
   });
 });
