@@ -1,6 +1,6 @@
 import "server-only";
 import crypto from "node:crypto";
-import { and, asc, eq, lt, sql } from "drizzle-orm";
+import { and, asc, eq, inArray, lt, sql } from "drizzle-orm";
 import { db } from "@/db/client";
 import { attachments, proposalVersions } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session";
@@ -11,7 +11,7 @@ import { ATTACHMENT_TYPES, type PresignUploadInput } from "@/lib/validation/doss
 import { copyObject, deleteObject, presignDownload, presignUpload, readObjectHead, readObjectStream, statObjectOrNull } from "@/storage/object-store";
 import { recordAudit } from "./audit";
 import { isUuid } from "./boards";
-import { editableState, proposalFor } from "./proposals";
+import { editableState, proposalFor, readableVersionIds } from "./proposals";
 
 /**
  * Presigned upload URLs live this long; the browser starts the PUT right away. They point at
@@ -351,7 +351,18 @@ async function loadAttachment(boardId: string, attachmentId: string): Promise<At
 
 /** Confirmed attachments of a proposal (and the caller's pending ones when they may edit). */
 export async function listAttachments(user: SessionUser, boardId: string, proposalId: string): Promise<AttachmentView[]> {
-  await proposalFor(user, boardId, proposalId, "proposal.view");
+  const { proposal, facts } = await proposalFor(user, boardId, proposalId, "proposal.view");
+  // A reviewer limited to their assigned versions sees only the files those versions list.
+  const readable = await readableVersionIds(user, proposal, facts);
+  if (readable) {
+    const listed = await attachmentIdsOfVersions(proposalId, readable);
+    const rows = await db()
+      .select(attachmentColumns)
+      .from(attachments)
+      .where(and(eq(attachments.boardId, boardId), eq(attachments.proposalId, proposalId)))
+      .orderBy(asc(attachments.createdAt));
+    return rows.filter((r) => r.status !== "pending" && listed.has(r.id)).map((r) => toView(r));
+  }
   const rows = await db()
     .select(attachmentColumns)
     .from(attachments)
@@ -367,12 +378,24 @@ export async function listAttachments(user: SessionUser, boardId: string, propos
 export async function attachmentDownloadUrl(user: SessionUser, boardId: string, attachmentId: string): Promise<string> {
   const row = await loadAttachment(boardId, attachmentId);
   if (!row) throw notFound("That attachment");
-  await proposalFor(user, boardId, row.proposalId, "proposal.view");
+  const { proposal, facts } = await proposalFor(user, boardId, row.proposalId, "proposal.view");
   if (row.status === "pending") throw notFound("That attachment");
+  const readable = await readableVersionIds(user, proposal, facts);
+  if (readable && !(await attachmentIdsOfVersions(row.proposalId, readable)).has(row.id)) throw notFound("That attachment");
   if (row.status === "removed" && !(await referencedByVersion(row))) throw notFound("That attachment");
   const sniffed = row.detectedType;
   const type = !sniffed ? "application/octet-stream" : sniffed.startsWith("text/") ? `${sniffed}; charset=utf-8` : sniffed;
   return presignDownload(row.objectKey, row.filename, 300, type);
+}
+
+/** The attachment ids the given versions of a proposal list. */
+async function attachmentIdsOfVersions(proposalId: string, versionIds: Set<string>): Promise<Set<string>> {
+  if (versionIds.size === 0) return new Set();
+  const rows = await db()
+    .select({ attachments: proposalVersions.attachments })
+    .from(proposalVersions)
+    .where(and(eq(proposalVersions.proposalId, proposalId), inArray(proposalVersions.id, [...versionIds])));
+  return new Set(rows.flatMap((r) => r.attachments.map((a) => a.attachmentId)));
 }
 
 async function referencedByVersion(row: AttachmentRow): Promise<boolean> {
