@@ -2,6 +2,7 @@ import { NextResponse, type NextRequest } from "next/server";
 import { methodTable } from "@/lib/http/allowed-methods";
 import { contentSecurityPolicy } from "@/lib/http/csp";
 import { crossSiteRefusal } from "@/lib/http/cross-site";
+import { NUL_MESSAGE, urlContainsNul } from "@/lib/http/nul";
 import { apiOperations } from "@/lib/openapi";
 
 // For /api/v1: a method the path does not allow gets a JSON 405 with an Allow header (Next's
@@ -27,6 +28,12 @@ function objectStoreOrigin(): string {
 
 export function proxy(request: NextRequest) {
   const { pathname, search } = request.nextUrl;
+  // A NUL (U+0000) in a path or filter is refused here, for pages and the API alike.
+  if (urlContainsNul(request.url)) {
+    return pathname.startsWith("/api/")
+      ? NextResponse.json({ error: NUL_MESSAGE }, { status: 400, headers: { "cache-control": "no-store" } })
+      : new NextResponse(NUL_MESSAGE, { status: 400, headers: { "content-type": "text/plain; charset=utf-8", "cache-control": "no-store" } });
+  }
   if (pathname.startsWith("/api/")) {
     const allowed = apiMethods.allowed(pathname);
     if (allowed && !allowed.includes(request.method)) {

@@ -64,9 +64,16 @@ export function env(): AppEnv {
   return cached;
 }
 
-/** The dev-only mail pages are served only outside production, or where a catcher is configured. */
+/**
+ * The local mail catcher, for the /dev/mail pages: only in demo and test mode, and only where
+ * a catcher is configured. In production mode these pages do not exist, whatever is set.
+ */
 export function mailCatcherUrl(): string | null {
-  const e = env();
+  return mailCatcherUrlFor(env());
+}
+
+export function mailCatcherUrlFor(e: AppEnv): string | null {
+  if (e.VISVIVA_MODE !== "demo" && e.VISVIVA_MODE !== "test") return null;
   if (!e.MAIL_CATCHER_URL) return null;
   return e.MAIL_CATCHER_URL;
 }

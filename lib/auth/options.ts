@@ -14,6 +14,7 @@ import {
   signInRetryAfter,
 } from "@/lib/dal/sessions";
 import { clientAddressFrom } from "@/lib/http/client-address";
+import { safeRedirect } from "./callback-url";
 import { verifyPasswordOrDummy } from "./passwords";
 
 type HeaderBag = Record<string, string | string[] | undefined> | Headers | undefined;
@@ -110,6 +111,10 @@ export const authOptions: NextAuthOptions = {
     },
   },
   callbacks: {
+    // A malformed callbackUrl (in a query, form or cookie) goes home instead of throwing.
+    async redirect({ url, baseUrl }) {
+      return safeRedirect(url, baseUrl);
+    },
     async jwt({ token, user }) {
       if (user) {
         token.uid = user.id;

@@ -264,17 +264,39 @@ export async function listProposals(
   };
 }
 
-/** Active proposers of the board other than the caller: the people who can be co-authors. */
-export async function listCoauthorCandidates(user: SessionUser, boardId: string): Promise<{ id: string; name: string; email: string }[]> {
-  const role = await boardRole(user.id, boardId);
+/**
+ * Co-authors by the full addresses a proposer typed: the active proposers of the board with
+ * exactly those addresses (the board's proposers are never listed to a proposer). An address
+ * that is not one is refused with 422, naming only what the caller typed.
+ */
+export async function coauthorIdsForEmails(user: SessionUser, boardId: string, emails: string[], tx: Db = db()): Promise<string[]> {
+  const role = await boardRole(user.id, boardId, tx);
   authorize(user, "board.view", { role }, "That board");
-  const rows = await db()
-    .select({ id: users.id, name: users.name, email: users.email })
+  const wanted = [...new Set(emails.map((e) => e.trim().toLowerCase()).filter(Boolean))];
+  if (wanted.length === 0) return [];
+  const rows = await tx
+    .select({ id: users.id, email: users.email })
     .from(boardMembers)
     .innerJoin(users, eq(users.id, boardMembers.userId))
-    .where(and(eq(boardMembers.boardId, boardId), eq(boardMembers.role, "proposer"), eq(boardMembers.status, "active"), eq(users.status, "active")))
-    .orderBy(asc(users.name));
-  return rows.filter((r) => r.id !== user.id);
+    .where(
+      and(
+        eq(boardMembers.boardId, boardId),
+        eq(boardMembers.role, "proposer"),
+        eq(boardMembers.status, "active"),
+        eq(users.status, "active"),
+        inArray(sql`lower(${users.email})`, wanted),
+      ),
+    );
+  const found = new Map(rows.map((r) => [r.email.toLowerCase(), r.id]));
+  const missing = wanted.filter((e) => !found.has(e));
+  if (missing.length > 0)
+    throw unprocessable(
+      `${missing.join(", ")} ${missing.length === 1 ? "is" : "are"} not a proposer of this board. Check the spelling, or ask the chair to invite them.`,
+      {
+        field: "coauthorEmails",
+      },
+    );
+  return [...found.values()];
 }
 
 async function checkCoauthors(boardId: string, ownerId: string, ids: string[], tx: Db): Promise<string[]> {
@@ -307,7 +329,8 @@ export async function createProposal(user: SessionUser, boardId: string, input: 
   if (callState(call) === "closed")
     throw unprocessable(`The call "${call.title}" closed on ${call.closesAt.toISOString().slice(0, 10)}; choose an open call.`, { field: "callId" });
   return db().transaction(async (tx) => {
-    const coauthors = await checkCoauthors(boardId, user.id, input.coauthorIds, tx);
+    const byEmail = await coauthorIdsForEmails(user, boardId, input.coauthorEmails ?? [], tx);
+    const coauthors = await checkCoauthors(boardId, user.id, [...input.coauthorIds, ...byEmail], tx);
     const [row] = await tx
       .insert(proposals)
       .values({ boardId, callId: call.id, ownerId: user.id, title: input.title, missionType: input.missionType })

@@ -1,4 +1,5 @@
 import "server-only";
+import { csvCell } from "@/lib/review/csv";
 import { and, asc, desc, eq, inArray, sql } from "drizzle-orm";
 import { db, type Database, type Transaction } from "@/db/client";
 import {
@@ -654,13 +655,6 @@ export async function getCallOverview(user: SessionUser, boardId: string, callId
   };
 }
 
-function csvCell(value: unknown): string {
-  const text = value === null || value === undefined ? "" : String(value);
-  // Quote when needed; a leading = + - @ is neutralised so spreadsheets do not run it as a formula.
-  const safe = /^[=+\-@\t\r]/.test(text) && !/^-?\d/.test(text) ? `'${text}` : text;
-  return /[",\n\r]/.test(safe) ? `"${safe.replace(/"/g, '""')}"` : safe;
-}
-
 /** The overview as CSV (one row per proposal; spread is the sample standard deviation). */
 export async function getCallOverviewCsv(user: SessionUser, boardId: string, callId: string): Promise<{ filename: string; csv: string }> {
   const overview = await getCallOverview(user, boardId, callId);
@@ -680,7 +674,7 @@ export async function getCallOverviewCsv(user: SessionUser, boardId: string, cal
     "checks_inconsistent",
     "checks_invalid",
   ];
-  const fmt = (v: number | null) => (v === null ? "" : v.toFixed(3));
+  const fmt = (v: number | null) => (v === null ? "" : Number(v.toFixed(3)));
   const lines = [header.join(",")];
   for (const r of overview.rows)
     lines.push(

@@ -28,5 +28,5 @@ export async function listCaughtMessages(): Promise<CaughtMessage[] | null> {
 }
 
 export function mailPagesEnabled(): boolean {
-  return process.env.NODE_ENV !== "production" || mailCatcherUrl() !== null;
+  return mailCatcherUrl() !== null;
 }
