@@ -44,7 +44,12 @@ export function proxy(request: NextRequest) {
       );
     }
     // Cross-site writes: JSON bodies only, and nothing a browser marks as from another origin.
-    const refusal = crossSiteRefusal({ method: request.method, pathname, headers: request.headers, appOrigin: process.env.APP_URL ?? request.nextUrl.origin });
+    const refusal = crossSiteRefusal({
+      method: request.method,
+      pathname,
+      headers: request.headers,
+      appOrigin: [process.env.APP_URL ?? "", request.nextUrl.origin],
+    });
     if (refusal) return NextResponse.json({ error: refusal.error }, { status: refusal.status, headers: { "cache-control": "no-store" } });
     return NextResponse.next();
   }

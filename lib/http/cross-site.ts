@@ -18,8 +18,11 @@ interface RequestFacts {
   method: string;
   pathname: string;
   headers: { get(name: string): string | null };
-  /** The app's own origin (APP_URL), e.g. https://boards.example.org */
-  appOrigin: string;
+  /**
+   * The app's own origins: APP_URL's, and the one this request was addressed to (its Host),
+   * which a page on another origin cannot make a browser send as its Origin.
+   */
+  appOrigin: string | string[];
 }
 
 /** Paths that take a non-JSON body. None today: uploads go straight to the object store by presigned PUT. */
@@ -36,10 +39,10 @@ function originOf(value: string): string | null {
 export function crossSiteRefusal({ method, pathname, headers, appOrigin }: RequestFacts): CrossSiteRefusal | null {
   const verb = method.toUpperCase();
   if (SAFE_METHODS.has(verb)) return null;
-  const app = originOf(appOrigin);
+  const apps = (Array.isArray(appOrigin) ? appOrigin : [appOrigin]).map(originOf).filter((o): o is string => o !== null);
   const origin = headers.get("origin");
-  if (origin !== null && (origin === "null" || originOf(origin) !== app)) {
-    return { status: 403, error: `Writes to the VisViva API are accepted only from ${app ?? "the app's own pages"}; this request came from ${origin}.` };
+  if (origin !== null && (origin === "null" || !apps.includes(originOf(origin) ?? ""))) {
+    return { status: 403, error: `Writes to the VisViva API are accepted only from ${apps[0] ?? "the app's own pages"}; this request came from ${origin}.` };
   }
   const fetchSite = headers.get("sec-fetch-site");
   if (fetchSite !== null && fetchSite !== "same-origin" && fetchSite !== "none") {
