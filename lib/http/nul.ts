@@ -33,6 +33,22 @@ export function containsNul(value: unknown): boolean {
   return false;
 }
 
+/**
+ * Whether a request path has percent-escapes that do not decode to text (for example
+ * %ED%A0%80, a lone surrogate in UTF-8, or a stray %). Next.js would throw decoding them
+ * into route parameters (a 500); proxy.ts answers 400 first.
+ */
+export function pathIsMalformed(pathname: string): boolean {
+  for (const segment of pathname.split("/")) {
+    try {
+      decodeURIComponent(segment);
+    } catch {
+      return true;
+    }
+  }
+  return false;
+}
+
 /** Whether a request URL carries an encoded NUL in its path or query. */
 export function urlContainsNul(url: string): boolean {
   return /%00/i.test(url) || url.includes("\u0000");

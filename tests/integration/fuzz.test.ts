@@ -50,7 +50,7 @@ const HOSTILE: Json[] = [
   "lone \ud800 surrogate",
   "\udfff",
   "x".repeat(100_000),
-  deep(3000),
+  deep(500),
   JSON.parse('{"__proto__":{"isAdmin":true,"polluted":"yes"}}') as Json,
   { constructor: { prototype: { polluted: "yes" } } },
   "'; drop table users; --",
@@ -136,7 +136,8 @@ function casesFor(op: ApiOperation, ids: Record<string, string>): FuzzCase[] {
       { label: "body null", path: fill(), body: "null" },
       { label: "body array", path: fill(), body: "[]" },
       { label: "body string", path: fill(), body: '"just text"' },
-      { label: "body deep", path: fill(), body: json(deep(5000)) },
+      { label: "body deep arrays", path: fill(), body: `${"[".repeat(20_000)}${"]".repeat(20_000)}` },
+      { label: "body deep objects", path: fill(), body: `${'{"a":'.repeat(5000)}1${"}".repeat(5000)}` },
       { label: "body __proto__", path: fill(), body: `{"__proto__":{"isAdmin":true},${json(baseObject).slice(1)}` },
       { label: "body NUL key", path: fill(), body: json({ ...baseObject, "k\u0000": "v" }) },
       { label: "body lone surrogate", path: fill(), body: `{"title":"\\ud800","name":"\\udc00x","email":"\\ud83d@x.org"}` },
@@ -230,7 +231,9 @@ describe("fuzzing every /api/v1 operation", () => {
       }
     };
     await Promise.all(Array.from({ length: CONCURRENCY }, worker));
-    expect(failures, failures.join("\n")).toEqual([]);
+    const byKind = new Map<string, number>();
+    for (const f of failures) byKind.set(f.replace(/^\S+ (\S+) \[([^\]=←]*).*$/, "$2"), (byKind.get(f.replace(/^\S+ (\S+) \[([^\]=←]*).*$/, "$2")) ?? 0) + 1);
+    expect(failures, `${[...byKind].map(([k, n]) => `${n}× ${k}`).join("; ")}\n${failures.slice(0, 60).join("\n")}`).toEqual([]);
     // And the app still answers afterwards.
     expect((await admin.get("/api/v1/me")).status).toBe(200);
   });
