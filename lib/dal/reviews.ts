@@ -674,7 +674,7 @@ export async function getCallOverviewCsv(user: SessionUser, boardId: string, cal
     "checks_inconsistent",
     "checks_invalid",
   ];
-  const fmt = (v: number | null) => (v === null ? "" : Number(v.toFixed(3)));
+  const fmt = (v: number | null) => (v === null ? "" : v.toFixed(3));
   const lines = [header.join(",")];
   for (const r of overview.rows)
     lines.push(
