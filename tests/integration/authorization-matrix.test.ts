@@ -11,7 +11,7 @@ import { isAppError } from "@/lib/errors";
 import { appUrl } from "../support/app";
 import { eq } from "drizzle-orm";
 import { db } from "@/db/client";
-import { boards, proposalCoauthors, proposals, users } from "@/db/schema";
+import { assignments, boards, proposalCoauthors, proposals, proposalVersions, users } from "@/db/schema";
 import { addMember, asSessionUser, createBoardWithCast, createUser, unique } from "../support/factories";
 import { HttpClient } from "../support/http";
 import { actionCases, routeCases } from "./matrix";
@@ -211,7 +211,15 @@ describe("authorization matrix: blind-mode column (reviewer reads with proposer 
   });
 
   const operations = new Map(apiOperations.map((op) => [op.operationId, op]));
-  const readable = routeCases.filter((c) => operations.get(c.operationId)?.method === "get" && statusList(c.expect.reviewer).some((s) => s < 300));
+  // Every GET a reviewer may make, plus the proposal reads (made readable below by assigning
+  // the reviewer to every submitted version on the board).
+  // (Decisions are for chairs and authors only: reviewers get 404 there, blind or not.)
+  const proposalRead = (path: string) =>
+    path.startsWith("/api/v1/boards/{boardId}/proposals/{proposalId}") && path !== "/api/v1/boards/{boardId}/proposals/{proposalId}/decision";
+  const readable = routeCases.filter((c) => {
+    const op = operations.get(c.operationId);
+    return op?.method === "get" && (statusList(c.expect.reviewer).some((s) => s < 300) || proposalRead(op.path));
+  });
   it("covers at least the proposal reads", () => {
     expect(readable.map((c) => operations.get(c.operationId)!.path)).toContain("/api/v1/boards/{boardId}/proposals/{proposalId}");
   });
@@ -230,11 +238,32 @@ describe("authorization matrix: blind-mode column (reviewer reads with proposer 
           .insert(proposalCoauthors)
           .values(onBoard.map((p) => ({ proposalId: p.id, userId: coauthor.id })))
           .onConflictDoNothing();
+      const versions = await db()
+        .select({ id: proposalVersions.id, proposalId: proposalVersions.proposalId })
+        .from(proposalVersions)
+        .where(eq(proposalVersions.boardId, cast.board.id));
+      if (versions.length)
+        await db()
+          .insert(assignments)
+          .values(
+            versions.map((v) => ({
+              boardId: cast.board.id,
+              proposalId: v.proposalId,
+              versionId: v.id,
+              reviewerId: cast.reviewer.id,
+              dueAt: new Date(Date.now() + 86_400_000),
+            })),
+          )
+          .onConflictDoNothing();
       const client = await clientFor(cast, "reviewer");
       const qs = request.query ? `?${new URLSearchParams(request.query)}` : "";
       const response = await client.request(`${request.path}${qs}`);
       const body = await response.text();
-      expect(response.status, body.slice(0, 200)).toBeLessThan(300);
+      const path = operations.get(routeCase.operationId)!.path;
+      // A proposal that was never submitted cannot be assigned, so it stays hidden (404); every
+      // other read, and every read of a submitted proposal, must answer.
+      const proposalId = /\/proposals\/([0-9a-f-]{36})/.exec(request.path)?.[1];
+      if (!proposalRead(path) || versions.some((v) => v.proposalId === proposalId)) expect(response.status, body.slice(0, 200)).toBeLessThan(300);
       for (const secret of [ownerName, cast.proposer.email, coauthor.name, coauthor.email]) expect(body).not.toContain(secret);
     });
   }
