@@ -1,5 +1,5 @@
 // Issue 17, finding 7: a standing corpus of hostile rich text, saved through the real draft
-// path, submitted, and read in Chromium by the chair. No script from the dossier may run
+// path, submitted, and read in Chromium by its author from the board page. No script from the dossier may run
 // (a detector function the payloads try to call, dialogs) and the page's own
 // Content-Security-Policy must not have to refuse anything (browserSession fails on any
 // violation): the sanitizer removes it first.
@@ -39,13 +39,13 @@ const CORPUS = [
 describe("hostile rich text in a dossier", () => {
   const { as } = browserSession();
 
-  it("renders the corpus for the chair without running any of it or tripping the Content-Security-Policy", async () => {
+  it("renders the submitted corpus for its author without running any of it or tripping the Content-Security-Policy", async () => {
     const { cast, proposal } = await makeProposal();
     const proposer = asSessionUser(cast.proposer);
     await saveDraft(proposer, cast.board.id, proposal.id, { revision: 1, document: dossierDoc(CORPUS) });
     await submitProposal(proposer, cast.board.id, proposal.id);
 
-    const page = await as(cast.chair.email, TEST_PASSWORD);
+    const page = await as(cast.proposer.email, TEST_PASSWORD);
     const pwned: string[] = [];
     const dialogs: string[] = [];
     await page.exposeFunction("__pwned", (why: string) => pwned.push(why));
@@ -55,10 +55,6 @@ describe("hostile rich text in a dossier", () => {
     });
     await page.goto("/boards");
     await page.getByRole("link", { name: cast.board.name }).first().click();
-    await page
-      .getByRole("link", { name: /^Proposals$/ })
-      .first()
-      .click();
     await page.getByRole("link", { name: proposal.title }).click();
     await page.getByRole("heading", { name: proposal.title }).waitFor();
     await page.getByText("styled").first().waitFor();
@@ -68,8 +64,9 @@ describe("hostile rich text in a dossier", () => {
     for (const handle of await dossier.locator("p, h1, h2, h3, td, img, svg, a[href^='javascript'], a[href^='data']").all()) {
       await handle.hover({ timeout: 2000 }).catch(() => undefined);
     }
-    expect(await page.locator("a[href^='javascript'], a[href^='data'], a[href^='/\\\\'], iframe:not([sandbox]), script:not([nonce])").count()).toBe(0);
-    expect(await page.locator("[onerror], [onclick], [onmouseover], [onload]").count()).toBe(0);
+    const inDossier = async (selector: string) => dossier.locator(selector).evaluateAll((els) => els.map((e) => e.outerHTML.slice(0, 120)));
+    expect(await inDossier("a[href^='javascript'], a[href^='data'], a[href^='/\\\\'], iframe, object, embed, script")).toEqual([]);
+    expect(await inDossier("[onerror], [onclick], [onmouseover], [onload], [style*='javascript']")).toEqual([]);
     expect(pwned).toEqual([]);
     expect(dialogs).toEqual([]);
   });
