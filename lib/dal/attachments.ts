@@ -460,5 +460,26 @@ export async function cleanUpUnconfirmedUploads(olderThan: Date): Promise<number
       .returning({ id: attachments.id });
     removed += deleted.length;
   }
+  await removeLateStagingObjects(olderThan);
   return removed;
+}
+
+/**
+ * A PUT URL can still be used after its upload was confirmed (until it expires). Such late
+ * staging objects are never read; this removes them for uploads started in the two hours before
+ * `olderThan` (their URLs have long expired).
+ */
+async function removeLateStagingObjects(olderThan: Date): Promise<void> {
+  const rows = await db()
+    .select({ objectKey: attachments.objectKey })
+    .from(attachments)
+    .where(
+      and(
+        sql`${attachments.status} <> 'pending'`,
+        lt(attachments.createdAt, olderThan),
+        sql`${attachments.createdAt} > ${new Date(olderThan.getTime() - 2 * 3600_000)}`,
+      ),
+    )
+    .limit(200);
+  for (const r of rows) await deleteObject(stagingObjectKey(r.objectKey)).catch(() => undefined);
 }

@@ -3,7 +3,14 @@
 // key no URL was issued for, sniffs and hashes that object, and deletes the staging one.
 import crypto from "node:crypto";
 import { describe, expect, it } from "vitest";
-import { attachmentDownloadUrl, confirmAttachment, presignAttachmentUpload, stagingObjectKey, UPLOAD_URL_SECONDS } from "@/lib/dal/attachments";
+import {
+  attachmentDownloadUrl,
+  cleanUpUnconfirmedUploads,
+  confirmAttachment,
+  presignAttachmentUpload,
+  stagingObjectKey,
+  UPLOAD_URL_SECONDS,
+} from "@/lib/dal/attachments";
 import { submitProposal } from "@/lib/dal/proposals";
 import { bucket, objectStore, presignDownload, readObject, statObjectOrNull, writeObject } from "@/storage/object-store";
 import { asSessionUser } from "../support/factories";
@@ -49,6 +56,12 @@ describe("upload integrity", () => {
     expect(sha256(await readObject(finalKey))).toBe(sha256(PDF));
     const row = await attachmentRow(presigned.attachment.id);
     expect(row!.sha256).toBe(sha256(PDF));
+
+    // The late staging object is never read, and housekeeping removes it once the URL expired.
+    expect(await statObjectOrNull(stagingObjectKey(finalKey))).not.toBeNull();
+    await cleanUpUnconfirmedUploads(new Date(Date.now() + 60_000));
+    expect(await statObjectOrNull(stagingObjectKey(finalKey))).toBeNull();
+    expect(sha256(await readObject(finalKey))).toBe(sha256(PDF));
 
     const download = await fetch(await attachmentDownloadUrl(asSessionUser(cast.chair), cast.board.id, presigned.attachment.id));
     expect(download.status).toBe(200);
