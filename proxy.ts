@@ -1,6 +1,8 @@
 import { NextResponse, type NextRequest } from "next/server";
 import { methodTable } from "@/lib/http/allowed-methods";
 import { contentSecurityPolicy } from "@/lib/http/csp";
+import { crossSiteRefusal } from "@/lib/http/cross-site";
+import { NUL_MESSAGE, pathIsMalformed, urlContainsNul } from "@/lib/http/nul";
 import { apiOperations } from "@/lib/openapi";
 
 // For /api/v1: a method the path does not allow gets a JSON 405 with an Allow header (Next's
@@ -26,6 +28,18 @@ function objectStoreOrigin(): string {
 
 export function proxy(request: NextRequest) {
   const { pathname, search } = request.nextUrl;
+  // A NUL (U+0000) in a path or filter is refused here, for pages and the API alike.
+  // So is a path whose percent-escapes do not decode to text (Next would answer 500).
+  const badInput = urlContainsNul(request.url)
+    ? NUL_MESSAGE
+    : pathIsMalformed(new URL(request.url).pathname)
+      ? "The address contains a percent-escape that is not valid UTF-8 text. Check the link."
+      : null;
+  if (badInput) {
+    return pathname.startsWith("/api/")
+      ? NextResponse.json({ error: badInput }, { status: 400, headers: { "cache-control": "no-store" } })
+      : new NextResponse(badInput, { status: 400, headers: { "content-type": "text/plain; charset=utf-8", "cache-control": "no-store" } });
+  }
   if (pathname.startsWith("/api/")) {
     const allowed = apiMethods.allowed(pathname);
     if (allowed && !allowed.includes(request.method)) {
@@ -35,6 +49,14 @@ export function proxy(request: NextRequest) {
         { status: 405, headers: { allow: allowed.join(", "), "cache-control": "no-store" } },
       );
     }
+    // Cross-site writes: JSON bodies only, and nothing a browser marks as from another origin.
+    const refusal = crossSiteRefusal({
+      method: request.method,
+      pathname,
+      headers: request.headers,
+      appOrigin: [process.env.APP_URL ?? "", request.nextUrl.origin],
+    });
+    if (refusal) return NextResponse.json({ error: refusal.error }, { status: refusal.status, headers: { "cache-control": "no-store" } });
     return NextResponse.next();
   }
   const isProtected = protectedPrefixes.some((p) => pathname === p || pathname.startsWith(`${p}/`));

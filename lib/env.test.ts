@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { parseEnv, REQUIRED_VARIABLES } from "./env";
+import { mailCatcherUrlFor, parseEnv, REQUIRED_VARIABLES } from "./env";
 
 const complete = {
   DATABASE_URL: "postgres://u:p@127.0.0.1:5432/db",
@@ -11,6 +11,21 @@ const complete = {
   APP_URL: "https://visviva.example.org",
   NEXTAUTH_SECRET: "a-secret-of-enough-length",
 };
+
+describe("issue 17 settings", () => {
+  it("serves the caught-mail pages only in demo and test mode, even when a catcher URL is set", () => {
+    const url = "http://127.0.0.1:54323";
+    expect(mailCatcherUrlFor(parseEnv({ ...complete, MAIL_CATCHER_URL: url }))).toBeNull();
+    expect(mailCatcherUrlFor(parseEnv({ ...complete, MAIL_CATCHER_URL: url, VISVIVA_MODE: "demo" }))).toBe(url);
+    expect(mailCatcherUrlFor(parseEnv({ ...complete, MAIL_CATCHER_URL: url, VISVIVA_MODE: "test" }))).toBe(url);
+    expect(mailCatcherUrlFor(parseEnv({ ...complete, VISVIVA_MODE: "demo" }))).toBeNull();
+  });
+
+  it("trusts no proxy hops unless told", () => {
+    expect(parseEnv(complete).TRUSTED_PROXY_HOPS).toBe(0);
+    expect(parseEnv({ ...complete, TRUSTED_PROXY_HOPS: "2" }).TRUSTED_PROXY_HOPS).toBe(2);
+  });
+});
 
 describe("parseEnv", () => {
   it("accepts a complete production environment and fills defaults", () => {

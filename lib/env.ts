@@ -17,6 +17,11 @@ const schema = z.object({
   MAIL_CATCHER_URL: z.string().url().optional(),
   APP_URL: z.string().url(),
   NEXTAUTH_SECRET: z.string().min(16),
+  /**
+   * Proxies in front of the app that each append to X-Forwarded-For. 0 (the default): the
+   * header is ignored and the connecting peer is the client (lib/http/client-address.ts).
+   */
+  TRUSTED_PROXY_HOPS: z.coerce.number().int().min(0).max(10).default(0),
   UPLOAD_MAX_BYTES: z.coerce
     .number()
     .int()
@@ -59,9 +64,16 @@ export function env(): AppEnv {
   return cached;
 }
 
-/** The dev-only mail pages are served only outside production, or where a catcher is configured. */
+/**
+ * The local mail catcher, for the /dev/mail pages: only in demo and test mode, and only where
+ * a catcher is configured. In production mode these pages do not exist, whatever is set.
+ */
 export function mailCatcherUrl(): string | null {
-  const e = env();
+  return mailCatcherUrlFor(env());
+}
+
+export function mailCatcherUrlFor(e: AppEnv): string | null {
+  if (e.VISVIVA_MODE !== "demo" && e.VISVIVA_MODE !== "test") return null;
   if (!e.MAIL_CATCHER_URL) return null;
   return e.MAIL_CATCHER_URL;
 }

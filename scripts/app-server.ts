@@ -95,12 +95,25 @@ export async function ensureApp(profile: Profile, extraEnv: Record<string, strin
   fs.mkdirSync(config.runDir, { recursive: true });
   const logFile = path.join(config.logDir, `app-${config.app.port}.log`);
   const out = fs.openSync(logFile, "a");
-  const child = spawn(process.execPath, [require.resolve("next/dist/bin/next"), "start", "--hostname", "127.0.0.1", "--port", String(config.app.port)], {
-    cwd: root,
-    env,
-    detached: true,
-    stdio: ["ignore", out, out],
-  });
+  const child = spawn(
+    process.execPath,
+    [
+      "--require",
+      path.join(root, "scripts", "peer-address.cjs"),
+      require.resolve("next/dist/bin/next"),
+      "start",
+      "--hostname",
+      "127.0.0.1",
+      "--port",
+      String(config.app.port),
+    ],
+    {
+      cwd: root,
+      env,
+      detached: true,
+      stdio: ["ignore", out, out],
+    },
+  );
   child.unref();
   fs.writeFileSync(pidFile, String(child.pid));
   const deadline = Date.now() + 60_000;

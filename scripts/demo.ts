@@ -39,11 +39,15 @@ async function main() {
   const logFile = path.join(config.logDir, "app.log");
   fs.mkdirSync(config.logDir, { recursive: true });
   log(`serving http://127.0.0.1:${config.app.port} — demo accounts are listed in README.md; Ctrl-C stops the app`);
-  const app = spawn(process.execPath, [nextBin, "start", "--hostname", "127.0.0.1", "--port", String(config.app.port)], {
-    cwd: config.root,
-    env: { ...env, NEXT_DIST_DIR: ".next", NODE_ENV: "production" },
-    stdio: "inherit",
-  });
+  const app = spawn(
+    process.execPath,
+    ["--require", path.join(config.root, "scripts", "peer-address.cjs"), nextBin, "start", "--hostname", "127.0.0.1", "--port", String(config.app.port)],
+    {
+      cwd: config.root,
+      env: { ...env, NEXT_DIST_DIR: ".next", NODE_ENV: "production" },
+      stdio: "inherit",
+    },
+  );
   for (const signal of ["SIGINT", "SIGTERM"] as const) process.on(signal, () => app.kill(signal));
   app.on("exit", (code) => {
     log(`app stopped; services keep running (stop them with: npm run demo:stop). App log: ${logFile}`);

@@ -81,5 +81,8 @@ export function appEnvironment(config: ServiceConfig): Record<string, string> {
     APP_URL: appUrl,
     NEXTAUTH_URL: appUrl,
     NEXTAUTH_SECRET: `visviva-${config.profile}-secret-not-for-production`,
+    // The test client stands in for one proxy: it names a made-up client address per test
+    // (X-Forwarded-For) so rate limits of one test never throttle another.
+    TRUSTED_PROXY_HOPS: config.profile === "test" ? "1" : "0",
   };
 }

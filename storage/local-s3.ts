@@ -31,6 +31,20 @@ const server = new S3rver({
   configureBuckets: [{ name: bucket, configs: [cors] }],
 });
 
+// Stored objects are never rendered by the browser as a page of the store's origin: every
+// GET answers as a download, and the type is not sniffed. (A real store gets the same from
+// the presigned GET's response-content-disposition, and should live on another site.)
+type KoaContext = { method: string; status: number; set(name: string, value: string): void; response: { get(name: string): string } };
+const middleware = (server as unknown as { middleware: ((ctx: KoaContext, next: () => Promise<void>) => Promise<void>)[] }).middleware;
+middleware.unshift(async (ctx, next) => {
+  await next();
+  if (ctx.method !== "GET" && ctx.method !== "HEAD") return;
+  ctx.set("X-Content-Type-Options", "nosniff");
+  if (ctx.status >= 200 && ctx.status < 300 && !/^attachment\b/i.test(ctx.response.get("Content-Disposition") ?? "")) {
+    ctx.set("Content-Disposition", "attachment");
+  }
+});
+
 server.run().then(
   () => console.log(`local S3 store on http://127.0.0.1:${port} (bucket ${bucket}, data ${directory})`),
   (error: unknown) => {

@@ -1,5 +1,5 @@
 import "server-only";
-import { Client } from "minio";
+import { Client, CopyDestinationOptions, CopySourceOptions } from "minio";
 import type { Readable } from "node:stream";
 import { env } from "@/lib/env";
 
@@ -33,12 +33,27 @@ export function presignUpload(objectKey: string, expiresSeconds = 600): Promise<
   return objectStore().presignedPutObject(bucket(), objectKey, expiresSeconds);
 }
 
-/** Short-lived URL that downloads an object as an attachment under its original name. */
-export function presignDownload(objectKey: string, filename: string, expiresSeconds = 300): Promise<string> {
+/**
+ * Short-lived URL that downloads an object as an attachment under its original name. The
+ * content type is the one the server sniffed (passed in), never what the uploader declared.
+ */
+export function presignDownload(objectKey: string, filename: string, expiresSeconds = 300, contentType?: string): Promise<string> {
   const safe = filename.replace(/["\\\r\n]/g, "_");
   return objectStore().presignedGetObject(bucket(), objectKey, expiresSeconds, {
     "response-content-disposition": `attachment; filename="${safe}"; filename*=UTF-8''${encodeURIComponent(filename)}`,
+    ...(contentType ? { "response-content-type": contentType } : {}),
   });
+}
+
+/**
+ * Server-side copy of one object to another key, replacing its metadata so the stored
+ * Content-Type is `contentType` (never the uploader's PUT header).
+ */
+export async function copyObject(fromKey: string, toKey: string, contentType: string): Promise<void> {
+  await objectStore().copyObject(
+    new CopySourceOptions({ Bucket: bucket(), Object: fromKey }),
+    new CopyDestinationOptions({ Bucket: bucket(), Object: toKey, MetadataDirective: "REPLACE", Headers: { "Content-Type": contentType } }),
+  );
 }
 
 export async function statObjectOrNull(objectKey: string): Promise<{ size: number; contentType: string | null } | null> {

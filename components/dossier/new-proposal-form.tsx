@@ -1,19 +1,12 @@
 "use client";
-// Proposers start a proposal in an open call, with co-authors from the board's proposers.
+// Proposers start a proposal in an open call, with co-authors named by their full e-mail
+// address (the board's proposers are not listed to other proposers).
 import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { SelectField, TextField } from "@/components/ui/form-controls";
 import { MISSION_TYPES } from "@/lib/validation/dossier";
 
-export function NewProposalForm({
-  boardId,
-  calls,
-  candidates,
-}: {
-  boardId: string;
-  calls: { id: string; title: string }[];
-  candidates: { id: string; name: string; email: string }[];
-}) {
+export function NewProposalForm({ boardId, calls }: { boardId: string; calls: { id: string; title: string }[] }) {
   const router = useRouter();
   const [error, setError] = useState<string | null>(null);
   const [saving, setSaving] = useState(false);
@@ -32,7 +25,9 @@ export function NewProposalForm({
           title: String(form.get("title") ?? ""),
           missionType: String(form.get("missionType") ?? ""),
           callId: String(form.get("callId") ?? ""),
-          coauthorIds: form.getAll("coauthorIds").map(String),
+          coauthorEmails: String(form.get("coauthorEmails") ?? "")
+            .split(/[\s,;]+/)
+            .filter(Boolean),
         }),
       });
       const body = (await response.json().catch(() => ({}))) as { error?: string; proposal?: { id: string } };
@@ -63,17 +58,13 @@ export function NewProposalForm({
           </option>
         ))}
       </SelectField>
-      {candidates.length > 0 ? (
-        <fieldset className="space-y-1">
-          <legend className="text-sm font-semibold text-ink-800">Co-authors</legend>
-          {candidates.map((c) => (
-            <label key={c.id} className="flex items-center gap-2 text-sm">
-              <input type="checkbox" name="coauthorIds" value={c.id} className="h-4 w-4 accent-trajectory-600" />
-              {c.name} <span className="text-ink-500">({c.email})</span>
-            </label>
-          ))}
-        </fieldset>
-      ) : null}
+      <TextField
+        name="coauthorEmails"
+        label="Co-authors' e-mail addresses"
+        hint="Optional. Type each co-author's full address, separated by commas; they must be proposers on this board."
+        autoComplete="off"
+        maxLength={2000}
+      />
       {error ? (
         <p role="alert" className="rounded-chip bg-void-100 p-2 text-sm text-void-700">
           {error}

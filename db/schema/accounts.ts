@@ -10,7 +10,8 @@ export const users = pgTable(
     organisation: text("organisation"),
     passwordHash: text("password_hash"),
     isAdmin: boolean("is_admin").notNull().default(false),
-    status: text("status", { enum: ["active", "deactivated"] })
+    // "unverified": registered openly, address not yet proven by using a mailed link; cannot sign in.
+    status: text("status", { enum: ["active", "deactivated", "unverified"] })
       .notNull()
       .default("active"),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),

@@ -16,6 +16,8 @@ export const boards = pgTable(
     openRegistration: boolean("open_registration").notNull().default(false),
     /** Hide proposers' names from reviewers (reviewers are always hidden from proposers). */
     hideProposerNames: boolean("hide_proposer_names").notNull().default(false),
+    /** Reviewers may read every submitted version of a proposal they review, not only the versions assigned to them. */
+    reviewersSeeAllVersions: boolean("reviewers_see_all_versions").notNull().default(false),
     /** Reviewers of one proposal see each other's review items once they submitted their own. */
     shareReviewItemsAfterSubmit: boolean("share_review_items_after_submit").notNull().default(true),
     /** Tiptap JSON of the decision letter template, with merge fields. */

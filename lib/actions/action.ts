@@ -1,6 +1,7 @@
 import "server-only";
 import type { z } from "zod";
 import { fromDatabaseInputError, isAppError } from "@/lib/errors";
+import { containsNul, NUL_MESSAGE } from "@/lib/http/nul";
 import { requireUser, type SessionUser } from "@/lib/auth/session";
 import { humanFieldErrors, humanIssue } from "@/lib/validation/messages";
 
@@ -31,6 +32,7 @@ export function action<S extends z.ZodType, T>(schema: S, handler: (input: z.inf
     try {
       const user = await requireUser();
       const raw = input instanceof FormData ? Object.fromEntries(input.entries()) : input;
+      if (containsNul(raw)) return { ok: false, error: NUL_MESSAGE, status: 400 };
       const parsed = schema.safeParse(raw);
       if (!parsed.success) {
         return { ok: false, error: summaryOf(parsed.error), fieldErrors: fieldErrorsOf(parsed.error), status: 422 };
@@ -50,6 +52,7 @@ export function publicAction<S extends z.ZodType, T>(schema: S, handler: (input:
   return async (input: unknown): Promise<ActionResult<T>> => {
     try {
       const raw = input instanceof FormData ? Object.fromEntries(input.entries()) : input;
+      if (containsNul(raw)) return { ok: false, error: NUL_MESSAGE, status: 400 };
       const parsed = schema.safeParse(raw);
       if (!parsed.success) {
         return { ok: false, error: summaryOf(parsed.error), fieldErrors: fieldErrorsOf(parsed.error), status: 422 };

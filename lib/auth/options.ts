@@ -2,9 +2,21 @@ import "server-only";
 import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
 import { recordAudit } from "@/lib/dal/audit";
-import { consumeAccountToken, findUserForSignIn, openSession, recordSignInAttempt, revokeSession, SESSION_DAYS, signInRetryAfter } from "@/lib/dal/sessions";
-import { verifyPassword } from "./passwords";
+import {
+  consumeAccountToken,
+  findUserForSignIn,
+  markAddressVerified,
+  openSession,
+  recordSignInAttempt,
+  revokeSession,
+  SESSION_DAYS,
+  signInRetryAfter,
+} from "@/lib/dal/sessions";
+import { clientAddressFrom } from "@/lib/http/client-address";
+import { safeRedirect } from "./callback-url";
+import { verifyPasswordOrDummy } from "./passwords";
 import { formatWait } from "@/lib/format/dates";
+import { env } from "@/lib/env";
 
 type HeaderBag = Record<string, string | string[] | undefined> | Headers | undefined;
 
@@ -15,9 +27,9 @@ function header(headers: HeaderBag, name: string): string | null {
   return Array.isArray(value) ? (value[0] ?? null) : (value ?? null);
 }
 
+/** The client's address, trusting X-Forwarded-For only as far as TRUSTED_PROXY_HOPS says (lib/http/client-address.ts). */
 export function clientAddress(headers: HeaderBag): string {
-  const forwarded = header(headers, "x-forwarded-for");
-  return forwarded?.split(",")[0]?.trim() || header(headers, "x-real-ip") || "local";
+  return clientAddressFrom(header(headers, "x-forwarded-for"), env().TRUSTED_PROXY_HOPS);
 }
 
 /** Message shown on the sign-in page; next-auth passes it through as the `error` parameter. */
@@ -26,6 +38,8 @@ export function tooManyAttemptsMessage(retryAfterSeconds: number): string {
 }
 
 export const INVALID_CREDENTIALS = "That e-mail and password do not match an active account.";
+export const UNVERIFIED_ACCOUNT =
+  "Confirm your e-mail address first: open the link we mailed when you registered. No mail? Ask for a sign-in link below; it confirms the address too.";
 
 export const authOptions: NextAuthOptions = {
   secret: process.env.NEXTAUTH_SECRET,
@@ -49,7 +63,12 @@ export const authOptions: NextAuthOptions = {
           throw new Error(tooManyAttemptsMessage(retryAfter));
         }
         const user = await findUserForSignIn(email);
-        const ok = user !== null && user.status === "active" && (await verifyPassword(user.passwordHash, password));
+        // Always one hash check (a dummy one without an account), so timing does not tell who has one.
+        const passwordOk = await verifyPasswordOrDummy(user?.passwordHash, password);
+        if (user?.status === "unverified" && passwordOk) {
+          throw new Error(UNVERIFIED_ACCOUNT);
+        }
+        const ok = user !== null && user.status === "active" && passwordOk;
         await recordSignInAttempt(email, ipAddress, ok);
         if (!ok || !user) {
           await recordAudit({ action: "sign-in.failed", actorEmail: email, ipAddress, details: { method: "password" } });
@@ -69,6 +88,11 @@ export const authOptions: NextAuthOptions = {
         const ipAddress = clientAddress(req?.headers as HeaderBag);
         const email = token ? await consumeAccountToken("sign-in-link", token) : null;
         const user = email ? await findUserForSignIn(email) : null;
+        // Using a mailed link proves the address: an unverified (openly registered) account becomes active.
+        if (user?.status === "unverified" && (await markAddressVerified(user.id))) {
+          user.status = "active";
+          await recordAudit({ action: "account.verified", actorId: user.id, actorEmail: user.email, ipAddress, details: { method: "link" } });
+        }
         if (!user || user.status !== "active") {
           await recordAudit({ action: "sign-in.failed", actorEmail: email, ipAddress, details: { method: "link" } });
           throw new Error("This sign-in link is invalid, already used or expired. Ask for a new one.");
@@ -87,6 +111,10 @@ export const authOptions: NextAuthOptions = {
     },
   },
   callbacks: {
+    // A malformed callbackUrl (in a query, form or cookie) goes home instead of throwing.
+    async redirect({ url, baseUrl }) {
+      return safeRedirect(url, baseUrl);
+    },
     async jwt({ token, user }) {
       if (user) {
         token.uid = user.id;

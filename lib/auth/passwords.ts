@@ -17,3 +17,16 @@ export async function verifyPassword(passwordHash: string | null, password: stri
     return false;
   }
 }
+
+let dummyHash: Promise<string> | undefined;
+
+/**
+ * Checks a password against an account that may not exist. Without an account a dummy hash
+ * is verified anyway, so the answer takes as long for unknown addresses as for known ones.
+ */
+export async function verifyPasswordOrDummy(passwordHash: string | null | undefined, password: string): Promise<boolean> {
+  if (passwordHash) return verifyPassword(passwordHash, password);
+  dummyHash ??= hash("not a password anyone can sign in with", options);
+  await verifyPassword(await dummyHash, password);
+  return false;
+}

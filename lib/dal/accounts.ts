@@ -1,15 +1,16 @@
 import "server-only";
-import { and, asc, eq, gt, isNull, sql } from "drizzle-orm";
+import { and, asc, desc, eq, gt, inArray, isNull, sql } from "drizzle-orm";
 import { db } from "@/db/client";
-import { accountTokens, boardMembers, boards, users, userSessions } from "@/db/schema";
+import { accountTokens, boardMembers, boards, invitations, users, userSessions } from "@/db/schema";
 import { hashPassword, verifyPassword } from "@/lib/auth/passwords";
 import { newToken } from "@/lib/auth/tokens";
-import { consumeAccountToken, revokeOtherSessions, type SessionUser } from "@/lib/dal/sessions";
+import { clearSignInFailures, consumeAccountToken, revokeOtherSessions, type SessionUser } from "@/lib/dal/sessions";
 import { recordAudit } from "@/lib/dal/audit";
 import { consumeRateLimit } from "@/lib/dal/rate-limits";
 import { boardOpenForRegistration } from "@/lib/dal/boards";
+import { invitationUrl } from "@/lib/dal/invitations";
 import { env } from "@/lib/env";
-import { conflict, notFound, unauthenticated, unprocessable } from "@/lib/errors";
+import { notFound, unauthenticated, unprocessable } from "@/lib/errors";
 import { enqueueMail } from "@/lib/mail/outbox";
 import { renderMail } from "@/lib/mail/templates/layout";
 import type {
@@ -154,7 +155,7 @@ export async function requestSignInLink(
   const [account] = await db()
     .select({ id: users.id, email: users.email, name: users.name })
     .from(users)
-    .where(and(sql`lower(${users.email}) = ${input.email}`, eq(users.status, "active")));
+    .where(and(sql`lower(${users.email}) = ${input.email}`, inArray(users.status, ["active", "unverified"])));
   if (!account) {
     await recordAudit({ action: "sign-in-link.requested", actorEmail: input.email, ipAddress, details: { sent: false } });
     return { message: SIGN_IN_LINK_SENT };
@@ -213,7 +214,7 @@ export async function requestPasswordReset(
   const [account] = await db()
     .select({ id: users.id, email: users.email, name: users.name })
     .from(users)
-    .where(and(sql`lower(${users.email}) = ${input.email}`, eq(users.status, "active")));
+    .where(and(sql`lower(${users.email}) = ${input.email}`, inArray(users.status, ["active", "unverified"])));
   if (!account) {
     await recordAudit({ action: "password-reset.requested", actorEmail: input.email, ipAddress, details: { sent: false } });
     return { message: PASSWORD_RESET_SENT };
@@ -251,10 +252,13 @@ export async function resetPassword(input: z.infer<typeof passwordResetSchema>, 
       ? await tx
           .select({ id: users.id, email: users.email })
           .from(users)
-          .where(and(sql`lower(${users.email}) = lower(${email})`, eq(users.status, "active")))
+          .where(and(sql`lower(${users.email}) = lower(${email})`, inArray(users.status, ["active", "unverified"])))
       : [];
     if (!account) throw unprocessable("This reset link is invalid, already used or expired. Ask for a new one on the sign-in page.");
-    await tx.update(users).set({ passwordHash, updatedAt: new Date() }).where(eq(users.id, account.id));
+    // The mailed link proves the address, so an unverified account becomes active here too.
+    await tx.update(users).set({ passwordHash, status: "active", updatedAt: new Date() }).where(eq(users.id, account.id));
+    // The owner proved the address: earlier failed sign-ins (anyone's) no longer hold it back.
+    await clearSignInFailures(account.email, tx);
     const revoked = await tx
       .update(userSessions)
       .set({ revokedAt: new Date() })
@@ -276,45 +280,126 @@ export async function resetPassword(input: z.infer<typeof passwordResetSchema>, 
 }
 
 export const REGISTRATIONS_PER_CLIENT = 10;
+export const REGISTRATIONS_PER_ADDRESS = 3;
+/** Links that confirm a newly registered address stay valid this long. */
+export const VERIFY_LINK_HOURS = 24;
+
+/** The one answer to a registration, whatever the address already is (no enumeration). */
+export const REGISTRATION_SENT =
+  "Thank you. We sent a message to that address with the next step: open the link in it to confirm the address, then you can sign in.";
 
 /**
- * Open registration: a new account with the proposer role on a board that allows it. An
- * address that already has an account is told to sign in (and ask the chair), not given a
- * second account.
+ * Open registration on a board that allows it. The answer is the same whoever owns the
+ * address, and every case sends one mail to it:
+ * - a new address gets an unverified account with the proposer role and a link that confirms
+ *   the address (and signs in); the account cannot sign in with its password before that;
+ * - an address with a pending invitation gets that invitation again (fresh link) instead of
+ *   an account, so nobody can create the account an invitation is meant for;
+ * - an address that already has an account gets a note saying so (sign in, or reset).
  */
 export async function registerProposer(
   input: z.infer<typeof registerProposerSchema>,
   meta: { ipAddress?: string | null } = {},
-): Promise<{ email: string; boardId: string }> {
+): Promise<{ message: string; email: string; boardId: string }> {
   const board = await boardOpenForRegistration(input.board);
   if (!board) throw notFound("That board, or its open registration,");
-  await consumeRateLimit(`register:client:${meta.ipAddress ?? "local"}`, REGISTRATIONS_PER_CLIENT, 60 * 60, "Too many registrations from this network.");
+  const ipAddress = meta.ipAddress ?? "local";
+  await consumeRateLimit(`register:client:${ipAddress}`, REGISTRATIONS_PER_CLIENT, 60 * 60, "Too many registrations from this network.");
+  await consumeRateLimit(`register:address:${input.email}`, REGISTRATIONS_PER_ADDRESS, 60 * 60, "Too many registrations for this address.");
+  // Hash first in every case, so the answer takes as long whether or not the address is known.
   const passwordHash = await hashPassword(input.password);
-  return db().transaction(async (tx) => {
-    const inserted = await tx
-      .insert(users)
-      .values({ email: input.email, name: input.name, organisation: input.organisation ?? null, passwordHash })
-      .onConflictDoNothing()
-      .returning({ id: users.id, email: users.email });
-    const account = inserted[0];
-    if (!account) {
-      throw conflict("An account with this e-mail address already exists. Sign in, and ask the board's chair to add you as a proposer.", {
-        fieldErrors: { email: ["An account with this address already exists; sign in instead."] },
+  const answer = { message: REGISTRATION_SENT, email: input.email, boardId: board.id };
+  await db().transaction(async (tx) => {
+    const [invitation] = await tx
+      .select({ id: invitations.id, boardId: invitations.boardId, boardName: boards.name, role: invitations.role, expiresAt: invitations.expiresAt })
+      .from(invitations)
+      .innerJoin(boards, eq(boards.id, invitations.boardId))
+      .where(
+        and(
+          sql`lower(${invitations.email}) = ${input.email}`,
+          isNull(invitations.acceptedAt),
+          isNull(invitations.revokedAt),
+          gt(invitations.expiresAt, sql`now()`),
+        ),
+      )
+      .orderBy(desc(invitations.createdAt))
+      .limit(1);
+    const [existing] = await tx
+      .select({ id: users.id, name: users.name })
+      .from(users)
+      .where(sql`lower(${users.email}) = ${input.email}`);
+
+    if (invitation && !existing) {
+      // Send the invitation again with a fresh link (only the hash of the old one is kept).
+      const { token, tokenHash } = newToken();
+      await tx.update(invitations).set({ tokenHash }).where(eq(invitations.id, invitation.id));
+      const mail = await renderMail({
+        subject: `Your invitation to the ${invitation.boardName}`,
+        preview: "You have an invitation waiting; accept it instead of registering.",
+        heading: `Your invitation to the ${invitation.boardName}`,
+        paragraphs: [
+          `Someone registered this address on VisViva. You already have an invitation to the ${invitation.boardName} as ${invitation.role}: accept it with the button below, which creates your account.`,
+          `This link replaces the one in the earlier invitation mail and expires on ${invitation.expiresAt.toUTCString()}.`,
+        ],
+        action: { label: "Accept the invitation", url: invitationUrl(token) },
+        footnote: "If you did not register, ignore this message; no account was created.",
       });
+      await enqueueMail({ kind: "invitation", dedupeKey: `invitation-resent:${invitation.id}:${tokenHash.slice(0, 16)}`, to: [input.email], ...mail }, tx);
+      await recordAudit(
+        { action: "account.register-invited", actorEmail: input.email, boardId: board.id, target: `invitation:${invitation.id}`, ipAddress },
+        tx,
+      );
+      return;
     }
-    await tx.insert(boardMembers).values({ boardId: board.id, userId: account.id, role: "proposer" });
+    if (existing) {
+      const mail = await renderMail({
+        subject: "You already have a VisViva account",
+        preview: "Someone tried to register this address again.",
+        heading: "You already have an account",
+        paragraphs: [
+          `Hello ${existing.name}, someone tried to register this address for the ${board.name}. You already have a VisViva account with it, so nothing was changed.`,
+          "Sign in as usual. If you forgot your password, choose a new one from the sign-in page; to join the board as a proposer, ask its chair.",
+        ],
+        action: { label: "Sign in", url: `${env().APP_URL.replace(/\/$/, "")}/sign-in` },
+        footnote: "If it was not you, ignore this message; your account stays as it is.",
+      });
+      await enqueueMail({ kind: "registration", dedupeKey: `registration-existing:${existing.id}:${Date.now()}`, to: [input.email], ...mail }, tx);
+      await recordAudit({ action: "account.register-existing", actorEmail: input.email, boardId: board.id, target: `user:${existing.id}`, ipAddress }, tx);
+      return;
+    }
+    const [account] = await tx
+      .insert(users)
+      .values({ email: input.email, name: input.name, organisation: input.organisation ?? null, passwordHash, status: "unverified" })
+      .returning({ id: users.id, email: users.email });
+    await tx.insert(boardMembers).values({ boardId: board.id, userId: account!.id, role: "proposer" });
+    const { token, tokenHash } = newToken();
+    await tx
+      .insert(accountTokens)
+      .values({ purpose: "sign-in-link", email: account!.email, tokenHash, expiresAt: new Date(Date.now() + VERIFY_LINK_HOURS * 3600_000) });
+    const mail = await renderMail({
+      subject: "Confirm your VisViva address",
+      preview: `Confirm this address to finish registering for the ${board.name}.`,
+      heading: "Confirm your address",
+      paragraphs: [
+        `Hello ${input.name}, you registered as a proposer for the ${board.name}. Use the button below to confirm this address; it also signs you in. The link works once, for ${VERIFY_LINK_HOURS} hours.`,
+        "Until the address is confirmed, the account cannot sign in with its password.",
+      ],
+      action: { label: "Confirm and sign in", url: signInLinkUrl(token) },
+      footnote: "If you did not register, ignore this message; the account stays unconfirmed and unusable.",
+    });
+    await enqueueMail({ kind: "registration", dedupeKey: `registration:${account!.id}`, to: [account!.email], ...mail }, tx);
     await recordAudit(
       {
         action: "account.registered",
-        actorId: account.id,
-        actorEmail: account.email,
+        actorId: account!.id,
+        actorEmail: account!.email,
         boardId: board.id,
-        target: `user:${account.id}`,
-        details: { role: "proposer" },
-        ipAddress: meta.ipAddress,
+        target: `user:${account!.id}`,
+        details: { role: "proposer", verified: false },
+        ipAddress,
       },
       tx,
     );
-    return { email: account.email, boardId: board.id };
   });
+  return answer;
 }

@@ -1,6 +1,6 @@
 import "server-only";
 import crypto from "node:crypto";
-import { and, asc, eq, lt, sql } from "drizzle-orm";
+import { and, asc, eq, inArray, lt, sql } from "drizzle-orm";
 import { db } from "@/db/client";
 import { attachments, proposalVersions } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session";
@@ -8,14 +8,17 @@ import { attachmentContentPath } from "@/lib/dossier/schema";
 import { env } from "@/lib/env";
 import { conflict, notFound, unprocessable } from "@/lib/errors";
 import { ATTACHMENT_TYPES, type PresignUploadInput } from "@/lib/validation/dossier";
-import { deleteObject, presignDownload, presignUpload, readObjectHead, readObjectStream, statObjectOrNull } from "@/storage/object-store";
+import { copyObject, deleteObject, presignDownload, presignUpload, readObjectHead, readObjectStream, statObjectOrNull } from "@/storage/object-store";
 import { recordAudit } from "./audit";
 import { recordOrbitFile } from "./orbit-files";
 import { isUuid } from "./boards";
-import { editableState, proposalFor } from "./proposals";
+import { editableState, proposalFor, readableVersionIds } from "./proposals";
 
-/** Presigned upload URLs live this long; the browser starts the PUT right away. */
-export const UPLOAD_URL_SECONDS = 15 * 60;
+/**
+ * Presigned upload URLs live this long; the browser starts the PUT right away. They point at
+ * a staging key only: confirm copies the object to its final key, for which no URL exists.
+ */
+export const UPLOAD_URL_SECONDS = 5 * 60;
 /** Pending uploads older than this are removed (object and row). */
 export const UNCONFIRMED_UPLOAD_MAX_AGE_MS = 60 * 60 * 1000;
 
@@ -115,6 +118,14 @@ export function attachmentObjectKey(boardId: string, proposalId: string, id: str
 }
 
 /**
+ * Where the browser PUTs an upload before it is confirmed. Presigned URLs are only ever
+ * issued for this key; the final key (attachmentObjectKey) is written by the server alone.
+ */
+export function stagingObjectKey(finalKey: string): string {
+  return `staging/${finalKey}`;
+}
+
+/**
  * Registers a pending upload and returns a short-lived presigned PUT URL for it. Only an
  * author of an editable proposal gets one; the server names the object key.
  */
@@ -136,7 +147,7 @@ export async function presignAttachmentUpload(
     .insert(attachments)
     .values({ id, proposalId, boardId, objectKey, filename: input.filename, declaredType: type, declaredSize: input.size, uploadedBy: user.id })
     .returning(attachmentColumns);
-  const uploadUrl = await presignUpload(objectKey, UPLOAD_URL_SECONDS);
+  const uploadUrl = await presignUpload(stagingObjectKey(objectKey), UPLOAD_URL_SECONDS);
   return {
     attachment: toView(row!),
     uploadUrl,
@@ -171,11 +182,28 @@ export function textKindOf(head: string): string | null {
 
 const HEAD_BYTES = 4096;
 
+/** The type the stored object gets and the download announces: sniffed, never the PUT header. */
+function storedContentType(sniffedBinary: string | null, declaredType: string): string {
+  if (sniffedBinary) return sniffedBinary;
+  return declaredType.startsWith("text/") ? `${declaredType}; charset=utf-8` : "application/octet-stream";
+}
+
+/** What confirm learned from the final object; orbit-file parsing can build on it. */
+export interface InspectedObject {
+  objectKey: string;
+  size: number;
+  sha256: string;
+  detectedType: string;
+  head: Buffer;
+  isText: boolean;
+}
+
 /**
- * Confirms an upload: the object must exist, be within the cap and the declared size, and
- * its bytes must be what was declared (magic numbers for PDF/PNG/JPEG; valid UTF-8 without
- * NUL for text). Records size, detected type and SHA-256; otherwise deletes the object and
- * the row and answers 422 saying why.
+ * Confirms an upload. The browser PUT it to a staging key; the server copies it to the final
+ * key (no URL was ever issued for that one), deletes the staging object, and then checks only
+ * the final object: within the cap and the declared size, bytes of the declared type (magic
+ * numbers for PDF/PNG/JPEG; valid UTF-8 without NUL for text). Records size, sniffed type and
+ * SHA-256 of the final object; otherwise deletes both objects and the row and answers 422.
  */
 export async function confirmAttachment(
   user: SessionUser,
@@ -188,10 +216,10 @@ export async function confirmAttachment(
   await proposalFor(user, boardId, row.proposalId, "proposal.edit");
   if (row.status === "confirmed") return toView(row);
   const maxBytes = options.maxBytes ?? uploadMaxBytes();
-  const stat = await statObjectOrNull(row.objectKey);
-  if (!stat) throw unprocessable(`"${row.filename}" has not arrived in storage yet. Upload it again (retry), then confirm.`);
+  const stagingKey = stagingObjectKey(row.objectKey);
 
   const reject = async (message: string, details?: unknown): Promise<never> => {
+    await deleteObject(stagingKey).catch(() => undefined);
     await deleteObject(row.objectKey).catch(() => undefined);
     await db()
       .delete(attachments)
@@ -207,15 +235,68 @@ export async function confirmAttachment(
     throw unprocessable(message, details);
   };
 
-  if (stat.size > maxBytes)
-    await reject(`"${row.filename}" is ${formatBytes(stat.size)}; attachments are limited to ${formatBytes(maxBytes)}. It was removed.`, {
-      size: stat.size,
+  // 1. Move the upload out of reach: server-side copy to the final key, then drop the staging
+  //    object. A confirm interrupted after the copy finds the final object and carries on.
+  const staged = await statObjectOrNull(stagingKey);
+  if (staged) {
+    if (staged.size > maxBytes)
+      await reject(`"${row.filename}" is ${formatBytes(staged.size)}; attachments are limited to ${formatBytes(maxBytes)}. It was removed.`, {
+        size: staged.size,
+        maxBytes,
+      });
+    const stagedHead = await readObjectHead(stagingKey, Math.min(HEAD_BYTES, staged.size));
+    await copyObject(stagingKey, row.objectKey, storedContentType(sniffBinaryType(stagedHead), row.declaredType));
+    await deleteObject(stagingKey).catch((error) => console.error("[attachments] could not delete staging object", stagingKey, error));
+  }
+  const stat = await statObjectOrNull(row.objectKey);
+  if (!stat) throw unprocessable(`"${row.filename}" has not arrived in storage yet. Upload it again (retry), then confirm.`);
+
+  // 2. Hash and sniff the final object: the only bytes the record will describe.
+  const inspected = await inspectFinalObject(row, stat.size, maxBytes, reject);
+
+  // 3. The final object is known and checked here (inspected.objectKey, .detectedType, .head):
+  //    further checks of its content belong at this point, before the row is confirmed.
+
+  const [updated] = await db()
+    .update(attachments)
+    .set({ status: "confirmed", size: inspected.size, sha256: inspected.sha256, detectedType: inspected.detectedType, confirmedAt: new Date() })
+    .where(and(eq(attachments.id, row.id), eq(attachments.boardId, boardId), eq(attachments.status, "pending")))
+    .returning(attachmentColumns);
+  if (!updated) {
+    const again = await loadAttachment(boardId, attachmentId);
+    if (again?.status === "confirmed") return toView(again);
+    throw notFound("That attachment");
+  }
+  await recordAudit({
+    action: "attachment.confirm",
+    actorId: user.id,
+    actorEmail: user.email,
+    boardId,
+    target: row.id,
+    details: { filename: row.filename, size: inspected.size, sha256: inspected.sha256 },
+  });
+  // Orbit files (element sets, CCSDS OPM/OMM/OEM) are parsed now; the attachment stays even when unparsed.
+  if (inspected.isText)
+    await recordOrbitFile({ attachmentId: row.id, boardId, objectKey: updated.objectKey, sha256: inspected.sha256, filename: row.filename });
+  return toView(updated, inspected.isText ? textKindOf(inspected.head.toString("utf8")) : null);
+}
+
+/** Size, type and SHA-256 of the final object in one pass; `reject` (which throws) otherwise. */
+async function inspectFinalObject(
+  row: AttachmentRow,
+  size: number,
+  maxBytes: number,
+  reject: (message: string, details?: unknown) => Promise<never>,
+): Promise<InspectedObject> {
+  if (size > maxBytes)
+    await reject(`"${row.filename}" is ${formatBytes(size)}; attachments are limited to ${formatBytes(maxBytes)}. It was removed.`, {
+      size,
       maxBytes,
     });
-  if (stat.size !== row.declaredSize)
-    await reject(`"${row.filename}" is ${stat.size} bytes but was declared as ${row.declaredSize}. It was removed; upload it again.`, { size: stat.size });
+  if (size !== row.declaredSize)
+    await reject(`"${row.filename}" is ${size} bytes but was declared as ${row.declaredSize}. It was removed; upload it again.`, { size });
 
-  const head = await readObjectHead(row.objectKey, Math.min(HEAD_BYTES, stat.size));
+  const head = await readObjectHead(row.objectKey, Math.min(HEAD_BYTES, size));
   const binary = sniffBinaryType(head);
   const isText = row.declaredType.startsWith("text/");
   if (!isText && binary !== row.declaredType) {
@@ -258,30 +339,8 @@ export async function confirmAttachment(
     }
   }
   if (textProblem) await reject(`"${row.filename}" was declared as text but ${textProblem}. It was removed.`, { declaredType: row.declaredType });
-  if (total !== stat.size) await reject(`"${row.filename}" changed while it was checked. It was removed; upload it again.`);
-
-  const sha256 = hash.digest("hex");
-  const [updated] = await db()
-    .update(attachments)
-    .set({ status: "confirmed", size: stat.size, sha256, detectedType: binary ?? row.declaredType, confirmedAt: new Date() })
-    .where(and(eq(attachments.id, row.id), eq(attachments.boardId, boardId), eq(attachments.status, "pending")))
-    .returning(attachmentColumns);
-  if (!updated) {
-    const again = await loadAttachment(boardId, attachmentId);
-    if (again?.status === "confirmed") return toView(again);
-    throw notFound("That attachment");
-  }
-  await recordAudit({
-    action: "attachment.confirm",
-    actorId: user.id,
-    actorEmail: user.email,
-    boardId,
-    target: row.id,
-    details: { filename: row.filename, size: stat.size, sha256 },
-  });
-  // Orbit files (element sets, CCSDS OPM/OMM/OEM) are parsed now; the attachment stays even when unparsed.
-  if (isText) await recordOrbitFile({ attachmentId: row.id, boardId, objectKey: updated.objectKey, sha256, filename: row.filename });
-  return toView(updated, isText ? textKindOf(head.toString("utf8")) : null);
+  if (total !== size) await reject(`"${row.filename}" changed while it was checked. It was removed; upload it again.`);
+  return { objectKey: row.objectKey, size, sha256: hash.digest("hex"), detectedType: binary ?? row.declaredType, head, isText };
 }
 
 async function loadAttachment(boardId: string, attachmentId: string): Promise<AttachmentRow | null> {
@@ -296,7 +355,18 @@ async function loadAttachment(boardId: string, attachmentId: string): Promise<At
 
 /** Confirmed attachments of a proposal (and the caller's pending ones when they may edit). */
 export async function listAttachments(user: SessionUser, boardId: string, proposalId: string): Promise<AttachmentView[]> {
-  await proposalFor(user, boardId, proposalId, "proposal.view");
+  const { proposal, facts } = await proposalFor(user, boardId, proposalId, "proposal.view");
+  // A reviewer limited to their assigned versions sees only the files those versions list.
+  const readable = await readableVersionIds(user, proposal, facts);
+  if (readable) {
+    const listed = await attachmentIdsOfVersions(proposalId, readable);
+    const rows = await db()
+      .select(attachmentColumns)
+      .from(attachments)
+      .where(and(eq(attachments.boardId, boardId), eq(attachments.proposalId, proposalId)))
+      .orderBy(asc(attachments.createdAt));
+    return rows.filter((r) => r.status !== "pending" && listed.has(r.id)).map((r) => toView(r));
+  }
   const rows = await db()
     .select(attachmentColumns)
     .from(attachments)
@@ -312,10 +382,24 @@ export async function listAttachments(user: SessionUser, boardId: string, propos
 export async function attachmentDownloadUrl(user: SessionUser, boardId: string, attachmentId: string): Promise<string> {
   const row = await loadAttachment(boardId, attachmentId);
   if (!row) throw notFound("That attachment");
-  await proposalFor(user, boardId, row.proposalId, "proposal.view");
+  const { proposal, facts } = await proposalFor(user, boardId, row.proposalId, "proposal.view");
   if (row.status === "pending") throw notFound("That attachment");
+  const readable = await readableVersionIds(user, proposal, facts);
+  if (readable && !(await attachmentIdsOfVersions(row.proposalId, readable)).has(row.id)) throw notFound("That attachment");
   if (row.status === "removed" && !(await referencedByVersion(row))) throw notFound("That attachment");
-  return presignDownload(row.objectKey, row.filename, 300);
+  const sniffed = row.detectedType;
+  const type = !sniffed ? "application/octet-stream" : sniffed.startsWith("text/") ? `${sniffed}; charset=utf-8` : sniffed;
+  return presignDownload(row.objectKey, row.filename, 300, type);
+}
+
+/** The attachment ids the given versions of a proposal list. */
+async function attachmentIdsOfVersions(proposalId: string, versionIds: Set<string>): Promise<Set<string>> {
+  if (versionIds.size === 0) return new Set();
+  const rows = await db()
+    .select({ attachments: proposalVersions.attachments })
+    .from(proposalVersions)
+    .where(and(eq(proposalVersions.proposalId, proposalId), inArray(proposalVersions.id, [...versionIds])));
+  return new Set(rows.flatMap((r) => r.attachments.map((a) => a.attachmentId)));
 }
 
 async function referencedByVersion(row: AttachmentRow): Promise<boolean> {
@@ -364,6 +448,7 @@ export async function cleanUpUnconfirmedUploads(olderThan: Date): Promise<number
     .limit(500);
   let removed = 0;
   for (const a of stale) {
+    await deleteObject(stagingObjectKey(a.objectKey)).catch(() => undefined);
     try {
       await deleteObject(a.objectKey);
     } catch (error) {
@@ -379,5 +464,26 @@ export async function cleanUpUnconfirmedUploads(olderThan: Date): Promise<number
       .returning({ id: attachments.id });
     removed += deleted.length;
   }
+  await removeLateStagingObjects(olderThan);
   return removed;
+}
+
+/**
+ * A PUT URL can still be used after its upload was confirmed (until it expires). Such late
+ * staging objects are never read; this removes them for uploads started in the two hours before
+ * `olderThan` (their URLs have long expired).
+ */
+async function removeLateStagingObjects(olderThan: Date): Promise<void> {
+  const rows = await db()
+    .select({ objectKey: attachments.objectKey })
+    .from(attachments)
+    .where(
+      and(
+        sql`${attachments.status} <> 'pending'`,
+        lt(attachments.createdAt, olderThan),
+        sql`${attachments.createdAt} > ${new Date(olderThan.getTime() - 2 * 3600_000)}`,
+      ),
+    )
+    .limit(200);
+  for (const r of rows) await deleteObject(stagingObjectKey(r.objectKey)).catch(() => undefined);
 }

@@ -37,6 +37,7 @@ const boardColumns = {
   description: boards.description,
   openRegistration: boards.openRegistration,
   hideProposerNames: boards.hideProposerNames,
+  reviewersSeeAllVersions: boards.reviewersSeeAllVersions,
   shareReviewItemsAfterSubmit: boards.shareReviewItemsAfterSubmit,
   createdAt: boards.createdAt,
 };
@@ -48,6 +49,7 @@ export interface BoardView {
   description: string;
   openRegistration: boolean;
   hideProposerNames: boolean;
+  reviewersSeeAllVersions: boolean;
   shareReviewItemsAfterSubmit: boolean;
   createdAt: Date;
   /** The caller's active role; null for an admin who is not a member. */

@@ -1,7 +1,7 @@
 import "server-only";
 import { and, desc, eq, gt, isNull, sql } from "drizzle-orm";
 import { db } from "@/db/client";
-import { boardMembers, boards, invitations, users } from "@/db/schema";
+import { boardMembers, boards, invitations, users, userSessions } from "@/db/schema";
 import { authorize } from "@/lib/auth/policy";
 import { hashPassword } from "@/lib/auth/passwords";
 import { hashToken, newToken } from "@/lib/auth/tokens";
@@ -237,7 +237,8 @@ export async function invitationForToken(token: string): Promise<InvitationPrevi
       expiresAt: invitations.expiresAt,
       acceptedAt: invitations.acceptedAt,
       revokedAt: invitations.revokedAt,
-      hasAccount: sql<boolean>`exists (select 1 from ${users} where lower(${users.email}) = lower(${invitations.email}))`,
+      // An unverified account does not count: accepting replaces it (see acceptInvitation).
+      hasAccount: sql<boolean>`exists (select 1 from ${users} where lower(${users.email}) = lower(${invitations.email}) and ${users.status} <> 'unverified')`,
     })
     .from(invitations)
     .innerJoin(boards, eq(boards.id, invitations.boardId))
@@ -260,7 +261,7 @@ const unusable: Record<Exclude<InvitationStatus, "pending">, string> = {
  */
 export async function acceptInvitation(
   input: z.infer<typeof acceptInvitationSchema>,
-  meta: { ipAddress?: string | null } = {},
+  meta: { ipAddress?: string | null; user?: SessionUser | null } = {},
 ): Promise<{ email: string; boardId: string; createdAccount: boolean }> {
   const passwordHash = input.password ? await hashPassword(input.password) : null;
   return db().transaction(async (tx) => {
@@ -283,17 +284,42 @@ export async function acceptInvitation(
     if (status !== "pending") throw new AppError(409, unusable[status]);
 
     let [account] = await tx
-      .select({ id: users.id, email: users.email })
+      .select({ id: users.id, email: users.email, status: users.status })
       .from(users)
       .where(sql`lower(${users.email}) = lower(${invitation.email})`)
       .for("update");
-    const createdAccount = !account;
-    if (!account) {
+    // The invitation link proves the address. An unverified account (anyone may have
+    // registered it openly) is taken over by the address's owner: new name and password, its
+    // sessions ended. An active account must be signed in to accept: the link alone is not
+    // proof enough to add a role to an account someone else may control.
+    const unverified = account?.status === "unverified";
+    if (account && !unverified) {
+      if (account.status !== "active") throw conflict("The account with this address is closed. Ask an administrator to reopen it.");
+      if (meta.user?.id !== account.id)
+        throw new AppError(
+          403,
+          `An account with ${account.email} exists. Sign in as ${account.email} first, then open this invitation link again to accept it.`,
+        );
+    }
+    const createdAccount = !account || unverified;
+    if (createdAccount) {
       const name = input.name ?? invitation.name;
       if (!name) throw unprocessable("Enter your name.", { fieldErrors: { name: ["Enter your name."] } });
       if (!passwordHash)
         throw unprocessable("Choose a password of at least 12 characters.", { fieldErrors: { password: ["Choose a password of at least 12 characters."] } });
-      [account] = await tx.insert(users).values({ email: invitation.email, name, passwordHash }).returning({ id: users.id, email: users.email });
+      if (account) {
+        await tx.update(users).set({ name, passwordHash, organisation: null, status: "active", updatedAt: new Date() }).where(eq(users.id, account.id));
+        await tx
+          .update(userSessions)
+          .set({ revokedAt: new Date() })
+          .where(and(eq(userSessions.userId, account.id), isNull(userSessions.revokedAt)));
+        await tx.delete(boardMembers).where(eq(boardMembers.userId, account.id));
+      } else {
+        [account] = await tx
+          .insert(users)
+          .values({ email: invitation.email, name, passwordHash })
+          .returning({ id: users.id, email: users.email, status: users.status });
+      }
     }
     const userId = account!.id;
     await tx

@@ -18,7 +18,7 @@ export interface MemberRow {
   organisation: string | null;
   role: "proposer" | "reviewer" | "chair";
   status: "active" | "deactivated";
-  accountStatus: "active" | "deactivated";
+  accountStatus: "active" | "deactivated" | "unverified";
   joinedAt: Date;
 }
 

@@ -111,6 +111,31 @@ export async function proposalFacts(userId: string, proposal: ProposalRecord, tx
   return { role, isAuthor, isAssigned, isConflicted };
 }
 
+/**
+ * Blind review: the board hides proposers' names from reviewers. Chairs, admins and the
+ * proposal's own authors still see them.
+ */
+export async function proposerNamesHiddenFor(user: SessionUser, boardId: string, facts: ResourceFacts, tx: Db = db()): Promise<boolean> {
+  if (user.isAdmin || facts.isAuthor || facts.role !== "reviewer") return false;
+  const [board] = await tx.select({ hide: boards.hideProposerNames }).from(boards).where(eq(boards.id, boardId)).limit(1);
+  return board?.hide === true;
+}
+
+/**
+ * The version ids a reviewer may read: the ones assigned to them, unless the board lets
+ * reviewers read every submitted version. null means no limit (authors, chairs, admins).
+ */
+export async function readableVersionIds(user: SessionUser, proposal: ProposalRecord, facts: ResourceFacts, tx: Db = db()): Promise<Set<string> | null> {
+  if (user.isAdmin || facts.isAuthor || facts.role !== "reviewer") return null;
+  const [board] = await tx.select({ all: boards.reviewersSeeAllVersions }).from(boards).where(eq(boards.id, proposal.boardId)).limit(1);
+  if (board?.all) return null;
+  const rows = await tx
+    .select({ versionId: assignments.versionId })
+    .from(assignments)
+    .where(and(eq(assignments.boardId, proposal.boardId), eq(assignments.proposalId, proposal.id), eq(assignments.reviewerId, user.id)));
+  return new Set(rows.map((r) => r.versionId));
+}
+
 /** Loads a proposal and checks one permission on it; unknown and hidden proposals are 404. */
 export async function proposalFor(
   user: SessionUser,
@@ -245,17 +270,39 @@ export async function listProposals(
   };
 }
 
-/** Active proposers of the board other than the caller: the people who can be co-authors. */
-export async function listCoauthorCandidates(user: SessionUser, boardId: string): Promise<{ id: string; name: string; email: string }[]> {
-  const role = await boardRole(user.id, boardId);
+/**
+ * Co-authors by the full addresses a proposer typed: the active proposers of the board with
+ * exactly those addresses (the board's proposers are never listed to a proposer). An address
+ * that is not one is refused with 422, naming only what the caller typed.
+ */
+export async function coauthorIdsForEmails(user: SessionUser, boardId: string, emails: string[], tx: Db = db()): Promise<string[]> {
+  const role = await boardRole(user.id, boardId, tx);
   authorize(user, "board.view", { role }, "That board");
-  const rows = await db()
-    .select({ id: users.id, name: users.name, email: users.email })
+  const wanted = [...new Set(emails.map((e) => e.trim().toLowerCase()).filter(Boolean))];
+  if (wanted.length === 0) return [];
+  const rows = await tx
+    .select({ id: users.id, email: users.email })
     .from(boardMembers)
     .innerJoin(users, eq(users.id, boardMembers.userId))
-    .where(and(eq(boardMembers.boardId, boardId), eq(boardMembers.role, "proposer"), eq(boardMembers.status, "active"), eq(users.status, "active")))
-    .orderBy(asc(users.name));
-  return rows.filter((r) => r.id !== user.id);
+    .where(
+      and(
+        eq(boardMembers.boardId, boardId),
+        eq(boardMembers.role, "proposer"),
+        eq(boardMembers.status, "active"),
+        eq(users.status, "active"),
+        inArray(sql`lower(${users.email})`, wanted),
+      ),
+    );
+  const found = new Map(rows.map((r) => [r.email.toLowerCase(), r.id]));
+  const missing = wanted.filter((e) => !found.has(e));
+  if (missing.length > 0)
+    throw unprocessable(
+      `${missing.join(", ")} ${missing.length === 1 ? "is" : "are"} not a proposer of this board. Check the spelling, or ask the chair to invite them.`,
+      {
+        field: "coauthorEmails",
+      },
+    );
+  return [...found.values()];
 }
 
 async function checkCoauthors(boardId: string, ownerId: string, ids: string[], tx: Db): Promise<string[]> {
@@ -288,7 +335,8 @@ export async function createProposal(user: SessionUser, boardId: string, input: 
   if (callState(call) === "closed")
     throw unprocessable(`The call "${call.title}" closed on ${formatDateTime(call.closesAt)}; choose an open call.`, { field: "callId" });
   return db().transaction(async (tx) => {
-    const coauthors = await checkCoauthors(boardId, user.id, input.coauthorIds, tx);
+    const byEmail = await coauthorIdsForEmails(user, boardId, input.coauthorEmails ?? [], tx);
+    const coauthors = await checkCoauthors(boardId, user.id, [...input.coauthorIds, ...byEmail], tx);
     const [row] = await tx
       .insert(proposals)
       .values({ boardId, callId: call.id, ownerId: user.id, title: input.title, missionType: input.missionType })
@@ -305,7 +353,9 @@ export async function createProposal(user: SessionUser, boardId: string, input: 
   });
 }
 
-export interface ProposalDetail extends ProposalRecord {
+export interface ProposalDetail extends Omit<ProposalRecord, "ownerId"> {
+  /** null when proposer names are hidden from the caller (blind review). */
+  ownerId: string | null;
   callTitle: string;
   callClosesAt: string;
   callState: "upcoming" | "open" | "closed";
@@ -313,8 +363,10 @@ export interface ProposalDetail extends ProposalRecord {
   tolerance: { relative: number; absolute?: Record<string, number> };
   /** The call's requirements, shown to proposers with their rationale and judged live in the rail. */
   requirements: CallRequirementView[];
-  owner: { id: string; name: string };
+  owner: { id: string; name: string } | null;
   coauthors: { id: string; name: string }[];
+  /** The board hides proposers' names from this caller: owner and co-authors are left out. */
+  proposerNamesHidden: boolean;
   canEdit: boolean;
   editBlockedReason: string | null;
 }
@@ -332,16 +384,19 @@ export async function getProposal(user: SessionUser, boardId: string, proposalId
     .orderBy(asc(users.name));
   const state = await editableState(proposal);
   const isAuthor = facts.isAuthor === true || user.isAdmin;
+  const hidden = await proposerNamesHiddenFor(user, boardId, facts);
   return {
     ...proposal,
+    ownerId: hidden ? null : proposal.ownerId,
     callTitle: call.title,
     callClosesAt: call.closesAt.toISOString(),
     callState: callState(call),
     requiredSections: call.requiredSections,
     tolerance: call.tolerance,
     requirements: await loadRequirements(boardId, proposal.callId),
-    owner: owner ?? { id: proposal.ownerId, name: "(unknown)" },
-    coauthors,
+    owner: hidden ? null : (owner ?? { id: proposal.ownerId, name: "(unknown)" }),
+    coauthors: hidden ? [] : coauthors,
+    proposerNamesHidden: hidden,
     canEdit: isAuthor && state.editable,
     editBlockedReason: isAuthor ? state.reason : "Only the proposal's authors can change it.",
   };
@@ -687,8 +742,9 @@ export interface VersionSummary {
 }
 
 export async function listVersions(user: SessionUser, boardId: string, proposalId: string): Promise<VersionSummary[]> {
-  await proposalFor(user, boardId, proposalId, "proposal.view");
-  const rows = await db()
+  const { proposal, facts } = await proposalFor(user, boardId, proposalId, "proposal.view");
+  const readable = await readableVersionIds(user, proposal, facts);
+  const all = await db()
     .select({
       id: proposalVersions.id,
       number: proposalVersions.number,
@@ -699,6 +755,7 @@ export async function listVersions(user: SessionUser, boardId: string, proposalI
     .from(proposalVersions)
     .where(and(eq(proposalVersions.boardId, boardId), eq(proposalVersions.proposalId, proposalId)))
     .orderBy(desc(proposalVersions.number));
+  const rows = readable ? all.filter((r) => readable.has(r.id)) : all;
   const countRows = rows.length
     ? await db()
         .select({ versionId: checkResults.versionId, status: checkResults.status, n: count() })
@@ -782,9 +839,11 @@ export async function versionCheckResults(boardId: string, versionId: string, tx
 }
 
 export async function getVersion(user: SessionUser, boardId: string, proposalId: string, n: number): Promise<VersionDetail> {
-  await proposalFor(user, boardId, proposalId, "proposal.view");
+  const { proposal, facts } = await proposalFor(user, boardId, proposalId, "proposal.view");
   const row = await loadVersion(boardId, proposalId, n);
-  if (!row) throw notFound(`Version ${n} of that proposal`);
+  // A reviewer reads the versions assigned to them (unless the board opts in to all): others are 404.
+  const readable = row ? await readableVersionIds(user, proposal, facts) : null;
+  if (!row || (readable && !readable.has(row.id))) throw notFound(`Version ${n} of that proposal`);
   const results = await versionCheckResults(boardId, row.id);
   const counts = { consistent: 0, inconsistent: 0, invalid: 0 };
   for (const r of results) counts[r.status] += 1;

@@ -1,4 +1,5 @@
 import "server-only";
+import { csvCell } from "@/lib/review/csv";
 import { and, asc, desc, eq, inArray, sql } from "drizzle-orm";
 import { db, type Database, type Transaction } from "@/db/client";
 import {
@@ -700,13 +701,6 @@ export async function getCallOverview(user: SessionUser, boardId: string, callId
       };
     }),
   };
-}
-
-function csvCell(value: unknown): string {
-  const text = value === null || value === undefined ? "" : String(value);
-  // Quote when needed; a leading = + - @ is neutralised so spreadsheets do not run it as a formula.
-  const safe = /^[=+\-@\t\r]/.test(text) && !/^-?\d/.test(text) ? `'${text}` : text;
-  return /[",\n\r]/.test(safe) ? `"${safe.replace(/"/g, '""')}"` : safe;
 }
 
 /** The overview as CSV (one row per proposal; spread is the sample standard deviation). */

@@ -23,6 +23,19 @@ export async function findUserForSignIn(email: string) {
   return user ?? null;
 }
 
+/**
+ * The address of an unverified account was proven (a mailed link was used): it becomes an
+ * ordinary active account. Returns whether it was unverified.
+ */
+export async function markAddressVerified(userId: string): Promise<boolean> {
+  const rows = await db()
+    .update(users)
+    .set({ status: "active", updatedAt: new Date() })
+    .where(and(eq(users.id, userId), eq(users.status, "unverified")))
+    .returning({ id: users.id });
+  return rows.length > 0;
+}
+
 export async function openSession(userId: string, meta: { userAgent?: string | null; ipAddress?: string | null }): Promise<string> {
   const [row] = await db()
     .insert(userSessions)
@@ -62,30 +75,62 @@ export async function revokeOtherSessions(userId: string, keepSessionId: string)
   return revoked.length;
 }
 
-// Limits on failed sign-ins, per account and per address, over a sliding window.
+// Limits on failed sign-ins, over sliding windows. Nobody can lock anyone out:
+// - per address AND client: 5 failures in 15 minutes stop that client for that address;
+// - per client: 20 failures in 15 minutes stop that client for every address;
+// - per address, from all clients: from 10 failures in an hour a slower back-off starts
+//   (30 s after the latest failure, doubling with each further failure, at most 15 minutes).
+//   It holds back clients that already failed for the address; a client that has not
+//   failed for it (the owner on another network) is still let through to check its password.
+// A completed password reset clears the address's failures (clearSignInFailures).
 export const SIGN_IN_WINDOW_SECONDS = 15 * 60;
-export const MAX_FAILURES_PER_ACCOUNT = 5;
+export const MAX_FAILURES_PER_ACCOUNT_AND_CLIENT = 5;
 export const MAX_FAILURES_PER_ADDRESS = 20;
+export const GLOBAL_BACKOFF_WINDOW_SECONDS = 60 * 60;
+export const GLOBAL_BACKOFF_AFTER_FAILURES = 10;
+const GLOBAL_BACKOFF_BASE_SECONDS = 30;
 
-/** Seconds until another attempt is allowed, or 0 when one is allowed now. */
+/** The back-off (seconds) that `failures` failures for one address in the last hour call for. */
+export function globalBackoffSeconds(failures: number): number {
+  if (failures < GLOBAL_BACKOFF_AFTER_FAILURES) return 0;
+  const steps = Math.min(failures - GLOBAL_BACKOFF_AFTER_FAILURES, 10);
+  return Math.min(SIGN_IN_WINDOW_SECONDS, GLOBAL_BACKOFF_BASE_SECONDS * 2 ** steps);
+}
+
+/** Seconds until another attempt is allowed for this address from this client, or 0 now. */
 export async function signInRetryAfter(email: string, ipAddress: string): Promise<number> {
-  const since = new Date(Date.now() - SIGN_IN_WINDOW_SECONDS * 1000);
-  const windowed = async (column: typeof signInAttempts.email | typeof signInAttempts.ipAddress, value: string, max: number) => {
-    const rows = await db()
+  const address = email.toLowerCase();
+  const now = Date.now();
+  const since = new Date(now - SIGN_IN_WINDOW_SECONDS * 1000);
+  const failures = (where: ReturnType<typeof and>, from: Date, limit: number) =>
+    db()
       .select({ at: signInAttempts.attemptedAt })
       .from(signInAttempts)
-      .where(and(eq(column, value), eq(signInAttempts.succeeded, false), gt(signInAttempts.attemptedAt, since)))
+      .where(and(where, eq(signInAttempts.succeeded, false), gt(signInAttempts.attemptedAt, from)))
       .orderBy(sql`${signInAttempts.attemptedAt} desc`)
-      .limit(max);
+      .limit(limit);
+  const windowed = (rows: { at: Date }[], max: number) => {
     if (rows.length < max) return 0;
     const oldest = rows[rows.length - 1]!.at.getTime();
-    return Math.max(1, Math.ceil((oldest + SIGN_IN_WINDOW_SECONDS * 1000 - Date.now()) / 1000));
+    return Math.max(1, Math.ceil((oldest + SIGN_IN_WINDOW_SECONDS * 1000 - now) / 1000));
   };
-  const [byAccount, byAddress] = await Promise.all([
-    windowed(signInAttempts.email, email.toLowerCase(), MAX_FAILURES_PER_ACCOUNT),
-    windowed(signInAttempts.ipAddress, ipAddress, MAX_FAILURES_PER_ADDRESS),
+  const [pair, client, global] = await Promise.all([
+    failures(and(eq(signInAttempts.email, address), eq(signInAttempts.ipAddress, ipAddress)), since, MAX_FAILURES_PER_ACCOUNT_AND_CLIENT),
+    failures(eq(signInAttempts.ipAddress, ipAddress), since, MAX_FAILURES_PER_ADDRESS),
+    failures(eq(signInAttempts.email, address), new Date(now - GLOBAL_BACKOFF_WINDOW_SECONDS * 1000), 200),
   ]);
-  return Math.max(byAccount, byAddress);
+  let backoff = 0;
+  if (pair.length > 0) {
+    const wait = globalBackoffSeconds(global.length);
+    const latest = global[0]?.at.getTime() ?? 0;
+    if (wait > 0) backoff = Math.max(0, Math.ceil((latest + wait * 1000 - now) / 1000));
+  }
+  return Math.max(windowed(pair, MAX_FAILURES_PER_ACCOUNT_AND_CLIENT), windowed(client, MAX_FAILURES_PER_ADDRESS), backoff);
+}
+
+/** Forgets the failed sign-ins of an address (after its owner proved it with a reset link). */
+export async function clearSignInFailures(email: string, tx: Database | Transaction = db()): Promise<void> {
+  await tx.delete(signInAttempts).where(and(eq(signInAttempts.email, email.toLowerCase()), eq(signInAttempts.succeeded, false)));
 }
 
 export async function recordSignInAttempt(email: string, ipAddress: string, succeeded: boolean): Promise<void> {

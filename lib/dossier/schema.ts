@@ -166,13 +166,25 @@ const shortText =
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
+const SAME_SITE_BASE = "https://visviva.invalid";
+
 /** Link targets: http(s), mailto and same-site paths only (no javascript:, data:, etc.). */
 export function safeHref(value: unknown): string | undefined {
   if (typeof value !== "string") return undefined;
   const href = value.trim();
   if (href.length === 0 || href.length > 2048) return undefined;
-  if (href.startsWith("/") && !href.startsWith("//")) return href;
-  if (href.startsWith("#")) return href;
+  if (href.startsWith("/") || href.startsWith("#")) {
+    // Browsers read "\" as "/" and drop tabs and newlines, so "/\host/path" or "/\t/host" would
+    // leave the site: refuse those characters, and keep only what resolves to this origin.
+    if (/[\\\u0000-\u001f\u007f]/.test(href)) return undefined;
+    try {
+      const url = new URL(href, SAME_SITE_BASE);
+      if (url.origin !== SAME_SITE_BASE) return undefined;
+      return href.startsWith("#") ? href : `${url.pathname}${url.search}${url.hash}`;
+    } catch {
+      return undefined;
+    }
+  }
   try {
     const url = new URL(href);
     return (LINK_PROTOCOLS as readonly string[]).includes(url.protocol.replace(":", "")) ? url.toString() : undefined;

@@ -3,6 +3,7 @@ import { NextResponse } from "next/server";
 import type { z } from "zod";
 import { AppError, badRequest, fromDatabaseInputError, isAppError } from "@/lib/errors";
 import { humanIssue } from "@/lib/validation/messages";
+import { containsNul, NUL_MESSAGE } from "./nul";
 
 export interface ErrorBody {
   error: string;
@@ -38,6 +39,7 @@ export function route(handler: (request: Request, params: Record<string, string>
       const raw = context?.params ? await context.params : {};
       const params: Record<string, string> = {};
       for (const [key, value] of Object.entries(raw)) params[key] = Array.isArray(value) ? value.join("/") : value;
+      if (containsNul(params)) throw badRequest(NUL_MESSAGE);
       return await handler(request, params);
     } catch (error) {
       return errorResponse(error);
@@ -59,11 +61,13 @@ export async function readJson<S extends z.ZodType>(request: Request, schema: S,
   } catch (error) {
     throw badRequest("The request body is not valid JSON.", { parser: (error as Error).message });
   }
+  if (containsNul(body)) throw badRequest(NUL_MESSAGE);
   return parseWith(schema, body);
 }
 
 /** Validates a value (body, params, search params) with a zod schema; 422 listing each problem. */
 export function parseWith<S extends z.ZodType>(schema: S, value: unknown, status: 400 | 422 = 422): z.infer<S> {
+  if (containsNul(value)) throw badRequest(NUL_MESSAGE);
   const parsed = schema.safeParse(value);
   if (!parsed.success) {
     // Sentences a person can act on ("The title can be at most 200 characters."), each issue

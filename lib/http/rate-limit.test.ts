@@ -29,9 +29,11 @@ describe("token-bucket rate limiter", () => {
     expect(limiter.take("a").ok).toBe(true);
   });
 
-  it("reads the client address from proxy headers", () => {
-    expect(clientKey(new Headers({ "x-forwarded-for": "203.0.113.7, 10.0.0.1" }))).toBe("203.0.113.7");
-    expect(clientKey(new Headers({ "x-real-ip": "198.51.100.2" }))).toBe("198.51.100.2");
+  it("reads the client address from X-Forwarded-For only as far as the trusted proxy hops reach", () => {
+    // The app server appends the peer (10.0.0.1, a proxy here); the client wrote 203.0.113.7.
+    expect(clientKey(new Headers({ "x-forwarded-for": "203.0.113.7, 10.0.0.1" }))).toBe("10.0.0.1");
+    expect(clientKey(new Headers({ "x-forwarded-for": "203.0.113.7, 10.0.0.1" }), 1)).toBe("203.0.113.7");
+    expect(clientKey(new Headers({ "x-real-ip": "198.51.100.2" }))).toBe("local");
     expect(clientKey(new Headers())).toBe("local");
   });
 });

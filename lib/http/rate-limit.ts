@@ -1,3 +1,5 @@
+import { clientAddressFrom } from "./client-address";
+
 /**
  * A tiny in-memory token-bucket rate limiter, keyed by any string (usually the client
  * address). Per process only: it protects one server from a noisy client, it is not a
@@ -71,8 +73,7 @@ export function createRateLimiter(options: RateLimiterOptions): RateLimiter {
   };
 }
 
-/** The client address a proxy reports (first X-Forwarded-For entry, then X-Real-IP), else "local". */
-export function clientKey(headers: Headers): string {
-  const forwarded = headers.get("x-forwarded-for")?.split(",")[0]?.trim();
-  return forwarded || headers.get("x-real-ip")?.trim() || "local";
+/** The client address, trusting `trustedHops` proxies' X-Forwarded-For entries (see client-address.ts). */
+export function clientKey(headers: Headers, trustedHops = 0): string {
+  return clientAddressFrom(headers.get("x-forwarded-for"), trustedHops);
 }

@@ -58,5 +58,5 @@ export async function fetchCaughtAttachment(
 }
 
 export function mailPagesEnabled(): boolean {
-  return process.env.NODE_ENV !== "production" || mailCatcherUrl() !== null;
+  return mailCatcherUrl() !== null;
 }

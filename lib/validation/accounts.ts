@@ -85,6 +85,7 @@ export const updateBoardSchema = z
     description: z.string().trim().max(2000, "Keep the description under 2000 characters.").optional(),
     openRegistration: formBoolean.optional(),
     hideProposerNames: formBoolean.optional(),
+    reviewersSeeAllVersions: formBoolean.optional(),
     shareReviewItemsAfterSubmit: formBoolean.optional(),
   })
   .strict()
@@ -97,6 +98,7 @@ export const boardSettingsFormSchema = z.object({
   // Unchecked boxes are absent from the form data.
   openRegistration: formBoolean.default(false),
   hideProposerNames: formBoolean.default(false),
+  reviewersSeeAllVersions: formBoolean.default(false),
   shareReviewItemsAfterSubmit: formBoolean.default(false),
 });
 
@@ -107,6 +109,7 @@ export const boardSchema = z.object({
   description: z.string(),
   openRegistration: z.boolean(),
   hideProposerNames: z.boolean(),
+  reviewersSeeAllVersions: z.boolean(),
   shareReviewItemsAfterSubmit: z.boolean(),
   createdAt: z.date().or(z.string()),
   /** The caller's role on the board; null for an admin who is not a member. */
@@ -158,7 +161,7 @@ export const memberSchema = z.object({
   organisation: z.string().nullable(),
   role: boardRoleSchema,
   status: membershipStatusSchema,
-  accountStatus: membershipStatusSchema,
+  accountStatus: z.enum(["active", "deactivated", "unverified"]),
   joinedAt: z.date().or(z.string()),
 });
 

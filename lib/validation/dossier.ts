@@ -50,8 +50,13 @@ export const proposalCreateSchema = z.strictObject({
   missionType: z.string().trim().max(80).default(""),
   callId: z.uuid("choose a call"),
   coauthorIds: z.array(z.uuid()).max(20, "at most 20 co-authors").default([]),
+  /** Co-authors by their full e-mail address (the board's proposers are not listed to proposers). */
+  coauthorEmails: z
+    .array(z.string().trim().toLowerCase().max(320).pipe(z.email("type each co-author's full e-mail address")))
+    .max(20, "at most 20 co-authors")
+    .default([]),
 });
-export type ProposalCreateInput = z.infer<typeof proposalCreateSchema>;
+export type ProposalCreateInput = Omit<z.infer<typeof proposalCreateSchema>, "coauthorEmails"> & { coauthorEmails?: string[] };
 
 export const proposalUpdateSchema = z.strictObject({
   title: z.string().trim().min(3).max(200).optional(),

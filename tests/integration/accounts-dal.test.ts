@@ -219,7 +219,9 @@ describe("invitations", () => {
     const existing = await createUser();
     const { token } = await createInvitation(asSessionUser(cast.admin), cast.board.id, { email: existing.email.toUpperCase(), role: "reviewer" });
     expect((await invitationForToken(token))?.hasAccount).toBe(true);
-    const result = await acceptInvitation({ token });
+    // Accepting for an existing account needs a session as that account (issue 17).
+    expect((await failure(acceptInvitation({ token }))).status).toBe(403);
+    const result = await acceptInvitation({ token }, { user: asSessionUser(existing) });
     expect(result.createdAccount).toBe(false);
     expect(await boardRole(existing.id, cast.board.id)).toBe("reviewer");
     const [row] = await db().select({ passwordHash: users.passwordHash }).from(users).where(eq(users.id, existing.id));
@@ -329,10 +331,13 @@ describe("open registration", () => {
     const email = `${unique("self")}@example.org`;
     const ipAddress = `10.8.${Math.floor(Math.random() * 250)}.1`;
     const result = await registerProposer({ board: open.slug, email, name: "Tamsin Oyelaran", password: "proposer passphrase" }, { ipAddress });
-    const [account] = await db().select({ id: users.id }).from(users).where(eq(users.email, email));
+    const [account] = await db().select({ id: users.id, status: users.status }).from(users).where(eq(users.email, email));
     expect(await boardRole(account!.id, open.id)).toBe("proposer");
+    expect(account!.status).toBe("unverified");
     expect(result.boardId).toBe(open.id);
-    expect((await failure(registerProposer({ board: open.slug, email, name: "Again", password: "proposer passphrase" }, { ipAddress }))).status).toBe(409);
+    // A second registration of the address answers the same (no enumeration) and adds no account.
+    expect(await registerProposer({ board: open.slug, email, name: "Again", password: "proposer passphrase" }, { ipAddress })).toEqual(result);
+    expect(await db().select({ id: users.id }).from(users).where(eq(users.email, email))).toHaveLength(1);
     expect(
       (await failure(registerProposer({ board: closed.slug, email: `${unique("x")}@example.org`, name: "X", password: "proposer passphrase" }, { ipAddress })))
         .status,

@@ -9,7 +9,10 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { apiOperations } from "@/lib/openapi";
 import { isAppError } from "@/lib/errors";
 import { appUrl } from "../support/app";
-import { asSessionUser, createBoardWithCast } from "../support/factories";
+import { eq } from "drizzle-orm";
+import { db } from "@/db/client";
+import { assignments, boards, proposalCoauthors, proposals, proposalVersions, users } from "@/db/schema";
+import { addMember, asSessionUser, createBoardWithCast, createUser, unique } from "../support/factories";
 import { HttpClient } from "../support/http";
 import { actionCases, routeCases } from "./matrix";
 import { matrixRoles, type MatrixCast, type MatrixRole } from "./matrix/types";
@@ -195,6 +198,73 @@ describe("authorization matrix: routes over HTTP", () => {
         }
       }
       expect(mismatches, `${operation!.method.toUpperCase()} ${operation!.path}:\n  ${mismatches.join("\n  ")}`).toEqual([]);
+    });
+  }
+});
+
+// The blind-mode column: with the board hiding proposers' names, every read a reviewer may
+// make (each GET the matrix lets a reviewer through) answers without the owner's or a
+// co-author's name or address (issue 17, finding 5).
+describe("authorization matrix: blind-mode column (reviewer reads with proposer names hidden)", () => {
+  beforeAll(async () => {
+    await appUrl();
+  });
+
+  const operations = new Map(apiOperations.map((op) => [op.operationId, op]));
+  // Every GET a reviewer may make, plus the proposal reads (made readable below by assigning
+  // the reviewer to every submitted version on the board).
+  // (Decisions are for chairs and authors only: reviewers get 404 there, blind or not.)
+  const proposalRead = (path: string) =>
+    path.startsWith("/api/v1/boards/{boardId}/proposals/{proposalId}") && path !== "/api/v1/boards/{boardId}/proposals/{proposalId}/decision";
+  const readable = routeCases.filter((c) => {
+    const op = operations.get(c.operationId);
+    return op?.method === "get" && (statusList(c.expect.reviewer).some((s) => s < 300) || proposalRead(op.path));
+  });
+  it("covers at least the proposal reads", () => {
+    expect(readable.map((c) => operations.get(c.operationId)!.path)).toContain("/api/v1/boards/{boardId}/proposals/{proposalId}");
+  });
+  for (const routeCase of readable) {
+    it(`${routeCase.operationId} (blind)`, async () => {
+      const cast = await createBoardWithCast();
+      const ownerName = `Owner ${unique("blind")}`;
+      const coauthor = await createUser({ name: `Coauthor ${unique("blind")}` });
+      await addMember(cast.board.id, coauthor.id, "proposer");
+      await db().update(users).set({ name: ownerName }).where(eq(users.id, cast.proposer.id));
+      await db().update(boards).set({ hideProposerNames: true }).where(eq(boards.id, cast.board.id));
+      const request = await routeCase.prepare(cast, "reviewer");
+      const onBoard = await db().select({ id: proposals.id }).from(proposals).where(eq(proposals.boardId, cast.board.id));
+      if (onBoard.length)
+        await db()
+          .insert(proposalCoauthors)
+          .values(onBoard.map((p) => ({ proposalId: p.id, userId: coauthor.id })))
+          .onConflictDoNothing();
+      const versions = await db()
+        .select({ id: proposalVersions.id, proposalId: proposalVersions.proposalId })
+        .from(proposalVersions)
+        .where(eq(proposalVersions.boardId, cast.board.id));
+      if (versions.length)
+        await db()
+          .insert(assignments)
+          .values(
+            versions.map((v) => ({
+              boardId: cast.board.id,
+              proposalId: v.proposalId,
+              versionId: v.id,
+              reviewerId: cast.reviewer.id,
+              dueAt: new Date(Date.now() + 86_400_000),
+            })),
+          )
+          .onConflictDoNothing();
+      const client = await clientFor(cast, "reviewer");
+      const qs = request.query ? `?${new URLSearchParams(request.query)}` : "";
+      const response = await client.request(`${request.path}${qs}`);
+      const body = await response.text();
+      const path = operations.get(routeCase.operationId)!.path;
+      // A proposal that was never submitted cannot be assigned, so it stays hidden (404); every
+      // other read, and every read of a submitted proposal, must answer.
+      const proposalId = /\/proposals\/([0-9a-f-]{36})/.exec(request.path)?.[1];
+      if (!proposalRead(path) || versions.some((v) => v.proposalId === proposalId)) expect(response.status, body.slice(0, 200)).toBeLessThan(300);
+      for (const secret of [ownerName, cast.proposer.email, coauthor.name, coauthor.email]) expect(body).not.toContain(secret);
     });
   }
 });

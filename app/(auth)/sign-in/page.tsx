@@ -20,6 +20,7 @@ const ownMessages = [
   /^That e-mail and password do not match an active account\.$/,
   /^Enter your e-mail and password\.$/,
   /^This sign-in link is invalid, already used or expired\. Ask for a new one\.$/,
+  /^Confirm your e-mail address first: open the link we mailed when you registered\. No mail\? Ask for a sign-in link below; it confirms the address too\.$/,
 ];
 
 function errorText(error: string | undefined): string | null {

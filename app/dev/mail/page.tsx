@@ -18,7 +18,8 @@ export default async function CaughtMailPage() {
     <div className="space-y-4">
       <h1 className="text-2xl font-semibold">Caught mail</h1>
       <p className="text-sm text-ink-600">
-        Every message the local mail catcher received ({messages.length}). This page exists only where a catcher is configured.
+        Every message the local mail catcher received ({messages.length}). This page exists only in the demo and test modes (<code>VISVIVA_MODE=demo</code> or{" "}
+        <code>test</code>) with a local mail catcher; in production it answers 404.
       </p>
       {messages.length === 0 ? <p className="text-ink-500">No mail yet.</p> : null}
       <ol className="space-y-3">

@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { currentUser } from "@/lib/auth/session";
 import { invitationForToken } from "@/lib/dal/invitations";
 import { AcceptInvitationForm } from "./_components/accept-invitation-form";
 import { formatDateTime } from "@/lib/format/dates";
@@ -17,6 +18,8 @@ const closed = {
 export default async function AcceptInvitationPage({ params }: { params: Promise<{ token: string }> }) {
   const { token } = await params;
   const invitation = await invitationForToken(decodeURIComponent(token));
+  const user = invitation?.hasAccount ? await currentUser() : null;
+  const signedInAsInvitee = Boolean(user && invitation && user.email.toLowerCase() === invitation.email.toLowerCase());
   return (
     <div className="mx-auto max-w-lg rounded-panel border border-ink-200 bg-white p-6 shadow-panel">
       {!invitation ? (
@@ -44,7 +47,22 @@ export default async function AcceptInvitationPage({ params }: { params: Promise
             You are invited as <strong>{roleWords[invitation.role]}</strong>. The invitation works once and is open until {formatDateTime(invitation.expiresAt)}
             .
           </p>
-          <AcceptInvitationForm token={decodeURIComponent(token)} email={invitation.email} suggestedName={invitation.name} hasAccount={invitation.hasAccount} />
+          {invitation.hasAccount && !signedInAsInvitee ? (
+            <p className="text-ink-700">
+              A VisViva account with <strong>{invitation.email}</strong> already exists. To accept,{" "}
+              <Link href={`/sign-in?callbackUrl=${encodeURIComponent(`/invitations/${token}`)}`} className="font-semibold text-trajectory-700 underline">
+                sign in as {invitation.email}
+              </Link>
+              {user ? " (you are signed in as someone else: sign out first)" : ""}, then come back to this page through the same link.
+            </p>
+          ) : (
+            <AcceptInvitationForm
+              token={decodeURIComponent(token)}
+              email={invitation.email}
+              suggestedName={invitation.name}
+              hasAccount={invitation.hasAccount}
+            />
+          )}
         </>
       )}
     </div>

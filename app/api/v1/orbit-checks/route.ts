@@ -7,6 +7,7 @@
  */
 import { NextResponse } from "next/server";
 import { takeRateLimit } from "@/lib/dal/rate-limits";
+import { env } from "@/lib/env";
 import { createRateLimiter, clientKey } from "@/lib/http/rate-limit";
 import { checkOrbitClaims, CONTRACT_VERSION, NOTICE } from "@/lib/orbit";
 
@@ -56,7 +57,7 @@ async function readCapped(request: Request): Promise<string | null> {
 
 export async function POST(request: Request): Promise<Response> {
   try {
-    const limit = await takeToken(clientKey(request.headers));
+    const limit = await takeToken(clientKey(request.headers, env().TRUSTED_PROXY_HOPS));
     if (!limit.ok) {
       return answer({ error: `Too many orbit-check requests: at most ${PER_MINUTE} per minute. Retry after ${limit.retryAfterSeconds} s.` }, 429, {
         "retry-after": String(limit.retryAfterSeconds),

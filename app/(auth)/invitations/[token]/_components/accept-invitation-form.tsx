@@ -33,7 +33,7 @@ export function AcceptInvitationForm({
           return;
         }
       }
-      go(`/sign-in?callbackUrl=${encodeURIComponent(target)}`);
+      go(result.createdAccount ? `/sign-in?callbackUrl=${encodeURIComponent(target)}` : target);
     },
   );
   return (
@@ -44,7 +44,7 @@ export function AcceptInvitationForm({
         E-mail: <span className="font-semibold">{email}</span>
       </p>
       {hasAccount ? (
-        <p className="text-ink-700">You already have a VisViva account with this address. Accepting adds the board to it; then sign in as usual.</p>
+        <p className="text-ink-700">You are signed in with this address. Accepting adds the board to your account.</p>
       ) : (
         <>
           <TextField label="Your name" name="name" defaultValue={suggestedName ?? ""} autoComplete="name" required maxLength={120} error={fieldError("name")} />

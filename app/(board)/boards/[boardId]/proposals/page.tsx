@@ -8,7 +8,6 @@ import { orNotFound, pageUser } from "@/lib/auth/page-guard";
 import { can } from "@/lib/auth/policy";
 import { getBoard } from "@/lib/dal/boards";
 import { listCalls } from "@/lib/dal/calls";
-import { listCoauthorCandidates } from "@/lib/dal/proposals";
 
 export const metadata: Metadata = { title: "Proposals" };
 
@@ -17,7 +16,7 @@ export default async function ProposalsPage({ params }: { params: Promise<{ boar
   const user = await pageUser(`/boards/${boardId}/proposals`);
   const board = await orNotFound(getBoard(user, boardId));
   const mayCreate = can(user, "proposal.create", { role: board.myRole });
-  const [calls, candidates] = mayCreate ? await Promise.all([listCalls(user, boardId), listCoauthorCandidates(user, boardId)]) : [[], []];
+  const calls = mayCreate ? await listCalls(user, boardId) : [];
   return (
     <div className="space-y-6">
       <PageTitle eyebrow={board.name} title={board.myRole === "chair" ? "Proposals" : "Your proposals"} />
@@ -30,11 +29,7 @@ export default async function ProposalsPage({ params }: { params: Promise<{ boar
       </Panel>
       {mayCreate ? (
         <Panel id="new-proposal" title="Start a proposal">
-          <NewProposalForm
-            boardId={boardId}
-            calls={calls.filter((c) => c.state === "open").map((c) => ({ id: c.id, title: c.title }))}
-            candidates={candidates}
-          />
+          <NewProposalForm boardId={boardId} calls={calls.filter((c) => c.state === "open").map((c) => ({ id: c.id, title: c.title }))} />
         </Panel>
       ) : null}
     </div>

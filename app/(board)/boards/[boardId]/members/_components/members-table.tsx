@@ -82,7 +82,7 @@ export function MembersTable(props: {
         return (
           <span className={`rounded-chip px-2 py-0.5 text-xs font-semibold ${active ? "bg-holds-100 text-holds-700" : "bg-ink-100 text-ink-600"}`}>
             {active ? "Active" : "Deactivated"}
-            {member.accountStatus === "deactivated" ? " · account closed" : ""}
+            {member.accountStatus === "deactivated" ? " · account closed" : member.accountStatus === "unverified" ? " · address not confirmed yet" : ""}
           </span>
         );
       },

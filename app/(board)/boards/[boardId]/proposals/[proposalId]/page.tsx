@@ -64,7 +64,9 @@ export default async function ProposalPage({ params }: { params: Promise<{ board
     <PageTitle eyebrow={`${proposal.callTitle} · ${STATUS_TEXT[proposal.status]}`} title={proposal.title}>
       <p className="text-sm">
         {proposal.missionType ? `${proposal.missionType.replace(/-/g, " ")} · ` : ""}
-        by {[proposal.owner, ...proposal.coauthors].map((a) => a.name).join(", ")}
+        {proposal.owner
+          ? `by ${[proposal.owner, ...proposal.coauthors].map((a) => a.name).join(", ")}`
+          : "Proposers' names are hidden from reviewers on this board."}
       </p>
     </PageTitle>
   );
@@ -140,7 +142,7 @@ export default async function ProposalPage({ params }: { params: Promise<{ board
   return (
     <div className="space-y-6">
       {headerWithLinks}
-      {proposal.editBlockedReason && proposal.owner.id === user.id ? <p className="text-sm text-ink-600">{proposal.editBlockedReason}</p> : null}
+      {proposal.editBlockedReason && proposal.owner?.id === user.id ? <p className="text-sm text-ink-600">{proposal.editBlockedReason}</p> : null}
       <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_18rem]">
         <Panel title={`Version ${latest.number}`} description={`Submitted ${formatDateTime(latest.submittedAt)}; verdicts are the server's own recomputation.`}>
           <ReadOnlyDossier document={latest.document} boardId={boardId} results={latest.checkResults} />

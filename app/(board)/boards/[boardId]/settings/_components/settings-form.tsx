@@ -28,6 +28,12 @@ export function SettingsForm({ board }: { board: BoardView }) {
           defaultChecked={board.hideProposerNames}
         />
         <CheckboxField
+          label="Let reviewers read every submitted version"
+          hint="Without this, a reviewer reads only the versions assigned to them, not later revisions."
+          name="reviewersSeeAllVersions"
+          defaultChecked={board.reviewersSeeAllVersions}
+        />
+        <CheckboxField
           label="Share review items among reviewers after they submit"
           hint="A reviewer sees the other reviewers' review items on a proposal once their own review is submitted."
           name="shareReviewItemsAfterSubmit"

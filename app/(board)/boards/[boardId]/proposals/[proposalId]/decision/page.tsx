@@ -2,7 +2,8 @@ import { formatDateTime } from "@/lib/format/dates";
 import type { Metadata } from "next";
 import { RequirementFlags } from "@/components/dossier/requirement-flags";
 import Link from "next/link";
-import { NotAllowed, PageTitle, Panel } from "@/components/ui/panel";
+import { notFound } from "next/navigation";
+import { PageTitle, Panel } from "@/components/ui/panel";
 import { orNotFound, pageUser } from "@/lib/auth/page-guard";
 import { can } from "@/lib/auth/policy";
 import { proposalAccess } from "@/lib/dal/assignments";
@@ -61,7 +62,8 @@ export default async function DecisionPage({ params }: { params: Promise<{ board
   const access = await orNotFound(proposalAccess(user, boardId, proposalId));
 
   if (!can(user, "decision.make", { role: access.role })) {
-    if (!access.isAuthor) return <NotAllowed what="Decisions are written by the board's chair and read by the proposal's authors." />;
+    // Reviewers and others get the same 404 as for a proposal that does not exist (issue 17).
+    if (!access.isAuthor) notFound();
     const decisions = await listProposalDecisions(user, boardId, proposalId);
     const latest = decisions[0];
     return (

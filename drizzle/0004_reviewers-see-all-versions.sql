@@ -1,0 +1,1 @@
+ALTER TABLE "boards" ADD COLUMN "reviewers_see_all_versions" boolean DEFAULT false NOT NULL;
