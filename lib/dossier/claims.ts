@@ -3,7 +3,9 @@
  * orbit" feeding a transfer), evaluation with the engine, the Δv budget and the submission
  * readiness rules. Pure: runs in the editor (live) and on the server (at submission).
  */
-import { evaluateClaim, type ClaimResult } from "@/lib/orbit";
+import { evaluateClaim, quantityInfo, type ClaimResult } from "@/lib/orbit";
+import { kindLabel, quantityName } from "@/lib/orbit/labels";
+import { convertWritten } from "./units";
 
 /** The tolerance policy of a call (contract units). */
 export interface ToleranceInput {
@@ -11,13 +13,15 @@ export interface ToleranceInput {
   absolute?: Record<string, number>;
 }
 import { sanitizeDossier } from "./sanitize";
-import type { DossierClaim, DossierNode } from "./schema";
+import type { DossierClaim, DossierNode, WrittenValues } from "./schema";
 
 export interface OrbitCheckBlock {
   blockId: string;
   label: string;
   claim: DossierClaim;
   initialFrom?: string | null;
+  /** Values as typed, with their units (blocks stored before units were offered have none). */
+  written?: WrittenValues | null;
 }
 
 /** Every orbit-check block in document order. */
@@ -31,6 +35,7 @@ export function extractOrbitChecks(doc: unknown): OrbitCheckBlock[] {
         label: typeof node.attrs.label === "string" ? node.attrs.label : "",
         claim: node.attrs.claim as DossierClaim,
         initialFrom: (node.attrs.initialFrom as string | null | undefined) ?? null,
+        ...(node.attrs.written ? { written: node.attrs.written as WrittenValues } : {}),
       });
     }
     (node.content ?? []).forEach(walk);
@@ -89,10 +94,27 @@ function circularOrbitOf(block: OrbitCheckBlock, tolerance?: ToleranceInput): { 
   return { radius: r, altitude: alt };
 }
 
+/**
+ * Engines before contract version 2 read claimed numbers only; blocks send the decimal
+ * strings people wrote. Until the engine takes them, plain decimals go as numbers.
+ */
+const WRITTEN_CLAIMS =
+  evaluateClaim({ id: "probe", kind: "orbit", body: "earth", given: { altitude: 500 }, claimed: { eccentricity: "0" } }).status !== "invalid";
+
+function numericClaimed(claimed: Record<string, unknown>): Record<string, unknown> {
+  const out: Record<string, unknown> = {};
+  for (const [k, v] of Object.entries(claimed)) {
+    const n = typeof v === "string" && /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(v.trim()) ? Number(v) : NaN;
+    out[k] = Number.isFinite(n) ? n : v;
+  }
+  return out;
+}
+
 /** The claim the engine checks for a block, with its reference (initialFrom) filled in. */
 export function resolveClaim(block: OrbitCheckBlock, blocks: readonly OrbitCheckBlock[], tolerance?: ToleranceInput): ResolvedClaim {
   const notes: string[] = [];
   const claim: DossierClaim & { id: string } = { ...block.claim, given: { ...block.claim.given }, id: block.blockId };
+  if (!WRITTEN_CLAIMS && claim.claimed) claim.claimed = numericClaimed(claim.claimed);
   const rule = REFERENCING_KINDS[claim.kind];
   if (block.initialFrom && rule) {
     const ref = blocks.find((b) => b.blockId === block.initialFrom);
@@ -232,6 +254,19 @@ export function missingSections(doc: unknown, required: readonly string[]): stri
   return required.filter((s) => !have.has(normalise(s)));
 }
 
+/** The first typed value of a block that is not a number: "Periapsis altitude: not a number; use a point for decimals". */
+export function unreadableWritten(block: OrbitCheckBlock): string | null {
+  for (const side of ["given", "claimed"] as const) {
+    for (const [name, w] of Object.entries(block.written?.[side] ?? {})) {
+      if (w.text.trim() === "") continue;
+      const unit = quantityInfo(name)?.unit ?? "";
+      const converted = convertWritten(w, unit);
+      if ("error" in converted) return `${quantityName(name)} "${w.text}" is ${converted.error}`;
+    }
+  }
+  return null;
+}
+
 export interface ReadinessProblem {
   kind: "missing-section" | "invalid-claim" | "no-content";
   message: string;
@@ -243,7 +278,11 @@ export function submissionProblems(doc: unknown, required: readonly string[], ev
   const problems: ReadinessProblem[] = [];
   for (const s of missingSections(doc, required)) problems.push({ kind: "missing-section", message: `Add a section headed "${s}".` });
   for (const ev of evaluations) {
-    if (ev.result.status === "invalid") {
+    const unreadable = unreadableWritten(ev.block);
+    if (unreadable) {
+      const name = ev.block.label || `the ${kindLabel(ev.block.claim.kind).toLowerCase()} block`;
+      problems.push({ kind: "invalid-claim", blockId: ev.block.blockId, message: `Fix "${name}": ${unreadable}.` });
+    } else if (ev.result.status === "invalid") {
       const name = ev.block.label || `the ${ev.block.claim.kind} block`;
       problems.push({ kind: "invalid-claim", blockId: ev.block.blockId, message: `Fix "${name}": ${ev.result.messages[0] ?? "it cannot be evaluated"}` });
     }

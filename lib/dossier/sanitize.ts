@@ -173,6 +173,7 @@ function cleanNode(node: unknown, depth: number, state: WalkState): DossierNode[
       claim: cleanClaim(a.claim),
       initialFrom: typeof a.initialFrom === "string" && a.initialFrom !== blockId ? a.initialFrom : null,
     };
+    if (a.written) out.attrs.written = a.written;
     return [out];
   }
   if (attrs) out.attrs = attrs;

@@ -25,6 +25,14 @@ export interface OrbitCheckAttrs {
   claim: DossierClaim;
   /** blockId of another block whose orbit is this transfer's initial orbit. */
   initialFrom?: string | null;
+  /** The values as the proposer typed them, with the unit chosen beside each (lib/dossier/units.ts). */
+  written?: WrittenValues;
+}
+
+/** Typed text and unit per given and claimed quantity; the claim holds the contract-unit values. */
+export interface WrittenValues {
+  given?: Record<string, { text: string; unit: string }>;
+  claimed?: Record<string, { text: string; unit: string }>;
 }
 
 export interface DossierMark {
@@ -63,6 +71,7 @@ export const OrbitCheckNode = Node.create({
       label: { default: "" },
       claim: { default: { kind: "orbit", body: "earth", given: {}, claimed: {} } },
       initialFrom: { default: null },
+      written: { default: null },
     };
   },
   parseHTML() {
@@ -82,6 +91,7 @@ export const OrbitCheckNode = Node.create({
             label: el.getAttribute("data-label") ?? "",
             claim: claim ?? undefined,
             initialFrom: el.getAttribute("data-initial-from"),
+            written: parseWritten(el.getAttribute("data-written")),
           };
         },
       },
@@ -93,12 +103,44 @@ export const OrbitCheckNode = Node.create({
       mergeAttributes(
         { "data-orbit-check": "", "data-block-id": node.attrs.blockId, "data-label": node.attrs.label, "data-claim": JSON.stringify(node.attrs.claim) },
         node.attrs.initialFrom ? { "data-initial-from": node.attrs.initialFrom } : {},
+        node.attrs.written ? { "data-written": JSON.stringify(node.attrs.written) } : {},
         // HTMLAttributes carries the attrs again under their own names; drop the JSON one.
-        Object.fromEntries(Object.entries(HTMLAttributes).filter(([k]) => !["claim", "blockId", "label", "initialFrom"].includes(k))),
+        Object.fromEntries(Object.entries(HTMLAttributes).filter(([k]) => !["claim", "blockId", "label", "initialFrom", "written"].includes(k))),
       ),
     ];
   },
 });
+
+function parseWritten(text: string | null): WrittenValues | null {
+  if (!text) return null;
+  try {
+    return cleanWritten(JSON.parse(text)) ?? null;
+  } catch {
+    return null;
+  }
+}
+
+const WRITTEN_KEY = /^[A-Za-z][A-Za-z0-9_]{0,59}$/;
+const WRITTEN_UNIT = /^[A-Za-z/°]{1,12}$/;
+
+/** Keeps only `{ given, claimed }` maps of `{ text ≤ 60 chars, unit }` under quantity names. */
+export function cleanWritten(v: unknown): WrittenValues | undefined {
+  if (typeof v !== "object" || v === null || Array.isArray(v)) return undefined;
+  const out: WrittenValues = {};
+  for (const side of ["given", "claimed"] as const) {
+    const raw = (v as Record<string, unknown>)[side];
+    if (typeof raw !== "object" || raw === null || Array.isArray(raw)) continue;
+    const map: Record<string, { text: string; unit: string }> = {};
+    for (const [k, e] of Object.entries(raw).slice(0, 40)) {
+      if (!WRITTEN_KEY.test(k) || typeof e !== "object" || e === null) continue;
+      const { text, unit } = e as { text?: unknown; unit?: unknown };
+      if (typeof text !== "string" || typeof unit !== "string" || !WRITTEN_UNIT.test(unit)) continue;
+      map[k] = { text: text.slice(0, 60), unit };
+    }
+    if (Object.keys(map).length > 0) out[side] = map;
+  }
+  return out.given || out.claimed ? out : undefined;
+}
 
 export const LINK_PROTOCOLS = ["http", "https", "mailto"] as const;
 
@@ -205,6 +247,7 @@ export const NODE_ATTRS: Record<string, Record<string, AttrCleaner>> = {
     initialFrom: (v) => (typeof v === "string" && UUID.test(v) ? v.toLowerCase() : undefined),
     // The claim is cleaned in sanitize.ts (it has its own shape).
     claim: (v) => v,
+    written: (v) => cleanWritten(v),
   },
 };
 
