@@ -7,6 +7,9 @@ import { evaluateClaim, quantityInfo, type ClaimResult } from "@/lib/orbit";
 import { kindLabel, quantityName } from "@/lib/orbit/labels";
 import { convertWritten } from "./units";
 
+/** The orbit-check contract version whose rules the engine applies (docs/contracts/orbit-checks.md). */
+export const ORBIT_CHECK_CONTRACT_VERSION = 2;
+
 /** The tolerance policy of a call (contract units). */
 export interface ToleranceInput {
   relative?: number;
