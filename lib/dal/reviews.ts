@@ -28,6 +28,7 @@ import { boardRole, isUuid } from "./boards";
 import { isConflicted } from "./conflicts";
 import { freezeTemplate, loadTemplate, type RubricView } from "./rubrics";
 import { loadCall } from "./calls";
+import { orbitCheckNotice } from "@/lib/dossier/verdict-text";
 
 type Db = Database | Transaction;
 
@@ -53,6 +54,8 @@ export interface CheckRow {
   status: "consistent" | "inconsistent" | "invalid";
   verdict: BlockVerdict;
   note: string;
+  /** The tolerance policy the verdict was found under (recorded since contract version 2). */
+  tolerance?: { relative: number; absolute?: Record<string, number> } | null;
 }
 
 export interface ReviewScreen {
@@ -166,6 +169,7 @@ export async function getReviewScreen(user: SessionUser, boardId: string, assign
       kind: checkResults.kind,
       status: checkResults.status,
       result: checkResults.result,
+      tolerance: checkResults.tolerance,
     })
     .from(checkResults)
     .where(and(eq(checkResults.versionId, version.id), eq(checkResults.boardId, boardId)));
@@ -182,9 +186,18 @@ export async function getReviewScreen(user: SessionUser, boardId: string, assign
       messages: Array.isArray(result.messages) ? result.messages : [],
     };
     verdicts[c.blockId] = verdict;
-    return { id: c.id, blockId: c.blockId, label: c.label, kind: c.kind, status: c.status, verdict, note: noteOf.get(c.id) ?? "" };
+    return {
+      id: c.id,
+      blockId: c.blockId,
+      label: c.label,
+      kind: c.kind,
+      status: c.status,
+      verdict,
+      note: noteOf.get(c.id) ?? "",
+      tolerance: c.tolerance ?? null,
+    };
   });
-  const html = renderDossierHtml(version.document, { boardId, verdicts });
+  const html = renderDossierHtml(version.document, { boardId, verdicts, tolerance: checks.find((c) => c.tolerance)?.tolerance ?? undefined });
   const order = html.match(/data-block-id="[^"]*"/g)?.map((m) => m.slice(15, -1)) ?? [];
   checkRows.sort((a, b) => order.indexOf(a.blockId) - order.indexOf(b.blockId));
   const [owner] = await db()
@@ -708,5 +721,7 @@ export async function getCallOverviewCsv(user: SessionUser, boardId: string, cal
       .toLowerCase()
       .replace(/[^a-z0-9]+/g, "-")
       .replace(/^-|-$/g, "") || "call";
+  // The orbit-check contract's notice travels with the figures: one last row, first cell.
+  lines.push(csvCell(`Notice: ${orbitCheckNotice()}`));
   return { filename: `${slug}-overview.csv`, csv: `${lines.join("\r\n")}\r\n` };
 }
