@@ -26,14 +26,17 @@ export function ReadOnlyDossier({
   boardId,
   results,
   className,
+  tolerance,
 }: {
   document: unknown;
   boardId?: string;
   results?: StoredCheckResult[];
   className?: string;
+  /** The tolerance policy the verdicts were found under, named beside each. */
+  tolerance?: { relative?: number; absolute?: Record<string, number | undefined> };
 }) {
   const verdicts = results ? Object.fromEntries(results.map((r) => [r.blockId, { ...(r.result as unknown as BlockVerdict), status: r.status }])) : undefined;
-  const html = renderDossierHtml(document, { boardId, verdicts });
+  const html = renderDossierHtml(document, { boardId, verdicts, tolerance });
   return (
     <div className={className}>
       <article className={`prose-dossier ${FIGURE_STYLES}`} dangerouslySetInnerHTML={{ __html: html }} />

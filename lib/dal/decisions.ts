@@ -25,6 +25,8 @@ import { letterBlocks, letterIsEmpty, renderLetterHtml, renderLetterText, type L
 import { applyMergeFields, MERGE_FIELDS, unknownMergeFields, type MergeFieldInfo } from "@/lib/decisions/merge-fields";
 import { DEFAULT_LETTER_TEMPLATE, mergeValues, OUTCOME_LABELS, reviewItemLine } from "@/lib/decisions/template";
 import { dossierPlainText } from "@/lib/dossier";
+import { failingSentences } from "@/lib/dossier/verdict-text";
+import { CONSISTENT_MEANS, kindLabel, policySummary } from "@/lib/orbit/labels";
 import { env } from "@/lib/env";
 import { conflict, notFound, unprocessable } from "@/lib/errors";
 import { enqueueMail } from "@/lib/mail/outbox";
@@ -166,6 +168,10 @@ export interface WorkspaceCheck {
   kind: string;
   status: "consistent" | "inconsistent" | "invalid";
   messages: string[];
+  /** Failing check rows as stored (with their hints, contract version 2). */
+  failing: Record<string, unknown>[];
+  contractVersion: number;
+  tolerance: { relative: number; absolute?: Record<string, number> } | null;
 }
 
 export interface DecisionWorkspace {
@@ -303,11 +309,24 @@ export async function getDecisionWorkspace(user: SessionUser, boardId: string, p
     ).map((i) => ({ ...i }));
     checks = (
       await tx
-        .select({ blockId: checkResults.blockId, label: checkResults.label, kind: checkResults.kind, status: checkResults.status, result: checkResults.result })
+        .select({
+          blockId: checkResults.blockId,
+          label: checkResults.label,
+          kind: checkResults.kind,
+          status: checkResults.status,
+          result: checkResults.result,
+          contractVersion: checkResults.contractVersion,
+          tolerance: checkResults.tolerance,
+        })
         .from(checkResults)
         .where(and(eq(checkResults.boardId, boardId), eq(checkResults.versionId, version.id)))
         .orderBy(asc(checkResults.createdAt))
-    ).map(({ result, ...c }) => ({ ...c, messages: Array.isArray(result.messages) ? (result.messages as unknown[]).map(String) : [] }));
+    ).map(({ result, tolerance, ...c }) => ({
+      ...c,
+      tolerance: tolerance ?? null,
+      messages: Array.isArray(result.messages) ? (result.messages as unknown[]).map(String) : [],
+      failing: Array.isArray(result.checks) ? (result.checks as Record<string, unknown>[]).filter((r) => r && r.ok === false) : [],
+    }));
   }
 
   let blocked: string | null = null;
@@ -393,7 +412,12 @@ async function composeLetter(
     .select({ n: sql<number>`count(*)::int` })
     .from(reviewItems)
     .where(and(eq(reviewItems.versionId, ctx.version.id), eq(reviewItems.status, "open")));
-  const checks = await tx.select({ status: checkResults.status }).from(checkResults).where(eq(checkResults.versionId, ctx.version.id));
+  const checks = await tx
+    .select({ status: checkResults.status, label: checkResults.label, kind: checkResults.kind, result: checkResults.result, tolerance: checkResults.tolerance })
+    .from(checkResults)
+    .where(eq(checkResults.versionId, ctx.version.id))
+    .orderBy(asc(checkResults.createdAt));
+  const recordTolerance = checks.find((c) => c.tolerance)?.tolerance;
   const reviewsSubmitted = await submittedReviewCount(ctx.version.id, tx);
   const values = mergeValues({
     proposalTitle: ctx.version.title || ctx.proposal.title,
@@ -413,6 +437,8 @@ async function composeLetter(
     openItemCount: openItems?.n ?? 0,
     checksTotal: checks.length,
     checksFlagged: checks.filter((c) => c.status !== "consistent").length,
+    checksFlaggedDetails: checks.flatMap((c) => failingSentences(c.result).map((line) => `${c.label || kindLabel(c.kind)}: ${line}`)),
+    checksMeaning: `${CONSISTENT_MEANS}${recordTolerance ? ` The call's checks ran ${policySummary(recordTolerance)}.` : ""}`,
     chairName: user.name,
   });
   const merged = applyMergeFields(blocks, values);

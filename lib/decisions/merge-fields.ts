@@ -33,6 +33,12 @@ export const MERGE_FIELDS: readonly MergeFieldInfo[] = [
   { name: "reviewItems.openCount", description: "Number of review items still open on this version" },
   { name: "checks.total", description: "Number of orbit claims the server recomputed" },
   { name: "checks.flagged", description: "Number of those found inconsistent or invalid" },
+  {
+    name: "checks.flaggedDetails",
+    description: "Each value the server found outside tolerance, as a sentence with the likely slip, one per line",
+    list: true,
+  },
+  { name: "checks.meaning", description: "What a consistent verdict means (and does not), with the call's tolerance policy" },
   { name: "chair.name", description: "Name of the chair issuing the decision" },
 ];
 

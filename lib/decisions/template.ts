@@ -41,6 +41,9 @@ export const DEFAULT_LETTER_TEMPLATE: Record<string, unknown> = {
     p(
       "The panel returned {{reviews.submitted}} reviews; the mean of their weighted totals is {{score.weighted}} (spread {{score.spread}}). The server recomputed {{checks.total}} orbit claims of this version and flagged {{checks.flagged}}.",
     ),
+    p("Values the server found outside tolerance, with the likely slip:"),
+    p("{{checks.flaggedDetails}}"),
+    p("{{checks.meaning}}"),
     p("The board asks you to consider these review items:"),
     p("{{reviewItems.selected}}"),
     p("The full reviews and review items are open to you on VisViva. A copy of this letter is attached as a PDF."),
@@ -76,6 +79,10 @@ export interface MergeFacts {
   openItemCount: number;
   checksTotal: number;
   checksFlagged: number;
+  /** Failing checks as sentences with their hint (lib/dossier/verdict-text.ts); empty when none. */
+  checksFlaggedDetails?: string[];
+  /** What "consistent" means, with the policy the checks were found under. */
+  checksMeaning?: string;
   chairName: string;
 }
 
@@ -101,6 +108,8 @@ export function mergeValues(f: MergeFacts): MergeValues {
     "reviewItems.openCount": String(f.openItemCount),
     "checks.total": String(f.checksTotal),
     "checks.flagged": String(f.checksFlagged),
+    "checks.flaggedDetails": f.checksFlaggedDetails ?? [],
+    "checks.meaning": f.checksMeaning ?? "",
     "chair.name": f.chairName,
   };
 }

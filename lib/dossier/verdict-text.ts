@@ -4,6 +4,7 @@
  * likely slip. Pure; takes stored rows of any contract version (version 1 rows lack
  * allowance, basis and hint).
  */
+import { checkOrbitClaims, SCREENING_CAUTION } from "@/lib/orbit";
 import { basisText, displayUnit, hintSentence, quantityName } from "@/lib/orbit/labels";
 
 export interface ExplainedRow {
@@ -62,4 +63,15 @@ export function failingSentences(result: unknown): string[] {
       const hint = rowHint(r);
       return `${checkSentence(r)}.${hint ? ` Likely slip: ${hint}` : ""}`;
     });
+}
+
+/**
+ * The orbit-check contract's notice (version 2 puts it on every response): two-body
+ * screening estimates, not flight-qualified analysis; the mission's own flight dynamics,
+ * mission assurance and licensing authority govern. Taken from the engine itself, so
+ * letters, e-mails and exports carry the same words as the API.
+ */
+export function orbitCheckNotice(): string {
+  const response = checkOrbitClaims({ claims: [] }) as { notice?: unknown };
+  return typeof response.notice === "string" && response.notice.trim() ? response.notice.trim() : SCREENING_CAUTION;
 }

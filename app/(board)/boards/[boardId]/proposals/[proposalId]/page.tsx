@@ -96,7 +96,8 @@ export default async function ProposalPage({ params }: { params: Promise<{ board
   }
 
   const latest = await getVersion(user, boardId, proposalId, versions[0]!.number);
-  const items = latest.checkResults.map((r) => ({ blockId: r.blockId, label: r.label, kind: r.kind, status: r.status }));
+  const items = latest.checkResults.map((r) => ({ blockId: r.blockId, label: r.label, kind: r.kind, status: r.status, result: r.result }));
+  const recordTolerance = latest.checkResults.find((r) => r.tolerance)?.tolerance ?? proposal.tolerance;
   const budget = deltaVBudget(evaluateBlocks(extractOrbitChecks(latest.document), proposal.tolerance));
   return (
     <div className="space-y-6">
@@ -107,10 +108,10 @@ export default async function ProposalPage({ params }: { params: Promise<{ board
           title={`Version ${latest.number}`}
           description={`Submitted ${dateFormat.format(new Date(latest.submittedAt))} UTC; verdicts are the server's own recomputation.`}
         >
-          <ReadOnlyDossier document={latest.document} boardId={boardId} results={latest.checkResults} />
+          <ReadOnlyDossier document={latest.document} boardId={boardId} results={latest.checkResults} tolerance={recordTolerance} />
         </Panel>
         <div className="space-y-4">
-          <DossierSummary items={items} budget={budget} source="server" />
+          <DossierSummary items={items} budget={budget} source="server" tolerance={recordTolerance} />
           <AttachmentList
             attachments={latest.attachments.map((a) => ({ ...a, contentPath: `/api/v1/boards/${boardId}/attachments/${a.attachmentId}/content` }))}
           />

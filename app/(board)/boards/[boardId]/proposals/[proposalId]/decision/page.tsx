@@ -6,6 +6,9 @@ import { can } from "@/lib/auth/policy";
 import { proposalAccess } from "@/lib/dal/assignments";
 import { getDecisionWorkspace, listProposalDecisions, type DecisionView } from "@/lib/dal/decisions";
 import { DecisionForm } from "./_components/decision-form";
+import { ConsistentMeaning, FailingChecks } from "@/components/dossier/check-explain";
+import { storedRows } from "@/lib/dossier/verdict-text";
+import { kindLabel } from "@/lib/orbit/labels";
 
 export const metadata: Metadata = { title: "Decision" };
 
@@ -141,15 +144,19 @@ export default async function DecisionPage({ params }: { params: Promise<{ board
         <Panel title="Orbit checks" description={`${flagged.length} of ${w.checks.length} claims flagged by the server`}>
           <ul className="space-y-1 text-sm">
             {w.checks.map((c) => (
-              <li key={c.blockId} className="flex items-start justify-between gap-2">
-                <span>
-                  {c.label || c.kind} <span className="text-xs text-ink-500">({c.kind})</span>
-                </span>
-                <span className={`rounded-chip px-2 py-0.5 text-xs font-semibold ${verdictClass[c.status]}`}>{verdictText[c.status]}</span>
+              <li key={c.blockId} data-decision-check={c.blockId}>
+                <div className="flex items-start justify-between gap-2">
+                  <span>
+                    {c.label || kindLabel(c.kind)} <span className="text-xs text-ink-500">({kindLabel(c.kind)})</span>
+                  </span>
+                  <span className={`rounded-chip px-2 py-0.5 text-xs font-semibold ${verdictClass[c.status]}`}>{verdictText[c.status]}</span>
+                </div>
+                <FailingChecks checks={storedRows({ checks: c.failing })} />
               </li>
             ))}
             {w.checks.length === 0 ? <li className="text-ink-500">No orbit claims in this version.</li> : null}
           </ul>
+          <ConsistentMeaning tolerance={w.checks.find((c) => c.tolerance)?.tolerance ?? undefined} className="mt-3 text-xs text-ink-600" />
           <p className="mt-3 text-xs text-ink-500">Two-body screening estimates, not a substitute for high-fidelity analysis.</p>
         </Panel>
         <Panel title="Open review items" description={`${openItems.length} open of ${w.reviewItems.length}`}>
