@@ -14,8 +14,11 @@ import {
   proposalPageSchema,
   proposalUpdateSchema,
   submitSchema,
+  tolerancePolicySchema,
   versionSummarySchema,
 } from "@/lib/validation/dossier";
+
+const callToleranceSchema = z.object({ callId: z.uuid(), tolerance: tolerancePolicySchema });
 
 const board = "/api/v1/boards/{boardId}";
 const proposal = `${board}/proposals/{proposalId}`;
@@ -68,6 +71,26 @@ export const dossierOperations = defineOperations([
     access: "signed-in",
     body: callInputSchema,
     response: z.object({ call: callSchema }),
+  },
+  {
+    method: "get",
+    path: `${board}/calls/{callId}/tolerance`,
+    operationId: "getCallTolerance",
+    summary: "The call's tolerance policy for orbit checks (any member: proposers see what their claims are checked at)",
+    tag: "calls",
+    access: "signed-in",
+    response: callToleranceSchema,
+  },
+  {
+    method: "put",
+    path: `${board}/calls/{callId}/tolerance`,
+    operationId: "updateCallTolerance",
+    summary:
+      "Set the call's tolerance policy (chairs): a relative bound below 50 % and absolute bounds per unit; applies to submissions from now on, submitted versions keep their record",
+    tag: "calls",
+    access: "signed-in",
+    body: tolerancePolicySchema,
+    response: callToleranceSchema,
   },
   {
     method: "get",

@@ -126,6 +126,16 @@ export const dossierRouteCases: RouteCase[] = [
     prepare: async (cast) => ({ path: `${board(cast)}/calls/${(await makeCall(cast)).id}`, body: callBody() }),
     expect: { ...chairOnly, chair: 200, admin: 200 },
   },
+  {
+    operationId: "getCallTolerance",
+    prepare: async (cast) => ({ path: `${board(cast)}/calls/${(await makeCall(cast)).id}/tolerance` }),
+    expect: members,
+  },
+  {
+    operationId: "updateCallTolerance",
+    prepare: async (cast) => ({ path: `${board(cast)}/calls/${(await makeCall(cast)).id}/tolerance`, body: { relative: 0.0005, absolute: { deg: 0.02 } } }),
+    expect: { ...chairOnly, chair: 200, admin: 200 },
+  },
   { operationId: "listProposals", prepare: async (cast) => ({ path: `${board(cast)}/proposals`, query: { pageSize: "5" } }), expect: members },
   {
     operationId: "createProposal",

@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { CONSISTENT_MEANS, policySummary } from "@/lib/orbit/labels";
 import { CallForm } from "@/components/dossier/call-form";
 import { PageTitle, Panel } from "@/components/ui/panel";
 import { orNotFound, pageUser } from "@/lib/auth/page-guard";
@@ -34,9 +35,13 @@ export default async function CallPage({ params }: { params: Promise<{ boardId: 
           <dt className="font-semibold">Required sections</dt>
           <dd>{call.requiredSections.length > 0 ? call.requiredSections.join(" · ") : "none"}</dd>
           <dt className="font-semibold">Orbit-check tolerance</dt>
-          <dd className="font-mono">
-            {(call.tolerance.relative * 100).toFixed(2)} % relative
-            {abs.length > 0 ? `; absolute ${abs.map(([u, v]) => `${v} ${u}`).join(", ")}` : "; default absolute bounds"}
+          <dd>
+            <span data-call-policy="">{policySummary(call.tolerance)}</span>
+            <span className="ml-1 font-mono text-xs text-ink-600">
+              ({Number((call.tolerance.relative * 100).toPrecision(6))} % relative
+              {abs.length > 0 ? `; absolute ${abs.map(([u, v]) => `${v} ${u}`).join(", ")}` : "; the contract's absolute bounds"})
+            </span>
+            <span className="block text-xs text-ink-600">{CONSISTENT_MEANS}</span>
           </dd>
           <dt className="font-semibold">Reviewers per proposal</dt>
           <dd>{call.reviewersPerProposal}</dd>
