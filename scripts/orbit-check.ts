@@ -4,12 +4,13 @@
  *   npm run --silent orbit-check < request.json
  *   npm run --silent orbit-check -- request.json
  *
- * Standard output carries only the response JSON; anything else goes to standard error.
+ * Standard output carries only the response JSON; anything else goes to standard error,
+ * including the contract's notice (two-body screening estimates, not flight-qualified analysis).
  * Exit code: 0 all claims consistent, 1 at least one inconsistent, 2 at least one invalid
  * or the request itself is malformed (the JSON still says why).
  */
 import { readFile } from "node:fs/promises";
-import { checkOrbitClaims, exitCodeFor, type OrbitCheckResponse } from "../lib/orbit";
+import { checkOrbitClaims, CONTRACT_VERSION, exitCodeFor, NOTICE, type OrbitCheckResponse } from "../lib/orbit";
 
 const MAX_INPUT_BYTES = 16 * 1024 * 1024;
 
@@ -25,8 +26,11 @@ async function readStdin(): Promise<string> {
   return Buffer.concat(chunks).toString("utf8");
 }
 
-function finish(response: OrbitCheckResponse, code: number): void {
-  process.stdout.write(JSON.stringify(response, null, 2) + "\n");
+/** Prints the response (with the contract's notice) on standard output, and the notice on standard error. */
+function finish(response: Omit<OrbitCheckResponse, "notice"> & { notice?: string }, code: number): void {
+  const full: OrbitCheckResponse = { contractVersion: CONTRACT_VERSION, ...response, notice: NOTICE };
+  process.stderr.write(`orbit-check: ${NOTICE}\n`);
+  process.stdout.write(JSON.stringify(full, null, 2) + "\n");
   process.exitCode = code;
 }
 

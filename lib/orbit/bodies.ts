@@ -4,7 +4,7 @@
 import { BODY_NAMES, defaultBody, isBodyName, type Body, type BodyName } from "./constants";
 import { fail } from "./errors";
 
-const OVERRIDE_KEYS = ["name", "mu", "radius", "j2", "rotationRate", "orbitRadius", "parentMu"] as const;
+const OVERRIDE_KEYS = ["name", "mu", "radius", "j2", "rotationRate", "orbitRadius", "parentMu", "j2ReferenceRadius", "year"] as const;
 
 export function resolveBody(input: unknown, fallback: BodyName, label = "body"): Body {
   if (input === undefined || input === null) return defaultBody(fallback);
@@ -36,14 +36,27 @@ export function resolveBody(input: unknown, fallback: BodyName, label = "body"):
   const rotationRate = num("rotationRate", () => true, "a finite number in rad/s");
   const orbitRadius = num("orbitRadius", (x) => x > 0, "a positive number in km");
   const parentMu = num("parentMu", (x) => x > 0, "a positive number in km³/s²");
+  const j2ReferenceRadius = num("j2ReferenceRadius", (x) => x > 0, "a positive number in km");
+  const year = num("year", (x) => x > 0, "a positive number of days");
   if (!base && (mu === undefined || radius === undefined))
     fail(`${label} "${String(o.name ?? "unnamed")}" is not in the constants table, so it needs both mu (km³/s²) and radius (km)`);
-  const b: Body = base ?? { name: typeof o.name === "string" ? o.name : "custom", mu: mu!, radius: radius!, j2: 0, rotationRate: 0 };
+  const b: Body = base ?? {
+    name: typeof o.name === "string" ? o.name : "custom",
+    mu: mu!,
+    radius: radius!,
+    j2: 0,
+    j2ReferenceRadius: radius!,
+    rotationRate: 0,
+  };
   return {
     ...b,
     mu: mu ?? b.mu,
     radius: radius ?? b.radius,
     j2: j2 ?? b.j2,
+    // An override that gives a radius but no j2ReferenceRadius pairs its J2 with that radius
+    // (handbook examples state one radius for both).
+    j2ReferenceRadius: j2ReferenceRadius ?? radius ?? b.j2ReferenceRadius,
+    year: year ?? b.year,
     rotationRate: rotationRate ?? b.rotationRate,
     orbitRadius: orbitRadius ?? b.orbitRadius,
     parentMu: parentMu ?? b.parentMu,

@@ -68,11 +68,17 @@ describe("the contract's example", () => {
 });
 
 describe("tolerance", () => {
-  it("passes within the relative bound and fails outside it", () => {
-    expect(orbit({ period: 5863.69 * 1.009 }).status).toBe("consistent");
-    const r = orbit({ period: 5863.69 * 1.02 });
+  it("passes within the relative bound (0.1 % by default in contract version 2) and fails outside it", () => {
+    // Computed period 5863.69 s: 0.09 % off passes, 0.2 % off fails (both far beyond 1 s and the 0.5 s of the written digits).
+    const pass = orbit({ period: "5869" });
+    expect(pass.status).toBe("consistent");
+    expect(pass.checks[0]).toMatchObject({ basis: "relative", ok: true });
+    expect(pass.checks[0]!.allowance!).toBeCloseTo(5.86369, 4);
+    const r = orbit({ period: 5863.69 * 1.002 });
     expect(r.status).toBe("inconsistent");
     expect(r.checks[0]!.ok).toBe(false);
+    // The version 1 default (1 %) remains reachable through the tolerance.
+    expect(evaluateClaim({ kind: "orbit", body: "earth", given: { periapsisAltitude: 500, apoapsisAltitude: 800 }, claimed: { period: 5863.69 * 1.009 }, tolerance: { relative: 0.01 } }).status).toBe("consistent");
   });
 
   it("passes within the absolute bound of the unit even when the relative error is large", () => {
@@ -166,7 +172,8 @@ describe("invalid claims get a message a proposer can act on", () => {
     expectInvalid({ kind: "orbit", body: "earth", given: { periapsisAltitude: Number.NaN, apoapsisAltitude: 800 } }, /finite number in km/);
     expectInvalid({ kind: "orbit", body: "earth", given: { periapsisAltitude: Infinity, apoapsisAltitude: 800 } }, /finite number/);
     expectInvalid({ kind: "orbit", body: "earth", given: { periapsisAltitude: "500", apoapsisAltitude: 800 } }, /finite number in km \(got the text "500"\)/);
-    expectInvalid({ kind: "orbit", body: "earth", given: { altitude: 500 }, claimed: { period: "95 min" } }, /claimed.period must be a finite number in s/);
+    expectInvalid({ kind: "orbit", body: "earth", given: { altitude: 500 }, claimed: { period: "95 min" } }, /claimed.period is not a plain decimal number.*remove the unit/);
+    expectInvalid({ kind: "orbit", body: "earth", given: { altitude: 500 }, claimed: { period: true } }, /claimed.period must be a number or a decimal string/);
   });
 
   it("negative where impossible", () => {
@@ -221,6 +228,7 @@ describe("invalid claims get a message a proposer can act on", () => {
 describe("requests", () => {
   it("one bad claim never spoils the others; exit code reflects the worst", () => {
     const res = checkOrbitClaims({
+      tolerance: CONTRACT_REQUEST.tolerance,
       claims: [
         CONTRACT_REQUEST.claims[0],
         { id: "bad", kind: "orbit", given: { periapsisAltitude: "x" } },
@@ -230,16 +238,21 @@ describe("requests", () => {
     expect(res.results.map((r) => r.status)).toEqual(["consistent", "invalid", "inconsistent"]);
     expect(exitCodeFor(res)).toBe(2);
     expect(overallStatus(res)).toBe("invalid");
-    expect(exitCodeFor({ results: [res.results[0]!, res.results[2]!] })).toBe(1);
+    expect(exitCodeFor({ notice: res.notice, results: [res.results[0]!, res.results[2]!] })).toBe(1);
   });
 
   it("a malformed envelope says why and has no results", () => {
-    for (const bad of [null, 42, "claims", [], {}, { claims: "all" }, { claims: [], tolerance: { relative: -1 } }]) {
+    for (const bad of [null, 42, "claims", [], {}, { claims: "all" }]) {
       const res = checkOrbitClaims(bad);
       expect(res.error).toMatch(/request must be an object/);
       expect(res.results).toEqual([]);
       expect(exitCodeFor(res)).toBe(2);
     }
+    // A refused tolerance names its field (contract version 2, "Bad input").
+    const res = checkOrbitClaims({ claims: [], tolerance: { relative: -1 } });
+    expect(res.error).toMatch(/tolerance.relative: the relative bound must not be negative/);
+    expect(res.results).toEqual([]);
+    expect(exitCodeFor(res)).toBe(2);
   });
 
   it("assigns ids to claims that have none", () => {

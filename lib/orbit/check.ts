@@ -4,72 +4,103 @@
  * throws out of here — a claim that cannot be evaluated comes back `invalid` with a message.
  */
 import { resolveBody } from "./bodies";
+import { isBodyName, type Body, type BodyName } from "./constants";
+import { readClaimedNumber } from "./decimal";
 import { OrbitInputError } from "./errors";
+import { findHint } from "./hints";
 import { allowedGiven, defaultBodyOf, type Evaluation, Inputs, kindDef, KIND_NAMES, usesBody } from "./kinds";
-import { DEFAULT_ABSOLUTE_TOLERANCE, DEFAULT_RELATIVE_TOLERANCE, quantityInfo } from "./quantities";
-import {
-  type CheckRow,
-  type ClaimResult,
-  type ClaimStatus,
-  type ComputedValue,
-  type OrbitCheckResponse,
-  requestEnvelopeSchema,
-  toleranceSchema,
-} from "./schema";
-import { wrapDeg180 } from "./vector";
+import { quantityInfo } from "./quantities";
+import { type CheckRow, type ClaimResult, type ClaimStatus, type ComputedValue, type OrbitCheckResponse, requestEnvelopeSchema } from "./schema";
+import { boundFor, DEFAULT_TOLERANCE, mergeTolerance, parseTolerancePolicy, scalarError, type Tolerance } from "./tolerance";
 
-/** Tolerance after defaults are applied. */
-export interface Tolerance {
-  relative: number;
-  absolute: Record<string, number>;
-}
+export { DEFAULT_TOLERANCE, mergeTolerance, type Tolerance } from "./tolerance";
 
-export const DEFAULT_TOLERANCE: Tolerance = { relative: DEFAULT_RELATIVE_TOLERANCE, absolute: { ...DEFAULT_ABSOLUTE_TOLERANCE } };
+/** The contract version this engine implements. */
+export const CONTRACT_VERSION = 2;
 
-/** Merges a (validated) tolerance input over a base tolerance. */
-export function mergeTolerance(base: Tolerance, input?: { relative?: number; absolute?: Record<string, number> }): Tolerance {
-  return {
-    relative: input?.relative ?? base.relative,
-    absolute: { ...base.absolute, ...(input?.absolute ?? {}) },
-  };
-}
+/** The caution every response carries (contract version 2, "Other additions"). */
+export const NOTICE =
+  "Two-body screening estimates, not flight-qualified analysis. The mission's own flight dynamics, mission assurance and its licensing authority's rules govern.";
 
 const MAX_CLAIMED_VALUES = 200;
 
-/** Compares one claimed value with the computed one. */
+/** Names a contract version 1 quantity had; claims may still use them for one version. */
+const OLD_NAMES: Record<string, string> = { earthCentralAngle: "centralAngle" };
+
+/** What a claimed value becomes once read: its number(s) and precision allowance. */
+type ReadValue = { scalar: number; precision: number } | { vector: [number, number, number]; precision: [number, number, number] };
+
+function readClaimed(quantity: string, claimed: unknown, computed: ComputedValue, unit: string): ReadValue | string {
+  const unitWords = unit === "" || unit === "1" ? "(dimensionless)" : unit;
+  if (typeof computed === "number") {
+    const r = readClaimedNumber(claimed);
+    if ("error" in r) return `claimed.${quantity} ${r.error}; give it in ${unitWords}`;
+    return { scalar: r.value, precision: r.allowance };
+  }
+  if (!Array.isArray(claimed) || claimed.length !== 3) return `claimed.${quantity} must be an array of three numbers in ${unitWords}`;
+  const out: number[] = [];
+  const prec: number[] = [];
+  for (let i = 0; i < 3; i++) {
+    const r = readClaimedNumber(claimed[i]);
+    if ("error" in r) return `claimed.${quantity}[${i}] ${r.error}; give it in ${unitWords}`;
+    out.push(r.value);
+    prec.push(r.allowance);
+  }
+  return { vector: out as [number, number, number], precision: prec as [number, number, number] };
+}
+
+/**
+ * Compares one claimed value with the computed one under contract version 2's rule.
+ * Returns the check row, or a message when the claimed value cannot be read.
+ */
 export function compareQuantity(quantity: string, claimed: unknown, computed: ComputedValue, tolerance: Tolerance): CheckRow | string {
   const info = quantityInfo(quantity);
   const unit = info?.unit ?? "";
-  const row = (relativeError: number | null, absoluteError: number | null, ok: boolean): CheckRow => ({
+  const finite = (x: number) => (Number.isFinite(x) ? x : null);
+  if (typeof computed === "string" || typeof computed === "boolean") {
+    if (typeof claimed !== typeof computed) return `claimed.${quantity} must be a ${typeof computed === "string" ? "text" : "true/false value"}`;
+    return { quantity, claimed, computed, unit, relativeError: null, absoluteError: null, ok: claimed === computed, allowance: null, basis: "exact" };
+  }
+  const read = readClaimed(quantity, claimed, computed, unit);
+  if (typeof read === "string") return read;
+  if ("scalar" in read) {
+    const c = computed as number;
+    const diff = scalarError(read.scalar, c, unit);
+    const rel = c === 0 ? (diff === 0 ? 0 : Infinity) : diff / Math.abs(c);
+    const b = boundFor(c, unit, read.precision, tolerance);
+    return {
+      quantity,
+      claimed,
+      computed,
+      unit,
+      relativeError: finite(rel),
+      absoluteError: finite(diff),
+      ok: diff <= b.allowance,
+      allowance: b.allowance,
+      basis: b.basis,
+      precision: read.precision,
+    };
+  }
+  // Vectors: the error is the length of the difference; each component's written digits
+  // earn their own allowance, and the vector's is the length of those allowances.
+  const v = computed as [number, number, number];
+  const c = read.vector;
+  const diff = Math.hypot(c[0] - v[0], c[1] - v[1], c[2] - v[2]);
+  const len = Math.hypot(v[0], v[1], v[2]);
+  const rel = len === 0 ? (diff === 0 ? 0 : Infinity) : diff / len;
+  const b = boundFor(len, unit, Math.hypot(...read.precision), tolerance);
+  return {
     quantity,
     claimed,
     computed,
     unit,
-    relativeError: relativeError !== null && Number.isFinite(relativeError) ? relativeError : null,
-    absoluteError: absoluteError !== null && Number.isFinite(absoluteError) ? absoluteError : null,
-    ok,
-  });
-  const absTol = tolerance.absolute[unit] ?? 0;
-  const within = (abs: number, rel: number) => abs <= absTol || rel <= tolerance.relative;
-  if (typeof computed === "number") {
-    if (typeof claimed !== "number" || !Number.isFinite(claimed))
-      return `claimed.${quantity} must be a finite number in ${unit || "(dimensionless)"} (got ${JSON.stringify(claimed) ?? typeof claimed})`;
-    const diff = info?.periodicAngle ? Math.abs(wrapDeg180(claimed - computed)) : Math.abs(claimed - computed);
-    const rel = computed === 0 ? (diff === 0 ? 0 : Infinity) : diff / Math.abs(computed);
-    return row(rel, diff, within(diff, rel));
-  }
-  if (typeof computed === "string" || typeof computed === "boolean") {
-    if (typeof claimed !== typeof computed) return `claimed.${quantity} must be a ${typeof computed === "string" ? "text" : "true/false value"}`;
-    return row(null, null, claimed === computed);
-  }
-  // Vectors: error is the length of the difference, relative to the computed vector's length.
-  if (!Array.isArray(claimed) || claimed.length !== 3 || !claimed.every((c) => typeof c === "number" && Number.isFinite(c)))
-    return `claimed.${quantity} must be an array of three finite numbers in ${unit}`;
-  const c = claimed as number[];
-  const diff = Math.hypot(c[0]! - computed[0], c[1]! - computed[1], c[2]! - computed[2]);
-  const len = Math.hypot(computed[0], computed[1], computed[2]);
-  const rel = len === 0 ? (diff === 0 ? 0 : Infinity) : diff / len;
-  return row(rel, diff, within(diff, rel));
+    relativeError: finite(rel),
+    absoluteError: finite(diff),
+    ok: diff <= b.allowance,
+    allowance: b.allowance,
+    basis: b.basis,
+    precision: read.precision,
+  };
 }
 
 function invalid(id: string, kind: string, messages: string[], computed: Record<string, ComputedValue> = {}, checks: CheckRow[] = []): ClaimResult {
@@ -108,10 +139,9 @@ export function evaluateClaim(claim: unknown, tolerance: Tolerance = DEFAULT_TOL
     const claimed = (c.claimed ?? {}) as Record<string, unknown>;
     let tol = tolerance;
     if (c.tolerance !== undefined) {
-      const t = toleranceSchema.safeParse(c.tolerance);
-      if (!t.success)
-        return invalid(id, kind, [`tolerance is malformed: ${t.error.issues.map((i) => `${i.path.join(".") || "tolerance"}: ${i.message}`).join("; ")}`]);
-      tol = mergeTolerance(tolerance, t.data);
+      const t = parseTolerancePolicy(c.tolerance, tolerance, "tolerance");
+      if (!t.ok) return invalid(id, kind, [`the claim's tolerance is refused: ${t.message}`]);
+      tol = t.tolerance;
     }
     const allowed = allowedGiven(kind);
     const unknownGiven = Object.keys(given).filter((k) => !allowed.includes(k));
@@ -122,6 +152,8 @@ export function evaluateClaim(claim: unknown, tolerance: Tolerance = DEFAULT_TOL
     if (c.body === undefined && usesBody(kind)) messages.push(`no body given: ${defaultBodyOf(kind)} constants are used`);
     const body = resolveBody(c.body, defaultBodyOf(kind));
     const ev: Evaluation = def.evaluate(new Inputs(given, kind), body);
+    const bodyName = tableBodyName(c.body, defaultBodyOf(kind));
+    const overridden = new Set(typeof c.body === "object" && c.body !== null ? Object.keys(c.body) : []);
     messages.push(...ev.messages);
     const computed: Record<string, ComputedValue> = {};
     for (const [k, v] of Object.entries(ev.values)) {
@@ -136,6 +168,8 @@ export function evaluateClaim(claim: unknown, tolerance: Tolerance = DEFAULT_TOL
     for (const q of names) {
       const value = claimed[q];
       if (value === undefined || value === null) continue;
+      if (OLD_NAMES[q] !== undefined && def.computed.includes(q))
+        messages.push(`${q} is the contract version 1 name of ${OLD_NAMES[q]}; it is accepted for one more version, so rename it`);
       if (!def.computed.includes(q)) {
         problems.push(`${kind} cannot derive "${q}"; valid names: ${def.computed.join(", ")}`);
         continue;
@@ -147,7 +181,32 @@ export function evaluateClaim(claim: unknown, tolerance: Tolerance = DEFAULT_TOL
       }
       const r = compareQuantity(q, value, comp, tol);
       if (typeof r === "string") problems.push(r);
-      else checks.push(r);
+      else {
+        if (!r.ok && typeof comp !== "string" && typeof comp !== "boolean") {
+          const hint = findHint({
+            quantity: q,
+            unit: r.unit,
+            claimed: Array.isArray(value) ? value.map((x) => Number(x)) : Number(value),
+            precision: Array.isArray(r.precision) ? Math.hypot(...r.precision) : (r.precision ?? 0),
+            computed: comp,
+            tolerance: tol,
+            computedAll: computed,
+            kind,
+            body,
+            bodyName,
+            overridden,
+            recompute: (b: Body, g0?: number) => {
+              try {
+                return def.evaluate(new Inputs(given, kind), b, g0 === undefined ? undefined : { g0 }).values;
+              } catch {
+                return undefined;
+              }
+            },
+          });
+          if (hint) r.hint = hint;
+        }
+        checks.push(r);
+      }
     }
     if (names.length === 0) messages.push("nothing claimed: the computed values are shown for reference");
     let status: ClaimStatus = "consistent";
@@ -159,21 +218,49 @@ export function evaluateClaim(claim: unknown, tolerance: Tolerance = DEFAULT_TOL
   }
 }
 
+/** The table body a claim's `body` names (directly or as an override's `name`), if any. */
+function tableBodyName(input: unknown, fallback: BodyName): BodyName | undefined {
+  if (input === undefined || input === null) return fallback;
+  const name = typeof input === "string" ? input : typeof input === "object" && !Array.isArray(input) ? (input as Record<string, unknown>).name : undefined;
+  if (typeof name !== "string") return undefined;
+  const key = name.trim().toLowerCase();
+  return isBodyName(key) ? key : undefined;
+}
+
+/** Evaluates one claim under a tolerance policy (`{ relative?, absolute? }` over the defaults). Never throws. */
+export function evaluateClaimWithPolicy(claim: unknown, policy?: unknown, index = 0): ClaimResult {
+  const t = parseTolerancePolicy(policy, DEFAULT_TOLERANCE, "tolerance");
+  if (!t.ok) {
+    const c = typeof claim === "object" && claim !== null ? (claim as Record<string, unknown>) : {};
+    return invalid(typeof c.id === "string" ? c.id : `claim-${index + 1}`, typeof c.kind === "string" ? c.kind : "unknown", [
+      `the tolerance policy is refused: ${t.message}`,
+    ]);
+  }
+  return evaluateClaim(claim, t.tolerance, index);
+}
+
 /** Checks a whole request (any JSON value). Never throws. */
 export function checkOrbitClaims(request: unknown): OrbitCheckResponse {
   try {
     const env = requestEnvelopeSchema.safeParse(request);
     if (!env.success) {
+      const details = env.error.issues.map((i) => ({ path: i.path.map(String).join("."), message: i.message }));
+      const tolIssues = details.filter((d) => d.path === "tolerance" || d.path.startsWith("tolerance."));
       return {
-        error: 'the request must be an object { "tolerance"?: {...}, "claims": [...] }',
-        details: env.error.issues.map((i) => ({ path: i.path.map(String).join("."), message: i.message })),
+        contractVersion: CONTRACT_VERSION,
+        notice: NOTICE,
+        error:
+          tolIssues.length > 0
+            ? `the tolerance is refused: ${tolIssues.map((d) => `${d.path}: ${d.message}`).join("; ")}`
+            : 'the request must be an object { "tolerance"?: {...}, "claims": [...] }',
+        details,
         results: [],
       };
     }
     const tolerance = mergeTolerance(DEFAULT_TOLERANCE, env.data.tolerance);
-    return { results: env.data.claims.map((c, i) => evaluateClaim(c, tolerance, i)) };
+    return { contractVersion: CONTRACT_VERSION, notice: NOTICE, results: env.data.claims.map((c, i) => evaluateClaim(c, tolerance, i)) };
   } catch {
-    return { error: "the engine could not read this request (internal error)", results: [] };
+    return { contractVersion: CONTRACT_VERSION, notice: NOTICE, error: "the engine could not read this request (internal error)", results: [] };
   }
 }
 

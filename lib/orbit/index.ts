@@ -12,14 +12,19 @@
  * Results are two-body screening estimates, not a substitute for high-fidelity analysis.
  */
 import { resolveBody } from "./bodies";
-import { DEFAULT_TOLERANCE, evaluateClaim as evaluateOne, exitCodeFor, mergeTolerance, type Tolerance } from "./check";
+import { evaluateClaimWithPolicy, exitCodeFor, NOTICE, type Tolerance } from "./check";
 import { OrbitInputError } from "./errors";
 import { defaultBodyOf, Inputs, kindDef, type PlotConic } from "./kinds";
 import type { ClaimResult, OrbitCheckResponse, ToleranceInput } from "./schema";
-import { toleranceSchema } from "./schema";
 
-export { checkOrbitClaims, exitCodeFor, DEFAULT_TOLERANCE, compareQuantity } from "./check";
+export { checkOrbitClaims, exitCodeFor, DEFAULT_TOLERANCE, compareQuantity, evaluateClaimWithPolicy, CONTRACT_VERSION, NOTICE } from "./check";
 export type { Tolerance } from "./check";
+export { parseTolerancePolicy, toleranceSummary, mergeTolerance, boundFor, ANGLE_UNIT } from "./tolerance";
+export type { ToleranceIssue, Bound } from "./tolerance";
+export { parseDecimal, parsePlainDecimal, precisionAllowance, readClaimedNumber, shortestDecimal } from "./decimal";
+export type { ParsedDecimal, DecimalError } from "./decimal";
+export { findHint, hintSentence, OTHER_CONSTANTS, UNIT_SCALE_FACTORS, SIDEREAL_DAY_S, SOLAR_DAY_S } from "./hints";
+export type { OtherConstant } from "./hints";
 export { ORBIT_CHECK_KINDS, KIND_NAMES } from "./kinds";
 export type { KindInfo, GivenInfo, ComputedInfo, PlotConic } from "./kinds";
 export { QUANTITIES, DEFAULT_ABSOLUTE_TOLERANCE, DEFAULT_RELATIVE_TOLERANCE, quantityInfo } from "./quantities";
@@ -35,22 +40,37 @@ export {
   toleranceSchema,
   requestEnvelopeSchema,
   orbitCheckJsonSchemas,
+  HINT_CODES,
+  hintSchema,
+  hintCodeSchema,
+  basisSchema,
+  checkRowSchema,
 } from "./schema";
-export type { OrbitCheckRequest, OrbitCheckResponse, ClaimInput, ClaimResult, ClaimStatus, CheckRow, ComputedValue } from "./schema";
+export type {
+  OrbitCheckRequest,
+  OrbitCheckResponse,
+  ClaimInput,
+  ClaimResult,
+  ClaimStatus,
+  CheckRow,
+  ComputedValue,
+  Hint,
+  HintCode,
+  Basis,
+  ToleranceInput,
+} from "./schema";
 
-/** Screening caution to show wherever results are displayed. */
-export const SCREENING_CAUTION =
-  "Two-body screening estimates: not a substitute for high-fidelity analysis. Debris and licensing rules are those of the operator's own authority.";
+/** Screening caution to show wherever results are displayed (the contract's `notice`). */
+export const SCREENING_CAUTION = NOTICE;
 
 /**
- * Evaluates one claim. `tolerance` may be a full Tolerance or the contract's partial
- * `{ relative?, absolute? }`; defaults fill the rest. Never throws.
+ * Evaluates one claim under a tolerance policy. `tolerance` may be a full Tolerance or the
+ * contract's partial `{ relative?, absolute? }`; defaults fill the rest. A refused policy
+ * (negative or non-finite bounds, relative ≥ 0.5) makes the claim invalid with a message
+ * naming the field. Never throws.
  */
 export function evaluateClaim(claim: unknown, tolerance?: Tolerance | ToleranceInput): ClaimResult {
-  let tol = DEFAULT_TOLERANCE;
-  const parsed = toleranceSchema.safeParse(tolerance ?? {});
-  if (parsed.success) tol = mergeTolerance(DEFAULT_TOLERANCE, parsed.data);
-  return evaluateOne(claim, tol, 0);
+  return evaluateClaimWithPolicy(claim, tolerance, 0);
 }
 
 export interface ConicPlot {

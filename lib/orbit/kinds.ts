@@ -4,7 +4,7 @@
  * quantity it can derive, plus reasons for the ones that do not exist for this case
  * (e.g. a period asked of a hyperbola).
  */
-import { MEAN_SUN_RATE_DEG_PER_DAY, SECONDS_PER_DAY, type Body, type BodyName } from "./constants";
+import { SECONDS_PER_DAY, STANDARD_GRAVITY_KM_S2, type Body, type BodyName } from "./constants";
 import { resolveBody } from "./bodies";
 import {
   angularMomentum,
@@ -261,10 +261,13 @@ function conicValues(c: Conic, body: Body, theta?: number): Pick<Evaluation, "va
     values.period = periodOf(mu, c.a);
     // Mean motion n = √(μ/a³).
     values.meanMotion = Math.sqrt(mu / c.a ** 3) * RAD;
+    // Revolutions per day = 86 400 s / period (SI day, as in TLE mean motion).
+    values.meanMotionRevPerDay = SECONDS_PER_DAY / (values.period as number);
     values.apoapsisSpeed = visViva(mu, ra, c.a);
     unavailable.hyperbolicExcessSpeed = `a hyperbolic excess speed exists only for open orbits (e ≥ 1); ${tag}`;
   } else {
-    for (const q of ["semiMinorAxis", "apoapsisRadius", "apoapsisAltitude", "period", "apoapsisSpeed"]) unavailable[q] = `${q} ${BOUND_ONLY}; ${tag}`;
+    for (const q of ["semiMinorAxis", "apoapsisRadius", "apoapsisAltitude", "period", "apoapsisSpeed", "meanMotionRevPerDay"])
+      unavailable[q] = `${q} ${BOUND_ONLY}; ${tag}`;
     // v∞ = √(2ε) (energy integral at infinity).
     values.hyperbolicExcessSpeed = Math.sqrt(Math.max(0, 2 * specificEnergy(mu, c.a)));
     // Hyperbolic mean motion √(μ/|a|³) (hyperbolic Kepler's equation).
@@ -345,7 +348,13 @@ interface KindDef {
   defaultBody?: BodyName;
   /** False for kinds whose result does not depend on the body's constants. */
   usesBody?: false;
-  evaluate(g: Inputs, body: Body): Evaluation;
+  evaluate(g: Inputs, body: Body, options?: EvaluateOptions): Evaluation;
+}
+
+/** Knobs the hint search turns to recompute a kind with another commonly used constant. */
+export interface EvaluateOptions {
+  /** Standard gravity used by the rocket equation, km/s² (default 9.80665e-3). */
+  g0?: number;
 }
 
 const result = (values: Record<string, ComputedValue>, body: Body, extra: Partial<Omit<Evaluation, "values">> = {}): Evaluation => ({
@@ -369,6 +378,7 @@ const ORBIT_COMPUTED = [
   "apoapsisAltitude",
   "period",
   "meanMotion",
+  "meanMotionRevPerDay",
   "specificEnergy",
   "specificAngularMomentum",
   "periapsisSpeed",
@@ -698,8 +708,9 @@ const KIND_DEFS: Record<string, KindDef> = {
       ["propellantMass", "choice"],
     ],
     computed: ["deltaV", "initialMass", "finalMass", "propellantMass", "massRatio"],
-    evaluate(g, body) {
+    evaluate(g, body, options) {
       const r = solveRocket({
+        g0: options?.g0,
         specificImpulse: g.num("specificImpulse", "positive"),
         initialMass: g.optNum("initialMass"),
         finalMass: g.optNum("finalMass"),
@@ -722,7 +733,7 @@ const KIND_DEFS: Record<string, KindDef> = {
       ["requiredMargin", "optional"],
     ],
     computed: ["deltaVRequired", "deltaVAvailable", "margin", "marginOk"],
-    evaluate(g, body) {
+    evaluate(g, body, options) {
       const raw = g.value("maneuvers");
       if (!Array.isArray(raw)) fail('given.maneuvers must be an array such as [{ "name": "orbit raising", "deltaV": 0.12 }]');
       if (raw.length > 500) fail("given.maneuvers has more than 500 entries");
@@ -734,7 +745,14 @@ const KIND_DEFS: Record<string, KindDef> = {
         return { name, deltaV: o.deltaV };
       });
       const req = g.optNum("requiredMargin") ?? 0;
-      const b = deltaVBudget(list, g.num("specificImpulse", "positive"), g.num("initialMass", "positive"), g.num("finalMass", "positive"), req);
+      const b = deltaVBudget(
+        list,
+        g.num("specificImpulse", "positive"),
+        g.num("initialMass", "positive"),
+        g.num("finalMass", "positive"),
+        req,
+        options?.g0 ?? STANDARD_GRAVITY_KM_S2,
+      );
       return result({ ...b }, body);
     },
   },
@@ -836,7 +854,7 @@ const KIND_DEFS: Record<string, KindDef> = {
       const { conic: c, messages } = readShape(g, body, true);
       const i = angleBetweenZeroAnd(g, "inclination", 180);
       if (!(c.e < 1) || classify(c.e) === "parabolic") fail(`J2 secular rates are computed for closed orbits only (e = ${fmt(c.e)})`);
-      const rates = j2SecularRates(body.mu, body.radius, body.j2, c.a, c.e, i);
+      const rates = j2SecularRates(body.mu, body.j2ReferenceRadius, body.j2, c.a, c.e, i);
       const k = RAD * SECONDS_PER_DAY;
       return result({ raanRate: rates.raanRate * k, argPeriapsisRate: rates.argPeriapsisRate * k, period: periodOf(body.mu, c.a) }, body, {
         messages,
@@ -853,9 +871,18 @@ const KIND_DEFS: Record<string, KindDef> = {
     evaluate(g, body) {
       const { conic: c, messages } = readShape(g, body, true);
       if (!(c.e < 1) || classify(c.e) === "parabolic") fail(`a sun-synchronous orbit must be closed (e = ${fmt(c.e)})`);
-      const rate = (MEAN_SUN_RATE_DEG_PER_DAY * DEG) / SECONDS_PER_DAY;
-      const i = inclinationForNodalRate(body.mu, body.radius, body.j2, c.a, c.e, rate);
-      return result({ inclination: i * RAD, raanRate: MEAN_SUN_RATE_DEG_PER_DAY, period: periodOf(body.mu, c.a) }, body, {
+      if (body.year === undefined)
+        fail(
+          `${body.name} has no orbital period about the sun in the constants table, so no sun-synchronous rate exists for it; ` +
+            'give the body as an object with year (days), e.g. { "name": "' +
+            body.name +
+            '", "year": 365.25 }',
+        );
+      // The mean sun's rate seen from the body: 360° per the body's own (tropical) year.
+      const sunRateDegPerDay = 360 / body.year;
+      const rate = (sunRateDegPerDay * DEG) / SECONDS_PER_DAY;
+      const i = inclinationForNodalRate(body.mu, body.j2ReferenceRadius, body.j2, c.a, c.e, rate);
+      return result({ inclination: i * RAD, raanRate: sunRateDegPerDay, period: periodOf(body.mu, c.a) }, body, {
         messages,
         conics: [plotOf("orbit", c)],
       });
@@ -938,7 +965,7 @@ const KIND_DEFS: Record<string, KindDef> = {
       ["altitude", "required"],
       ["minimumElevation", "required"],
     ],
-    computed: ["maxPassDuration", "earthCentralAngle", "maxSlantRange", "period"],
+    computed: ["maxPassDuration", "centralAngle", "earthCentralAngle", "maxSlantRange", "period"],
     evaluate(g, body) {
       const r = circularRadius(g, body, "altitude");
       const eps = g.num("minimumElevation");
@@ -948,6 +975,8 @@ const KIND_DEFS: Record<string, KindDef> = {
       return result(
         {
           maxPassDuration: maxPassDuration(T, geo.earthCentralAngle),
+          centralAngle: geo.earthCentralAngle * RAD,
+          // The version 1 name, kept as an alias for one contract version.
           earthCentralAngle: geo.earthCentralAngle * RAD,
           maxSlantRange: geo.maxSlantRange,
           period: T,

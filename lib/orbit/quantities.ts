@@ -31,6 +31,7 @@ export const QUANTITIES = {
   eccentricity: n(DIMENSIONLESS, "eccentricity"),
   period: n("s", "orbital period of a closed orbit"),
   meanMotion: n("deg/s", "mean motion √(μ/|a|³)"),
+  meanMotionRevPerDay: n("rev/day", "mean motion in revolutions per day (86 400 s / period)"),
   specificEnergy: n("km²/s²", "specific orbital energy v²/2 − μ/r"),
   specificAngularMomentum: n("km²/s", "magnitude of the specific angular momentum r × v"),
   periapsisSpeed: n("km/s", "speed at periapsis"),
@@ -112,7 +113,8 @@ export const QUANTITIES = {
   sunlitFraction: n(DIMENSIONLESS, "fraction of the orbit in sunlight"),
   minimumElevation: n("deg", "minimum elevation angle at the ground station"),
   maxPassDuration: n("s", "duration of an overhead pass"),
-  earthCentralAngle: n("deg", "central angle from the sub-satellite point to the edge of coverage"),
+  centralAngle: n("deg", "central angle at the body's centre from the sub-satellite point to the edge of coverage"),
+  earthCentralAngle: n("deg", "old name of centralAngle (contract version 1), accepted and emitted for one more version"),
   maxSlantRange: n("km", "slant range at the minimum elevation"),
 } satisfies Record<string, QuantityInfo>;
 
@@ -122,15 +124,16 @@ export function quantityInfo(name: string): QuantityInfo | undefined {
   return Object.prototype.hasOwnProperty.call(QUANTITIES, name) ? (QUANTITIES as Record<string, QuantityInfo>)[name] : undefined;
 }
 
-/** Default absolute tolerances per unit (contract defaults, plus 1e-4 for dimensionless values). */
+/** Default absolute tolerances per unit (contract version 2 defaults, plus 1e-4 for dimensionless values). */
 export const DEFAULT_ABSOLUTE_TOLERANCE: Readonly<Record<string, number>> = {
   km: 1,
   "km/s": 0.001,
-  deg: 0.01,
+  deg: 0.05,
   s: 1,
   kg: 0.1,
   "deg/day": 0.001,
   [DIMENSIONLESS]: 1e-4,
 };
 
-export const DEFAULT_RELATIVE_TOLERANCE = 0.01;
+/** Contract version 2: 0.1 %. */
+export const DEFAULT_RELATIVE_TOLERANCE = 0.001;

@@ -10,6 +10,8 @@ export interface RocketInput {
   finalMass?: number;
   deltaV?: number;
   propellantMass?: number;
+  /** Standard gravity, km/s²; the CGPM value unless a hint recomputes with another one. */
+  g0?: number;
 }
 
 export interface RocketResult {
@@ -21,15 +23,15 @@ export interface RocketResult {
 }
 
 /** Effective exhaust velocity ve = Isp·g0 (km/s), g0 as defined by the CGPM. */
-export function exhaustVelocity(isp: number): number {
+export function exhaustVelocity(isp: number, g0 = STANDARD_GRAVITY_KM_S2): number {
   // ve = Isp g0.
-  return isp * STANDARD_GRAVITY_KM_S2;
+  return isp * g0;
 }
 
 /** Tsiolkovsky rocket equation Δv = Isp·g0·ln(m0/mf). */
-export function rocketDeltaV(isp: number, m0: number, mf: number): number {
+export function rocketDeltaV(isp: number, m0: number, mf: number, g0 = STANDARD_GRAVITY_KM_S2): number {
   // Tsiolkovsky rocket equation.
-  return exhaustVelocity(isp) * Math.log(m0 / mf);
+  return exhaustVelocity(isp, g0) * Math.log(m0 / mf);
 }
 
 /** Solves the rocket equation from the specific impulse and exactly two of the other four. */
@@ -45,7 +47,7 @@ export function solveRocket(input: RocketInput): RocketResult {
   }
   if (dv !== undefined && !(dv >= 0)) fail(`deltaV must be zero or positive (got ${fmt(dv)} km/s)`);
   if (mp !== undefined && !(mp >= 0)) fail(`propellantMass must be zero or positive (got ${fmt(mp)} kg)`);
-  const ve = exhaustVelocity(isp);
+  const ve = exhaustVelocity(isp, input.g0);
   let initial: number;
   let final: number;
   if (m0 !== undefined && mf !== undefined) {
@@ -91,7 +93,14 @@ export interface BudgetResult {
 }
 
 /** A Δv budget: sum of the maneuvers against the rocket-equation capability of the vehicle. */
-export function deltaVBudget(maneuvers: readonly { name: string; deltaV: number }[], isp: number, m0: number, mf: number, requiredMargin = 0): BudgetResult {
+export function deltaVBudget(
+  maneuvers: readonly { name: string; deltaV: number }[],
+  isp: number,
+  m0: number,
+  mf: number,
+  requiredMargin = 0,
+  g0 = STANDARD_GRAVITY_KM_S2,
+): BudgetResult {
   if (maneuvers.length === 0) fail("maneuvers is empty: list each maneuver as { name, deltaV } in km/s");
   if (!(isp > 0)) fail(`specificImpulse must be positive (got ${fmt(isp)} s)`);
   if (!(m0 > 0) || !(mf > 0)) fail("initialMass and finalMass must be positive");
@@ -102,7 +111,7 @@ export function deltaVBudget(maneuvers: readonly { name: string; deltaV: number 
     required += m.deltaV;
   }
   if (!(required > 0)) fail("the maneuvers add up to zero Δv: a margin is undefined");
-  const available = rocketDeltaV(isp, m0, mf);
+  const available = rocketDeltaV(isp, m0, mf, g0);
   // Margin as a fraction of the requirement (available − required)/required.
   const margin = (available - required) / required;
   return { deltaVRequired: required, deltaVAvailable: available, margin, marginOk: margin >= requiredMargin };

@@ -1,6 +1,6 @@
 /** Shared helpers for the engine's tests (not part of the public API). */
 import { expect } from "vitest";
-import { evaluateClaim } from "../index";
+import { evaluateClaim, quantityInfo } from "../index";
 import type { ClaimResult } from "../schema";
 
 /** Absolute tolerances switched off, so only the stated relative tolerance applies. */
@@ -12,7 +12,17 @@ export const NO_ABSOLUTE = { km: 0, "km/s": 0, deg: 0, s: 0, kg: 0, "deg/day": 0
  * within the optional absolute bounds).
  */
 export function expectBook(claim: Record<string, unknown>, relative: number, absolute: Record<string, number> = {}): ClaimResult {
-  const r = evaluateClaim({ ...claim, tolerance: { relative, absolute: { ...NO_ABSOLUTE, ...absolute } } });
+  // Contract version 2 bounds angles (deg) absolutely only. A book prints an angle to a number
+  // of significant digits, so its relative precision becomes the absolute bound of its
+  // smallest printed angle (never looser than the relative rule was for each angle).
+  let deg = absolute.deg;
+  if (deg === undefined) {
+    const angles = Object.entries((claim.claimed as Record<string, unknown>) ?? {})
+      .filter(([q, v]) => quantityInfo(q)?.unit === "deg" && typeof v === "number" && v !== 0)
+      .map(([, v]) => relative * Math.abs(v as number));
+    if (angles.length > 0) deg = Math.min(...angles);
+  }
+  const r = evaluateClaim({ ...claim, tolerance: { relative, absolute: { ...NO_ABSOLUTE, ...absolute, ...(deg === undefined ? {} : { deg }) } } });
   const claimed = Object.keys((claim.claimed as Record<string, unknown>) ?? {});
   expect(
     r.messages.filter((m) => m.includes("cannot derive") || m.includes("must be")),

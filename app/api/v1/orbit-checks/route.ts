@@ -8,7 +8,7 @@
 import { NextResponse } from "next/server";
 import { takeRateLimit } from "@/lib/dal/rate-limits";
 import { createRateLimiter, clientKey } from "@/lib/http/rate-limit";
-import { checkOrbitClaims } from "@/lib/orbit";
+import { checkOrbitClaims, CONTRACT_VERSION, NOTICE } from "@/lib/orbit";
 
 export const runtime = "nodejs";
 
@@ -29,8 +29,9 @@ async function takeToken(client: string): Promise<{ ok: boolean; remaining: numb
   }
 }
 
-const answer = (body: unknown, status: number, headers: Record<string, string> = {}) =>
-  NextResponse.json(body, { status, headers: { "cache-control": "no-store", ...headers } });
+/** Every answer carries the contract's notice (contract version 2), errors included. */
+const answer = (body: Record<string, unknown>, status: number, headers: Record<string, string> = {}) =>
+  NextResponse.json({ contractVersion: CONTRACT_VERSION, ...body, notice: NOTICE }, { status, headers: { "cache-control": "no-store", ...headers } });
 
 const tooLarge = () => answer({ error: `The request body is larger than ${MAX_BODY_BYTES / 1024} KB; split the claims over several requests.` }, 413);
 
