@@ -3,12 +3,12 @@
  * orbit" feeding a transfer), evaluation with the engine, the Δv budget and the submission
  * readiness rules. Pure: runs in the editor (live) and on the server (at submission).
  */
-import { evaluateClaim, quantityInfo, type ClaimResult } from "@/lib/orbit";
+import { CONTRACT_VERSION, evaluateClaim, quantityInfo, type ClaimResult } from "@/lib/orbit";
 import { kindLabel, quantityName } from "@/lib/orbit/labels";
 import { convertWritten } from "./units";
 
 /** The orbit-check contract version whose rules the engine applies (docs/contracts/orbit-checks.md). */
-export const ORBIT_CHECK_CONTRACT_VERSION = 2;
+export const ORBIT_CHECK_CONTRACT_VERSION = CONTRACT_VERSION;
 
 /** The tolerance policy of a call (contract units). */
 export interface ToleranceInput {
@@ -97,27 +97,10 @@ function circularOrbitOf(block: OrbitCheckBlock, tolerance?: ToleranceInput): { 
   return { radius: r, altitude: alt };
 }
 
-/**
- * Engines before contract version 2 read claimed numbers only; blocks send the decimal
- * strings people wrote. Until the engine takes them, plain decimals go as numbers.
- */
-const WRITTEN_CLAIMS =
-  evaluateClaim({ id: "probe", kind: "orbit", body: "earth", given: { altitude: 500 }, claimed: { eccentricity: "0" } }).status !== "invalid";
-
-function numericClaimed(claimed: Record<string, unknown>): Record<string, unknown> {
-  const out: Record<string, unknown> = {};
-  for (const [k, v] of Object.entries(claimed)) {
-    const n = typeof v === "string" && /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(v.trim()) ? Number(v) : NaN;
-    out[k] = Number.isFinite(n) ? n : v;
-  }
-  return out;
-}
-
 /** The claim the engine checks for a block, with its reference (initialFrom) filled in. */
 export function resolveClaim(block: OrbitCheckBlock, blocks: readonly OrbitCheckBlock[], tolerance?: ToleranceInput): ResolvedClaim {
   const notes: string[] = [];
   const claim: DossierClaim & { id: string } = { ...block.claim, given: { ...block.claim.given }, id: block.blockId };
-  if (!WRITTEN_CLAIMS && claim.claimed) claim.claimed = numericClaimed(claim.claimed);
   const rule = REFERENCING_KINDS[claim.kind];
   if (block.initialFrom && rule) {
     const ref = blocks.find((b) => b.blockId === block.initialFrom);

@@ -4,7 +4,7 @@
  * likely slip. Pure; takes stored rows of any contract version (version 1 rows lack
  * allowance, basis and hint).
  */
-import { checkOrbitClaims, SCREENING_CAUTION } from "@/lib/orbit";
+import { NOTICE } from "@/lib/orbit";
 import { basisText, displayUnit, hintSentence, quantityName } from "@/lib/orbit/labels";
 
 export interface ExplainedRow {
@@ -72,6 +72,5 @@ export function failingSentences(result: unknown): string[] {
  * letters, e-mails and exports carry the same words as the API.
  */
 export function orbitCheckNotice(): string {
-  const response = checkOrbitClaims({ claims: [] }) as { notice?: unknown };
-  return typeof response.notice === "string" && response.notice.trim() ? response.notice.trim() : SCREENING_CAUTION;
+  return NOTICE;
 }

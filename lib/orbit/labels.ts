@@ -295,6 +295,7 @@ export function basisText(basis: unknown): string | null {
   if (basis === "relative") return "relative bound";
   if (basis === "absolute") return "absolute bound";
   if (basis === "precision") return "precision as written";
+  if (basis === "exact") return "exact match";
   return null;
 }
 

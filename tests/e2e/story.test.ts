@@ -23,10 +23,10 @@ const pdfParse = createRequire(import.meta.url)("pdf-parse/lib/pdf-parse.js") as
 
 async function fillBlock(block: Locator, name: string, altitude: number, period: number) {
   await block.getByLabel("Name in the text").fill(name);
-  await block.getByLabel("altitude", { exact: true }).fill(String(altitude));
+  await block.getByLabel("Altitude h (km)", { exact: true }).fill(String(altitude));
   await block.getByLabel("Add a claimed value").selectOption("period");
   await block.getByRole("button", { name: "Add claim" }).click();
-  await block.getByRole("textbox", { name: "claimed period", exact: true }).fill(String(period));
+  await block.getByRole("textbox", { name: "Claimed Orbital period T (s)", exact: true }).fill(String(period));
 }
 
 /** Selects `quote` inside the element matching `rootSelector`, as a reader would with the mouse. */
