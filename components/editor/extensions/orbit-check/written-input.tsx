@@ -4,7 +4,7 @@
 // with the written precision scaled alike, and what is wrong said on the field itself.
 import { useId, useState } from "react";
 import { evaluateClaim } from "@/lib/orbit";
-import { bodyLabel, displayUnit, quantityLabel } from "@/lib/orbit/labels";
+import { bodyLabel, displayUnit, quantityLabel, quantityName } from "@/lib/orbit/labels";
 import { convertWritten, formatConverted, unitChoices, type ConvertedValue, type WrittenValue } from "@/lib/dossier/units";
 
 /** The written form of a stored value: blocks saved before units were offered hold numbers. */
@@ -96,7 +96,7 @@ export function WrittenInput({
           />
           {choices.length > 1 ? (
             <select
-              aria-label={`Unit of ${variant === "claimed" ? "claimed " : ""}${quantityLabel(name, "").toLowerCase()}`}
+              aria-label={`Unit of ${variant === "claimed" ? "claimed " : ""}${quantityName(name).toLowerCase()}`}
               value={unit}
               onChange={(e) => {
                 setUnit(e.target.value);

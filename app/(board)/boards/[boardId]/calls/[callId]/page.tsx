@@ -1,6 +1,8 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { CONSISTENT_MEANS, policySummary } from "@/lib/orbit/labels";
+import { listProposals } from "@/lib/dal/proposals";
+import { proposalListQuerySchema } from "@/lib/validation/dossier";
 import { CallForm } from "@/components/dossier/call-form";
 import { PageTitle, Panel } from "@/components/ui/panel";
 import { orNotFound, pageUser } from "@/lib/auth/page-guard";
@@ -21,6 +23,8 @@ export default async function CallPage({ params }: { params: Promise<{ boardId: 
   const isChair = can(user, "call.manage", { role: board.myRole });
   const isProposer = can(user, "proposal.create", { role: board.myRole });
   const abs = Object.entries(call.tolerance.absolute ?? {});
+  const submitted = isChair ? await listProposals(user, boardId, proposalListQuerySchema.parse({ callId, pageSize: 50, sort: "title", dir: "asc" })) : null;
+  if (submitted) submitted.rows = submitted.rows.filter((p) => p.latestVersion > 0);
   return (
     <div className="space-y-6">
       <PageTitle eyebrow={board.name} title={call.title}>
@@ -57,6 +61,23 @@ export default async function CallPage({ params }: { params: Promise<{ boardId: 
           </p>
         ) : null}
       </Panel>
+      {isChair && submitted && submitted.rows.length > 0 ? (
+        <Panel
+          id="submitted-versions"
+          title="Submitted versions and today's rules"
+          description="Each version keeps the verdicts recorded at its submission. Open one to run today's rules on it and see what a policy change would differ on."
+        >
+          <ul className="divide-y divide-ink-100 text-sm">
+            {submitted.rows.map((p) => (
+              <li key={p.id} className="py-1.5">
+                <Link href={`/boards/${boardId}/proposals/${p.id}/versions/${p.latestVersion}`} className="font-semibold text-trajectory-700 hover:underline">
+                  {p.title}: version {p.latestVersion}
+                </Link>
+              </li>
+            ))}
+          </ul>
+        </Panel>
+      ) : null}
       {isChair ? (
         <Panel title="Call settings" description="Changing the tolerance affects submissions from now on; versions already submitted keep their results.">
           <CallForm boardId={boardId} initial={call} afterSave="refresh" />
