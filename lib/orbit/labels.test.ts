@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { hintSentence, kindLabel, policySummary, quantityLabel } from "./labels";
+import { hintSentence, kindLabel, plainQuantities, policySummary, quantityLabel } from "./labels";
 
 describe("plain labels for code names", () => {
   it("labels quantities with symbol and unit, and kinds in words", () => {
@@ -25,5 +25,14 @@ describe("plain labels for code names", () => {
   it("states a tolerance policy", () => {
     expect(policySummary({ relative: 0.001, absolute: { deg: 0.05 } })).toBe("checked at 0.1 %, angles 0.05°");
     expect(policySummary({ relative: 0.0005 })).toBe("checked at 0.05 %, angles 0.05°");
+  });
+});
+
+describe("engine sentences in plain words", () => {
+  it("replaces code names it knows and leaves other words", () => {
+    expect(plainQuantities("two of periapsisAltitude, apoapsisAltitude or period; optional trueAnomaly")).toBe(
+      "two of periapsis altitude, apoapsis altitude or period; optional true anomaly",
+    );
+    expect(plainQuantities("see iPhone")).toBe("see iPhone");
   });
 });

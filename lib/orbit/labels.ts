@@ -306,3 +306,11 @@ export function policySummary(tolerance: { relative?: number; absolute?: Record<
   const pct = Number((relative * 100).toPrecision(6));
   return `checked at ${pct} %, angles ${Number(deg.toPrecision(6))}°`;
 }
+
+/**
+ * A sentence of the engine's that names quantities by code ("two of periapsisAltitude,
+ * apoapsisAltitude…") with the plain names instead ("two of periapsis altitude, …").
+ */
+export function plainQuantities(text: string): string {
+  return text.replace(/\b[a-z][a-z0-9]*[A-Z][A-Za-z0-9]*\b/g, (code) => (Q[code] ? quantityName(code).toLowerCase() : code));
+}

@@ -8,7 +8,7 @@ import type { Editor } from "@tiptap/core";
 import { BODY_NAMES, ORBIT_CHECK_KINDS, SCREENING_CAUTION, conicForPlot, evaluateClaim, type KindInfo } from "@/lib/orbit";
 import { REFERENCEABLE_KINDS, REFERENCING_KINDS, resolveClaim, type OrbitCheckBlock, type ToleranceInput } from "@/lib/dossier/claims";
 import type { DossierClaim, WrittenValues } from "@/lib/dossier/schema";
-import { bodyLabel, kindLabel, quantityLabel } from "@/lib/orbit/labels";
+import { bodyLabel, kindLabel, plainQuantities, quantityLabel } from "@/lib/orbit/labels";
 import type { ConvertedValue, WrittenValue } from "@/lib/dossier/units";
 import { WrittenInput, initialWritten } from "./written-input";
 import { CheckRowDetail, ConsistentMeaning } from "@/components/dossier/check-explain";
@@ -204,10 +204,7 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
     setChoice("");
     // The new row's input takes the focus once it is rendered.
     requestAnimationFrame(() =>
-      document
-        .getElementById(`orbit-check-${blockId}`)
-        ?.querySelector<HTMLInputElement>(`input[data-claimed-input="${name}"], input[data-quantity="${name}"]`)
-        ?.focus(),
+      document.getElementById(`orbit-check-${blockId}`)?.querySelector<HTMLInputElement>(`input[data-claimed-input="${name}"]`)?.focus(),
     );
   };
   const referenced = reference && initialFrom ? new Set(reference.replaces) : new Set<string>();
@@ -271,7 +268,7 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
               );
             }}
           />
-          <p className="pl-46 text-xs text-ink-500">{info.summary}</p>
+          <p className="pl-46 text-xs text-ink-500">{plainQuantities(info.summary)}</p>
           <SelectInput label="Central body" value={bodyName} options={BODY_NAMES} optionLabel={bodyLabel} onChange={(body) => setClaim({ body })} />
           {reference ? (
             <div className="flex items-center gap-2">
@@ -295,7 +292,7 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
           ) : null}
 
           <fieldset className="space-y-1.5 rounded-chip border border-ink-200 p-2">
-            <legend className="px-1 text-xs font-semibold text-ink-800">Given ({info.givenRule})</legend>
+            <legend className="px-1 text-xs font-semibold text-ink-800">Given ({plainQuantities(info.givenRule)})</legend>
             {info.given
               .filter((g) => !referenced.has(g.name))
               .map((g) => {
@@ -338,7 +335,7 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
                   />
                 );
               })}
-            {notes.length > 0 ? <p className="text-xs text-ink-600">{notes.join("; ")}</p> : null}
+            {notes.length > 0 ? <p className="text-xs text-ink-600">{plainQuantities(notes.join("; "))}</p> : null}
           </fieldset>
 
           <fieldset className="rounded-chip border border-ink-200 p-2">
@@ -447,7 +444,7 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
           <div id={verdictId + "-detail"} className="space-y-1 text-xs">
             {result.messages.map((m, i) => (
               <p key={i} className={result.status === "invalid" ? "text-void-700" : "text-ink-600"}>
-                {m}
+                {plainQuantities(m)}
               </p>
             ))}
             <details>

@@ -88,6 +88,7 @@ export function WrittenInput({
             aria-invalid={error ? true : undefined}
             aria-describedby={describedBy}
             data-quantity={name}
+            data-claimed-input={variant === "claimed" ? name : undefined}
             onChange={(e) => {
               setText(e.target.value);
               emit(e.target.value, unit);
