@@ -45,3 +45,28 @@ describe("values as people write them", () => {
     expect(unreadableWritten(block)).toBe('Periapsis altitude "400,5" is not a number; use a point for decimals');
   });
 });
+
+describe("the written attribute of stored blocks", () => {
+  it("keeps text and unit per quantity and drops anything else", async () => {
+    const { validateDossier } = await import("./sanitize");
+    const block = (written: unknown) => ({
+      type: "doc",
+      content: [
+        {
+          type: "orbitCheck",
+          attrs: { blockId: "0b7c3a52-0f7e-4c55-9d0a-1c2b3d4e5f60", label: "", claim: { kind: "orbit", given: { altitude: 500 } }, written },
+        },
+      ],
+    });
+    const kept = validateDossier(block({ given: { altitude: { text: "500000", unit: "m" } }, claimed: { period: { text: "94.8", unit: "min" } } }));
+    expect(kept.ok && kept.doc.content[0]!.attrs!.written).toEqual({
+      given: { altitude: { text: "500000", unit: "m" } },
+      claimed: { period: { text: "94.8", unit: "min" } },
+    });
+    const junk = validateDossier(block({ given: { altitude: { text: 5, unit: "<script>" }, "bad key": { text: "1", unit: "s" } }, other: 1 }));
+    expect(junk.ok && junk.doc.content[0]!.attrs!.written).toBeUndefined();
+    // A block stored before units were offered (plain numbers, no `written`) still loads.
+    const old = validateDossier(block(undefined));
+    expect(old.ok && old.doc.content[0]!.attrs!.claim).toEqual({ kind: "orbit", given: { altitude: 500 } });
+  });
+});
