@@ -86,6 +86,31 @@ describe("orbit-check command line", { timeout: 60_000 }, () => {
     expect(r.json!.error).toMatch(/cannot read the request file/);
   });
 
+  it("prints the contract's notice on standard error and carries it in the JSON (contract version 2)", () => {
+    const r = run([], CONTRACT);
+    expect(r.code).toBe(0);
+    expect(r.stderr).toMatch(/two-body screening estimates, not flight-qualified analysis/i);
+    expect(r.stderr).toMatch(/licensing authority's rules govern/);
+    expect(JSON.parse(r.stdout)).toMatchObject({ contractVersion: 2, notice: expect.stringMatching(/screening estimates/) });
+  });
+
+  it("a claimed period in minutes fails with the unit hint; a bad claimed string is invalid (exit 2)", () => {
+    const minutes = run([], JSON.stringify({ claims: [{ id: "m", kind: "orbit", body: "earth", given: { altitude: 500 }, claimed: { period: "94.6" } }] }));
+    expect(minutes.code).toBe(1);
+    const row = (minutes.json!.results[0]!.checks as { hint?: { code: string; factor: number } }[])[0]!;
+    expect(row.hint).toMatchObject({ code: "unit-scale", factor: 60 });
+    const bad = run([], JSON.stringify({ claims: [{ id: "b", kind: "orbit", body: "earth", given: { altitude: 500 }, claimed: { period: "94.6 min" } }] }));
+    expect(bad.code).toBe(2);
+    expect(bad.json!.results[0]!.messages[0]).toMatch(/^claimed\.period is not a plain decimal/);
+  });
+
+  it("exits 2 with the field named when the tolerance is refused", () => {
+    const r = run([], JSON.stringify({ tolerance: { relative: 0.5 }, claims: [] }));
+    expect(r.code).toBe(2);
+    expect(r.json!.error).toMatch(/tolerance\.relative/);
+    expect(r.stderr).toMatch(/screening estimates/);
+  });
+
   it("works through the npm script as documented", () => {
     const r = spawnSync("npm", ["run", "--silent", "orbit-check"], { cwd: root, input: CONTRACT, encoding: "utf8", timeout: 60_000 });
     expect(r.status).toBe(0);

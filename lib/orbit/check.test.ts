@@ -78,7 +78,15 @@ describe("tolerance", () => {
     expect(r.status).toBe("inconsistent");
     expect(r.checks[0]!.ok).toBe(false);
     // The version 1 default (1 %) remains reachable through the tolerance.
-    expect(evaluateClaim({ kind: "orbit", body: "earth", given: { periapsisAltitude: 500, apoapsisAltitude: 800 }, claimed: { period: 5863.69 * 1.009 }, tolerance: { relative: 0.01 } }).status).toBe("consistent");
+    expect(
+      evaluateClaim({
+        kind: "orbit",
+        body: "earth",
+        given: { periapsisAltitude: 500, apoapsisAltitude: 800 },
+        claimed: { period: 5863.69 * 1.009 },
+        tolerance: { relative: 0.01 },
+      }).status,
+    ).toBe("consistent");
   });
 
   it("passes within the absolute bound of the unit even when the relative error is large", () => {
@@ -172,7 +180,10 @@ describe("invalid claims get a message a proposer can act on", () => {
     expectInvalid({ kind: "orbit", body: "earth", given: { periapsisAltitude: Number.NaN, apoapsisAltitude: 800 } }, /finite number in km/);
     expectInvalid({ kind: "orbit", body: "earth", given: { periapsisAltitude: Infinity, apoapsisAltitude: 800 } }, /finite number/);
     expectInvalid({ kind: "orbit", body: "earth", given: { periapsisAltitude: "500", apoapsisAltitude: 800 } }, /finite number in km \(got the text "500"\)/);
-    expectInvalid({ kind: "orbit", body: "earth", given: { altitude: 500 }, claimed: { period: "95 min" } }, /claimed.period is not a plain decimal number.*remove the unit/);
+    expectInvalid(
+      { kind: "orbit", body: "earth", given: { altitude: 500 }, claimed: { period: "95 min" } },
+      /claimed.period is not a plain decimal number.*remove the unit/,
+    );
     expectInvalid({ kind: "orbit", body: "earth", given: { altitude: 500 }, claimed: { period: true } }, /claimed.period must be a number or a decimal string/);
   });
 

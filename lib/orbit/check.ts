@@ -114,7 +114,7 @@ function errorMessage(e: unknown): string {
 }
 
 /** Evaluates one claim (any JSON value) under a tolerance. Never throws. */
-export function evaluateClaim(claim: unknown, tolerance: Tolerance = DEFAULT_TOLERANCE, index = 0): ClaimResult {
+export function evaluateClaim(claim: unknown, tolerance: Tolerance = DEFAULT_TOLERANCE, index = 0, options: { hints?: boolean } = {}): ClaimResult {
   let id = `claim-${index + 1}`;
   let kind = "unknown";
   try {
@@ -154,6 +154,22 @@ export function evaluateClaim(claim: unknown, tolerance: Tolerance = DEFAULT_TOL
     const ev: Evaluation = def.evaluate(new Inputs(given, kind), body);
     const bodyName = tableBodyName(c.body, defaultBodyOf(kind));
     const overridden = new Set(typeof c.body === "object" && c.body !== null ? Object.keys(c.body) : []);
+    const bodyUsed = usesBody(kind) ? body : undefined;
+    // Recomputations for the hint search, shared by the claim's failing rows.
+    const recomputed = new Map<string, Record<string, ComputedValue> | undefined>();
+    const recompute = (b: Body = body, g0?: number) => {
+      const key = `${b.name}|${b.mu}|${b.radius}|${b.j2ReferenceRadius}|${b.year}|${g0}`;
+      if (!recomputed.has(key)) {
+        let values: Record<string, ComputedValue> | undefined;
+        try {
+          values = def.evaluate(new Inputs(given, kind), b, g0 === undefined ? undefined : { g0 }).values;
+        } catch {
+          values = undefined;
+        }
+        recomputed.set(key, values);
+      }
+      return recomputed.get(key);
+    };
     messages.push(...ev.messages);
     const computed: Record<string, ComputedValue> = {};
     for (const [k, v] of Object.entries(ev.values)) {
@@ -182,7 +198,7 @@ export function evaluateClaim(claim: unknown, tolerance: Tolerance = DEFAULT_TOL
       const r = compareQuantity(q, value, comp, tol);
       if (typeof r === "string") problems.push(r);
       else {
-        if (!r.ok && typeof comp !== "string" && typeof comp !== "boolean") {
+        if (!r.ok && options.hints !== false && typeof comp !== "string" && typeof comp !== "boolean") {
           const hint = findHint({
             quantity: q,
             unit: r.unit,
@@ -192,16 +208,10 @@ export function evaluateClaim(claim: unknown, tolerance: Tolerance = DEFAULT_TOL
             tolerance: tol,
             computedAll: computed,
             kind,
-            body,
-            bodyName,
+            body: bodyUsed,
+            bodyName: bodyUsed ? bodyName : undefined,
             overridden,
-            recompute: (b: Body, g0?: number) => {
-              try {
-                return def.evaluate(new Inputs(given, kind), b, g0 === undefined ? undefined : { g0 }).values;
-              } catch {
-                return undefined;
-              }
-            },
+            recompute,
           });
           if (hint) r.hint = hint;
         }

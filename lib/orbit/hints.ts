@@ -11,7 +11,7 @@ import { ANGLE_UNIT, scalarAgrees, vectorAgrees, type Tolerance } from "./tolera
 import { quantityInfo } from "./quantities";
 import { RAD } from "./vector";
 
-/** Sidereal day from the WGS-84 rotation rate: 2π / 7.292115e-5 rad/s = 86 164.0989 s. */
+/** Sidereal day from the WGS-84 rotation rate: 2π / 7.292115e-5 rad/s = 86 164.1006 s. */
 export const SIDEREAL_DAY_S = (2 * Math.PI) / BODIES.earth.rotationRate.value;
 /** Mean solar day, s (the SI day). */
 export const SOLAR_DAY_S = 86_400;
@@ -123,11 +123,13 @@ export interface HintContext {
   bodyName: BodyName | undefined;
   /** Body fields the claim overrode (their table alternatives are not tried). */
   overridden: ReadonlySet<string>;
-  /** Recomputes the kind with another body or standard gravity; undefined when it cannot. */
-  recompute(body: Body, g0?: number): Record<string, ComputedValue> | undefined;
+  /** Recomputes the kind with another body (default: the claim's own) or standard gravity; undefined when it cannot. */
+  recompute(body?: Body, g0?: number): Record<string, ComputedValue> | undefined;
 }
 
 const ROCKET_KINDS = new Set(["rocket", "deltaVBudget"]);
+/** Kinds whose values depend on the body's year. */
+const YEAR_KINDS = new Set(["sunSynchronous"]);
 /** Units of a period or a rate that a solar/sidereal day mix-up scales. */
 const DAY_UNITS = new Set(["s", "deg/day", "deg/s", "rev/day"]);
 /** Units of an angle or angular rate that may have been given in radians. */
@@ -239,9 +241,9 @@ function search(ctx: HintContext): Hint | undefined {
   }
 
   // standard-gravity: a rocket quantity with g0 left out or taken as 9.81.
-  if (!isAngle && ROCKET_KINDS.has(ctx.kind) && ctx.body) {
+  if (!isAngle && ROCKET_KINDS.has(ctx.kind)) {
     for (const slip of G0_SLIPS) {
-      const values = ctx.recompute(ctx.body, slip.g0);
+      const values = ctx.recompute(undefined, slip.g0);
       if (values && agrees(claimed, values[q], unit, precision, tol))
         return make("standard-gravity", `${q} agrees with ${slip.words}; use g0 = 9.80665 m/s²`, { factor: slip.g0 / STANDARD_GRAVITY_KM_S2 });
     }
@@ -258,6 +260,8 @@ function search(ctx: HintContext): Hint | undefined {
   if (ctx.body && ctx.bodyName) {
     for (const c of OTHER_CONSTANTS) {
       if (c.body !== ctx.bodyName || ctx.overridden.has(c.constant)) continue;
+      // A body's year enters only the sun-synchronous rate.
+      if (c.constant === "year" && !YEAR_KINDS.has(ctx.kind)) continue;
       const patched: Body = { ...ctx.body, [c.constant]: c.value };
       if (c.constant === "radius" && !ctx.overridden.has("j2ReferenceRadius")) patched.j2ReferenceRadius = ctx.body.j2ReferenceRadius;
       const values = ctx.recompute(patched);

@@ -87,7 +87,12 @@ export interface ComputedInfo {
   name: string;
   unit: string;
   type: string;
+  /** Set on an old name kept for one contract version (earthCentralAngle → centralAngle): forms should offer the new name. */
+  aliasOf?: string;
 }
+
+/** Old quantity names still computed and accepted for one contract version. */
+export const QUANTITY_ALIASES: Readonly<Record<string, string>> = { earthCentralAngle: "centralAngle" };
 
 export interface KindInfo {
   kind: string;
@@ -1019,7 +1024,12 @@ export const ORBIT_CHECK_KINDS: readonly KindInfo[] = KIND_NAMES.map((kind) => {
     givenRule: d.givenRule,
     defaultBody: d.defaultBody ?? "earth",
     given: d.given.map(([name, use]) => ({ name, unit: info(name).unit, type: info(name).type, use })),
-    computed: d.computed.map((name) => ({ name, unit: info(name).unit, type: info(name).type })),
+    computed: d.computed.map((name) => ({
+      name,
+      unit: info(name).unit,
+      type: info(name).type,
+      ...(QUANTITY_ALIASES[name] ? { aliasOf: QUANTITY_ALIASES[name] } : {}),
+    })),
   };
 });
 

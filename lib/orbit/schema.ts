@@ -33,7 +33,7 @@ export const bodySchema = z.union([bodyNameSchema, bodyOverrideSchema]);
 /** A bound: a finite number ≥ 0 (JSON.parse turns 1e400 into Infinity, so finiteness is checked here). */
 const bound = (what: string) =>
   z
-    .number({ error: `${what} must be a number` })
+    .number({ error: `${what} must be a finite number` })
     .refine((x) => Number.isFinite(x), { message: `${what} must be a finite number` })
     .refine((x) => x >= 0, { message: `${what} must not be negative` });
 

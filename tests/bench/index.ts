@@ -3,7 +3,8 @@
  *
  *  1. Kepler's equation: solves per second on one core with the max |residual| of
  *     M = E − e sin E over e ∈ [0, 0.99), side by side with astronomia's solvers.
- *  2. A request of 200 mixed claims checked in-process: median wall time.
+ *  2. A request of 200 mixed claims checked in-process under contract version 2's defaults,
+ *     about a third of them failing so that hints are searched: median wall time.
  */
 import { kepler2b, kepler3 } from "astronomia/kepler";
 import { solveKeplerElliptic } from "../../lib/orbit/anomalies/kepler";
@@ -54,14 +55,18 @@ const loops: Record<string, Loop> = {
 };
 let astro2bFailures = 0;
 
-/** Best of several rounds (the least disturbed by other load on the machine). */
+/**
+ * Best of several rounds, timed in this process's CPU time (user + system), so that other
+ * engineers' load on the shared machine does not count as our time while we wait for a core.
+ */
 function timeLoop(loop: Loop, count: number, rounds: number): { perSecond: number; sink: number } {
   let best = Infinity;
   let sink = 0;
   for (let r = 0; r < rounds; r++) {
-    const t0 = performance.now();
+    const t0 = process.cpuUsage();
     sink += loop(count);
-    best = Math.min(best, performance.now() - t0);
+    const used = process.cpuUsage(t0);
+    best = Math.min(best, (used.user + used.system) / 1000);
   }
   return { perSecond: count / (best / 1000), sink };
 }
@@ -121,6 +126,10 @@ for (const [a, b, c] of rows) console.log(`  ${a.padEnd(36)}${b.padStart(10)}   
 console.log(`  ratio VisViva / astronomia kepler3:  ${(ours.perSecond / astro3.perSecond).toFixed(1)}×`);
 console.log(`  ratio VisViva / astronomia kepler2b: ${(ours.perSecond / astro2b.perSecond).toFixed(1)}×`);
 console.log(`  goal: ≥ 5 M/s with max residual < 1e-12 rad → ${ours.perSecond >= 5e6 && oursResidual < 1e-12 ? "met" : "NOT met"}`);
+console.log(
+  `  goal (issue 19): ≥ 3× astronomia kepler2b at residual ≤ 1e-12 rad → ${ours.perSecond >= 3 * astro2b.perSecond && oursResidual <= 1e-12 ? "met" : "NOT met"}`,
+);
+console.log("  (rates per CPU-second of this process)");
 if (astro2bFailures > 0) console.log(`  (astronomia kepler2b did not converge on ${astro2bFailures} timed inputs)`);
 // The sum keeps the timed loop from being optimised away.
 process.stderr.write(`(checksum ${ours.sink.toFixed(3)})\n`);
@@ -190,22 +199,50 @@ const templates: unknown[] = [
   { kind: "eclipse", body: EARTH, given: { altitude: 550, betaAngle: 30 }, claimed: { eclipseDuration: 2000 } },
   { kind: "groundContact", body: EARTH, given: { altitude: 550, minimumElevation: 10 }, claimed: { maxPassDuration: 480 } },
   { kind: "orbit", body: EARTH, given: { periapsisAltitude: 300, eccentricity: 1.5 }, claimed: { period: 9000 } },
+  // Slips that fail under contract version 2 and send the hint search through its codes.
+  { kind: "orbit", body: EARTH, given: { altitude: 500 }, claimed: { period: "94.6" } },
+  { kind: "orbit", body: EARTH, given: { semiMajorAxis: 42164, eccentricity: 0 }, claimed: { period: 86400, meanMotionRevPerDay: "1.0000" } },
+  { kind: "orbit", body: EARTH, given: { period: 6000, eccentricity: 0 }, claimed: { apoapsisAltitude: "766" } },
+  { kind: "rocket", given: { specificImpulse: 300, initialMass: 2000, finalMass: 1000 }, claimed: { deltaV: "0.208" } },
+  { kind: "sunSynchronous", body: EARTH, given: { altitude: 800 }, claimed: { inclination: "97.8" } },
+  { kind: "hohmann", body: EARTH, given: { initialAltitude: 300, finalAltitude: 35786 }, claimed: { deltaVTotal: "3.2", transferTime: "5.26" } },
+  {
+    kind: "stateVector",
+    body: EARTH,
+    given: { position: [-6045, -3490, 2500], velocity: [-3.457, 6.618, 2.533] },
+    claimed: { raan: "4.456", argPeriapsis: 33 },
+  },
 ];
 const claims = Array.from({ length: 200 }, (_, i) => ({ id: `c${i + 1}`, ...(templates[i % templates.length] as object) }));
-const request = { tolerance: { relative: 0.01 }, claims };
+// Contract version 2 defaults (0.1 %, angles 0.05°, stated precision).
+const request = { claims };
 
 for (let i = 0; i < 30; i++) checkOrbitClaims(request);
 const times: number[] = [];
+const cpuTimes: number[] = [];
 for (let i = 0; i < 200; i++) {
+  const c0 = process.cpuUsage();
   const t0 = performance.now();
   checkOrbitClaims(request);
   times.push(performance.now() - t0);
+  const used = process.cpuUsage(c0);
+  cpuTimes.push((used.user + used.system) / 1000);
 }
 times.sort((a, b) => a - b);
+cpuTimes.sort((a, b) => a - b);
 const median = times[Math.floor(times.length / 2)]!;
 const p95 = times[Math.floor(times.length * 0.95)]!;
-const statuses = checkOrbitClaims(request).results.reduce<Record<string, number>>((m, r) => ({ ...m, [r.status]: (m[r.status] ?? 0) + 1 }), {});
+const cpuMedian = cpuTimes[Math.floor(cpuTimes.length / 2)]!;
+const final = checkOrbitClaims(request).results;
+const statuses = final.reduce<Record<string, number>>((m, r) => ({ ...m, [r.status]: (m[r.status] ?? 0) + 1 }), {});
+const failingRows = final.flatMap((r) => r.checks).filter((c) => !c.ok);
+const hinted = failingRows.filter((c) => c.hint).reduce<Record<string, number>>((m, c) => ({ ...m, [c.hint!.code]: (m[c.hint!.code] ?? 0) + 1 }), {});
 console.log("");
 console.log(`Request of ${claims.length} mixed claims (${templates.length} claim types, every kind), checked in-process, 200 runs`);
-console.log(`  median ${median.toFixed(2)} ms, p95 ${p95.toFixed(2)} ms  (goal: median < 20 ms → ${median < 20 ? "met" : "NOT met"})`);
+console.log(`  wall time: median ${median.toFixed(2)} ms, p95 ${p95.toFixed(2)} ms, best ${times[0]!.toFixed(2)} ms`);
+console.log(
+  `  CPU time of this process: median ${cpuMedian.toFixed(2)} ms  (goal: median < 5 ms with hints searched → CPU ${cpuMedian < 5 ? "met" : "NOT met"}, wall ${median < 5 ? "met" : "NOT met"})`,
+);
+console.log("  (wall time includes waiting for a core on a shared machine; CPU time does not)");
 console.log(`  statuses: ${JSON.stringify(statuses)}`);
+console.log(`  failing rows searched for hints: ${failingRows.length}; hints found: ${JSON.stringify(hinted)}`);

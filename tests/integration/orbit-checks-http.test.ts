@@ -73,6 +73,51 @@ describe("POST /api/v1/orbit-checks", () => {
     expect(Array.isArray(json.details)).toBe(true);
   });
 
+  it("answers 400 naming the field when the tolerance is refused, never 500 (contract version 2)", async () => {
+    for (const [tolerance, field] of [
+      [{ relative: 0.5 }, "tolerance.relative"],
+      [{ relative: -0.01 }, "tolerance.relative"],
+      [{ absolute: { km: -1 } }, "tolerance.absolute.km"],
+    ] as const) {
+      const res = await post(JSON.stringify({ tolerance, claims: CONTRACT.claims }), "192.0.2.15");
+      expect(res.status).toBe(400);
+      const json = await res.json();
+      expect(json.error).toContain(field);
+      expect(json.notice).toMatch(/screening estimates/);
+    }
+    // 1e400 is legal JSON that parses to Infinity.
+    const inf = await post('{"tolerance":{"relative":1e400},"claims":[]}', "192.0.2.15");
+    expect(inf.status).toBe(400);
+    expect((await inf.json()).error).toMatch(/tolerance\.relative: the relative bound must be a finite number/);
+  });
+
+  it("carries the notice, allowance, basis and hints; claimed decimal strings keep their digits", async () => {
+    const res = await post(
+      JSON.stringify({
+        claims: [
+          { id: "geo", kind: "orbit", body: "earth", given: { semiMajorAxis: 42164, eccentricity: 0 }, claimed: { period: 86400 } },
+          { id: "digits", kind: "orbit", body: "earth", given: { altitude: 500 }, claimed: { period: "5.7e3" } },
+          { id: "unit", kind: "orbit", body: "earth", given: { altitude: 500 }, claimed: { period: "3.9 km/s" } },
+        ],
+      }),
+      "192.0.2.16",
+    );
+    expect(res.status).toBe(200);
+    const json = await res.json();
+    expect(json.contractVersion).toBe(2);
+    expect(json.notice).toMatch(/not flight-qualified analysis/);
+    expect(json.results.map((r: { status: string }) => r.status)).toEqual(["inconsistent", "consistent", "invalid"]);
+    expect(json.results[0].checks[0]).toMatchObject({ basis: "relative", ok: false, hint: { code: "solar-day" } });
+    expect(json.results[1].checks[0]).toMatchObject({ claimed: "5.7e3", basis: "precision", allowance: 50, ok: true });
+    expect(json.results[2].messages[0]).toMatch(/^claimed\.period is not a plain decimal/);
+  });
+
+  it("every answer carries the notice, errors included", async () => {
+    const bad = await post("{ claims: [", "192.0.2.17");
+    expect(bad.status).toBe(400);
+    expect((await bad.json()).notice).toMatch(/screening estimates/);
+  });
+
   it("answers 413 with a JSON message for a body above 256 KB", async () => {
     const big = JSON.stringify({ claims: [], padding: "x".repeat(300 * 1024) });
     const res = await post(big, "192.0.2.14");

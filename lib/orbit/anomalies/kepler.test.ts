@@ -82,6 +82,16 @@ describe("elliptic Kepler's equation against astronomia", { timeout: 60_000 }, (
     );
   });
 
+  it("closed form (Markley 1995 starter, one correction) holds on a grid of hard cases: e → 1, tiny M, M = ±π, many revolutions", () => {
+    for (const e of [0, 1e-9, 0.1, 0.5, 0.9, 0.99, 0.999_999, 1 - 1e-9, 1 - 1e-12])
+      for (const M of [0, 1e-300, 1e-12, 1e-6, 1e-3, 0.1, 1, 2, 3, Math.PI - 1e-12, Math.PI, -Math.PI, 7, -100, 1e4]) {
+        const E = solveKeplerElliptic(M, e);
+        expect(Number.isFinite(E), `e=${e} M=${M}`).toBe(true);
+        // Relative to |M| for many revolutions, where M itself carries only 16 digits.
+        expect(Math.abs(E - e * Math.sin(E) - M) / Math.max(1, Math.abs(M)), `e=${e} M=${M}`).toBeLessThan(1e-14);
+      }
+  });
+
   it("is exact at the apses: M = 0 gives E = 0 and M = π gives E = π", () => {
     expect(solveKeplerElliptic(0, 0.7)).toBe(0);
     expect(solveKeplerElliptic(Math.PI, 0.7)).toBeCloseTo(Math.PI, 14);
