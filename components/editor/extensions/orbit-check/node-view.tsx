@@ -208,7 +208,8 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
     );
   };
   const referenced = reference && initialFrom ? new Set(reference.replaces) : new Set<string>();
-  const unclaimed = info.computed.filter((c) => !claimedRows.includes(c.name));
+  // Old names kept as aliases (earthCentralAngle) are not offered; their new name is.
+  const unclaimed = info.computed.filter((c) => !claimedRows.includes(c.name) && !c.aliasOf);
   const checks = new Map(result.checks.map((c) => [c.quantity, c]));
 
   return (
