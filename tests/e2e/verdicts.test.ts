@@ -109,6 +109,7 @@ describe("verdicts in the browser", () => {
       await chair.getByRole("button", { name: "Save call" }).click();
       await chair.getByRole("status").filter({ hasText: "Saved." }).waitFor();
       await chair.getByText("checked at 0.1 %, angles 0.05°").first().waitFor();
+      await shot(chair, "verdicts-4-call-policy");
 
       await chair.getByRole("link", { name: `${title}: version 1` }).click();
       await chair.getByText(/recorded at submission under orbit-check contract version 2 \(checked at 1 %/).waitFor();

@@ -9,7 +9,7 @@ import { BODY_NAMES, ORBIT_CHECK_KINDS, SCREENING_CAUTION, conicForPlot, evaluat
 import { REFERENCEABLE_KINDS, REFERENCING_KINDS, resolveClaim, type OrbitCheckBlock, type ToleranceInput } from "@/lib/dossier/claims";
 import type { DossierClaim, WrittenValues } from "@/lib/dossier/schema";
 import { bodyLabel, kindLabel, plainQuantities, quantityLabel } from "@/lib/orbit/labels";
-import type { ConvertedValue, WrittenValue } from "@/lib/dossier/units";
+import { NOT_A_NUMBER, parseDecimal, type ConvertedValue, type WrittenValue } from "@/lib/dossier/units";
 import { WrittenInput, initialWritten } from "./written-input";
 import { CheckRowDetail, ConsistentMeaning } from "@/components/dossier/check-explain";
 import { formatValue } from "@/lib/dossier/render";
@@ -39,18 +39,17 @@ const unitText = (unit: string) => (unit === "1" || unit === "" ? "" : unit);
 const kindInfo = (kind: string): KindInfo | undefined => ORBIT_CHECK_KINDS.find((k) => k.kind === kind);
 
 function parseNumber(text: string): number | undefined {
-  const t = text.trim().replace(/\s/g, "");
-  if (t === "") return undefined;
-  const n = Number(t);
-  return Number.isFinite(n) ? n : undefined;
+  const parsed = parseDecimal(text);
+  return parsed.ok ? parsed.value : undefined;
 }
 
 function VectorInput({ label, unit, value, onChange }: { label: string; unit: string; value: unknown; onChange: (v: number[] | undefined) => void }) {
   const base = useId();
   const initial = Array.isArray(value) ? value.map((x) => String(x)) : ["", "", ""];
   const [parts, setParts] = useState<string[]>(initial);
+  const unreadable = parts.some((p) => p.trim() !== "" && parseNumber(p) === undefined);
   return (
-    <fieldset className="flex items-center gap-2">
+    <fieldset className="flex flex-wrap items-center gap-2">
       <legend className="sr-only">{label}</legend>
       <span className="w-44 shrink-0 text-xs font-semibold text-ink-700" aria-hidden>
         {label}
@@ -61,6 +60,8 @@ function VectorInput({ label, unit, value, onChange }: { label: string; unit: st
           id={`${base}-${axis}`}
           aria-label={`${label} ${axis}`}
           inputMode="decimal"
+          aria-invalid={(parts[i] ?? "").trim() !== "" && parseNumber(parts[i] ?? "") === undefined ? true : undefined}
+          aria-describedby={unreadable ? `${base}-problem` : undefined}
           value={parts[i] ?? ""}
           onChange={(e) => {
             const next = [...parts];
@@ -69,10 +70,15 @@ function VectorInput({ label, unit, value, onChange }: { label: string; unit: st
             const nums = next.map(parseNumber);
             onChange(nums.every((n) => n !== undefined) ? (nums as number[]) : undefined);
           }}
-          className="w-24 rounded-chip border border-ink-300 bg-white px-2 py-1 font-mono text-sm"
+          className="w-24 rounded-chip border border-ink-300 bg-white px-2 py-1 font-mono text-sm aria-[invalid=true]:border-void-500"
         />
       ))}
       <span className="text-xs text-ink-500">{unit}</span>
+      {unreadable ? (
+        <p id={`${base}-problem`} className="w-full pl-46 text-2xs font-semibold text-void-700" data-field-error="">
+          {NOT_A_NUMBER}
+        </p>
+      ) : null}
     </fieldset>
   );
 }
@@ -81,8 +87,12 @@ function ManeuversInput({ value, onChange }: { value: unknown; onChange: (v: { n
   const id = useId();
   const initial = Array.isArray(value) ? value.map((m) => `${(m as { name?: string }).name ?? ""}: ${(m as { deltaV?: number }).deltaV ?? ""}`).join("\n") : "";
   const [text, setText] = useState(initial);
+  // The first line whose Δv cannot be read (1-based), for the message on the field.
+  const lines = text.split("\n").map((line) => line.trim());
+  const badIndex = lines.findIndex((line) => line !== "" && parseNumber(line.lastIndexOf(":") >= 0 ? line.slice(line.lastIndexOf(":") + 1) : "") === undefined);
+  const badLine = badIndex >= 0 ? badIndex + 1 : null;
   return (
-    <div className="flex items-start gap-2">
+    <div className="flex flex-wrap items-start gap-2">
       <label htmlFor={id} className="w-44 shrink-0 text-xs font-semibold text-ink-700">
         Manoeuvres (one per line, name: Δv in km/s)
       </label>
@@ -102,8 +112,15 @@ function ManeuversInput({ value, onChange }: { value: unknown; onChange: (v: { n
             });
           onChange(items.every((m) => m.deltaV !== undefined) ? (items as { name: string; deltaV: number }[]) : undefined);
         }}
-        className="w-72 rounded-chip border border-ink-300 bg-white px-2 py-1 font-mono text-sm"
+        aria-invalid={badLine ? true : undefined}
+        aria-describedby={badLine ? `${id}-problem` : undefined}
+        className="w-72 rounded-chip border border-ink-300 bg-white px-2 py-1 font-mono text-sm aria-[invalid=true]:border-void-500"
       />
+      {badLine ? (
+        <p id={`${id}-problem`} className="text-2xs font-semibold text-void-700" data-field-error="">
+          Line {badLine}: the Δv is {NOT_A_NUMBER}
+        </p>
+      ) : null}
     </div>
   );
 }
