@@ -4,6 +4,7 @@
 // submitted version, the difference under today's rules beside the unchanged record.
 import { describe, expect, it } from "vitest";
 import type { Page } from "playwright-core";
+import { assertAccessible } from "../support/axe";
 import { browserSession } from "../support/browser";
 import { asSessionUser, createBoardWithCast, unique } from "../support/factories";
 import { makeCall } from "../integration/matrix/dossiers";
@@ -78,6 +79,7 @@ describe("verdicts in the browser", () => {
       expect(await hint.innerText()).toContain("It looks like minutes were written where seconds were meant.");
       expect(await block.locator("[data-consistent-means]").innerText()).toMatch(/does not say the mission is feasible or compliant.*checked at 1 %, angles/s);
       await shot(proposer, "verdicts-1-unit-hint");
+      await assertAccessible(proposer, "orbit-check block with a unit hint");
 
       // Choosing minutes converts it (94.8 min = 5688 s, written to ±3 s) and the claim holds at 1 %.
       await block.getByLabel("Unit of claimed orbital period").selectOption("min");
@@ -124,6 +126,7 @@ describe("verdicts in the browser", () => {
       // The record beside it is unchanged.
       expect(await chair.locator('figure[data-status="consistent"]').count()).toBe(1);
       await shot(chair, "verdicts-3-todays-rules");
+      await assertAccessible(chair, "today's rules beside the record");
       // Back leaves today's rules; the record is still what it was.
       await chair.goBack();
       await expect.poll(() => chair.locator("#todays-rules").count()).toBe(0);
