@@ -20,6 +20,25 @@ import {
 
 const callToleranceSchema = z.object({ callId: z.uuid(), tolerance: tolerancePolicySchema });
 
+const verdictStatus = z.enum(["consistent", "inconsistent", "invalid"]);
+const rerunSchema = z.object({
+  contractVersion: z.number().int(),
+  tolerance: z.object({ relative: z.number().optional(), absolute: z.record(z.string(), z.number()).optional() }),
+  differing: z.number().int().describe("blocks whose status or any check row differs"),
+  blocks: z.array(
+    z.object({
+      blockId: z.string(),
+      label: z.string(),
+      kind: z.string(),
+      storedStatus: verdictStatus.nullable(),
+      storedContractVersion: z.number().int().nullable(),
+      todayStatus: verdictStatus,
+      changes: z.array(z.object({ quantity: z.string(), stored: z.unknown(), today: z.unknown() })),
+      todayMessages: z.array(z.string()),
+    }),
+  ),
+});
+
 const board = "/api/v1/boards/{boardId}";
 const proposal = `${board}/proposals/{proposalId}`;
 const version = `${proposal}/versions/{number}`;
@@ -200,6 +219,16 @@ export const dossierOperations = defineOperations([
     tag: "versions",
     access: "signed-in",
     response: z.object({ results: z.array(checkResultSchema) }),
+  },
+  {
+    method: "get",
+    path: `${version}/todays-rules`,
+    operationId: "rerunVersionWithTodaysRules",
+    summary:
+      "Chairs: a submitted version recomputed with today's engine and the call's current tolerance policy, block by block beside its stored record (status, contract version, check rows that differ); nothing is stored",
+    tag: "versions",
+    access: "signed-in",
+    response: z.object({ rerun: rerunSchema }),
   },
   {
     method: "get",

@@ -194,6 +194,11 @@ export const dossierRouteCases: RouteCase[] = [
     expect: viewers,
   },
   {
+    operationId: "rerunVersionWithTodaysRules",
+    prepare: async (cast) => ({ path: `${board(cast)}/proposals/${(await submittedProposal(cast)).id}/versions/1/todays-rules` }),
+    expect: { anonymous: 401, outsider: 404, proposer: 403, reviewer: 404, chair: 200, admin: 200 },
+  },
+  {
     operationId: "listAttachments",
     prepare: async (cast) => ({ path: `${board(cast)}/proposals/${(await makeProposal({ cast })).proposal.id}/attachments` }),
     expect: viewers,
