@@ -16,6 +16,16 @@ export interface CallFormValues {
   reviewersPerProposal: number;
 }
 
+/** Units whose absolute bound a chair may set, with the contract's default (orbit-check contract version 2). */
+const ABSOLUTE_UNITS = [
+  { unit: "km", fallback: "1" },
+  { unit: "km/s", fallback: "0.001" },
+  { unit: "s", fallback: "1" },
+  { unit: "deg", fallback: "0.05" },
+  { unit: "kg", fallback: "0.1" },
+  { unit: "deg/day", fallback: "0.001" },
+] as const;
+
 const toLocalInput = (iso: string) => (iso ? iso.slice(0, 16) : "");
 
 export function CallForm({ boardId, initial, afterSave }: { boardId: string; initial?: CallFormValues; afterSave?: "list" | "refresh" }) {
@@ -31,7 +41,7 @@ export function CallForm({ boardId, initial, afterSave }: { boardId: string; ini
     const form = new FormData(event.currentTarget);
     const text = (k: string) => String(form.get(k) ?? "").trim();
     const absolute: Record<string, number> = {};
-    for (const unit of ["km", "km/s", "s", "deg"]) {
+    for (const { unit } of ABSOLUTE_UNITS) {
       const v = text(`abs-${unit}`);
       if (v !== "") absolute[unit] = Number(v);
     }
@@ -64,7 +74,10 @@ export function CallForm({ boardId, initial, afterSave }: { boardId: string; ini
       };
       if (!response.ok) {
         setError(answer.error ?? `Saving failed (${response.status}).`);
-        setFieldErrors(Object.fromEntries((answer.details?.issues ?? []).map((i) => [i.path.split(".")[0]!, i.message])));
+        // Keyed by the first segment ("title") and by the whole path ("tolerance.absolute.km").
+        setFieldErrors(
+          Object.fromEntries((answer.details?.issues ?? []).flatMap((i) => [[i.path.split(".")[0]!, i.message] as const, [i.path, i.message] as const])),
+        );
         return;
       }
       setSaved(true);
@@ -75,7 +88,7 @@ export function CallForm({ boardId, initial, afterSave }: { boardId: string; ini
     }
   };
 
-  const abs = initial?.tolerance.absolute ?? {};
+  const abs: Record<string, number | undefined> = initial?.tolerance.absolute ?? {};
   return (
     <form onSubmit={(e) => void onSubmit(e)} className="grid max-w-2xl gap-4" noValidate>
       <TextField name="title" label="Title" defaultValue={initial?.title} required maxLength={200} error={fieldErrors.title} />
@@ -113,46 +126,37 @@ export function CallForm({ boardId, initial, afterSave }: { boardId: string; ini
           error={fieldErrors.closesAt}
         />
       </div>
-      <fieldset className="grid gap-3 rounded-panel border border-ink-200 p-3 sm:grid-cols-3">
-        <legend className="px-1 text-sm font-semibold text-ink-800">Tolerance for orbit checks (a value passes within either bound)</legend>
+      <fieldset className="grid gap-3 rounded-panel border border-ink-200 p-3 sm:grid-cols-3" aria-describedby="call-tolerance-rule">
+        <legend className="px-1 text-sm font-semibold text-ink-800">Tolerance for orbit checks</legend>
+        <p id="call-tolerance-rule" className="text-xs text-ink-600 sm:col-span-3">
+          A claimed value passes when its error is within the largest of: the relative bound times the recomputed value, the absolute bound of its unit, and the
+          precision it was written with. Angles use the absolute bound in degrees alone. Changes apply to submissions from now on; submitted versions keep their
+          record.
+        </p>
         <TextField
           name="relative"
           type="number"
-          step="0.01"
-          min="0"
-          max="50"
-          label="Relative (%)"
-          defaultValue={String((initial?.tolerance.relative ?? 0.01) * 100)}
-          error={fieldErrors.tolerance}
-        />
-        <TextField
-          name="abs-km"
-          type="number"
           step="any"
           min="0"
-          label="Absolute, km"
-          defaultValue={abs.km !== undefined ? String(abs.km) : ""}
-          hint="default 1"
+          max="49.99"
+          label="Relative bound (%)"
+          defaultValue={String(Number(((initial?.tolerance.relative ?? 0.001) * 100).toPrecision(6)))}
+          hint="default 0.1 %; below 50 %"
+          error={fieldErrors["tolerance.relative"] ?? fieldErrors.tolerance}
         />
-        <TextField
-          name="abs-km/s"
-          type="number"
-          step="any"
-          min="0"
-          label="Absolute, km/s"
-          defaultValue={abs["km/s"] !== undefined ? String(abs["km/s"]) : ""}
-          hint="default 0.001"
-        />
-        <TextField name="abs-s" type="number" step="any" min="0" label="Absolute, s" defaultValue={abs.s !== undefined ? String(abs.s) : ""} hint="default 1" />
-        <TextField
-          name="abs-deg"
-          type="number"
-          step="any"
-          min="0"
-          label="Absolute, deg"
-          defaultValue={abs.deg !== undefined ? String(abs.deg) : ""}
-          hint="default 0.01"
-        />
+        {ABSOLUTE_UNITS.map((u) => (
+          <TextField
+            key={u.unit}
+            name={`abs-${u.unit}`}
+            type="number"
+            step="any"
+            min="0"
+            label={`Absolute bound, ${u.unit === "deg" ? "angles (deg)" : u.unit}`}
+            defaultValue={abs[u.unit] !== undefined ? String(abs[u.unit]) : ""}
+            hint={`default ${u.fallback}`}
+            error={fieldErrors[`tolerance.absolute.${u.unit}`]}
+          />
+        ))}
       </fieldset>
       <div>
         <label htmlFor="call-sections" className="block text-sm font-semibold text-ink-800">

@@ -2,6 +2,9 @@
 // the propulsion claim, with the margin). Works for the live draft and for a stored version.
 import { SCREENING_CAUTION } from "@/lib/orbit";
 import type { DeltaVBudget } from "@/lib/dossier/claims";
+import { kindLabel } from "@/lib/orbit/labels";
+import { storedRows } from "@/lib/dossier/verdict-text";
+import { ConsistentMeaning, FailingChecks } from "./check-explain";
 import { VerdictBadge, type Verdict } from "./verdict-badge";
 
 export interface SummaryItem {
@@ -9,6 +12,8 @@ export interface SummaryItem {
   label: string;
   kind: string;
   status: Verdict;
+  /** The check rows (live or stored), so failing ones read as sentences with their hint. */
+  result?: unknown;
 }
 
 const kms = (v: number) => `${v.toFixed(3)} km/s`;
@@ -26,12 +31,14 @@ export function DossierSummary({
   budget,
   source,
   requiredMargin = 0,
+  tolerance,
 }: {
   items: SummaryItem[];
   budget: DeltaVBudget;
   source: "live" | "server";
   /** The call's minimum deterministic Δv margin (fraction); 0 without a requirement. */
   requiredMargin?: number;
+  tolerance?: { relative?: number; absolute?: Record<string, number | undefined> };
 }) {
   const band = budget.margin === null ? null : marginBand(budget.margin, requiredMargin);
   const counts = { consistent: 0, inconsistent: 0, invalid: 0 };
@@ -51,12 +58,15 @@ export function DossierSummary({
       {items.length > 0 ? (
         <ol className="space-y-1.5 text-sm">
           {items.map((i) => (
-            <li key={i.blockId} className="flex items-start justify-between gap-2" data-summary-block-id={i.blockId}>
-              <a href={`#orbit-check-${i.blockId}`} className="text-trajectory-700 hover:underline">
-                {i.label || `unnamed ${i.kind} block`}
-                <span className="ml-1 font-mono text-2xs text-ink-500">{i.kind}</span>
-              </a>
-              <VerdictBadge status={i.status} />
+            <li key={i.blockId} data-summary-block-id={i.blockId}>
+              <div className="flex items-start justify-between gap-2">
+                <a href={`#orbit-check-${i.blockId}`} className="text-trajectory-700 hover:underline">
+                  {i.label || `unnamed ${kindLabel(i.kind).toLowerCase()} block`}
+                  <span className="ml-1 text-2xs text-ink-500">{kindLabel(i.kind)}</span>
+                </a>
+                <VerdictBadge status={i.status} />
+              </div>
+              {i.result !== undefined ? <FailingChecks checks={storedRows(i.result)} className="mt-0.5 space-y-0.5 text-2xs text-ink-700" /> : null}
             </li>
           ))}
         </ol>
@@ -105,6 +115,7 @@ export function DossierSummary({
           </table>
         )}
       </section>
+      {items.length > 0 ? <ConsistentMeaning tolerance={tolerance} /> : null}
       <p className="text-2xs text-ink-500">{SCREENING_CAUTION}</p>
     </aside>
   );

@@ -274,7 +274,13 @@ export function DossierWorkspace(props: DossierWorkspaceProps) {
   };
 
   const evaluations = useMemo(() => evaluateBlocks(extractOrbitChecks(doc), props.tolerance), [doc, props.tolerance]);
-  const items = evaluations.map((e) => ({ blockId: e.block.blockId, label: e.block.label, kind: e.block.claim.kind, status: e.result.status }));
+  const items = evaluations.map((e) => ({
+    blockId: e.block.blockId,
+    label: e.block.label,
+    kind: e.block.claim.kind,
+    status: e.result.status,
+    result: e.result,
+  }));
   const budget = useMemo(() => deltaVBudget(evaluations), [evaluations]);
   const images = attachments.filter((a) => a.contentType.startsWith("image/")).map((a) => ({ src: a.contentPath, filename: a.filename }));
 
@@ -310,7 +316,13 @@ export function DossierWorkspace(props: DossierWorkspaceProps) {
         <DossierEditor editor={editor} images={images} />
       </div>
       <div className="space-y-4">
-        <DossierSummary items={items} budget={budget} source="live" requiredMargin={requiredDeltaVMargin(props.requirements ?? [])} />
+        <DossierSummary
+          items={items}
+          budget={budget}
+          source="live"
+          requiredMargin={requiredDeltaVMargin(props.requirements ?? [])}
+          tolerance={props.tolerance}
+        />
         <BudgetRail evaluations={evaluations} requirements={props.requirements ?? []} budget={budget} />
         <section aria-labelledby="submit-heading" className="space-y-2 rounded-panel border border-ink-200 bg-white p-4 shadow-panel">
           <h2 id="submit-heading" className="text-base font-semibold text-ink-900">

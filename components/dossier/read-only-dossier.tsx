@@ -35,11 +35,14 @@ export function ReadOnlyDossier({
   boardId,
   results,
   className,
+  tolerance,
 }: {
   document: unknown;
   boardId?: string;
   results?: StoredCheckResult[];
   className?: string;
+  /** The tolerance policy the verdicts were found under, named beside each. */
+  tolerance?: { relative?: number; absolute?: Record<string, number | undefined> };
 }) {
   const verdicts = results
     ? Object.fromEntries(results.map((r) => [r.blockId, { ...(r.result as unknown as BlockVerdict), status: r.status, requirements: r.requirements }]))
@@ -53,7 +56,7 @@ export function ReadOnlyDossier({
     else if (pieces.at(-1)?.kind === "html") (pieces.at(-1) as { nodes: DossierNode[] }).nodes.push(node);
     else pieces.push({ kind: "html", nodes: [node] });
   }
-  const html = (nodes: DossierNode[]) => renderDossierHtml({ type: "doc", content: nodes }, { boardId, verdicts });
+  const html = (nodes: DossierNode[]) => renderDossierHtml({ type: "doc", content: nodes }, { boardId, verdicts, tolerance });
   return (
     <div className={className}>
       <article className={FIGURE_STYLES}>

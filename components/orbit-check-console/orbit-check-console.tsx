@@ -1,6 +1,8 @@
 "use client";
 import { useDeferredValue, useMemo, useState } from "react";
 import { checkOrbitClaims, SCREENING_CAUTION, type ClaimResult } from "@/lib/orbit";
+import { CONSISTENT_MEANS, kindLabel, quantityLabel } from "@/lib/orbit/labels";
+import { rowHint } from "@/lib/dossier/verdict-text";
 
 const statusStyle: Record<ClaimResult["status"], string> = {
   consistent: "bg-holds-100 text-holds-700 border-holds-500",
@@ -63,14 +65,18 @@ export function OrbitCheckConsole({ examples }: { examples: { name: string; requ
         />
       </div>
       <section aria-live="polite" aria-label="Results" className="space-y-3">
-        <p className="rounded-chip border border-drift-500/40 bg-drift-100 px-3 py-2 text-xs text-ink-800">{SCREENING_CAUTION}</p>
+        <p className="rounded-chip border border-drift-500/40 bg-drift-100 px-3 py-2 text-xs text-ink-800">
+          {SCREENING_CAUTION} {CONSISTENT_MEANS.replace("the call's tolerance", "the request's tolerance")}
+        </p>
         {outcome.parseError ? <p className="text-void-700">The request is not valid JSON: {outcome.parseError}</p> : null}
         {outcome.response?.error ? <p className="text-void-700">{outcome.response.error}</p> : null}
         {outcome.response?.results.map((result) => (
           <article key={result.id} className="rounded-panel border border-ink-200 bg-white p-4 shadow-panel">
             <header className="flex flex-wrap items-baseline gap-3">
               <h2 className="font-mono text-sm font-semibold">{result.id}</h2>
-              <span className="text-sm text-ink-600">{result.kind}</span>
+              <span className="text-sm text-ink-600">
+                {kindLabel(result.kind)} <code className="text-xs text-ink-500">{result.kind}</code>
+              </span>
               <span className={`ml-auto rounded-chip border px-2 py-0.5 text-xs font-semibold ${statusStyle[result.status]}`}>
                 {result.status} — {statusWord[result.status]}
               </span>
@@ -104,12 +110,17 @@ export function OrbitCheckConsole({ examples }: { examples: { name: string; requ
                 <tbody className="font-mono">
                   {result.checks.map((row) => (
                     <tr key={row.quantity} className="border-t border-ink-100 [&>td]:px-2 [&>td]:py-1">
-                      <td className="font-sans">{row.quantity}</td>
+                      <td className="font-sans">
+                        {quantityLabel(row.quantity, "")} <code className="text-2xs text-ink-500">{row.quantity}</code>
+                      </td>
                       <td className="text-right">{formatValue(row.claimed)}</td>
                       <td className="text-right">{formatValue(row.computed)}</td>
                       <td className="font-sans text-ink-600">{row.unit}</td>
                       <td className="text-right">{row.relativeError === null ? "—" : `${(row.relativeError * 100).toFixed(2)} %`}</td>
-                      <td className={`font-sans ${row.ok ? "text-holds-700" : "text-drift-700"}`}>{row.ok ? "holds" : "off"}</td>
+                      <td className={`font-sans ${row.ok ? "text-holds-700" : "text-drift-700"}`}>
+                        {row.ok ? "holds" : "off"}
+                        {rowHint(row) ? <span className="block text-2xs text-ink-800">Likely slip: {rowHint(row)}</span> : null}
+                      </td>
                     </tr>
                   ))}
                 </tbody>

@@ -7,6 +7,8 @@ import { useCallback, useEffect, useMemo, useRef, useState } from "react";
 import { createColumnHelper, getCoreRowModel, useReactTable } from "@tanstack/react-table";
 import { TableView } from "@/components/data-table/table-view";
 import { VerdictBadge } from "@/components/dossier/verdict-badge";
+import { ConsistentMeaning, FailingChecks } from "@/components/dossier/check-explain";
+import { kindLabel } from "@/lib/orbit/labels";
 import type { CheckRow, ReviewScreen, ReviewState } from "@/lib/dal/reviews";
 import { RequirementFlags } from "@/components/dossier/requirement-flags";
 import type { ReviewItemView } from "@/lib/dal/review-items";
@@ -566,6 +568,7 @@ function ChecksPanel({ base, checks, editable, onRevision }: { base: string; che
         {checks.length} blocks, {flagged} flagged{unmet > 0 ? `, ${unmet} with a requirement not met` : ""}. Two-body screening estimates, not a substitute for
         high-fidelity analysis.
       </p>
+      <ConsistentMeaning tolerance={checks.find((c) => c.tolerance)?.tolerance ?? undefined} className="mb-3 text-xs text-ink-600" />
       <ul className="space-y-3">
         {checks.map((c) => (
           <li key={c.id} data-check-block={c.blockId} className="rounded-chip border border-ink-100 p-3">
@@ -575,18 +578,11 @@ function ChecksPanel({ base, checks, editable, onRevision }: { base: string; che
                 onClick={() => document.querySelector(`[data-block-id="${CSS.escape(c.blockId)}"]`)?.scrollIntoView({ behavior: "smooth", block: "center" })}
                 className="font-semibold text-trajectory-700 hover:underline"
               >
-                {c.label || c.kind}
+                {c.label || kindLabel(c.kind)}
               </a>
               <VerdictBadge status={c.status} prefix="Server:" />
             </div>
-            {(c.verdict.checks ?? [])
-              .filter((q) => !q.ok)
-              .map((q) => (
-                <p key={q.quantity} className="mt-1 font-mono text-xs text-ink-700">
-                  {q.quantity}: claimed {String(q.claimed)}, computed {typeof q.computed === "number" ? Number(q.computed.toPrecision(6)) : String(q.computed)}{" "}
-                  {q.unit}
-                </p>
-              ))}
+            <FailingChecks checks={c.verdict.checks} />
             {(c.verdict.messages ?? []).map((m) => (
               <p key={m} className="mt-1 text-xs text-ink-700">
                 {m}

@@ -146,6 +146,10 @@ export const checkResults = pgTable(
     result: jsonb("result").$type<Record<string, unknown>>().notNull(),
     /** The call's requirements judged on this claim at submission (met / not met / not evaluated). */
     requirements: jsonb("requirements").$type<RequirementOutcome[]>().notNull().default([]),
+    /** The orbit-check contract version whose rules produced this result (1 for results stored before version 2). */
+    contractVersion: integer("contract_version").notNull().default(1),
+    /** The call's tolerance policy applied at submission (null for results stored before it was recorded). */
+    tolerance: jsonb("tolerance").$type<TolerancePolicy>(),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [uniqueIndex("check_results_version_block_key").on(t.versionId, t.blockId), index("check_results_version_status_idx").on(t.versionId, t.status)],

@@ -128,3 +128,37 @@ export async function updateCall(user: SessionUser, boardId: string, callId: str
     return toView(row);
   });
 }
+
+/** The call's tolerance policy: any member of the board may read it (proposers see what they are checked at). */
+export async function getCallTolerance(user: SessionUser, boardId: string, callId: string): Promise<{ callId: string; tolerance: TolerancePolicy }> {
+  const call = await getCall(user, boardId, callId);
+  return { callId: call.id, tolerance: call.tolerance };
+}
+
+/**
+ * Chairs set the policy the server applies to orbit checks at submission from now on.
+ * Versions already submitted keep their recorded results (and the policy they were checked at).
+ */
+export async function updateCallTolerance(
+  user: SessionUser,
+  boardId: string,
+  callId: string,
+  tolerance: TolerancePolicy,
+): Promise<{ callId: string; tolerance: TolerancePolicy }> {
+  const role = await boardRole(user.id, boardId);
+  authorize(user, "call.manage", { role }, "That board");
+  return db().transaction(async (tx) => {
+    const before = await loadCall(boardId, callId, tx);
+    if (!before) throw notFound("That call");
+    const [row] = await tx
+      .update(calls)
+      .set({ tolerance })
+      .where(and(eq(calls.boardId, boardId), eq(calls.id, callId)))
+      .returning({ id: calls.id, tolerance: calls.tolerance });
+    await recordAudit(
+      { action: "call.tolerance", actorId: user.id, actorEmail: user.email, boardId, target: callId, details: { before: before.tolerance, after: tolerance } },
+      tx,
+    );
+    return { callId: row!.id, tolerance: row!.tolerance };
+  });
+}

@@ -27,6 +27,8 @@ import { countClaims, type ClaimCounts } from "@/lib/decisions/claim-counts";
 import { applyMergeFields, MERGE_FIELDS, unknownMergeFields, type MergeFieldInfo } from "@/lib/decisions/merge-fields";
 import { DEFAULT_LETTER_TEMPLATE, mergeValues, OUTCOME_LABELS, reviewItemLine } from "@/lib/decisions/template";
 import { dossierPlainText } from "@/lib/dossier";
+import { failingSentences } from "@/lib/dossier/verdict-text";
+import { CONSISTENT_MEANS, kindLabel, policySummary } from "@/lib/orbit/labels";
 import { env } from "@/lib/env";
 import { conflict, notFound, unprocessable } from "@/lib/errors";
 import { enqueueMail } from "@/lib/mail/outbox";
@@ -172,6 +174,10 @@ export interface WorkspaceCheck {
   messages: string[];
   /** The call's requirements judged on this claim at submission. */
   requirements: RequirementOutcome[];
+  /** Failing check rows as stored (with their hints, contract version 2). */
+  failing: Record<string, unknown>[];
+  contractVersion: number;
+  tolerance: { relative: number; absolute?: Record<string, number> } | null;
 }
 
 export interface DecisionWorkspace {
@@ -347,6 +353,8 @@ export async function getDecisionWorkspace(user: SessionUser, boardId: string, p
         claim: checkResults.claim,
         result: checkResults.result,
         requirements: checkResults.requirements,
+        contractVersion: checkResults.contractVersion,
+        tolerance: checkResults.tolerance,
       })
       .from(checkResults)
       .where(and(eq(checkResults.boardId, boardId), eq(checkResults.versionId, version.id)))
@@ -358,7 +366,10 @@ export async function getDecisionWorkspace(user: SessionUser, boardId: string, p
       kind: c.kind,
       status: c.status,
       requirements: c.requirements,
+      contractVersion: c.contractVersion,
+      tolerance: c.tolerance ?? null,
       messages: Array.isArray(c.result.messages) ? (c.result.messages as unknown[]).map(String) : [],
+      failing: Array.isArray(c.result.checks) ? (c.result.checks as Record<string, unknown>[]).filter((r) => r && r.ok === false) : [],
     }));
   }
 
@@ -454,11 +465,14 @@ async function composeLetter(
       label: checkResults.label,
       kind: checkResults.kind,
       requirements: checkResults.requirements,
+      tolerance: checkResults.tolerance,
     })
     .from(checkResults)
-    .where(eq(checkResults.versionId, ctx.version.id));
+    .where(eq(checkResults.versionId, ctx.version.id))
+    .orderBy(asc(checkResults.createdAt));
   const checks = countClaims(checkRows);
   const unmet = checkRows.flatMap((c) => c.requirements.filter((o) => o.status === "notMet").map((o) => `${c.label || c.kind}: ${o.title} — ${o.reason}`));
+  const recordTolerance = checkRows.find((c) => c.tolerance)?.tolerance;
   const reviewsSubmitted = await submittedReviewCount(ctx.version.id, tx);
   const values = mergeValues({
     proposalTitle: ctx.version.title || ctx.proposal.title,
@@ -481,6 +495,8 @@ async function composeLetter(
     checksInconsistent: checks.inconsistent,
     checksInvalid: checks.invalid,
     requirementsNotMet: unmet,
+    checksFlaggedDetails: checkRows.flatMap((c) => failingSentences(c.result).map((line) => `${c.label || kindLabel(c.kind)}: ${line}`)),
+    checksMeaning: `${CONSISTENT_MEANS}${recordTolerance ? ` The call's checks ran ${policySummary(recordTolerance)}.` : ""}`,
     chairName: user.name,
   });
   const merged = applyMergeFields(blocks, values);

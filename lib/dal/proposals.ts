@@ -25,6 +25,7 @@ import {
   MAX_DOCUMENT_BYTES,
   evaluateBlocks,
   extractOrbitChecks,
+  ORBIT_CHECK_CONTRACT_VERSION,
   renderDossierHtml,
   submissionProblems,
   validateDossier,
@@ -43,6 +44,7 @@ import { formatDateTime } from "@/lib/format/dates";
 import { countOutcomes, judgeBlocks } from "@/lib/dossier/requirements";
 import type { RequirementOutcome } from "@/lib/requirements";
 import { loadRequirements, type CallRequirementView } from "./requirements";
+import { rerunWithTodaysRules, type Rerun } from "@/lib/dossier/rerun";
 
 type Db = Database | Transaction;
 
@@ -598,7 +600,7 @@ export async function submitProposal(user: SessionUser, boardId: string, proposa
           { status: e.result.status, checks: e.result.checks, messages: e.result.messages, requirements: outcomes[e.block.blockId] ?? [] },
         ]),
       );
-      const html = renderDossierHtml(doc, { verdicts });
+      const html = renderDossierHtml(doc, { verdicts, tolerance: call.tolerance });
       const documentKey = versionObjectKey(boardId, proposalId, number, "document.json");
       const htmlKey = versionObjectKey(boardId, proposalId, number, "document.html");
       written.push(documentKey);
@@ -643,6 +645,8 @@ export async function submitProposal(user: SessionUser, boardId: string, proposa
             claim: e.claim as unknown as Record<string, unknown>,
             result: e.result as unknown as Record<string, unknown>,
             requirements: outcomes[e.block.blockId] ?? [],
+            contractVersion: ORBIT_CHECK_CONTRACT_VERSION,
+            tolerance: call.tolerance,
           })),
         );
       }
@@ -795,6 +799,10 @@ export interface CheckResultView {
   result: Record<string, unknown>;
   /** The call's requirements judged on this claim at submission. */
   requirements: RequirementOutcome[];
+  /** The contract version whose rules produced the stored result. */
+  contractVersion: number;
+  /** The tolerance policy applied at submission, when recorded. */
+  tolerance: { relative: number; absolute?: Record<string, number> } | null;
 }
 
 async function loadVersion(boardId: string, proposalId: string, n: number, tx: Db = db()) {
@@ -827,6 +835,8 @@ export async function versionCheckResults(boardId: string, versionId: string, tx
       claim: checkResults.claim,
       result: checkResults.result,
       requirements: checkResults.requirements,
+      contractVersion: checkResults.contractVersion,
+      tolerance: checkResults.tolerance,
       document: proposalVersions.document,
     })
     .from(checkResults)
@@ -834,7 +844,17 @@ export async function versionCheckResults(boardId: string, versionId: string, tx
     .where(and(eq(checkResults.boardId, boardId), eq(checkResults.versionId, versionId)));
   const order = rows[0] ? extractOrbitChecks(rows[0].document).map((b) => b.blockId) : [];
   return rows
-    .map((r) => ({ blockId: r.blockId, label: r.label, kind: r.kind, status: r.status, claim: r.claim, result: r.result, requirements: r.requirements }))
+    .map((r) => ({
+      blockId: r.blockId,
+      label: r.label,
+      kind: r.kind,
+      status: r.status,
+      claim: r.claim,
+      result: r.result,
+      requirements: r.requirements,
+      contractVersion: r.contractVersion,
+      tolerance: r.tolerance ?? null,
+    }))
     .sort((a, b) => order.indexOf(a.blockId) - order.indexOf(b.blockId));
 }
 
@@ -860,5 +880,21 @@ export async function getVersionHtml(user: SessionUser, boardId: string, proposa
   const verdicts = Object.fromEntries(
     version.checkResults.map((r) => [r.blockId, { ...(r.result as unknown as BlockVerdict), status: r.status, requirements: r.requirements }]),
   );
-  return renderDossierHtml(version.document, { boardId, verdicts });
+  const tolerance = version.checkResults.find((r) => r.tolerance)?.tolerance ?? undefined;
+  return renderDossierHtml(version.document, { boardId, verdicts, tolerance });
+}
+
+/**
+ * Chairs only: the version's stored record beside a recomputation with today's engine and
+ * the call's current tolerance policy. Reads only; the record is never changed.
+ */
+export async function rerunVersionWithTodaysRules(user: SessionUser, boardId: string, proposalId: string, n: number): Promise<Rerun> {
+  const { proposal, facts } = await proposalFor(user, boardId, proposalId, "proposal.view");
+  authorize(user, "decision.make", facts, "Today's rules on a submitted version");
+  const row = await loadVersion(boardId, proposalId, n);
+  if (!row) throw notFound(`Version ${n} of that proposal`);
+  const call = await loadCall(boardId, proposal.callId);
+  if (!call) throw notFound("That proposal's call");
+  const stored = await versionCheckResults(boardId, row.id);
+  return rerunWithTodaysRules(row.document, stored, call.tolerance);
 }

@@ -1,4 +1,5 @@
 import "server-only";
+import { formatDate } from "@/lib/format/dates";
 import { csvCell } from "@/lib/review/csv";
 import { and, asc, desc, eq, inArray, sql } from "drizzle-orm";
 import { db, type Database, type Transaction } from "@/db/client";
@@ -29,6 +30,7 @@ import { boardRole, isUuid } from "./boards";
 import { isConflicted } from "./conflicts";
 import { freezeTemplate, loadTemplate, type RubricView } from "./rubrics";
 import { loadCall } from "./calls";
+import { orbitCheckNotice } from "@/lib/dossier/verdict-text";
 
 type Db = Database | Transaction;
 
@@ -54,6 +56,8 @@ export interface CheckRow {
   status: "consistent" | "inconsistent" | "invalid";
   verdict: BlockVerdict;
   note: string;
+  /** The tolerance policy the verdict was found under (recorded since contract version 2). */
+  tolerance?: { relative: number; absolute?: Record<string, number> } | null;
 }
 
 export interface ReviewScreen {
@@ -109,8 +113,6 @@ function toState(row: ReviewRow | undefined): ReviewState {
   };
 }
 
-const dayFormat = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeZone: "UTC" });
-
 /** The decision on a version, if there is one: a decided version's reviews are closed. */
 async function versionDecision(boardId: string, versionId: string, tx: Db): Promise<{ decidedAt: Date } | null> {
   const [row] = await tx
@@ -122,7 +124,7 @@ async function versionDecision(boardId: string, versionId: string, tx: Db): Prom
 }
 
 const closedText = (versionNumber: number | null, decidedAt: Date) =>
-  `The board decided on ${versionNumber ? `version ${versionNumber}` : "this version"} on ${dayFormat.format(decidedAt)} (UTC), so this review is closed: nothing more is needed from you and it can no longer be changed.`;
+  `The board decided on ${versionNumber ? `version ${versionNumber}` : "this version"} on ${formatDate(decidedAt)}, so this review is closed: nothing more is needed from you and it can no longer be changed.`;
 
 async function loadAssignment(boardId: string, assignmentId: string, tx: Db) {
   if (!isUuid(boardId) || !isUuid(assignmentId)) return null;
@@ -185,6 +187,7 @@ export async function getReviewScreen(user: SessionUser, boardId: string, assign
       status: checkResults.status,
       result: checkResults.result,
       requirements: checkResults.requirements,
+      tolerance: checkResults.tolerance,
     })
     .from(checkResults)
     .where(and(eq(checkResults.versionId, version.id), eq(checkResults.boardId, boardId)));
@@ -202,9 +205,18 @@ export async function getReviewScreen(user: SessionUser, boardId: string, assign
       requirements: c.requirements,
     };
     verdicts[c.blockId] = verdict;
-    return { id: c.id, blockId: c.blockId, label: c.label, kind: c.kind, status: c.status, verdict, note: noteOf.get(c.id) ?? "" };
+    return {
+      id: c.id,
+      blockId: c.blockId,
+      label: c.label,
+      kind: c.kind,
+      status: c.status,
+      verdict,
+      note: noteOf.get(c.id) ?? "",
+      tolerance: c.tolerance ?? null,
+    };
   });
-  const html = renderDossierHtml(version.document, { boardId, verdicts });
+  const html = renderDossierHtml(version.document, { boardId, verdicts, tolerance: checks.find((c) => c.tolerance)?.tolerance ?? undefined });
   const order = html.match(/data-block-id="[^"]*"/g)?.map((m) => m.slice(15, -1)) ?? [];
   checkRows.sort((a, b) => order.indexOf(a.blockId) - order.indexOf(b.blockId));
   const [owner] = await db()
@@ -752,5 +764,7 @@ export async function getCallOverviewCsv(user: SessionUser, boardId: string, cal
       .toLowerCase()
       .replace(/[^a-z0-9]+/g, "-")
       .replace(/^-|-$/g, "") || "call";
+  // The orbit-check contract's notice travels with the figures: one last row, first cell.
+  lines.push(csvCell(`Notice: ${orbitCheckNotice()}`));
   return { filename: `${slug}-overview.csv`, csv: `${lines.join("\r\n")}\r\n` };
 }

@@ -3,6 +3,7 @@
  * the orbit claims side by side (values claimed, values recomputed, verdicts). Pure.
  */
 import { diffWords } from "diff";
+import { hintSentence } from "@/lib/orbit/labels";
 
 export interface TextChange {
   kind: "same" | "added" | "removed";
@@ -43,8 +44,8 @@ export interface VersionCheck {
 export interface QuantityRow {
   quantity: string;
   unit: string;
-  before: { claimed: number | null; computed: number | null; ok: boolean | null } | null;
-  after: { claimed: number | null; computed: number | null; ok: boolean | null } | null;
+  before: { claimed: number | null; computed: number | null; ok: boolean | null; hint?: string | null } | null;
+  after: { claimed: number | null; computed: number | null; ok: boolean | null; hint?: string | null } | null;
 }
 
 export interface ClaimComparison {
@@ -64,9 +65,15 @@ interface CheckRow {
   claimed: number | null;
   computed: number | null;
   ok: boolean | null;
+  /** The likely slip of a failing row, as a sentence (contract version 2 hints). */
+  hint: string | null;
 }
 
-const num = (v: unknown): number | null => (typeof v === "number" && Number.isFinite(v) ? v : null);
+// Claimed values are decimal strings as written since contract version 2.
+const num = (v: unknown): number | null => {
+  const n = typeof v === "string" && /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(v.trim()) ? Number(v) : v;
+  return typeof n === "number" && Number.isFinite(n) ? n : null;
+};
 
 function rowsOf(check: VersionCheck): CheckRow[] {
   const rows = new Map<string, CheckRow>();
@@ -81,6 +88,7 @@ function rowsOf(check: VersionCheck): CheckRow[] {
       claimed: num(row.claimed),
       computed: num(row.computed),
       ok: typeof row.ok === "boolean" ? row.ok : null,
+      hint: row.ok === false ? hintSentence(row.hint, undefined, String(row.unit ?? "")) : null,
     });
   }
   // Claimed values the engine did not check (an invalid claim) still belong in the table.
@@ -89,7 +97,7 @@ function rowsOf(check: VersionCheck): CheckRow[] {
       const c = computed[quantity] as { value?: unknown; unit?: unknown } | number | undefined;
       const computedValue = typeof c === "object" && c ? num(c.value) : num(c);
       const unit = typeof c === "object" && c && typeof c.unit === "string" ? c.unit : "";
-      rows.set(quantity, { quantity, unit, claimed: num(value), computed: computedValue, ok: null });
+      rows.set(quantity, { quantity, unit, claimed: num(value), computed: computedValue, ok: null, hint: null });
     }
   }
   return [...rows.values()];
@@ -121,8 +129,8 @@ function compareOne(before: VersionCheck | null, after: VersionCheck | null, mat
   }
   const list = [...quantities.values()].map((q) => ({
     ...q,
-    before: q.before ? { claimed: q.before.claimed, computed: q.before.computed, ok: q.before.ok } : null,
-    after: q.after ? { claimed: q.after.claimed, computed: q.after.computed, ok: q.after.ok } : null,
+    before: q.before ? { claimed: q.before.claimed, computed: q.before.computed, ok: q.before.ok, ...(q.before.hint ? { hint: q.before.hint } : {}) } : null,
+    after: q.after ? { claimed: q.after.claimed, computed: q.after.computed, ok: q.after.ok, ...(q.after.hint ? { hint: q.after.hint } : {}) } : null,
   }));
   let change: ClaimComparison["change"];
   if (!before) change = "added";

@@ -38,6 +38,12 @@ export const MERGE_FIELDS: readonly MergeFieldInfo[] = [
   { name: "reviews.whereToRead", description: "A sentence saying where the reviews and items can be read (only what exists)" },
   { name: "requirements.notMetCount", description: "Number of the call's requirements not met on the claims of this version" },
   { name: "requirements.notMet", description: "Each requirement not met: the claim, the requirement and why, one per line", list: true },
+  {
+    name: "checks.flaggedDetails",
+    description: "Each value the server found outside tolerance, as a sentence with the likely slip, one per line",
+    list: true,
+  },
+  { name: "checks.meaning", description: "What a consistent verdict means (and does not), with the call's tolerance policy" },
   { name: "chair.name", description: "Name of the chair issuing the decision" },
 ];
 

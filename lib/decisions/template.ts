@@ -33,6 +33,9 @@ export const DEFAULT_LETTER_TEMPLATE: Record<string, unknown> = {
       ],
     },
     p("{{reviews.summary}} {{checks.summary}}"),
+    p("Values the server found outside tolerance, with the likely slip:"),
+    p("{{checks.flaggedDetails}}"),
+    p("{{checks.meaning}}"),
     p("The board asks you to consider these review items:"),
     p("{{reviewItems.selected}}"),
     p("{{reviews.whereToRead}} A copy of this letter is attached as a PDF."),
@@ -74,6 +77,10 @@ export interface MergeFacts {
   checksInvalid?: number;
   /** "<claim>: <requirement> — <reason>" for each requirement not met (second verdict axis). */
   requirementsNotMet?: string[];
+  /** Failing checks as sentences with their hint (lib/dossier/verdict-text.ts); empty when none. */
+  checksFlaggedDetails?: string[];
+  /** What "consistent" means, with the policy the checks were found under. */
+  checksMeaning?: string;
   chairName: string;
 }
 
@@ -139,6 +146,8 @@ export function mergeValues(f: MergeFacts): MergeValues {
     "requirements.notMetCount": String(f.requirementsNotMet?.length ?? 0),
     "requirements.notMet":
       f.requirementsNotMet && f.requirementsNotMet.length > 0 ? f.requirementsNotMet : ["none: every requirement judged was met or not evaluated"],
+    "checks.flaggedDetails": f.checksFlaggedDetails ?? [],
+    "checks.meaning": f.checksMeaning ?? "",
     "chair.name": f.chairName,
   };
 }

@@ -3,7 +3,12 @@
  * orbit" feeding a transfer), evaluation with the engine, the Δv budget and the submission
  * readiness rules. Pure: runs in the editor (live) and on the server (at submission).
  */
-import { evaluateClaim, type ClaimResult } from "@/lib/orbit";
+import { CONTRACT_VERSION, evaluateClaim, quantityInfo, type ClaimResult } from "@/lib/orbit";
+import { kindLabel, quantityName } from "@/lib/orbit/labels";
+import { convertWritten } from "./units";
+
+/** The orbit-check contract version whose rules the engine applies (docs/contracts/orbit-checks.md). */
+export const ORBIT_CHECK_CONTRACT_VERSION = CONTRACT_VERSION;
 
 /** The tolerance policy of a call (contract units). */
 export interface ToleranceInput {
@@ -11,7 +16,7 @@ export interface ToleranceInput {
   absolute?: Record<string, number>;
 }
 import { sanitizeDossier } from "./sanitize";
-import type { DossierClaim, DossierNode } from "./schema";
+import type { DossierClaim, DossierNode, WrittenValues } from "./schema";
 
 export interface OrbitCheckBlock {
   blockId: string;
@@ -20,6 +25,8 @@ export interface OrbitCheckBlock {
   initialFrom?: string | null;
   /** The orbit file the block was made from, when it was. */
   source?: { attachmentId: string; sha256: string; filename: string; index: number } | null;
+  /** Values as typed, with their units (blocks stored before units were offered have none). */
+  written?: WrittenValues | null;
 }
 
 /** Every orbit-check block in document order. */
@@ -34,6 +41,7 @@ export function extractOrbitChecks(doc: unknown): OrbitCheckBlock[] {
         claim: node.attrs.claim as DossierClaim,
         initialFrom: (node.attrs.initialFrom as string | null | undefined) ?? null,
         ...(node.attrs.source ? { source: node.attrs.source as OrbitCheckBlock["source"] } : {}),
+        ...(node.attrs.written ? { written: node.attrs.written as WrittenValues } : {}),
       });
     }
     (node.content ?? []).forEach(walk);
@@ -279,6 +287,19 @@ export function missingSections(doc: unknown, required: readonly string[]): stri
   return required.filter((s) => !have.has(normalise(s)));
 }
 
+/** The first typed value of a block that is not a number: "Periapsis altitude: not a number; use a point for decimals". */
+export function unreadableWritten(block: OrbitCheckBlock): string | null {
+  for (const side of ["given", "claimed"] as const) {
+    for (const [name, w] of Object.entries(block.written?.[side] ?? {})) {
+      if (w.text.trim() === "") continue;
+      const unit = quantityInfo(name)?.unit ?? "";
+      const converted = convertWritten(w, unit);
+      if ("error" in converted) return `${quantityName(name)} "${w.text}" is ${converted.error}`;
+    }
+  }
+  return null;
+}
+
 export interface ReadinessProblem {
   kind: "missing-section" | "invalid-claim" | "no-content";
   message: string;
@@ -290,7 +311,11 @@ export function submissionProblems(doc: unknown, required: readonly string[], ev
   const problems: ReadinessProblem[] = [];
   for (const s of missingSections(doc, required)) problems.push({ kind: "missing-section", message: `Add a section headed "${s}".` });
   for (const ev of evaluations) {
-    if (ev.result.status === "invalid") {
+    const unreadable = unreadableWritten(ev.block);
+    if (unreadable) {
+      const name = ev.block.label || `the ${kindLabel(ev.block.claim.kind).toLowerCase()} block`;
+      problems.push({ kind: "invalid-claim", blockId: ev.block.blockId, message: `Fix "${name}": ${unreadable}.` });
+    } else if (ev.result.status === "invalid") {
       const name = ev.block.label || `the ${ev.block.claim.kind} block`;
       problems.push({ kind: "invalid-claim", blockId: ev.block.blockId, message: `Fix "${name}": ${ev.result.messages[0] ?? "it cannot be evaluated"}` });
     }

@@ -15,5 +15,6 @@ export {
   REFERENCING_KINDS,
   REFERENCEABLE_KINDS,
   MANEUVER_DELTA_V,
+  ORBIT_CHECK_CONTRACT_VERSION,
 } from "./claims";
 export type { OrbitCheckBlock, ResolvedClaim, BlockEvaluation, DeltaVBudget, ReadinessProblem } from "./claims";

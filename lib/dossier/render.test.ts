@@ -81,8 +81,52 @@ describe("dossier sanitizer and renderer", () => {
         },
       },
     });
-    expect(html).toContain('<div data-check-ok="true">period: claimed 5677 s, recomputed 5676.98 s (0.0004 % off), within tolerance</div>');
-    expect(html).toContain('<div data-check-ok="false">apoapsisAltitude: claimed 700 km, recomputed 500 km (40 % off), outside tolerance</div>');
+    expect(html).toContain('<div data-check-ok="true">Orbital period: claimed 5677 s, recomputed 5676.98 s, within tolerance (0.0004 % off)</div>');
+    expect(html).toContain('<div data-check-ok="false">Apoapsis altitude: claimed 700 km, recomputed 500 km, outside tolerance (40 % off)</div>');
+  });
+
+  it("shows values as written with their unit, the bound and basis of each check, the hint as a sentence, and what consistent means", () => {
+    const doc = {
+      type: "doc",
+      content: [
+        {
+          type: "orbitCheck",
+          attrs: {
+            blockId: BLOCK,
+            label: "science orbit",
+            claim: { kind: "orbit", body: "earth", given: { altitude: 500 }, claimed: { period: "5790" } },
+            written: { given: { altitude: { text: "500000", unit: "m" } }, claimed: { period: { text: "96.5", unit: "min" } } },
+          },
+        },
+      ],
+    };
+    const html = renderDossierHtml(doc, {
+      tolerance: { relative: 0.001, absolute: { deg: 0.05 } },
+      verdicts: {
+        [BLOCK]: {
+          status: "inconsistent",
+          checks: [
+            {
+              quantity: "period",
+              claimed: "5790",
+              computed: 5676.98,
+              unit: "s",
+              relativeError: 0.98,
+              ok: false,
+              allowance: 5.68,
+              basis: "relative",
+              hint: { code: "unit-scale", message: "looks like minutes", factor: 60 },
+            },
+          ],
+        },
+      },
+    });
+    expect(html).toContain('<th scope="row">Altitude h</th><td>500000 m (= 500 km)</td>');
+    expect(html).toContain('<th scope="row">Orbital period T</th><td>96.5 min (= 5790 s)</td>');
+    expect(html).toContain("outside ±5.68 s (relative bound)");
+    expect(html).toContain("Likely slip: It looks like minutes were written where seconds were meant.");
+    expect(html).toContain("This call: checked at 0.1 %, angles 0.05°.");
+    expect(html).toContain("does not say the mission is feasible or compliant");
   });
 
   it("refuses structures the editor cannot hold", () => {
@@ -94,7 +138,7 @@ describe("dossier sanitizer and renderer", () => {
   it("extracts the orbit checks in order, gives plain text, and finds missing sections", () => {
     const blocks = extractOrbitChecks(hostile);
     expect(blocks).toEqual([{ blockId: BLOCK, label: "<b>parking</b>", claim: expect.objectContaining({ kind: "orbit" }), initialFrom: null }]);
-    expect(dossierPlainText(hostile)).toContain("[orbit check: <b>parking</b> (orbit)]");
+    expect(dossierPlainText(hostile)).toContain("[orbit check: <b>parking</b> (Orbit shape)]");
     expect(missingSections(hostile, ["orbit <img src=x onerror=alert(1)>", "Propulsion"])).toEqual(["Propulsion"]);
   });
 

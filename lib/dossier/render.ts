@@ -5,8 +5,11 @@
  */
 import { quantityInfo } from "@/lib/orbit";
 import { REQUIREMENT_STATUS_LABELS, type RequirementOutcome } from "@/lib/requirements/types";
+import { CONSISTENT_MEANS, bodyLabel, kindLabel, policySummary, quantityLabel } from "@/lib/orbit/labels";
 import { sanitizeDossier } from "./sanitize";
-import type { DossierClaim, DossierMark, DossierNode, SanitizeContext } from "./schema";
+import type { DossierClaim, DossierMark, DossierNode, SanitizeContext, WrittenValues } from "./schema";
+import { convertWritten } from "./units";
+import { checkSentence, rowHint } from "./verdict-text";
 
 export function escapeHtml(text: string): string {
   return text.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]!);
@@ -15,7 +18,17 @@ export function escapeHtml(text: string): string {
 /** The verdict the server found for a block, shown beside it when given. */
 export interface BlockVerdict {
   status: "consistent" | "inconsistent" | "invalid";
-  checks?: { quantity: string; claimed: unknown; computed: unknown; unit: string; relativeError: number | null; ok: boolean }[];
+  checks?: {
+    quantity: string;
+    claimed: unknown;
+    computed: unknown;
+    unit: string;
+    relativeError: number | null;
+    ok: boolean;
+    allowance?: unknown;
+    basis?: unknown;
+    hint?: unknown;
+  }[];
   messages?: string[];
   /** The call's requirements judged on this claim at submission. */
   requirements?: RequirementOutcome[];
@@ -24,6 +37,8 @@ export interface BlockVerdict {
 export interface RenderOptions extends SanitizeContext {
   /** Server verdicts by blockId. */
   verdicts?: Record<string, BlockVerdict>;
+  /** The call's tolerance policy, named beside each verdict. */
+  tolerance?: { relative?: number; absolute?: Record<string, number | undefined> };
 }
 
 const attr = (name: string, value: unknown) => (value === undefined || value === null ? "" : ` ${name}="${escapeHtml(String(value))}"`);
@@ -74,8 +89,7 @@ function unitOf(name: string): string {
 }
 
 function bodyName(body: unknown): string {
-  if (typeof body === "string") return body;
-  if (typeof body === "object" && body !== null) return formatValue(body);
+  if (typeof body === "string" || (typeof body === "object" && body !== null)) return bodyLabel(body);
   return "default body";
 }
 
@@ -85,11 +99,20 @@ const STATUS_TEXT: Record<BlockVerdict["status"], string> = {
   invalid: "Cannot be evaluated",
 };
 
-/** "period: claimed 6052 s, recomputed 6052.3 s (0.005 % off), within tolerance" */
+/** "Orbital period: claimed 6052 s, recomputed 6052.3 s, within ±1 s (absolute bound) (0.005 % off)", and the likely slip. */
 function checkLine(c: NonNullable<BlockVerdict["checks"]>[number]): string {
-  const unit = c.unit && c.unit !== "1" ? ` ${c.unit}` : "";
   const off = typeof c.relativeError === "number" && Number.isFinite(c.relativeError) ? ` (${formatPercent(c.relativeError)} off)` : "";
-  return `${c.quantity}: claimed ${formatValue(c.claimed)}${unit}, recomputed ${formatValue(c.computed)}${unit}${off}, ${c.ok ? "within tolerance" : "outside tolerance"}`;
+  const hint = rowHint(c);
+  return `${checkSentence(c)}${off}${hint ? `. Likely slip: ${hint}` : ""}`;
+}
+
+/** "96.5 min (= 5790 s)": the value as written, with the contract-unit value when converted. */
+function writtenValue(name: string, value: unknown, written: { text: string; unit: string } | undefined): string {
+  const unit = unitOf(name);
+  if (!written) return `${formatValue(value)}${unit ? ` ${unit}` : ""}`;
+  const c = convertWritten(written, quantityInfo(name)?.unit ?? "");
+  if ("error" in c || c.factor === 1) return `${written.text}${written.unit && written.unit !== "1" ? ` ${written.unit}` : ""}`;
+  return `${written.text} ${written.unit} (= ${formatValue(c.value)}${unit ? ` ${unit}` : ""})`;
 }
 
 function formatPercent(fraction: number): string {
@@ -110,14 +133,15 @@ function renderOrbitCheck(node: DossierNode, options: RenderOptions): string {
   const a = node.attrs ?? {};
   const blockId = String(a.blockId ?? "");
   const claim = (a.claim ?? { kind: "orbit", given: {} }) as DossierClaim;
-  const label = typeof a.label === "string" && a.label.trim() ? a.label.trim() : `${claim.kind} claim`;
-  const rows = (title: string, values: Record<string, unknown> | undefined) => {
+  const label = typeof a.label === "string" && a.label.trim() ? a.label.trim() : `${kindLabel(claim.kind)} claim`;
+  const written = (a.written ?? {}) as WrittenValues;
+  const rows = (title: string, values: Record<string, unknown> | undefined, side: "given" | "claimed") => {
     const entries = Object.entries(values ?? {});
     if (entries.length === 0) return "";
     return (
       `<tr><th colspan="2" scope="colgroup">${escapeHtml(title)}</th></tr>` +
       entries
-        .map(([k, v]) => `<tr><th scope="row">${escapeHtml(k)}</th><td>${escapeHtml(formatValue(v))}${unitOf(k) ? ` ${escapeHtml(unitOf(k))}` : ""}</td></tr>`)
+        .map(([k, v]) => `<tr><th scope="row">${escapeHtml(quantityLabel(k, ""))}</th><td>${escapeHtml(writtenValue(k, v, written[side]?.[k]))}</td></tr>`)
         .join("")
     );
   };
@@ -126,13 +150,14 @@ function renderOrbitCheck(node: DossierNode, options: RenderOptions): string {
     ? `<div class="orbit-check-verdict" data-status="${escapeHtml(verdict.status)}"><strong>Server check: ${escapeHtml(STATUS_TEXT[verdict.status])}</strong>` +
       (verdict.checks ?? []).map((c) => `<div data-check-ok="${c.ok}">${escapeHtml(checkLine(c))}</div>`).join("") +
       (verdict.messages ?? []).map((m) => `<div>${escapeHtml(m)}</div>`).join("") +
+      `<div class="orbit-check-means" data-consistent-means="">${escapeHtml(CONSISTENT_MEANS)}${options.tolerance ? ` This call: ${escapeHtml(policySummary(options.tolerance))}.` : ""}</div>` +
       `</div>` +
       requirementsHtml(verdict.requirements)
     : "";
   return (
     `<figure class="orbit-check" id="orbit-check-${escapeHtml(blockId)}" data-orbit-check="" data-block-id="${escapeHtml(blockId)}" data-kind="${escapeHtml(claim.kind)}"${verdict ? attr("data-status", verdict.status) : ""}>` +
-    `<figcaption><strong>${escapeHtml(label)}</strong> · ${escapeHtml(claim.kind)} · ${escapeHtml(bodyName(claim.body))}</figcaption>` +
-    `<table class="orbit-check-values"><tbody>${rows("Given", claim.given)}${rows("Claimed", claim.claimed)}</tbody></table>` +
+    `<figcaption><strong>${escapeHtml(label)}</strong> · ${escapeHtml(kindLabel(claim.kind))} · ${escapeHtml(bodyName(claim.body))}</figcaption>` +
+    `<table class="orbit-check-values"><tbody>${rows("Given", claim.given, "given")}${rows("Claimed", claim.claimed, "claimed")}</tbody></table>` +
     verdictHtml +
     `</figure>`
   );
@@ -206,7 +231,7 @@ export function dossierPlainText(doc: unknown): string {
     } else if (node.type === "orbitCheck") {
       const claim = node.attrs?.claim as DossierClaim | undefined;
       const label = typeof node.attrs?.label === "string" && node.attrs.label ? node.attrs.label : (claim?.kind ?? "orbit check");
-      lines.push(`[orbit check: ${label} (${claim?.kind ?? "?"})]`);
+      lines.push(`[orbit check: ${label} (${claim?.kind ? kindLabel(claim.kind) : "?"})]`);
     } else if (node.type === "image") {
       lines.push(`[image: ${String(node.attrs?.alt ?? "")}]`);
     } else {

@@ -193,6 +193,7 @@ function cleanNode(node: unknown, depth: number, state: WalkState): DossierNode[
     };
     const source = cleanSource(a.source);
     if (source) out.attrs.source = source;
+    if (a.written) out.attrs.written = a.written;
     return [out];
   }
   if (attrs) out.attrs = attrs;

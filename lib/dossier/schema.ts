@@ -27,6 +27,14 @@ export interface OrbitCheckAttrs {
   initialFrom?: string | null;
   /** The orbit file the block was made from (attachment id and SHA-256). */
   source?: { attachmentId: string; sha256: string; filename: string; index: number } | null;
+  /** The values as the proposer typed them, with the unit chosen beside each (lib/dossier/units.ts). */
+  written?: WrittenValues;
+}
+
+/** Typed text and unit per given and claimed quantity; the claim holds the contract-unit values. */
+export interface WrittenValues {
+  given?: Record<string, { text: string; unit: string }>;
+  claimed?: Record<string, { text: string; unit: string }>;
 }
 
 export interface DossierMark {
@@ -76,6 +84,7 @@ export const OrbitCheckNode = Node.create({
       initialFrom: { default: null },
       /** The orbit file the block was made from: { attachmentId, sha256, filename, index } (lib/orbit-files/compare.ts). */
       source: { default: null },
+      written: { default: null },
     };
   },
   parseHTML() {
@@ -96,6 +105,7 @@ export const OrbitCheckNode = Node.create({
             claim: claim ?? undefined,
             initialFrom: el.getAttribute("data-initial-from"),
             source: parseSource(el.getAttribute("data-source")),
+            written: parseWritten(el.getAttribute("data-written")),
           };
         },
       },
@@ -108,12 +118,44 @@ export const OrbitCheckNode = Node.create({
         { "data-orbit-check": "", "data-block-id": node.attrs.blockId, "data-label": node.attrs.label, "data-claim": JSON.stringify(node.attrs.claim) },
         node.attrs.initialFrom ? { "data-initial-from": node.attrs.initialFrom } : {},
         node.attrs.source ? { "data-source": JSON.stringify(node.attrs.source) } : {},
+        node.attrs.written ? { "data-written": JSON.stringify(node.attrs.written) } : {},
         // HTMLAttributes carries the attrs again under their own names; drop the JSON one.
-        Object.fromEntries(Object.entries(HTMLAttributes).filter(([k]) => !["claim", "blockId", "label", "initialFrom", "source"].includes(k))),
+        Object.fromEntries(Object.entries(HTMLAttributes).filter(([k]) => !["claim", "blockId", "label", "initialFrom", "source", "written"].includes(k))),
       ),
     ];
   },
 });
+
+function parseWritten(text: string | null): WrittenValues | null {
+  if (!text) return null;
+  try {
+    return cleanWritten(JSON.parse(text)) ?? null;
+  } catch {
+    return null;
+  }
+}
+
+const WRITTEN_KEY = /^[A-Za-z][A-Za-z0-9_]{0,59}$/;
+const WRITTEN_UNIT = /^[A-Za-z/°]{1,12}$/;
+
+/** Keeps only `{ given, claimed }` maps of `{ text ≤ 60 chars, unit }` under quantity names. */
+export function cleanWritten(v: unknown): WrittenValues | undefined {
+  if (typeof v !== "object" || v === null || Array.isArray(v)) return undefined;
+  const out: WrittenValues = {};
+  for (const side of ["given", "claimed"] as const) {
+    const raw = (v as Record<string, unknown>)[side];
+    if (typeof raw !== "object" || raw === null || Array.isArray(raw)) continue;
+    const map: Record<string, { text: string; unit: string }> = {};
+    for (const [k, e] of Object.entries(raw).slice(0, 40)) {
+      if (!WRITTEN_KEY.test(k) || typeof e !== "object" || e === null) continue;
+      const { text, unit } = e as { text?: unknown; unit?: unknown };
+      if (typeof text !== "string" || typeof unit !== "string" || !WRITTEN_UNIT.test(unit)) continue;
+      map[k] = { text: text.slice(0, 60), unit };
+    }
+    if (Object.keys(map).length > 0) out[side] = map;
+  }
+  return out.given || out.claimed ? out : undefined;
+}
 
 export const LINK_PROTOCOLS = ["http", "https", "mailto"] as const;
 
@@ -234,6 +276,7 @@ export const NODE_ATTRS: Record<string, Record<string, AttrCleaner>> = {
     claim: (v) => v,
     // The orbit-file link is cleaned in sanitize.ts (cleanSource).
     source: (v) => (v && typeof v === "object" ? v : undefined),
+    written: (v) => cleanWritten(v),
   },
 };
 

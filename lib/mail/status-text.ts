@@ -1,3 +1,4 @@
+import { formatDateTime } from "@/lib/format/dates";
 /**
  * Says in words what happened to an outbox message and what comes next, for the chair's
  * decision page and the admin outbox. Pure (no server-only imports), so the browser can use it.
@@ -13,8 +14,7 @@ export interface OutboxState {
   sentAt?: string | null;
 }
 
-const time = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
-const at = (iso: string | null | undefined) => (iso ? `${time.format(new Date(iso))} UTC` : null);
+const at = (iso: string | null | undefined) => (iso ? formatDateTime(iso) : null);
 const attemptsText = (n: number) => `${n} ${n === 1 ? "attempt" : "attempts"}`;
 
 export function outboxStatusText(m: OutboxState, maxAttempts = OUTBOX_MAX_ATTEMPTS): string {

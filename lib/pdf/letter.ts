@@ -3,6 +3,7 @@ import path from "node:path";
 import PDFDocument from "pdfkit";
 import type { LetterBlock, LetterRun } from "@/lib/decisions/letter";
 import { formatDate } from "@/lib/format/dates";
+import { orbitCheckNotice } from "@/lib/dossier/verdict-text";
 
 /**
  * The decision letter as a PDF, drawn on the server with pdfkit in VisViva's own layout:
@@ -20,8 +21,8 @@ export interface LetterPdfInput {
   blocks: LetterBlock[];
 }
 
-export const LETTER_CAUTION =
-  "Orbit checks in VisViva are two-body screening estimates, not a substitute for high-fidelity analysis. Debris and licensing rules are those of the operator's own authority.";
+/** The footer: the orbit-check contract's notice, in the engine's own words. */
+export const LETTER_CAUTION = `Orbit checks: ${orbitCheckNotice()}`;
 
 const FONT_DIR = () => path.join(process.cwd(), "node_modules", "@fontsource", "source-sans-3", "files");
 const fontFile = (subset: string, weight: number, style: "normal" | "italic") => path.join(FONT_DIR(), `source-sans-3-${subset}-${weight}-${style}.woff`);

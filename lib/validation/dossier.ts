@@ -3,15 +3,31 @@
 import { z } from "zod";
 import { proposalStatuses } from "@/db/schema/proposals";
 
-const TOLERANCE_UNITS = ["km", "km/s", "deg", "s", "kg", "deg/day"] as const;
+export const TOLERANCE_UNITS = ["km", "km/s", "deg", "s", "kg", "deg/day", "rev/day"] as const;
 
-export const tolerancePolicySchema = z.strictObject({
-  relative: z
-    .number("relative tolerance must be a number")
-    .min(0, "relative tolerance cannot be negative")
-    .max(0.5, "relative tolerance above 50% checks nothing"),
-  absolute: z.partialRecord(z.enum(TOLERANCE_UNITS), z.number().min(0, "absolute tolerances cannot be negative")).optional(),
-});
+/**
+ * A call's tolerance policy (orbit-check contract version 2): a relative bound, and an
+ * absolute bound per unit (angles are held to `deg` alone). Each message names its field.
+ */
+export const tolerancePolicySchema = z.strictObject(
+  {
+    relative: z
+      .number("the relative bound must be a finite number, as a fraction (0.001 is 0.1 %)")
+      .min(0, "the relative bound cannot be negative")
+      .lt(0.5, "the relative bound must be below 0.5 (50 %); a bound that wide checks nothing"),
+    absolute: z
+      .partialRecord(
+        z.enum(TOLERANCE_UNITS, `absolute bounds take these units only: ${TOLERANCE_UNITS.join(", ")}`),
+        z.number("an absolute bound must be a finite number in its unit").min(0, "an absolute bound cannot be negative"),
+      )
+      .optional(),
+  },
+  "a tolerance policy takes relative and absolute only",
+);
+export type TolerancePolicyInput = z.infer<typeof tolerancePolicySchema>;
+
+/** The contract version 2 default for a new call: 0.1 % relative (absolute bounds: the contract's). */
+export const DEFAULT_CALL_TOLERANCE = { relative: 0.001 };
 
 const dateInput = z.coerce.date("must be a date and time (ISO 8601)");
 
@@ -23,7 +39,7 @@ export const callInputSchema = z
     description: z.string().max(5000).default(""),
     opensAt: dateInput,
     closesAt: dateInput,
-    tolerance: tolerancePolicySchema.default({ relative: 0.01 }),
+    tolerance: tolerancePolicySchema.default(DEFAULT_CALL_TOLERANCE),
     requiredSections: z.array(sectionName).max(30, "at most 30 required sections").default([]),
     reviewersPerProposal: z.coerce.number().int().min(1, "at least one reviewer per proposal").max(10, "at most 10 reviewers per proposal").default(2),
   })

@@ -55,7 +55,7 @@ describe("deciding, resubmitting and comparing in the browser", () => {
     expect(mail.attachments[0]!.contentType).toBe("application/pdf");
     const attached = await pdfParse(Buffer.from(mail.attachments[0]!.contentBase64, "base64"));
     expect(attached.text).toContain(s.proposal.title);
-    expect(attached.text.replace(/\s+/g, " ")).toContain("two-body screening estimates");
+    expect(attached.text.replace(/\s+/g, " ")).toMatch(/two-body screening estimates, not flight-qualified analysis/i);
     // The decision page reads the outbox status when rendered: reload until it shows "sent".
     await waitFor(
       async () => {

@@ -14,10 +14,10 @@ const PDF = Buffer.from(
 
 async function fillBlock(page: Page, block: Locator, name: string, altitude: string, period: string) {
   await typeInto(block.getByLabel("Name in the text"), name);
-  await typeInto(block.getByLabel("altitude", { exact: true }), altitude);
+  await typeInto(block.getByLabel("Altitude h (km)", { exact: true }), altitude);
   await block.getByLabel("Add a claimed value").selectOption("period");
   await block.getByRole("button", { name: "Add claim" }).click();
-  await typeInto(block.getByLabel("claimed period", { exact: true }), period);
+  await typeInto(block.getByLabel("Claimed Orbital period T (s)", { exact: true }), period);
 }
 
 /** The label of the focused element when it lies inside `scope`, else null. */
@@ -78,8 +78,8 @@ describe("writing and submitting a dossier in the browser", () => {
       await expect.poll(() => blocks.nth(0).getByLabel("Kind").inputValue()).not.toBe("orbit");
       await page.keyboard.press("ArrowUp");
       await expect.poll(() => blocks.nth(0).getByLabel("Kind").inputValue()).toBe("orbit");
-      expect(await blocks.nth(0).getByLabel("altitude", { exact: true }).inputValue()).toBe("500");
-      expect(await blocks.nth(0).getByLabel("claimed period", { exact: true }).inputValue()).toBe("5677");
+      expect(await blocks.nth(0).getByLabel("Altitude h (km)", { exact: true }).inputValue()).toBe("500");
+      expect(await blocks.nth(0).getByLabel("Claimed Orbital period T (s)", { exact: true }).inputValue()).toBe("5677");
       await blocks.nth(0).getByRole("status").filter({ hasText: "Consistent" }).waitFor();
 
       // The second block by keyboard only: the button takes Enter, focus lands in the new
@@ -91,14 +91,14 @@ describe("writing and submitting a dossier in the browser", () => {
       await expect.poll(() => name.evaluate((el) => el === document.activeElement)).toBe(true);
       await page.keyboard.type("the science orbit");
       const second = blocks.nth(1);
-      await tabTo(page, second, "altitude");
+      await tabTo(page, second, "Altitude h (km)");
       await page.keyboard.type("500");
       await tabTo(page, second, "Add a claimed value");
-      await page.keyboard.type("period"); // the select's type-ahead: only chooses
-      await expect.poll(() => second.getByLabel("claimed period").count()).toBe(0);
+      await page.keyboard.type("Orbital period"); // the select's type-ahead: only chooses
+      await expect.poll(() => second.getByLabel("Claimed Orbital period T (s)").count()).toBe(0);
       await tabTo(page, second, "Add claim");
       await page.keyboard.press("Enter");
-      await expect.poll(() => focusedLabelIn(second)).toBe("claimed period");
+      await expect.poll(() => focusedLabelIn(second)).toBe("Claimed Orbital period T (s)");
       await page.keyboard.type("6100");
       await blocks.nth(1).getByRole("status").filter({ hasText: "Inconsistent" }).waitFor();
       // The plot has its text alternative.
@@ -128,8 +128,8 @@ describe("writing and submitting a dossier in the browser", () => {
       expect(await flagged.getAttribute("data-block-id")).toMatch(/^[0-9a-f-]{36}$/);
       expect(await flagged.locator("figcaption").innerText()).toContain("the science orbit");
       expect(await flagged.innerText()).toContain("Server check: Inconsistent");
-      expect(await flagged.innerText()).toMatch(/period: claimed [\d.]+ s, recomputed [\d.]+ s \([\d.]+ % off\), outside tolerance/);
-      expect(await page.locator('figure[data-status="consistent"]').first().innerText()).toContain("within tolerance");
+      expect(await flagged.innerText()).toMatch(/Orbital period: claimed [\d.]+ s, recomputed [\d.]+ s, outside ±[\d.]+ s \(relative bound\) \([\d.]+ % off\)/);
+      expect(await page.locator('figure[data-status="consistent"]').first().innerText()).toContain("within ±");
       expect(await page.locator('figure[data-status="consistent"] figcaption').innerText()).toContain("the parking orbit");
       await page.getByRole("complementary").filter({ hasText: "Claims (server check)" }).getByText("1 consistent, 1 inconsistent").waitFor();
       await page.getByRole("link", { name: "lantern-plan.pdf" }).waitFor();

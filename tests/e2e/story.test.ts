@@ -23,10 +23,10 @@ const pdfParse = createRequire(import.meta.url)("pdf-parse/lib/pdf-parse.js") as
 
 async function fillBlock(block: Locator, name: string, altitude: number, period: number) {
   await typeInto(block.getByLabel("Name in the text"), name);
-  await typeInto(block.getByLabel("altitude", { exact: true }), String(altitude));
+  await typeInto(block.getByLabel("Altitude h (km)", { exact: true }), String(altitude));
   await block.getByLabel("Add a claimed value").selectOption("period");
   await block.getByRole("button", { name: "Add claim" }).click();
-  await typeInto(block.getByRole("textbox", { name: "claimed period", exact: true }), String(period));
+  await typeInto(block.getByRole("textbox", { name: "Claimed Orbital period T (s)", exact: true }), String(period));
 }
 
 /** Selects `quote` inside the element matching `rootSelector`, as a reader would with the mouse. */

@@ -123,6 +123,8 @@ describe("deciding on a proposal", () => {
     expect(caught[0]!.to).toEqual([s.proposer.email]);
     expect(caught[0]!.subject).toBe(`Decision on “${s.proposal.title}” (version 1): revise and resubmit`);
     expect(caught[0]!.text).toContain("[major] Drift orbit period");
+    // The orbit-check contract's notice travels with the decision e-mail (version 2).
+    expect(caught[0]!.text).toContain("About the orbit checks: Two-body screening estimates, not flight-qualified analysis.");
     expect(caught[0]!.attachments.map((a) => a.contentType)).toEqual(["application/pdf"]);
     const attached = await pdfParse(Buffer.from(caught[0]!.attachments[0]!.contentBase64, "base64"));
     expect(attached.text).toContain("revise and resubmit");
@@ -181,7 +183,8 @@ describe("deciding on a proposal", () => {
     expect(flat).toContain("Version 1 is accepted; weighted score 4.00; Δv margins were checked.");
     expect(flat).toContain("[major] Drift orbit period");
     expect(flat).toContain("[minor] Eclipse season");
-    expect(flat).toContain("two-body screening estimates, not a substitute for high-fidelity analysis");
+    // The footer carries the orbit-check contract's notice (version 2).
+    expect(flat).toContain("Two-body screening estimates, not flight-qualified analysis");
     expect(flat).toContain("Page 1 of 1");
     expect(flat).toContain(formatDate(view.decidedAt));
 
@@ -315,6 +318,9 @@ describe("deciding on a proposal", () => {
     });
     expect(preview.subject).toContain("declined");
     expect(preview.letterText).toContain("[minor] Eclipse season");
+    // The letter's merge fields name each value found outside tolerance, and what "consistent" means.
+    expect(preview.letterText).toMatch(/Orbital period: claimed [\d.]+ s, recomputed [\d.]+ s, outside tolerance\./);
+    expect(preview.letterText).toContain("does not say the mission is feasible or compliant");
     expect(preview.html).toContain("Eclipse season");
     expect(preview.text).toContain("Open the decision:");
     expect(await db().select({ id: decisions.id }).from(decisions).where(eq(decisions.proposalId, s.proposal.id))).toEqual([]);

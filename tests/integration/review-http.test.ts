@@ -125,9 +125,11 @@ describe("review API over HTTP", () => {
     expect(csv.headers.get("content-type")).toContain("text/csv");
     expect(csv.headers.get("content-disposition")).toMatch(/attachment; filename=".*-overview\.csv"/);
     const lines = (await csv.text()).trim().split("\r\n");
-    expect(lines).toHaveLength(2);
+    expect(lines).toHaveLength(3);
     // One review of 3.9: mean 3.900, no spread with a single review.
     expect(lines[1]).toContain(",1,1,2,3.900,,0,1,0,1,0");
+    // The orbit-check contract's notice closes the export (contract version 2, "Other additions").
+    expect(lines[2]).toMatch(/^"Notice: .*screening.*flight/i);
   });
 
   it("answers malformed ids and bodies with 4xx, never 500", async () => {

@@ -1,5 +1,6 @@
 import { renderMail } from "./layout";
 import { formatDateTime } from "@/lib/format/dates";
+import { orbitCheckNotice } from "@/lib/dossier/verdict-text";
 
 /** The decision letter e-mail: a short lead, the letter itself, and where to read more. */
 export function renderDecisionMail(input: {
@@ -20,7 +21,8 @@ export function renderDecisionMail(input: {
     ],
     body: { html: input.letterHtml, text: input.letterText },
     action: { label: "Open the decision", url: input.url },
-    footnote: "You receive this because you are an author of this proposal.",
+    // The orbit-check contract's notice: the letter may cite the server's verdicts.
+    footnote: `You receive this because you are an author of this proposal. About the orbit checks: ${orbitCheckNotice()}`,
   });
 }
 

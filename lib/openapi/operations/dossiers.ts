@@ -14,8 +14,30 @@ import {
   proposalPageSchema,
   proposalUpdateSchema,
   submitSchema,
+  tolerancePolicySchema,
   versionSummarySchema,
 } from "@/lib/validation/dossier";
+
+const callToleranceSchema = z.object({ callId: z.uuid(), tolerance: tolerancePolicySchema });
+
+const verdictStatus = z.enum(["consistent", "inconsistent", "invalid"]);
+const rerunSchema = z.object({
+  contractVersion: z.number().int(),
+  tolerance: z.object({ relative: z.number().optional(), absolute: z.record(z.string(), z.number()).optional() }),
+  differing: z.number().int().describe("blocks whose status or any check row differs"),
+  blocks: z.array(
+    z.object({
+      blockId: z.string(),
+      label: z.string(),
+      kind: z.string(),
+      storedStatus: verdictStatus.nullable(),
+      storedContractVersion: z.number().int().nullable(),
+      todayStatus: verdictStatus,
+      changes: z.array(z.object({ quantity: z.string(), stored: z.unknown(), today: z.unknown() })),
+      todayMessages: z.array(z.string()),
+    }),
+  ),
+});
 
 const board = "/api/v1/boards/{boardId}";
 const proposal = `${board}/proposals/{proposalId}`;
@@ -79,6 +101,26 @@ export const dossierOperations = defineOperations([
     access: "signed-in",
     body: callInputSchema,
     response: z.object({ call: callSchema }),
+  },
+  {
+    method: "get",
+    path: `${board}/calls/{callId}/tolerance`,
+    operationId: "getCallTolerance",
+    summary: "The call's tolerance policy for orbit checks (any member: proposers see what their claims are checked at)",
+    tag: "calls",
+    access: "signed-in",
+    response: callToleranceSchema,
+  },
+  {
+    method: "put",
+    path: `${board}/calls/{callId}/tolerance`,
+    operationId: "updateCallTolerance",
+    summary:
+      "Set the call's tolerance policy (chairs): a relative bound below 50 % and absolute bounds per unit; applies to submissions from now on, submitted versions keep their record",
+    tag: "calls",
+    access: "signed-in",
+    body: tolerancePolicySchema,
+    response: callToleranceSchema,
   },
   {
     method: "get",
@@ -188,6 +230,16 @@ export const dossierOperations = defineOperations([
     tag: "versions",
     access: "signed-in",
     response: z.object({ results: z.array(checkResultSchema) }),
+  },
+  {
+    method: "get",
+    path: `${version}/todays-rules`,
+    operationId: "rerunVersionWithTodaysRules",
+    summary:
+      "Chairs: a submitted version recomputed with today's engine and the call's current tolerance policy, block by block beside its stored record (status, contract version, check rows that differ); nothing is stored",
+    tag: "versions",
+    access: "signed-in",
+    response: z.object({ rerun: rerunSchema }),
   },
   {
     method: "get",

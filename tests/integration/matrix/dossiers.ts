@@ -126,6 +126,16 @@ export const dossierRouteCases: RouteCase[] = [
     prepare: async (cast) => ({ path: `${board(cast)}/calls/${(await makeCall(cast)).id}`, body: callBody() }),
     expect: { ...chairOnly, chair: 200, admin: 200 },
   },
+  {
+    operationId: "getCallTolerance",
+    prepare: async (cast) => ({ path: `${board(cast)}/calls/${(await makeCall(cast)).id}/tolerance` }),
+    expect: members,
+  },
+  {
+    operationId: "updateCallTolerance",
+    prepare: async (cast) => ({ path: `${board(cast)}/calls/${(await makeCall(cast)).id}/tolerance`, body: { relative: 0.0005, absolute: { deg: 0.02 } } }),
+    expect: { ...chairOnly, chair: 200, admin: 200 },
+  },
   { operationId: "listProposals", prepare: async (cast) => ({ path: `${board(cast)}/proposals`, query: { pageSize: "5" } }), expect: members },
   {
     operationId: "createProposal",
@@ -182,6 +192,11 @@ export const dossierRouteCases: RouteCase[] = [
     operationId: "listCheckResults",
     prepare: async (cast) => ({ path: `${board(cast)}/proposals/${(await submittedProposal(cast)).id}/versions/1/check-results` }),
     expect: viewers,
+  },
+  {
+    operationId: "rerunVersionWithTodaysRules",
+    prepare: async (cast) => ({ path: `${board(cast)}/proposals/${(await submittedProposal(cast)).id}/versions/1/todays-rules` }),
+    expect: { anonymous: 401, outsider: 404, proposer: 403, reviewer: 404, chair: 200, admin: 200 },
   },
   {
     operationId: "listAttachments",

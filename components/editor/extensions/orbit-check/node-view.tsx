@@ -7,7 +7,11 @@ import { NodeViewWrapper, useEditorState, type ReactNodeViewProps } from "@tipta
 import type { Editor } from "@tiptap/core";
 import { BODY_NAMES, ORBIT_CHECK_KINDS, SCREENING_CAUTION, conicForPlot, evaluateClaim, type KindInfo } from "@/lib/orbit";
 import { REFERENCEABLE_KINDS, REFERENCING_KINDS, resolveClaim, type OrbitCheckBlock, type ToleranceInput } from "@/lib/dossier/claims";
-import type { DossierClaim } from "@/lib/dossier/schema";
+import type { DossierClaim, WrittenValues } from "@/lib/dossier/schema";
+import { bodyLabel, kindLabel, plainQuantities, quantityLabel } from "@/lib/orbit/labels";
+import { NOT_A_NUMBER, parseDecimal, type ConvertedValue, type WrittenValue } from "@/lib/dossier/units";
+import { WrittenInput, initialWritten } from "./written-input";
+import { CheckRowDetail, ConsistentMeaning } from "@/components/dossier/check-explain";
 import { formatValue } from "@/lib/dossier/render";
 import { OrbitPlot } from "@/components/orbit-plot/orbit-plot";
 import { VerdictBadge } from "@/components/dossier/verdict-badge";
@@ -25,6 +29,7 @@ export function blocksOf(editor: Editor): OrbitCheckBlock[] {
         label: node.attrs.label ?? "",
         claim: node.attrs.claim as DossierClaim,
         initialFrom: node.attrs.initialFrom ?? null,
+        ...(node.attrs.written ? { written: node.attrs.written as WrittenValues } : {}),
       });
       return false;
     }
@@ -37,56 +42,17 @@ const unitText = (unit: string) => (unit === "1" || unit === "" ? "" : unit);
 const kindInfo = (kind: string): KindInfo | undefined => ORBIT_CHECK_KINDS.find((k) => k.kind === kind);
 
 function parseNumber(text: string): number | undefined {
-  const t = text.trim().replace(/\s/g, "");
-  if (t === "") return undefined;
-  const n = Number(t);
-  return Number.isFinite(n) ? n : undefined;
-}
-
-function NumberInput({
-  label,
-  unit,
-  value,
-  onChange,
-  describedBy,
-}: {
-  label: string;
-  unit: string;
-  value: unknown;
-  onChange: (v: number | undefined) => void;
-  describedBy?: string;
-}) {
-  const id = useId();
-  const [text, setText] = useState(typeof value === "number" ? String(value) : "");
-  const invalid = text.trim() !== "" && parseNumber(text) === undefined;
-  return (
-    <div className="flex items-center gap-2">
-      <label htmlFor={id} className="w-44 shrink-0 text-xs font-semibold text-ink-700">
-        {label}
-      </label>
-      <input
-        id={id}
-        inputMode="decimal"
-        value={text}
-        aria-invalid={invalid || undefined}
-        aria-describedby={describedBy}
-        onChange={(e) => {
-          setText(e.target.value);
-          onChange(parseNumber(e.target.value));
-        }}
-        className="w-32 rounded-chip border border-ink-300 bg-white px-2 py-1 font-mono text-sm aria-[invalid=true]:border-void-500"
-      />
-      <span className="w-16 text-xs text-ink-500">{unitText(unit)}</span>
-    </div>
-  );
+  const parsed = parseDecimal(text);
+  return parsed.ok ? parsed.value : undefined;
 }
 
 function VectorInput({ label, unit, value, onChange }: { label: string; unit: string; value: unknown; onChange: (v: number[] | undefined) => void }) {
   const base = useId();
   const initial = Array.isArray(value) ? value.map((x) => String(x)) : ["", "", ""];
   const [parts, setParts] = useState<string[]>(initial);
+  const unreadable = parts.some((p) => p.trim() !== "" && parseNumber(p) === undefined);
   return (
-    <fieldset className="flex items-center gap-2">
+    <fieldset className="flex flex-wrap items-center gap-2">
       <legend className="sr-only">{label}</legend>
       <span className="w-44 shrink-0 text-xs font-semibold text-ink-700" aria-hidden>
         {label}
@@ -97,6 +63,8 @@ function VectorInput({ label, unit, value, onChange }: { label: string; unit: st
           id={`${base}-${axis}`}
           aria-label={`${label} ${axis}`}
           inputMode="decimal"
+          aria-invalid={(parts[i] ?? "").trim() !== "" && parseNumber(parts[i] ?? "") === undefined ? true : undefined}
+          aria-describedby={unreadable ? `${base}-problem` : undefined}
           value={parts[i] ?? ""}
           onChange={(e) => {
             const next = [...parts];
@@ -105,10 +73,15 @@ function VectorInput({ label, unit, value, onChange }: { label: string; unit: st
             const nums = next.map(parseNumber);
             onChange(nums.every((n) => n !== undefined) ? (nums as number[]) : undefined);
           }}
-          className="w-24 rounded-chip border border-ink-300 bg-white px-2 py-1 font-mono text-sm"
+          className="w-24 rounded-chip border border-ink-300 bg-white px-2 py-1 font-mono text-sm aria-[invalid=true]:border-void-500"
         />
       ))}
       <span className="text-xs text-ink-500">{unit}</span>
+      {unreadable ? (
+        <p id={`${base}-problem`} className="w-full pl-46 text-2xs font-semibold text-void-700" data-field-error="">
+          {NOT_A_NUMBER}
+        </p>
+      ) : null}
     </fieldset>
   );
 }
@@ -117,10 +90,14 @@ function ManeuversInput({ value, onChange }: { value: unknown; onChange: (v: { n
   const id = useId();
   const initial = Array.isArray(value) ? value.map((m) => `${(m as { name?: string }).name ?? ""}: ${(m as { deltaV?: number }).deltaV ?? ""}`).join("\n") : "";
   const [text, setText] = useState(initial);
+  // The first line whose Δv cannot be read (1-based), for the message on the field.
+  const lines = text.split("\n").map((line) => line.trim());
+  const badIndex = lines.findIndex((line) => line !== "" && parseNumber(line.lastIndexOf(":") >= 0 ? line.slice(line.lastIndexOf(":") + 1) : "") === undefined);
+  const badLine = badIndex >= 0 ? badIndex + 1 : null;
   return (
-    <div className="flex items-start gap-2">
+    <div className="flex flex-wrap items-start gap-2">
       <label htmlFor={id} className="w-44 shrink-0 text-xs font-semibold text-ink-700">
-        maneuvers (one per line, name: Δv km/s)
+        Manoeuvres (one per line, name: Δv in km/s)
       </label>
       <textarea
         id={id}
@@ -138,13 +115,32 @@ function ManeuversInput({ value, onChange }: { value: unknown; onChange: (v: { n
             });
           onChange(items.every((m) => m.deltaV !== undefined) ? (items as { name: string; deltaV: number }[]) : undefined);
         }}
-        className="w-72 rounded-chip border border-ink-300 bg-white px-2 py-1 font-mono text-sm"
+        aria-invalid={badLine ? true : undefined}
+        aria-describedby={badLine ? `${id}-problem` : undefined}
+        className="w-72 rounded-chip border border-ink-300 bg-white px-2 py-1 font-mono text-sm aria-[invalid=true]:border-void-500"
       />
+      {badLine ? (
+        <p id={`${id}-problem`} className="text-2xs font-semibold text-void-700" data-field-error="">
+          Line {badLine}: the Δv is {NOT_A_NUMBER}
+        </p>
+      ) : null}
     </div>
   );
 }
 
-function SelectInput({ label, value, options, onChange }: { label: string; value: string; options: readonly string[]; onChange: (v: string) => void }) {
+function SelectInput({
+  label,
+  value,
+  options,
+  onChange,
+  optionLabel,
+}: {
+  label: string;
+  value: string;
+  options: readonly string[];
+  onChange: (v: string) => void;
+  optionLabel?: (v: string) => string;
+}) {
   const id = useId();
   return (
     <div className="flex items-center gap-2">
@@ -154,7 +150,7 @@ function SelectInput({ label, value, options, onChange }: { label: string; value
       <select id={id} value={value} onChange={(e) => onChange(e.target.value)} className="rounded-chip border border-ink-300 bg-white px-2 py-1 text-sm">
         {options.map((o) => (
           <option key={o} value={o}>
-            {o}
+            {optionLabel ? optionLabel(o) : o}
           </option>
         ))}
       </select>
@@ -167,6 +163,7 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
   const label: string = node.attrs.label ?? "";
   const claim = (node.attrs.claim ?? { kind: "orbit", given: {} }) as DossierClaim;
   const initialFrom: string | null = node.attrs.initialFrom ?? null;
+  const written = (node.attrs.written ?? {}) as WrittenValues;
   const tolerance = (extension.options as { tolerance?: ToleranceInput }).tolerance;
   const info = kindInfo(claim.kind) ?? ORBIT_CHECK_KINDS[0]!;
   const headingId = useId();
@@ -174,7 +171,7 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
   // Re-render when any block changes: references and the budget depend on the others.
   const blocksJson = useEditorState({ editor, selector: ({ editor: e }) => JSON.stringify(blocksOf(e)) });
   const blocks = useMemo(() => JSON.parse(blocksJson) as OrbitCheckBlock[], [blocksJson]);
-  const self: OrbitCheckBlock = { blockId, label, claim, initialFrom };
+  const self: OrbitCheckBlock = { blockId, label, claim, initialFrom, written };
   const { claim: resolved, notes } = resolveClaim(self, blocks.some((b) => b.blockId === blockId) ? blocks : [...blocks, self], tolerance);
   const result = evaluateClaim(resolved, tolerance);
   const plot = conicForPlot(resolved);
@@ -188,17 +185,36 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
     else given[name] = v;
     setClaim({ given });
   };
+  /** A typed number: the contract value goes into the claim, the text and unit into `written`. */
+  const setWritten = (side: "given" | "claimed", name: string, w: WrittenValue | undefined, converted: ConvertedValue | undefined) => {
+    const values = { ...(side === "given" ? claim.given : (claim.claimed ?? {})) };
+    // What cannot be read is sent as typed, so the server refuses it by name rather than drop it.
+    if (w === undefined) delete values[name];
+    else if (side === "given") {
+      if (converted) values[name] = converted.value;
+      else delete values[name];
+    } else values[name] = converted ? converted.claimedText : w.text.trim();
+    const texts = { ...(written[side] ?? {}) };
+    if (w === undefined) delete texts[name];
+    else texts[name] = w;
+    if (side === "claimed") setPending((p) => (p.includes(name) ? p : [...p, name]));
+    updateAttributes({ claim: { ...claim, [side]: values }, written: { ...written, [side]: texts } });
+  };
   const claimed = claim.claimed ?? {};
   // Rows added but not filled in yet stay local: an empty claim is not a claim.
   const [pending, setPending] = useState<string[]>([]);
   const [choice, setChoice] = useState("");
-  const stash = useRef<Record<string, { claim: DossierClaim; initialFrom: string | null }>>({});
+  const stash = useRef<Record<string, { claim: DossierClaim; initialFrom: string | null; written: WrittenValues | null }>>({});
   const setClaimed = (name: string, v: number | string | undefined | null) => {
     const next = { ...claimed };
     if (v === undefined || v === null || v === "") delete next[name];
     else next[name] = v;
     setPending((p) => (v === null ? p.filter((n) => n !== name) : p.includes(name) ? p : [...p, name]));
-    setClaim({ claimed: next });
+    if (v === null && written.claimed?.[name]) {
+      const texts = { ...written.claimed };
+      delete texts[name];
+      updateAttributes({ claim: { ...claim, claimed: next }, written: { ...written, claimed: texts } });
+    } else setClaim({ claimed: next });
   };
   const claimedRows = [...Object.keys(claimed), ...pending.filter((n) => !(n in claimed))];
   const addChoice = () => {
@@ -208,12 +224,13 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
     setChoice("");
     // The new row's input takes the focus once it is rendered.
     requestAnimationFrame(() =>
-      document.getElementById(`orbit-check-${blockId}`)?.querySelector<HTMLInputElement>(`input[aria-label="claimed ${name}"]`)?.focus(),
+      document.getElementById(`orbit-check-${blockId}`)?.querySelector<HTMLInputElement>(`input[data-claimed-input="${name}"]`)?.focus(),
     );
   };
   const referenced = reference && initialFrom ? new Set(reference.replaces) : new Set<string>();
-  // Tables (decay profile, budget phases) are shown in the rail's charts, not claimed.
-  const unclaimed = info.computed.filter((c) => !claimedRows.includes(c.name) && c.type !== "table");
+  // Tables (decay profile, budget phases) are shown in the rail's charts, not claimed; old names kept as
+  // aliases (earthCentralAngle) are not offered, their new name is.
+  const unclaimed = info.computed.filter((c) => !claimedRows.includes(c.name) && c.type !== "table" && !c.aliasOf);
   const checks = new Map(result.checks.map((c) => [c.quantity, c]));
 
   return (
@@ -261,17 +278,20 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
             label="Kind"
             value={info.kind}
             options={ORBIT_CHECK_KINDS.map((k) => k.kind)}
+            optionLabel={kindLabel}
             onChange={(kind) => {
               // Each kind keeps what was typed for it while the block is open, so moving
               // through the kinds with the arrow keys and back loses nothing.
-              stash.current[claim.kind] = { claim, initialFrom };
+              stash.current[claim.kind] = { claim, initialFrom, written: node.attrs.written ?? null };
               const back = stash.current[kind];
               setPending([]);
-              updateAttributes(back ?? { claim: { kind, body: kindInfo(kind)?.defaultBody ?? "earth", given: {}, claimed: {} }, initialFrom: null });
+              updateAttributes(
+                back ?? { claim: { kind, body: kindInfo(kind)?.defaultBody ?? "earth", given: {}, claimed: {} }, initialFrom: null, written: null },
+              );
             }}
           />
-          <p className="pl-46 text-xs text-ink-500">{info.summary}</p>
-          <SelectInput label="Central body" value={bodyName} options={BODY_NAMES} onChange={(body) => setClaim({ body })} />
+          <p className="pl-46 text-xs text-ink-500">{plainQuantities(info.summary)}</p>
+          <SelectInput label="Central body" value={bodyName} options={BODY_NAMES} optionLabel={bodyLabel} onChange={(body) => setClaim({ body })} />
           {reference ? (
             <div className="flex items-center gap-2">
               <label htmlFor={`${headingId}-from`} className="w-44 shrink-0 text-xs font-semibold text-ink-700">
@@ -286,7 +306,7 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
                 <option value="">(enter it below)</option>
                 {referenceable.map((b) => (
                   <option key={b.blockId} value={b.blockId}>
-                    {b.label || `unnamed ${b.claim.kind} block`}
+                    {b.label || `unnamed ${kindLabel(b.claim.kind).toLowerCase()} block`}
                   </option>
                 ))}
               </select>
@@ -294,13 +314,15 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
           ) : null}
 
           <fieldset className="space-y-1.5 rounded-chip border border-ink-200 p-2">
-            <legend className="px-1 text-xs font-semibold text-ink-800">Given ({info.givenRule})</legend>
+            <legend className="px-1 text-xs font-semibold text-ink-800">Given ({plainQuantities(info.givenRule)})</legend>
             {info.given
               .filter((g) => !referenced.has(g.name))
               .map((g) => {
                 const key = `${info.kind}-${g.name}`;
                 if (g.type === "vector")
-                  return <VectorInput key={key} label={g.name} unit={g.unit} value={claim.given[g.name]} onChange={(v) => setGiven(g.name, v)} />;
+                  return (
+                    <VectorInput key={key} label={quantityLabel(g.name, "")} unit={g.unit} value={claim.given[g.name]} onChange={(v) => setGiven(g.name, v)} />
+                  );
                 if (g.type === "maneuvers") return <ManeuversInput key={key} value={claim.given[g.name]} onChange={(v) => setGiven(g.name, v)} />;
                 if (g.type === "stations") return <StationsInput key={key} value={claim.given[g.name]} onChange={(v) => setGiven(g.name, v)} />;
                 if (g.type === "phases") return <PhasesInput key={key} value={claim.given[g.name]} onChange={(v) => setGiven(g.name, v)} />;
@@ -309,9 +331,10 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
                   return (
                     <SelectInput
                       key={key}
-                      label={g.name}
+                      label={quantityLabel(g.name)}
                       value={typeof claim.given[g.name] === "string" ? (claim.given[g.name] as string) : ""}
                       options={["", ...BODY_NAMES]}
+                      optionLabel={(v) => (v ? bodyLabel(v) : "choose…")}
                       onChange={(v) => setGiven(g.name, v || undefined)}
                     />
                   );
@@ -319,23 +342,25 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
                   return (
                     <SelectInput
                       key={key}
-                      label={g.name}
+                      label={quantityLabel(g.name)}
                       value={typeof claim.given[g.name] === "string" ? (claim.given[g.name] as string) : g.name === "solarActivity" ? "mean" : "prograde"}
                       options={g.name === "solarActivity" ? ["mean", "low", "high"] : ["prograde", "retrograde"]}
                       onChange={(v) => setGiven(g.name, v)}
                     />
                   );
                 return (
-                  <NumberInput
+                  <WrittenInput
                     key={key}
-                    label={`${g.name}${g.use === "optional" ? " (optional)" : ""}`}
-                    unit={g.unit}
-                    value={claim.given[g.name]}
-                    onChange={(v) => setGiven(g.name, v)}
+                    name={g.name}
+                    contractUnit={g.unit}
+                    optional={g.use === "optional"}
+                    body={bodyName}
+                    written={initialWritten(written.given?.[g.name], claim.given[g.name], g.unit)}
+                    onChange={(w, c) => setWritten("given", g.name, w, c)}
                   />
                 );
               })}
-            {notes.length > 0 ? <p className="text-xs text-ink-600">{notes.join("; ")}</p> : null}
+            {notes.length > 0 ? <p className="text-xs text-ink-600">{plainQuantities(notes.join("; "))}</p> : null}
           </fieldset>
 
           <fieldset className="rounded-chip border border-ink-200 p-2">
@@ -346,9 +371,9 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
                   <th scope="col" className="py-1">
                     Quantity
                   </th>
-                  <th scope="col">Claimed</th>
+                  <th scope="col">Claimed, as written</th>
                   <th scope="col">Recomputed</th>
-                  <th scope="col">Error</th>
+                  <th scope="col">Check</th>
                   <th scope="col">
                     <span className="sr-only">Remove</span>
                   </th>
@@ -361,26 +386,32 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
                   const computed = result.computed[name];
                   return (
                     <tr key={`${info.kind}-${name}`} className="border-t border-ink-100">
-                      <th scope="row" className="py-1 pr-2 font-mono font-normal">
-                        {name}
+                      <th scope="row" className="py-1 pr-2 font-normal">
+                        {quantityLabel(name)}
                       </th>
                       <td className="pr-2">
                         {unit === "" && typeof computed === "string" ? (
                           <input
-                            aria-label={`claimed ${name}`}
+                            aria-label={`Claimed ${quantityLabel(name)}`}
+                            data-claimed-input={name}
                             value={String(claimed[name] ?? "")}
                             onChange={(e) => setClaimed(name, e.target.value)}
                             className="w-28 rounded-chip border border-ink-300 bg-white px-2 py-0.5 font-mono"
                           />
                         ) : (
-                          <ClaimedNumber name={name} unit={unit} value={claimed[name]} onChange={(v) => setClaimed(name, v)} />
+                          <WrittenInput
+                            name={name}
+                            contractUnit={unit}
+                            variant="claimed"
+                            body={bodyName}
+                            written={initialWritten(written.claimed?.[name], claimed[name], unit)}
+                            onChange={(w, c) => setWritten("claimed", name, w, c)}
+                          />
                         )}
                       </td>
                       <td className="pr-2 font-mono">{computed !== undefined ? `${formatValue(computed)} ${unitText(unit)}` : "—"}</td>
-                      <td className={`pr-2 font-mono ${row ? (row.ok ? "text-holds-700" : "text-drift-700") : "text-ink-500"}`}>
-                        {row
-                          ? `${row.relativeError !== null ? `${(row.relativeError * 100).toFixed(2)} %` : "—"} ${row.ok ? "within" : "outside"} tolerance`
-                          : "—"}
+                      <td className={`pr-2 ${row ? (row.ok ? "text-holds-700" : "text-drift-700") : "text-ink-500"}`}>
+                        {row ? <CheckRowDetail row={row} /> : "—"}
                       </td>
                       <td>
                         <button
@@ -419,7 +450,7 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
                   <option value="">choose a quantity…</option>
                   {unclaimed.map((c) => (
                     <option key={c.name} value={c.name}>
-                      {c.name} {unitText(c.unit) ? `(${unitText(c.unit)})` : ""}
+                      {quantityLabel(c.name, c.unit)}
                     </option>
                   ))}
                 </select>
@@ -438,7 +469,7 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
           <div id={verdictId + "-detail"} className="space-y-1 text-xs">
             {result.messages.map((m, i) => (
               <p key={i} className={result.status === "invalid" ? "text-void-700" : "text-ink-600"}>
-                {m}
+                {plainQuantities(m)}
               </p>
             ))}
             <details>
@@ -446,7 +477,7 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
               <dl className="mt-1 grid grid-cols-[auto_1fr] gap-x-3 font-mono">
                 {Object.entries(result.computed).map(([k, v]) => (
                   <div key={k} className="contents">
-                    <dt className="text-ink-600">{k}</dt>
+                    <dt className="font-sans text-ink-600">{quantityLabel(k, info.computed.find((c) => c.name === k)?.unit ?? "")}</dt>
                     <dd>
                       {info.computed.find((c) => c.name === k)?.type === "table" && Array.isArray(v)
                         ? `${v.length} rows (see the rail's chart)`
@@ -456,31 +487,13 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
                 ))}
               </dl>
             </details>
+            <ConsistentMeaning tolerance={tolerance} />
             <p className="text-2xs text-ink-500">{SCREENING_CAUTION}</p>
           </div>
         </div>
-        <OrbitPlot plot={plot} title={`Plot of ${label || `the ${info.kind} claim`}`} />
+        <OrbitPlot plot={plot} title={`Plot of ${label || `the ${kindLabel(info.kind).toLowerCase()} claim`}`} />
       </div>
       {claim.kind === "contactTime" ? <ContactPictures claim={resolved} label={label} computed={result.computed} /> : null}
     </NodeViewWrapper>
-  );
-}
-
-function ClaimedNumber({ name, unit, value, onChange }: { name: string; unit: string; value: unknown; onChange: (v: number | undefined) => void }) {
-  const [text, setText] = useState(typeof value === "number" ? String(value) : "");
-  return (
-    <span className="flex items-center gap-1">
-      <input
-        aria-label={`claimed ${name}`}
-        inputMode="decimal"
-        value={text}
-        onChange={(e) => {
-          setText(e.target.value);
-          onChange(parseNumber(e.target.value));
-        }}
-        className="w-28 rounded-chip border border-ink-300 bg-white px-2 py-0.5 font-mono"
-      />
-      <span className="text-ink-500">{unitText(unit)}</span>
-    </span>
   );
 }

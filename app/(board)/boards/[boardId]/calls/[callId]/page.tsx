@@ -1,6 +1,9 @@
 import { formatDateTime } from "@/lib/format/dates";
 import type { Metadata } from "next";
 import Link from "next/link";
+import { CONSISTENT_MEANS, policySummary } from "@/lib/orbit/labels";
+import { listProposals } from "@/lib/dal/proposals";
+import { proposalListQuerySchema } from "@/lib/validation/dossier";
 import { CallForm } from "@/components/dossier/call-form";
 import { PageTitle, Panel } from "@/components/ui/panel";
 import { orNotFound, pageUser } from "@/lib/auth/page-guard";
@@ -23,6 +26,8 @@ export default async function CallPage({ params }: { params: Promise<{ boardId: 
   const isProposer = can(user, "proposal.create", { role: board.myRole });
   const requirements = await listRequirements(user, boardId, callId);
   const abs = Object.entries(call.tolerance.absolute ?? {});
+  const submitted = isChair ? await listProposals(user, boardId, proposalListQuerySchema.parse({ callId, pageSize: 50, sort: "title", dir: "asc" })) : null;
+  if (submitted) submitted.rows = submitted.rows.filter((p) => p.latestVersion > 0);
   return (
     <div className="space-y-6">
       <PageTitle eyebrow={board.name} title={call.title}>
@@ -37,9 +42,13 @@ export default async function CallPage({ params }: { params: Promise<{ boardId: 
           <dt className="font-semibold">Required sections</dt>
           <dd>{call.requiredSections.length > 0 ? call.requiredSections.join(" · ") : "none"}</dd>
           <dt className="font-semibold">Orbit-check tolerance</dt>
-          <dd className="font-mono">
-            {(call.tolerance.relative * 100).toFixed(2)} % relative
-            {abs.length > 0 ? `; absolute ${abs.map(([u, v]) => `${v} ${u}`).join(", ")}` : "; default absolute bounds"}
+          <dd>
+            <span data-call-policy="">{policySummary(call.tolerance)}</span>
+            <span className="ml-1 font-mono text-xs text-ink-600">
+              ({Number((call.tolerance.relative * 100).toPrecision(6))} % relative
+              {abs.length > 0 ? `; absolute ${abs.map(([u, v]) => `${v} ${u}`).join(", ")}` : "; the contract's absolute bounds"})
+            </span>
+            <span className="block text-xs text-ink-600">{CONSISTENT_MEANS}</span>
           </dd>
           <dt className="font-semibold">Reviewers per proposal</dt>
           <dd>{call.reviewersPerProposal}</dd>
@@ -66,6 +75,23 @@ export default async function CallPage({ params }: { params: Promise<{ boardId: 
           requirements={requirements.map((r) => ({ id: r.id, type: r.type, summary: r.summary, rationale: r.rationale, params: r.params }))}
         />
       </Panel>
+      {isChair && submitted && submitted.rows.length > 0 ? (
+        <Panel
+          id="submitted-versions"
+          title="Submitted versions and today's rules"
+          description="Each version keeps the verdicts recorded at its submission. Open one to run today's rules on it and see what a policy change would differ on."
+        >
+          <ul className="divide-y divide-ink-100 text-sm">
+            {submitted.rows.map((p) => (
+              <li key={p.id} className="py-1.5">
+                <Link href={`/boards/${boardId}/proposals/${p.id}/versions/${p.latestVersion}`} className="font-semibold text-trajectory-700 hover:underline">
+                  {p.title}: version {p.latestVersion}
+                </Link>
+              </li>
+            ))}
+          </ul>
+        </Panel>
+      ) : null}
       {isChair ? (
         <Panel title="Call settings" description="Changing the tolerance affects submissions from now on; versions already submitted keep their results.">
           <CallForm boardId={boardId} initial={call} afterSave="refresh" />

@@ -136,7 +136,8 @@ export default async function ProposalPage({ params }: { params: Promise<{ board
   }
 
   const latest = await getVersion(user, boardId, proposalId, versions[0]!.number);
-  const items = latest.checkResults.map((r) => ({ blockId: r.blockId, label: r.label, kind: r.kind, status: r.status }));
+  const items = latest.checkResults.map((r) => ({ blockId: r.blockId, label: r.label, kind: r.kind, status: r.status, result: r.result }));
+  const recordTolerance = latest.checkResults.find((r) => r.tolerance)?.tolerance ?? proposal.tolerance;
   const latestEvaluations = evaluateBlocks(extractOrbitChecks(latest.document), proposal.tolerance);
   const budget = deltaVBudget(latestEvaluations);
   return (
@@ -145,10 +146,16 @@ export default async function ProposalPage({ params }: { params: Promise<{ board
       {proposal.editBlockedReason && proposal.owner?.id === user.id ? <p className="text-sm text-ink-600">{proposal.editBlockedReason}</p> : null}
       <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_18rem]">
         <Panel title={`Version ${latest.number}`} description={`Submitted ${formatDateTime(latest.submittedAt)}; verdicts are the server's own recomputation.`}>
-          <ReadOnlyDossier document={latest.document} boardId={boardId} results={latest.checkResults} />
+          <ReadOnlyDossier document={latest.document} boardId={boardId} results={latest.checkResults} tolerance={recordTolerance} />
         </Panel>
         <div className="space-y-4">
-          <DossierSummary items={items} budget={budget} source="server" requiredMargin={requiredDeltaVMargin(proposal.requirements)} />
+          <DossierSummary
+            items={items}
+            budget={budget}
+            source="server"
+            requiredMargin={requiredDeltaVMargin(proposal.requirements)}
+            tolerance={recordTolerance}
+          />
           <BudgetRail evaluations={latestEvaluations} requirements={proposal.requirements} budget={budget} />
           <AttachmentList
             attachments={latest.attachments.map((a) => ({ ...a, contentPath: `/api/v1/boards/${boardId}/attachments/${a.attachmentId}/content` }))}

@@ -7,6 +7,7 @@ import { proposalAccess } from "@/lib/dal/assignments";
 import { compareQuery } from "@/lib/validation/decisions";
 import type { ClaimComparison, QuantityRow } from "@/lib/decisions/compare";
 import { ReassignButton } from "./_components/reassign-button";
+import { CONSISTENT_MEANS, displayUnit, kindLabel, quantityLabel } from "@/lib/orbit/labels";
 
 export const metadata: Metadata = { title: "Compare versions" };
 
@@ -32,6 +33,11 @@ function Values({ side }: { side: QuantityRow["before"] }) {
     <span className="font-mono text-xs">
       claimed {num(side.claimed)} · server {num(side.computed)}
       {side.ok === false ? <span className="ml-1 text-drift-700">✗</span> : side.ok ? <span className="ml-1 text-holds-700">✓</span> : null}
+      {side.hint ? (
+        <span className="block font-sans text-ink-800" data-hint="">
+          Likely slip: {side.hint}
+        </span>
+      ) : null}
     </span>
   );
 }
@@ -44,11 +50,7 @@ function ClaimSide({ claim, side, className }: { claim: ClaimComparison; side: "
       <ul className="mt-1 space-y-0.5">
         {claim.quantities.map((q) => (
           <li key={q.quantity}>
-            <span className="text-xs text-ink-600">
-              {q.quantity}
-              {q.unit ? ` [${q.unit}]` : ""}:
-            </span>{" "}
-            <Values side={q[side]} />
+            <span className="text-xs text-ink-600">{quantityLabel(q.quantity, displayUnit(q.unit))}:</span> <Values side={q[side]} />
           </li>
         ))}
       </ul>
@@ -126,7 +128,7 @@ export default async function ComparePage({
               {cmp.claims.map((c, i) => (
                 <tr key={`${c.before?.blockId ?? ""}-${c.after?.blockId ?? ""}-${i}`} className="border-t border-ink-100 align-top" data-testid="claim-row">
                   <td className="py-2 pr-3">
-                    <span className="font-semibold text-ink-900">{c.label}</span> <span className="text-xs text-ink-500">({c.kind})</span>
+                    <span className="font-semibold text-ink-900">{c.label}</span> <span className="text-xs text-ink-500">({kindLabel(c.kind)})</span>
                   </td>
                   <td className="py-2 pr-3 text-ink-700">{changeText[c.change]}</td>
                   <ClaimSide claim={c} side="before" className="py-2 pr-3" />
@@ -143,6 +145,9 @@ export default async function ComparePage({
             </tbody>
           </table>
         </div>
+        <p className="mt-3 text-xs text-ink-600" data-consistent-means="">
+          {CONSISTENT_MEANS}
+        </p>
       </Panel>
 
       <Panel

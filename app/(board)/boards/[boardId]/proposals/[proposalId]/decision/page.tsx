@@ -11,6 +11,9 @@ import { getDecisionWorkspace, listProposalDecisions, type DecisionView } from "
 import { MAX_ATTEMPTS } from "@/lib/mail/outbox";
 import { outboxStatusText } from "@/lib/mail/status-text";
 import { DecisionForm } from "./_components/decision-form";
+import { ConsistentMeaning, FailingChecks } from "@/components/dossier/check-explain";
+import { storedRows } from "@/lib/dossier/verdict-text";
+import { kindLabel } from "@/lib/orbit/labels";
 
 export const metadata: Metadata = { title: "Decision" };
 
@@ -148,16 +151,20 @@ export default async function DecisionPage({ params }: { params: Promise<{ board
         >
           <ul className="space-y-1 text-sm">
             {w.checks.map((c) => (
-              <li key={c.blockId} className="flex items-start justify-between gap-2">
-                <span>
-                  {c.label || c.kind} <span className="text-xs text-ink-500">({c.kind})</span>
-                </span>
-                <span className={`rounded-chip px-2 py-0.5 text-xs font-semibold ${verdictClass[c.status]}`}>{verdictText[c.status]}</span>
+              <li key={c.blockId} data-decision-check={c.blockId}>
+                <div className="flex items-start justify-between gap-2">
+                  <span>
+                    {c.label || kindLabel(c.kind)} <span className="text-xs text-ink-500">({kindLabel(c.kind)})</span>
+                  </span>
+                  <span className={`rounded-chip px-2 py-0.5 text-xs font-semibold ${verdictClass[c.status]}`}>{verdictText[c.status]}</span>
+                </div>
                 <RequirementFlags outcomes={c.requirements} />
+                <FailingChecks checks={storedRows({ checks: c.failing })} />
               </li>
             ))}
             {w.checks.length === 0 ? <li className="text-ink-500">No orbit claims in this version.</li> : null}
           </ul>
+          <ConsistentMeaning tolerance={w.checks.find((c) => c.tolerance)?.tolerance ?? undefined} className="mt-3 text-xs text-ink-600" />
           <p className="mt-3 text-xs text-ink-500">Two-body screening estimates, not a substitute for high-fidelity analysis.</p>
         </Panel>
         <Panel title="Open review items" description={`${openItems.length} open of ${w.reviewItems.length}`}>
