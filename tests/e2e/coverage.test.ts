@@ -73,8 +73,8 @@ describe("ground stations and contact checks in the browser", () => {
       await block.waitFor();
       await typeInto(page, block.getByLabel("Name in the text"), "downlink contact");
       await block.getByLabel("Kind").selectOption("contactTime");
-      await typeInto(page, block.getByLabel("altitude", { exact: true }), "550");
-      await typeInto(page, block.getByLabel("inclination", { exact: true }), "97.6");
+      await typeInto(page, block.getByLabel("Altitude h (km)", { exact: true }), "550");
+      await typeInto(page, block.getByLabel("Inclination i (deg)", { exact: true }), "97.6");
       await block.getByRole("checkbox", { name: new RegExp(stationName) }).check();
       const figures = block.getByLabel("Contact figures of downlink contact");
       await figures.getByText(/on average \(\d+ to \d+\)/).waitFor();

@@ -45,7 +45,7 @@ describe("call requirements in the browser", () => {
     await chair.getByRole("button", { name: "Add requirement" }).click();
     // The server refuses it, naming the field; nothing is listed.
     await chair.getByText("Not added: correct the marked values.").waitFor();
-    await chair.getByText(/the deadline must be more than 0 years/).waitFor();
+    await chair.getByText(/the deadline must be more than 0 years/i).waitFor();
     await chair.getByLabel("Deadline after the end of the mission (years)").press("Control+A");
     await chair.keyboard.type("25");
     await chair.getByRole("button", { name: "Add requirement" }).click();
@@ -78,7 +78,7 @@ describe("call requirements in the browser", () => {
     await author.reload();
     const block = author.locator("[data-orbit-check-block]").first();
     await block.waitFor();
-    await block.getByLabel("targetPerigeeAltitude (optional)").click();
+    await block.getByLabel("Target perigee altitude h_p (km) (optional)").click();
     await author.keyboard.type("250");
     await rail.locator('[data-rail-outcome="met"]').waitFor();
     await expect(rail.textContent()).resolves.toMatch(/Requirement met.*re-entry in \d+\.\d years after the disposal burn/);

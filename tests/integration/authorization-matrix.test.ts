@@ -213,9 +213,12 @@ describe("authorization matrix: blind-mode column (reviewer reads with proposer 
   const operations = new Map(apiOperations.map((op) => [op.operationId, op]));
   // Every GET a reviewer may make, plus the proposal reads (made readable below by assigning
   // the reviewer to every submitted version on the board).
-  // (Decisions are for chairs and authors only: reviewers get 404 there, blind or not.)
-  const proposalRead = (path: string) =>
-    path.startsWith("/api/v1/boards/{boardId}/proposals/{proposalId}") && path !== "/api/v1/boards/{boardId}/proposals/{proposalId}/decision";
+  // (Decisions, and today's rules on a version, are for chairs (and authors) only: reviewers get 404 there, blind or not.)
+  const chairOnly = new Set([
+    "/api/v1/boards/{boardId}/proposals/{proposalId}/decision",
+    "/api/v1/boards/{boardId}/proposals/{proposalId}/versions/{number}/todays-rules",
+  ]);
+  const proposalRead = (path: string) => path.startsWith("/api/v1/boards/{boardId}/proposals/{proposalId}") && !chairOnly.has(path);
   const readable = routeCases.filter((c) => {
     const op = operations.get(c.operationId);
     return op?.method === "get" && (statusList(c.expect.reviewer).some((s) => s < 300) || proposalRead(op.path));

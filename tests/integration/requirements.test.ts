@@ -46,20 +46,24 @@ describe("call requirements", () => {
 
   it("refuses impossible parameters with a 422 naming the field, and saves nothing", async () => {
     const { cast, call } = await makeProposal();
-    const cases: [unknown, RegExp][] = [
-      [{ type: "disposalDeadline", params: { years: -5 } }, /params\.years: the deadline must be more than 0 years/],
+    // Each refusal names its field (details.issues[].path) and says what to do in a sentence.
+    const cases: [unknown, string, RegExp][] = [
+      [{ type: "disposalDeadline", params: { years: -5 } }, "params.years", /the deadline must be more than 0 years/i],
       [
         { type: "deltaVMargin", params: { deterministicMargin: 1, statisticalMargin: 0.1 } },
-        /params\.deterministicMargin: the deterministic margin must be below 100 %/,
+        "params.deterministicMargin",
+        /the deterministic margin must be below 100 %/i,
       ],
-      [{ type: "systemMassMargin", params: { minimumMargin: -0.1 } }, /params\.minimumMargin: the minimum system margin cannot be negative/],
-      [{ type: "maxEclipse", params: { maximumDuration: "long" } }, /params\.maximumDuration/],
-      [{ type: "disposalDeadline", params: { years: 25, extra: 1 } }, /params/],
-      [{ type: "orbitalPurity", params: {} }, /type: choose a requirement type/],
+      [{ type: "systemMassMargin", params: { minimumMargin: -0.1 } }, "params.minimumMargin", /the minimum system margin cannot be negative/i],
+      [{ type: "maxEclipse", params: { maximumDuration: "long" } }, "params.maximumDuration", /./],
+      [{ type: "disposalDeadline", params: { years: 25, extra: 1 } }, "params", /./],
+      [{ type: "orbitalPurity", params: {} }, "type", /choose a requirement type/i],
     ];
-    for (const [body, message] of cases) {
+    for (const [body, field, message] of cases) {
       const error = await errorOf(() => input(body));
       expect(error.status).toBe(422);
+      const issues = (error.details as { issues: { path: string; message: string }[] }).issues;
+      expect(issues.filter((i) => i.path === field && message.test(i.message)).length, JSON.stringify(issues)).toBe(1);
       expect(error.message).toMatch(message);
     }
     const rows = await db().select({ id: callRequirements.id }).from(callRequirements).where(eq(callRequirements.callId, call.id));

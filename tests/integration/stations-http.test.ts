@@ -25,7 +25,7 @@ describe("ground stations over HTTP", () => {
     expect(station).toMatchObject({ name: "Tallvik", altitude: 0.21 });
 
     const cases: [Record<string, unknown>, RegExp][] = [
-      [{ name: "A", latitude: 91, longitude: 0, minimumElevation: 5 }, /latitude must lie between −90° \(south\) and 90° \(north\)/],
+      [{ name: "A", latitude: 91, longitude: 0, minimumElevation: 5 }, /latitude must lie between −90° \(south\) and 90° \(north\)/i],
       [{ name: "B", latitude: 10, longitude: 0, minimumElevation: 90 }, /below 90°/],
       [{ name: "C", latitude: 10, longitude: 200, minimumElevation: 5 }, /longitude/],
       [{ name: "D", latitude: 10, longitude: 0, altitude: 210, minimumElevation: 5 }, /between −500 m and 10 km/],
