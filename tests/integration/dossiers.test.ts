@@ -162,7 +162,7 @@ describe("proposals and drafts", () => {
     expect(seen).toEqual(expected.map((r) => r.id));
   });
 
-  it("serves the first page of the default sort from an index, not a scan and sort (EXPLAIN)", async () => {
+  it("serves first pages from the sort's index, not a scan and sort: default sort with and without a cursor, every proposals-column sort both ways (EXPLAIN)", async () => {
     const cast = await createBoardWithCast();
     const call = await makeCall(cast);
     await db().execute(sql`
@@ -183,6 +183,25 @@ describe("proposals and drafts", () => {
       expect(nodes.filter((n) => n["Node Type"] === "Seq Scan" && n["Relation Name"] === "proposals")).toEqual([]);
       expect(nodes.filter((n) => n["Node Type"] === "Sort")).toEqual([]);
     }
+    // Every other sort on a proposals column, both directions, reads its own (board, column, id) index.
+    const indexFor = {
+      title: "proposals_board_title_idx",
+      createdAt: "proposals_board_created_idx",
+      status: "proposals_board_status_idx",
+      latestVersion: "proposals_board_version_idx",
+    };
+    for (const [sort, index] of Object.entries(indexFor))
+      for (const dir of ["asc", "desc"]) {
+        const built = proposalListStatement(chair, cast.board.id, "chair", proposalListQuerySchema.parse({ sort, dir })).toSQL();
+        const { rows } = await pool().query(`explain (format json) ${built.sql}`, built.params);
+        const nodes = planNodes((rows[0]["QUERY PLAN"] as { Plan: PlanNode }[])[0]!.Plan);
+        expect({ sort, dir, index: nodes.some((n) => n["Index Name"] === index), sorted: nodes.some((n) => n["Node Type"] === "Sort") }).toEqual({
+          sort,
+          dir,
+          index: true,
+          sorted: false,
+        });
+      }
   });
 
   it("refuses a stale autosave with 409 and keeps the stored draft", async () => {
