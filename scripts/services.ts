@@ -303,6 +303,21 @@ function stopNodeService(config: ServiceConfig, service: NodeService): void {
   fs.rmSync(pidFile, { force: true });
 }
 
+/** Drops and recreates a scratch database owned by the app's role (the web bench's own copy). */
+export async function recreateDatabase(profile: Profile, name: string): Promise<void> {
+  if (!/^[a-z_][a-z0-9_]*$/.test(name)) throw new ServiceError(`not a plain database name: ${name}`);
+  const config = serviceConfig(profile);
+  const superPassword = fs.readFileSync(path.join(postgresHome(config), "superuser-password"), "utf8").trim();
+  const admin = new Client({ host: "127.0.0.1", port: config.postgres.port, user: "postgres", password: superPassword, database: "postgres" });
+  await admin.connect();
+  try {
+    await admin.query(`drop database if exists "${name}" with (force)`);
+    await admin.query(`create database "${name}" owner "${config.postgres.user}"`);
+  } finally {
+    await admin.end();
+  }
+}
+
 // ------------------------------------------------------------------ commands
 
 export async function startServices(profile: Profile): Promise<Record<string, string>> {

@@ -14,7 +14,10 @@ export interface DataTableProps<TRow> {
   // eslint-disable-next-line @typescript-eslint/no-explicit-any
   columns: ColumnDef<TRow, any>[];
   rows: TRow[];
-  total: number;
+  /** The exact row count; leave out for lists that do not count and give `hasMore` instead. */
+  total?: number;
+  /** For lists without a count: whether another page follows this one. */
+  hasMore?: boolean;
   page: number;
   pageSize: number;
   /** The column id the server sorted by, and the direction. Column ids are the sort keys. */
@@ -32,6 +35,7 @@ export function DataTable<TRow>({
   columns,
   rows,
   total,
+  hasMore = false,
   page,
   pageSize,
   sort,
@@ -45,7 +49,8 @@ export function DataTable<TRow>({
   const pathname = usePathname();
   const searchParams = useSearchParams();
   const [query, setQuery] = useState(search ?? "");
-  const pageCount = Math.max(1, Math.ceil(total / pageSize));
+  const counted = total !== undefined;
+  const pageCount = counted ? Math.max(1, Math.ceil(total / pageSize)) : hasMore ? page + 1 : page;
 
   const navigate = (changes: Record<string, string | undefined>) => {
     const next = new URLSearchParams(searchParams.toString());
@@ -78,8 +83,9 @@ export function DataTable<TRow>({
     },
   });
 
-  const from = total === 0 ? 0 : (page - 1) * pageSize + 1;
-  const to = Math.min(total, page * pageSize);
+  const shown = counted ? Math.min(total, page * pageSize) - (page - 1) * pageSize : rows.length;
+  const from = shown <= 0 ? 0 : (page - 1) * pageSize + 1;
+  const to = shown <= 0 ? 0 : (page - 1) * pageSize + shown;
 
   return (
     <div className="space-y-3">
@@ -123,9 +129,7 @@ export function DataTable<TRow>({
         <TableView table={table} caption={caption} emptyText={emptyText} rowClassName={() => "hover:bg-ink-50/60"} />
       </div>
       <nav aria-label={`${caption} pages`} className="flex flex-wrap items-center justify-between gap-2 text-sm text-ink-600">
-        <p>
-          {from}–{to} of {total}
-        </p>
+        <p>{counted ? `${from}–${to} of ${total}` : hasMore ? `${from}–${to}, more follow` : `${from}–${to}, the last of them`}</p>
         <div className="flex items-center gap-2">
           <button
             type="button"
@@ -135,9 +139,7 @@ export function DataTable<TRow>({
           >
             Previous
           </button>
-          <span>
-            Page {page} of {pageCount}
-          </span>
+          <span>{counted ? `Page ${page} of ${pageCount}` : `Page ${page}`}</span>
           <button
             type="button"
             disabled={page >= pageCount}

@@ -23,9 +23,9 @@ export interface ProposalListRow {
 
 interface Page {
   rows: ProposalListRow[];
-  total: number;
   page: number;
   pageSize: number;
+  hasMore: boolean;
 }
 
 const STATUS_TEXT: Record<ProposalListRow["status"], string> = {
@@ -96,7 +96,7 @@ export function ProposalsTable({ boardId }: { boardId: string }) {
             caption="Your proposals"
             columns={columns}
             rows={query.data.rows}
-            total={query.data.total}
+            hasMore={query.data.hasMore}
             page={query.data.page}
             pageSize={query.data.pageSize}
             sort={searchParams.get("sort") ?? "updatedAt"}

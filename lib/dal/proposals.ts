@@ -19,7 +19,8 @@ import {
 } from "@/db/schema";
 import { authorize, type ResourceFacts } from "@/lib/auth/policy";
 import type { SessionUser } from "@/lib/auth/session";
-import { conflict, notFound, unprocessable } from "@/lib/errors";
+import { badRequest, conflict, notFound, unprocessable } from "@/lib/errors";
+import { z } from "zod";
 import {
   EMPTY_DOSSIER,
   MAX_DOCUMENT_BYTES,
@@ -32,7 +33,7 @@ import {
   type BlockVerdict,
   type DossierDoc,
 } from "@/lib/dossier";
-import type { DraftSaveInput, ProposalCreateInput, ProposalListQuery, ProposalUpdateInput } from "@/lib/validation/dossier";
+import { proposalSortColumns, type DraftSaveInput, type ProposalCreateInput, type ProposalListQuery, type ProposalUpdateInput } from "@/lib/validation/dossier";
 import { deleteObject, writeObject } from "@/storage/object-store";
 import { recordAudit } from "./audit";
 import { recordFileComparisons } from "./orbit-files";
@@ -207,15 +208,46 @@ export interface ProposalRow {
 
 const escapeLike = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`);
 
-/** Proposals of a board the caller may see: all of them for chairs, their own and co-authored ones for others. */
-export async function listProposals(
-  user: SessionUser,
-  boardId: string,
-  query: ProposalListQuery,
-): Promise<{ rows: ProposalRow[]; total: number; page: number; pageSize: number }> {
-  if (!isUuid(boardId)) throw notFound("That board");
-  const role = await boardRole(user.id, boardId);
-  authorize(user, "board.view", { role }, "That board");
+// Keyset paging: a cursor names the sort, its direction, the last row's sort value (as
+// PostgreSQL prints it, so timestamps keep their microseconds) and its id. It is opaque to
+// clients; a cursor made for another sort or direction is refused with a 400.
+const cursorSchema = z.object({ s: z.enum(proposalSortColumns), d: z.enum(["asc", "desc"]), v: z.string().max(1000), i: z.uuid() });
+type ProposalCursor = z.infer<typeof cursorSchema>;
+
+export function encodeProposalCursor(cursor: ProposalCursor): string {
+  return Buffer.from(JSON.stringify(cursor), "utf8").toString("base64url");
+}
+
+function decodeProposalCursor(text: string, query: ProposalListQuery): ProposalCursor {
+  let parsed: unknown;
+  try {
+    parsed = JSON.parse(Buffer.from(text, "base64url").toString("utf8"));
+  } catch {
+    parsed = null;
+  }
+  const result = cursorSchema.safeParse(parsed);
+  if (!result.success) throw badRequest("That cursor is not one this list gave out; start again from the first page.", { field: "cursor" });
+  if (result.data.s !== query.sort || result.data.d !== query.dir)
+    throw badRequest("That cursor belongs to another sort order; start again from the first page of this one.", { field: "cursor" });
+  if ((query.sort === "updatedAt" || query.sort === "createdAt") && !/^\d{4}-\d\d-\d\d \d\d:\d\d:\d\d(\.\d{1,6})?[+-]\d\d(:\d\d){0,2}$/.test(result.data.v))
+    throw badRequest("That cursor is not one this list gave out; start again from the first page.", { field: "cursor" });
+  if (query.sort === "latestVersion" && !/^\d{1,9}$/.test(result.data.v))
+    throw badRequest("That cursor is not one this list gave out; start again from the first page.", { field: "cursor" });
+  return result.data;
+}
+
+export interface ProposalPage {
+  rows: ProposalRow[];
+  page: number;
+  pageSize: number;
+  /** Whether at least one more row follows this page (one extra row is fetched; no count). */
+  hasMore: boolean;
+  /** Pass as `cursor` to get the next page by keyset; null on the last page. */
+  nextCursor: string | null;
+}
+
+/** The list's statement, also used by the plan check in the tests. */
+export function proposalListStatement(user: SessionUser, boardId: string, role: string | null, query: ProposalListQuery) {
   const conditions: SQL[] = [eq(proposals.boardId, boardId)];
   if (role !== "chair" && !user.isAdmin) {
     const coauthored = db().select({ id: proposalCoauthors.proposalId }).from(proposalCoauthors).where(eq(proposalCoauthors.userId, user.id));
@@ -225,50 +257,82 @@ export async function listProposals(
   if (query.callId) conditions.push(eq(proposals.callId, query.callId));
   if (query.q) {
     const pattern = `%${escapeLike(query.q)}%`;
-    conditions.push(or(ilike(proposals.title, pattern), ilike(proposals.missionType, pattern), ilike(calls.title, pattern))!);
+    const callsMatching = db()
+      .select({ id: calls.id })
+      .from(calls)
+      .where(and(eq(calls.boardId, boardId), ilike(calls.title, pattern)));
+    conditions.push(or(ilike(proposals.title, pattern), ilike(proposals.missionType, pattern), inArray(proposals.callId, callsMatching))!);
   }
-  const where = and(...conditions);
+  // The call's title comes from a lookup per returned row rather than a join: with a join the
+  // planner guesses the rows per call and may sort the whole board instead of reading the index.
+  const callTitle = sql<string>`(select ${calls.title} from ${calls} where ${calls.id} = ${proposals.callId} and ${calls.boardId} = ${proposals.boardId})`;
   const sortColumn = {
     title: proposals.title,
     status: proposals.status,
     updatedAt: proposals.updatedAt,
     createdAt: proposals.createdAt,
-    callTitle: calls.title,
+    callTitle,
     latestVersion: proposals.latestVersion,
   }[query.sort];
+  if (query.cursor) {
+    const cursor = decodeProposalCursor(query.cursor, query);
+    const type = query.sort === "updatedAt" || query.sort === "createdAt" ? "timestamptz" : query.sort === "latestVersion" ? "integer" : "text";
+    // A row comparison, so (board, column, id) is one index range in either direction.
+    conditions.push(sql`(${sortColumn}, ${proposals.id}) ${sql.raw(query.dir === "asc" ? ">" : "<")} (${cursor.v}::${sql.raw(type)}, ${cursor.i}::uuid)`);
+  }
   // The id tie-break runs in the sort's direction so one index (board, column, id) serves both directions.
   const order = query.dir === "asc" ? [asc(sortColumn), asc(proposals.id)] : [desc(sortColumn), desc(proposals.id)];
-  const [rows, [total]] = await Promise.all([
-    db()
-      .select({
-        id: proposals.id,
-        title: proposals.title,
-        missionType: proposals.missionType,
-        status: proposals.status,
-        callId: proposals.callId,
-        callTitle: calls.title,
-        latestVersion: proposals.latestVersion,
-        ownerId: proposals.ownerId,
-        createdAt: proposals.createdAt,
-        updatedAt: proposals.updatedAt,
-      })
-      .from(proposals)
-      .innerJoin(calls, and(eq(calls.id, proposals.callId), eq(calls.boardId, proposals.boardId)))
-      .where(where)
-      .orderBy(...order)
-      .limit(query.pageSize)
-      .offset((query.page - 1) * query.pageSize),
-    db()
-      .select({ n: count() })
-      .from(proposals)
-      .innerJoin(calls, and(eq(calls.id, proposals.callId), eq(calls.boardId, proposals.boardId)))
-      .where(where),
-  ]);
+  return db()
+    .select({
+      id: proposals.id,
+      title: proposals.title,
+      missionType: proposals.missionType,
+      status: proposals.status,
+      callId: proposals.callId,
+      callTitle,
+      latestVersion: proposals.latestVersion,
+      ownerId: proposals.ownerId,
+      createdAt: proposals.createdAt,
+      updatedAt: proposals.updatedAt,
+      sortValue: sql<string>`${sortColumn}::text`,
+    })
+    .from(proposals)
+    .where(and(...conditions))
+    .orderBy(...order)
+    .limit(query.pageSize + 1)
+    .offset(query.cursor ? 0 : (query.page - 1) * query.pageSize);
+}
+
+/**
+ * Proposals of a board the caller may see: all of them for chairs, their own and co-authored
+ * ones for others. Pages by `cursor` (keyset) when given, else by `page` (offset, for the UI);
+ * fetches one row more than the page to say whether another follows, and counts nothing.
+ */
+export async function listProposals(user: SessionUser, boardId: string, query: ProposalListQuery): Promise<ProposalPage> {
+  if (!isUuid(boardId)) throw notFound("That board");
+  const role = await boardRole(user.id, boardId);
+  authorize(user, "board.view", { role }, "That board");
+  const fetched = await proposalListStatement(user, boardId, role, query);
+  const hasMore = fetched.length > query.pageSize;
+  const rows = hasMore ? fetched.slice(0, query.pageSize) : fetched;
+  const last = rows.at(-1);
   return {
-    rows: rows.map(({ ownerId, ...r }) => ({ ...r, isOwner: ownerId === user.id, createdAt: r.createdAt.toISOString(), updatedAt: r.updatedAt.toISOString() })),
-    total: total?.n ?? 0,
+    rows: rows.map((r) => ({
+      id: r.id,
+      title: r.title,
+      missionType: r.missionType,
+      status: r.status,
+      callId: r.callId,
+      callTitle: r.callTitle,
+      latestVersion: r.latestVersion,
+      isOwner: r.ownerId === user.id,
+      createdAt: r.createdAt.toISOString(),
+      updatedAt: r.updatedAt.toISOString(),
+    })),
     page: query.page,
     pageSize: query.pageSize,
+    hasMore,
+    nextCursor: hasMore && last ? encodeProposalCursor({ s: query.sort, d: query.dir, v: last.sortValue, i: last.id }) : null,
   };
 }
 

@@ -91,6 +91,8 @@ export const proposalListQuerySchema = z.object({
   q: z.string().trim().max(200).optional(),
   status: z.enum(proposalStatuses).optional(),
   callId: z.uuid().optional(),
+  /** The `nextCursor` of the previous page: keyset paging for API clients (it wins over `page`). */
+  cursor: z.string().trim().min(1).max(2000).optional(),
 });
 export type ProposalListQuery = z.infer<typeof proposalListQuerySchema>;
 
@@ -109,9 +111,13 @@ export const proposalRowSchema = z.object({
 
 export const proposalPageSchema = z.object({
   rows: z.array(proposalRowSchema),
-  total: z.number().int(),
+  /** The page number asked for (echoed; with a cursor it is the caller's own count). */
   page: z.number().int(),
   pageSize: z.number().int(),
+  /** Whether at least one more row follows (one extra row is fetched); the list does not count its rows. */
+  hasMore: z.boolean(),
+  /** Pass as `cursor` to fetch the next page by keyset; null on the last page. */
+  nextCursor: z.string().nullable(),
 });
 
 export const draftSaveSchema = z.strictObject({

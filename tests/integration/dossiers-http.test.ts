@@ -44,6 +44,29 @@ describe("dossier API", () => {
     expect(huge.status).toBe(413);
   });
 
+  it("lists proposals with hasMore and a keyset cursor, and refuses a foreign cursor with 400", async () => {
+    const { cast, call } = await makeProposal();
+    const client = await signedIn(cast.proposer.email);
+    const base = `/api/v1/boards/${cast.board.id}/proposals`;
+    const callId = call.id;
+    for (const title of ["Second list entry", "Third list entry"])
+      expect((await client.request(base, { method: "POST", json: { title, missionType: "science", callId, coauthorIds: [] } })).status).toBe(201);
+    const first = await client.get(`${base}?pageSize=2`);
+    expect(first.status).toBe(200);
+    const page1 = await first.json();
+    expect(page1).toMatchObject({ page: 1, pageSize: 2, hasMore: true });
+    expect(page1).not.toHaveProperty("total");
+    expect(page1.rows).toHaveLength(2);
+    const page2 = await (await client.get(`${base}?pageSize=2&cursor=${encodeURIComponent(page1.nextCursor)}`)).json();
+    expect(page2).toMatchObject({ hasMore: false, nextCursor: null });
+    expect(page2.rows).toHaveLength(1);
+    expect(new Set([...page1.rows, ...page2.rows].map((r: { id: string }) => r.id)).size).toBe(3);
+    const foreign = await client.get(`${base}?pageSize=2&sort=title&cursor=${encodeURIComponent(page1.nextCursor)}`);
+    expect(foreign.status).toBe(400);
+    expect((await foreign.json()).error).toMatch(/start again from the first page/);
+    expect((await client.get(`${base}?cursor=%25%25%25`)).status).toBe(400);
+  });
+
   it("uploads through a presigned PUT, confirms, and downloads through a presigned GET", async () => {
     const { cast, proposal } = await makeProposal();
     const client = await signedIn(cast.proposer.email);

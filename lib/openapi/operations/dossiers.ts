@@ -126,7 +126,8 @@ export const dossierOperations = defineOperations([
     method: "get",
     path: `${board}/proposals`,
     operationId: "listProposals",
-    summary: "Proposals the caller may see (all for chairs, own and co-authored for others), paged, sorted and filtered on the server",
+    summary:
+      "Proposals the caller may see (all for chairs, own and co-authored for others), sorted and filtered on the server; paged by `page` or by the previous page's `nextCursor` (keyset). Rows are not counted: `hasMore` says whether another page follows",
     tag: "proposals",
     access: "signed-in",
     query: proposalListQuerySchema,

@@ -27,7 +27,7 @@ export default async function BoardHomePage({ params }: { params: Promise<{ boar
       </PageTitle>
       {/* One section per area; each decides from the policy whether it shows. */}
       <BoardCallsSection board={board} calls={calls} />
-      {mine ? <BoardDossiersSection board={board} proposals={mine.rows} total={mine.total} /> : null}
+      {mine ? <BoardDossiersSection board={board} proposals={mine.rows} hasMore={mine.hasMore} /> : null}
       <BoardReviewSection user={user} board={board} calls={calls} />
       {can(user, "members.manage", facts) ? <BoardStewardshipSection board={board} /> : null}
     </div>

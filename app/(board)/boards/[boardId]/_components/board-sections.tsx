@@ -35,7 +35,7 @@ export function BoardCallsSection({ board, calls }: { board: BoardView; calls: B
 
 const proposalStatusText = { draft: "Draft", submitted: "Submitted", in_review: "In review", decided: "Decided", withdrawn: "Withdrawn" } as const;
 
-export function BoardDossiersSection({ board, proposals, total }: { board: BoardView; proposals: ProposalRow[]; total: number }) {
+export function BoardDossiersSection({ board, proposals, hasMore }: { board: BoardView; proposals: ProposalRow[]; hasMore: boolean }) {
   return (
     <Panel id="dossiers" title="Your dossiers" description="Write a mission dossier for an open call, attach its files and submit it.">
       {proposals.length > 0 ? (
@@ -63,11 +63,7 @@ export function BoardDossiersSection({ board, proposals, total }: { board: Board
       ) : (
         <p className="mb-4 text-ink-600">No dossiers yet.</p>
       )}
-      {total > proposals.length ? (
-        <p className="mb-3 text-sm text-ink-600">
-          Showing the {proposals.length} most recently changed of {total}.
-        </p>
-      ) : null}
+      {hasMore ? <p className="mb-3 text-sm text-ink-600">Showing the {proposals.length} most recently changed; you have more in the full list.</p> : null}
       <ul className="flex flex-wrap gap-3">
         <li>
           <Link

@@ -1,0 +1,292 @@
+/**
+ * `npm run bench:web` — web figures at a board's scale. It prints figures; it is not a test.
+ *
+ *  1. Creates its own database (visviva_bench) on the test PostgreSQL (started if it is not
+ *     up), applies the migrations and fills one board through generate_series: 20 calls,
+ *     100,000 proposals × scale, a submitted version for four in five, three check results and
+ *     three assignments per version; the first call holds 4.5 % of the proposals (the
+ *     overview's call, as the issue's 4,495 of 100,000). Reviews, rubric scores and review items are not generated.
+ *  2. Starts the built app (.next-test; build it first with a test that calls appUrl(), or
+ *     `NEXT_DIST_DIR=.next-test npx next build`) against that database, and a bare
+ *     node:http + pg server (tests/bench/web-baseline.ts) running the same list SQL.
+ *  3. Prints p50/p95 for the list's first and middle pages (by page and by cursor), the call
+ *     overview API and the orbit-check API (200 claims), then req/s at 1, 8 and 32 connections
+ *     (autocannon) for the app's and the baseline's first page, with their ratio.
+ *
+ * Options: --scale 0.1 (quick run), --seconds 5 (per autocannon run), --samples 30.
+ * Every run is bounded in time; everything started here is stopped on exit.
+ */
+import { spawn, type ChildProcess } from "node:child_process";
+import fs from "node:fs";
+import path from "node:path";
+import { hash as argon2Hash } from "@node-rs/argon2";
+import autocannon from "autocannon";
+import { Client } from "pg";
+import { runMigrations } from "../../db/migrate";
+import { appEnvironment, serviceConfig } from "../../scripts/service-config";
+import { portAnswers, recreateDatabase, startOneService, stopServices } from "../../scripts/services";
+
+function option(name: string, fallback: number): number {
+  const i = process.argv.indexOf(`--${name}`);
+  if (i < 0) return fallback;
+  const value = Number(process.argv[i + 1]);
+  if (!Number.isFinite(value) || value <= 0) throw new Error(`--${name} needs a positive number`);
+  return value;
+}
+
+const scale = option("scale", 1);
+const seconds = option("seconds", 5);
+const samples = Math.round(option("samples", 30));
+const PROPOSALS = Math.max(100, Math.round(100_000 * scale));
+const CALLS = 20;
+const PASSWORD = "bench-password-not-secret";
+const BENCH_DB = "visviva_bench";
+
+const root = path.resolve(__dirname, "../..");
+const config = serviceConfig("test");
+const started: ChildProcess[] = [];
+let startedPostgres = false;
+
+const log = (s: string) => console.log(s);
+const ms = (n: number) => `${n.toFixed(1)} ms`;
+
+async function waitFor(url: string, timeoutMs: number) {
+  const deadline = Date.now() + timeoutMs;
+  while (Date.now() < deadline) {
+    try {
+      const r = await fetch(url, { signal: AbortSignal.timeout(2000) });
+      if (r.status < 500) return;
+    } catch {
+      // not up yet
+    }
+    await new Promise((r) => setTimeout(r, 300));
+  }
+  throw new Error(`${url} did not answer within ${timeoutMs / 1000} s`);
+}
+
+async function fill(url: string) {
+  const client = new Client({ connectionString: url });
+  await client.connect();
+  try {
+    const t0 = performance.now();
+    // lib/auth/passwords.ts is server-only; an argon2id hash carries its own cost, so the app verifies this one.
+    const hash = await argon2Hash(PASSWORD);
+    await client.query("begin");
+    const {
+      rows: [chair],
+    } = await client.query(`insert into users (email, name, password_hash) values ('chair@bench.example.org', 'Bench Chair', $1) returning id`, [hash]);
+    const {
+      rows: [board],
+    } = await client.query(`insert into boards (slug, name) values ('bench-board', 'Bench Board') returning id`);
+    await client.query(`insert into board_members (board_id, user_id, role) values ($1, $2, 'chair')`, [board.id, chair.id]);
+    // 500 proposers and 60 reviewers, without passwords (nobody signs in as them).
+    await client.query(`insert into users (email, name) select 'proposer' || g || '@bench.example.org', 'Proposer ' || g from generate_series(1, 500) g`);
+    await client.query(`insert into users (email, name) select 'reviewer' || g || '@bench.example.org', 'Reviewer ' || g from generate_series(1, 60) g`);
+    await client.query(
+      `insert into board_members (board_id, user_id, role)
+       select $1, id, case when email like 'proposer%' then 'proposer' else 'reviewer' end from users where email like '%@bench.example.org' and id <> $2`,
+      [board.id, chair.id],
+    );
+    await client.query(
+      `insert into calls (board_id, title, opens_at, closes_at)
+       select $1, 'Bench call ' || lpad(g::text, 2, '0'), now() - interval '60 days', now() + (g - 10) * interval '1 day' from generate_series(1, $2::int) g`,
+      [board.id, CALLS],
+    );
+    // The largest call takes about 4.5 % of the proposals (4,495 of 100,000 in the issue's copy).
+    await client.query(
+      `with c as (select id, row_number() over (order by title) - 1 as k from calls where board_id = $1),
+            p as (select id, row_number() over (order by email) - 1 as k from users where email like 'proposer%@bench.example.org')
+       insert into proposals (board_id, call_id, owner_id, title, mission_type, status, latest_version, created_at, updated_at)
+       select $1, (select id from c where c.k = case when g % 1000 < 45 then 0 else 1 + g % ($3::int - 1) end),
+              (select id from p where p.k = g % 500), 'Mission ' || g, (array['science','relay','imaging','demo'])[1 + g % 4],
+              case when g % 5 = 0 then 'draft' when g % 5 = 1 then 'submitted' when g % 5 = 2 then 'in_review' else 'decided' end,
+              case when g % 5 = 0 then 0 else 1 end,
+              now() - g * interval '17 seconds', now() - g * interval '13 seconds' - (g % 7) * interval '1 microsecond'
+       from generate_series(1, $2::int) g`,
+      [board.id, PROPOSALS, CALLS],
+    );
+    await client.query(
+      `insert into proposal_versions (proposal_id, board_id, number, title, document, document_key, html_key, submitted_by, submitted_at)
+       select id, board_id, 1, title, '{"type":"doc","content":[]}'::jsonb, 'bench/' || id || '/1.json', 'bench/' || id || '/1.html', owner_id, updated_at
+       from proposals where board_id = $1 and latest_version = 1`,
+      [board.id],
+    );
+    await client.query(
+      `insert into check_results (version_id, board_id, block_id, kind, status, claim, result)
+       select v.id, v.board_id, 'b' || k, 'orbit', (array['consistent','consistent','inconsistent','invalid'])[1 + (k + abs(hashtext(v.id::text))) % 4],
+              '{"kind":"orbit"}'::jsonb, '{}'::jsonb
+       from proposal_versions v, generate_series(1, 3) k where v.board_id = $1`,
+      [board.id],
+    );
+    await client.query(
+      `with r as (select id, row_number() over (order by email) - 1 as k from users where email like 'reviewer%@bench.example.org')
+       insert into assignments (board_id, proposal_id, version_id, reviewer_id, due_at)
+       select v.board_id, v.proposal_id, v.id, r.id, now() + interval '14 days'
+       from (select v.*, abs(hashtext(v.id::text)) as h from proposal_versions v where v.board_id = $1) v
+       cross join generate_series(0, 2) j join r on r.k = (v.h + j * 7) % 60`,
+      [board.id],
+    );
+    await client.query("commit");
+    await client.query("analyze");
+    const counts = await client.query(
+      `select (select count(*) from proposals) p, (select count(*) from proposal_versions) v, (select count(*) from check_results) c, (select count(*) from assignments) a`,
+    );
+    // The overview is measured on the first call: 4.5 % of the proposals, as the issue's 4,495 of 100,000.
+    const big = await client.query(
+      `select p.call_id, count(*)::int n from proposals p join calls c on c.id = p.call_id where p.board_id = $1 and c.title = 'Bench call 01' group by p.call_id`,
+      [board.id],
+    );
+    const c = counts.rows[0];
+    log(`filled in ${((performance.now() - t0) / 1000).toFixed(1)} s: ${c.p} proposals, ${c.v} versions, ${c.c} check results, ${c.a} assignments`);
+    log(`the overview's call: ${big.rows[0].n} proposals (the other 19 share the rest)`);
+    const middle = await client.query(`select updated_at::text v, id from proposals where board_id = $1 order by updated_at desc, id desc offset $2 limit 1`, [
+      board.id,
+      Math.floor(PROPOSALS / 2) - 1,
+    ]);
+    return { boardId: board.id as string, largestCallId: big.rows[0].call_id as string, middle: middle.rows[0] as { v: string; id: string } };
+  } finally {
+    await client.end();
+  }
+}
+
+async function signIn(base: string): Promise<string> {
+  const jar = new Map<string, string>();
+  const keep = (r: Response) => {
+    for (const line of r.headers.getSetCookie()) {
+      const [pair] = line.split(";");
+      const i = pair!.indexOf("=");
+      jar.set(pair!.slice(0, i).trim(), pair!.slice(i + 1).trim());
+    }
+  };
+  const cookie = () => [...jar].map(([k, v]) => `${k}=${v}`).join("; ");
+  const csrfResponse = await fetch(`${base}/api/auth/csrf`);
+  keep(csrfResponse);
+  const { csrfToken } = (await csrfResponse.json()) as { csrfToken: string };
+  const form = new URLSearchParams({ email: "chair@bench.example.org", password: PASSWORD, csrfToken, callbackUrl: `${base}/boards`, json: "true" });
+  const r = await fetch(`${base}/api/auth/callback/password`, {
+    method: "POST",
+    headers: { "content-type": "application/x-www-form-urlencoded", cookie: cookie() },
+    body: form.toString(),
+    redirect: "manual",
+  });
+  keep(r);
+  if (![...jar.keys()].some((k) => k.includes("session-token"))) throw new Error(`sign-in to the bench app failed (HTTP ${r.status})`);
+  return cookie();
+}
+
+const EARTH = "earth";
+const templates = [
+  { kind: "orbit", body: EARTH, given: { altitude: 500 }, claimed: { period: 5677 } },
+  { kind: "hohmann", body: EARTH, given: { initialAltitude: 300, finalAltitude: 35786 }, claimed: { deltaVTotal: 3.89 } },
+  { kind: "sunSynchronous", body: EARTH, given: { altitude: 700 }, claimed: { inclination: 98.2 } },
+  { kind: "rocket", given: { specificImpulse: 300, initialMass: 2000, finalMass: 1000 }, claimed: { deltaV: "2.04" } },
+  { kind: "orbit", body: EARTH, given: { altitude: 500 }, claimed: { period: "94.6" } },
+];
+const orbitRequest = JSON.stringify({ claims: Array.from({ length: 200 }, (_, i) => ({ id: `c${i + 1}`, ...templates[i % templates.length] })) });
+
+async function latency(label: string, url: string, init: RequestInit) {
+  const times: number[] = [];
+  const deadline = Date.now() + 60_000;
+  let status = 0;
+  for (let i = 0; i < samples + 3 && Date.now() < deadline; i++) {
+    const t0 = performance.now();
+    const r = await fetch(url, { ...init, signal: AbortSignal.timeout(30_000) });
+    await r.arrayBuffer();
+    status = r.status;
+    if (i >= 3) times.push(performance.now() - t0);
+  }
+  times.sort((a, b) => a - b);
+  const at = (q: number) => times[Math.min(times.length - 1, Math.floor(times.length * q))]!;
+  log(`  ${label.padEnd(44)} p50 ${ms(at(0.5)).padStart(10)}  p95 ${ms(at(0.95)).padStart(10)}  (${times.length} requests, HTTP ${status})`);
+}
+
+async function throughput(url: string, headers: Record<string, string>, connections: number): Promise<number> {
+  const result = await autocannon({ url, headers, connections, duration: seconds, timeout: 20 });
+  if (result.non2xx > 0 || result.errors > 0) log(`    (${result.non2xx} non-2xx, ${result.errors} errors at ${connections} connections)`);
+  return result.requests.average;
+}
+
+function stopAll() {
+  for (const child of started) if (child.pid && child.exitCode === null) child.kill("SIGTERM");
+  if (startedPostgres) stopServices("test", "postgres");
+}
+
+async function main() {
+  const buildId = path.join(root, ".next-test", "BUILD_ID");
+  if (!fs.existsSync(buildId)) throw new Error("No build in .next-test: build it first (NEXT_DIST_DIR=.next-test npx next build, or run an HTTP test once).");
+  if (!(await portAnswers(config.postgres.port))) {
+    await startOneService("test", "postgres");
+    startedPostgres = true;
+  }
+  const env = appEnvironment(config);
+  const adminUrl = env.DATABASE_URL!;
+  const benchUrl = adminUrl.replace(/\/[^/]+$/, `/${BENCH_DB}`);
+  await recreateDatabase("test", BENCH_DB);
+  await runMigrations(benchUrl);
+  log(`scale ${scale}: ${PROPOSALS} proposals in one board, ${CALLS} calls`);
+  const { boardId, largestCallId, middle } = await fill(benchUrl);
+
+  const appPort = config.app.port + 50;
+  const basePort = config.app.port + 51;
+  const app = spawn(process.execPath, [require.resolve("next/dist/bin/next"), "start", "--hostname", "127.0.0.1", "--port", String(appPort)], {
+    cwd: root,
+    env: { ...process.env, ...env, DATABASE_URL: benchUrl, NEXT_DIST_DIR: ".next-test", NODE_ENV: "production" },
+    stdio: ["ignore", "ignore", "inherit"],
+  });
+  started.push(app);
+  const baseline = spawn(process.execPath, [require.resolve("tsx/cli"), path.join(__dirname, "web-baseline.ts")], {
+    cwd: root,
+    env: { ...process.env, DATABASE_URL: benchUrl, BASELINE_PORT: String(basePort), BASELINE_BOARD: boardId },
+    stdio: ["ignore", "ignore", "inherit"],
+  });
+  started.push(baseline);
+  const appBase = `http://127.0.0.1:${appPort}`;
+  const baseBase = `http://127.0.0.1:${basePort}`;
+  await waitFor(`${appBase}/api/health`, 90_000);
+  await waitFor(`${baseBase}/health`, 30_000);
+  const cookie = await signIn(appBase);
+  const headers = { cookie, accept: "application/json" };
+
+  const list = `${appBase}/api/v1/boards/${boardId}/proposals`;
+  const middlePage = Math.floor(PROPOSALS / 2 / 20);
+  const cursor = Buffer.from(JSON.stringify({ s: "updatedAt", d: "desc", v: middle.v, i: middle.id }), "utf8").toString("base64url");
+  log("");
+  log(`Latency, one request at a time (${samples} after 3 warm-up)`);
+  await latency("list, first page (app)", `${list}?pageSize=20`, { headers });
+  await latency(`list, middle page ${middlePage} by page (app)`, `${list}?pageSize=20&page=${middlePage}`, { headers });
+  await latency("list, middle page by cursor (app)", `${list}?pageSize=20&cursor=${cursor}`, { headers });
+  await latency("list, first page (baseline)", `${baseBase}/proposals?pageSize=20`, {});
+  await latency("overview API, the 4.5 % call (app)", `${appBase}/api/v1/boards/${boardId}/calls/${largestCallId}/overview`, { headers });
+  await latency("orbit-check API, 200 claims (app)", `${appBase}/api/v1/orbit-checks`, {
+    method: "POST",
+    headers: { ...headers, "content-type": "application/json", origin: appBase },
+    body: orbitRequest,
+  });
+
+  log("");
+  log(`Throughput, list first page, ${seconds} s per run (autocannon)`);
+  log(`  ${"connections".padEnd(12)} ${"app req/s".padStart(10)} ${"baseline req/s".padStart(15)} ${"app / baseline".padStart(15)}`);
+  for (const connections of [1, 8, 32]) {
+    const a = await throughput(`${list}?pageSize=20`, headers, connections);
+    const b = await throughput(`${baseBase}/proposals?pageSize=20`, {}, connections);
+    log(`  ${String(connections).padEnd(12)} ${a.toFixed(1).padStart(10)} ${b.toFixed(1).padStart(15)} ${(b > 0 ? a / b : 0).toFixed(2).padStart(15)}`);
+  }
+}
+
+const hardStop = setTimeout(() => {
+  console.error("bench:web ran past its time bound; stopping.");
+  stopAll();
+  process.exit(1);
+}, 20 * 60_000).unref();
+
+main()
+  .then(() => {
+    clearTimeout(hardStop);
+    stopAll();
+    process.exit(0);
+  })
+  .catch((error: unknown) => {
+    console.error(error instanceof Error ? error.message : error);
+    stopAll();
+    process.exit(1);
+  });
