@@ -54,6 +54,7 @@ import { lifetimeKind } from "./kinds/lifetime";
 import { disposalKind } from "./kinds/disposal";
 import { massBudgetKind } from "./kinds/mass-budget";
 import { phasedDeltaVBudget, phasedValues, readPhases } from "./kinds/delta-v-budget";
+import { SHAPE_FIELDS } from "./kinds/shared";
 
 /** One conic to draw with r(θ) = p / (1 + e cos θ), rotated by argPeriapsis in the plot plane. */
 export interface PlotConic {
@@ -171,17 +172,7 @@ function describe(v: unknown): string {
 // ---------------------------------------------------------------------------------------
 // Orbit shape shared by several kinds
 
-const SHAPE_NAMES = [
-  "altitude",
-  "periapsisAltitude",
-  "apoapsisAltitude",
-  "periapsisRadius",
-  "apoapsisRadius",
-  "semiMajorAxis",
-  "eccentricity",
-  "semiLatusRectum",
-  "period",
-] as const;
+const SHAPE_NAMES = SHAPE_FIELDS;
 
 const SHAPE_RULE =
   "two independent values of periapsisAltitude, apoapsisAltitude, periapsisRadius, apoapsisRadius, semiMajorAxis, eccentricity, semiLatusRectum, period; or altitude alone (circular)";

@@ -10,6 +10,7 @@ import { validateStation } from "../contact";
 import { fail, fmt } from "../errors";
 import type { Evaluation, GivenInfo, Inputs } from "../kinds";
 import type { ComputedValue } from "../schema";
+import { SHAPE_FIELDS } from "./shared";
 
 export interface CoverageKindDef {
   summary: string;
@@ -32,17 +33,7 @@ export function evaluation(values: Record<string, ComputedValue>, body: Body, ex
   };
 }
 
-export const ORBIT_SHAPE_NAMES = [
-  "altitude",
-  "periapsisAltitude",
-  "apoapsisAltitude",
-  "periapsisRadius",
-  "apoapsisRadius",
-  "semiMajorAxis",
-  "eccentricity",
-  "semiLatusRectum",
-  "period",
-] as const;
+export const ORBIT_SHAPE_NAMES = SHAPE_FIELDS;
 
 const SHAPE_RULE =
   "altitude (circular), or two of periapsisAltitude, apoapsisAltitude, periapsisRadius, apoapsisRadius, semiMajorAxis, eccentricity, semiLatusRectum, period";
