@@ -1,6 +1,7 @@
 import "server-only";
 import { and, asc, desc, eq, gt, inArray, isNull, sql } from "drizzle-orm";
 import { db } from "@/db/client";
+import { formatDateTime } from "@/lib/format/dates";
 import { accountTokens, boardMembers, boards, invitations, users, userSessions } from "@/db/schema";
 import { hashPassword, verifyPassword } from "@/lib/auth/passwords";
 import { newToken } from "@/lib/auth/tokens";
@@ -339,7 +340,7 @@ export async function registerProposer(
         heading: `Your invitation to the ${invitation.boardName}`,
         paragraphs: [
           `Someone registered this address on VisViva. You already have an invitation to the ${invitation.boardName} as ${invitation.role}: accept it with the button below, which creates your account.`,
-          `This link replaces the one in the earlier invitation mail and expires on ${invitation.expiresAt.toUTCString()}.`,
+          `This link replaces the one in the earlier invitation mail and expires on ${formatDateTime(invitation.expiresAt)}.`,
         ],
         action: { label: "Accept the invitation", url: invitationUrl(token) },
         footnote: "If you did not register, ignore this message; no account was created.",
