@@ -217,6 +217,13 @@ describe("deltaVBudget with phases: hand-worked example", () => {
     expect(r.computed.propellantUsable).toBeCloseTo(19.6, 12);
     expect(r.computed.margin as number).toBeCloseTo(1.5176, 3);
     expect(r.computed.closes).toBe(true);
+    // Δv available at the start of each phase, on the usable propellant still aboard (by hand):
+    // transfer 2.157463·ln(150/130.4) = 0.302107 km/s; corrections 2.157463·ln(142.8746/130.4)
+    // = 0.197107 km/s (the transfer's 0.105 km/s at the main engine's Isp is spent).
+    const available = r.computed.phaseDeltaVAvailable as { name: string; deltaVAvailable: number }[];
+    expect(available.map((p) => p.name)).toEqual(["transfer", "corrections"]);
+    expect(available[0]!.deltaVAvailable).toBeCloseTo(0.302107, 5);
+    expect(available[1]!.deltaVAvailable).toBeCloseTo(0.197107, 5);
   });
   it("says when the budget closes only without its statistical margins", () => {
     // Load just enough propellant for the phases without the statistical margin (0.1 → 0): not with it.

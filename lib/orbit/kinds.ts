@@ -748,6 +748,7 @@ const KIND_DEFS: Record<string, KindDef> = {
       "deltaVWithMargins",
       "phases",
       "phaseDeltaV",
+      "phaseDeltaVAvailable",
       "phasePropellant",
       "propellantRequired",
       "propellantLoaded",

@@ -187,6 +187,11 @@ export const QUANTITIES = {
   lossFactor: n(DIMENSIONLESS, "the proposer's stated Δv loss for finite burns or low thrust, as a fraction"),
   deltaVWithMargins: n("km/s", "sum of the phases' Δv with their margins"),
   phaseDeltaV: { unit: "km/s", type: "table", description: "Δv with margin per phase" } as QuantityInfo,
+  phaseDeltaVAvailable: {
+    unit: "km/s",
+    type: "table",
+    description: "Δv the usable propellant left at the start of each phase can still give (main engine)",
+  } as QuantityInfo,
   phasePropellant: { unit: "kg", type: "table", description: "propellant per phase" } as QuantityInfo,
   propellantRequired: n("kg", "propellant the phases need with their margins"),
   propellantLoaded: n("kg", "initial mass − final mass"),

@@ -41,6 +41,8 @@ export interface PhaseResult {
   propellant: number;
   /** The loaded propellant still covers the budget up to and including this phase, with margins. */
   marginOk: boolean;
+  /** Δv the usable propellant left at the start of this phase can still give with the main engine, km/s. */
+  deltaVAvailable: number;
 }
 
 export interface PhasedBudgetResult {
@@ -96,6 +98,10 @@ export function phasedDeltaVBudget(
   let cumulative = 0;
   const results: PhaseResult[] = phases.map((ph, i) => {
     const dv = ph.maneuvers.reduce((s, mv) => s + mv.deltaV, 0) * (1 + lossFactor);
+    // Tsiolkovsky (Δv = Isp·g0·ln(m_start/m_end)) on the usable propellant still aboard when the phase starts.
+    const startMass = m0 - cumulative;
+    const left = Math.max(0, usable - cumulative);
+    const deltaVAvailable = left > 0 && startMass - left > 0 ? mainIsp * STANDARD_GRAVITY_KM_S2 * Math.log(startMass / (startMass - left)) : 0;
     cumulative += full.perPhase[i]!;
     return {
       name: ph.name,
@@ -105,6 +111,7 @@ export function phasedDeltaVBudget(
       deltaVWithMargin: dv * (1 + ph.margin),
       propellant: full.perPhase[i]!,
       marginOk: cumulative <= usable * (1 + 1e-12),
+      deltaVAvailable,
     };
   });
   const deltaVRequired = results.reduce((s, p) => s + p.deltaV, 0);
@@ -174,6 +181,7 @@ export function phasedValues(b: PhasedBudgetResult, requiredMargin: number | und
     marginOk: b.closes && b.phases.every((p) => p.marginOk) && (requiredMargin === undefined || b.margin >= requiredMargin),
     phases: b.phases as unknown as Record<string, string | number | boolean>[],
     phaseDeltaV: b.phases.map((p) => ({ name: p.name, deltaV: p.deltaVWithMargin })),
+    phaseDeltaVAvailable: b.phases.map((p) => ({ name: p.name, deltaVAvailable: p.deltaVAvailable })),
     phasePropellant: b.phases.map((p) => ({ name: p.name, propellant: p.propellant })),
     propellantRequired: b.propellantRequired,
     propellantLoaded: b.propellantLoaded,
