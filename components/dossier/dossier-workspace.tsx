@@ -6,6 +6,7 @@
 import { useEffect, useMemo, useRef, useState } from "react";
 import { useRouter } from "next/navigation";
 import { DossierEditor, useDossierEditor } from "@/components/editor/editor";
+import { DraftAttachmentsProvider } from "@/components/editor/extensions/orbit-check/attachments-context";
 import { AttachmentUploader, type AttachmentItem } from "@/components/upload/attachment-uploader";
 import { OrbitFilesPanel } from "@/components/orbit-files/orbit-files-panel";
 import { deltaVBudget, evaluateBlocks, extractOrbitChecks, type ToleranceInput } from "@/lib/dossier/claims";
@@ -282,6 +283,7 @@ export function DossierWorkspace(props: DossierWorkspaceProps) {
     result: e.result,
   }));
   const budget = useMemo(() => deltaVBudget(evaluations), [evaluations]);
+  const attachmentRefs = useMemo(() => attachments.map((a) => ({ id: a.id, filename: a.filename, sha256: a.sha256 })), [attachments]);
   const images = attachments.filter((a) => a.contentType.startsWith("image/")).map((a) => ({ src: a.contentPath, filename: a.filename }));
 
   return (
@@ -313,7 +315,9 @@ export function DossierWorkspace(props: DossierWorkspaceProps) {
             </div>
           </details>
         ) : null}
-        <DossierEditor editor={editor} images={images} />
+        <DraftAttachmentsProvider value={attachmentRefs}>
+          <DossierEditor editor={editor} images={images} />
+        </DraftAttachmentsProvider>
       </div>
       <div className="space-y-4">
         <DossierSummary

@@ -10,6 +10,7 @@ import { sanitizeDossier } from "./sanitize";
 import type { DossierClaim, DossierMark, DossierNode, SanitizeContext, WrittenValues } from "./schema";
 import { convertWritten } from "./units";
 import { checkSentence, rowHint } from "./verdict-text";
+import { sourceNote, sourceOf, type AttachmentRef } from "@/lib/orbit-files/source";
 
 export function escapeHtml(text: string): string {
   return text.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]!);
@@ -39,6 +40,8 @@ export interface RenderOptions extends SanitizeContext {
   verdicts?: Record<string, BlockVerdict>;
   /** The call's tolerance policy, named beside each verdict. */
   tolerance?: { relative?: number; absolute?: Record<string, number | undefined> };
+  /** The proposal's attachments now: a block made from a file then says when that file changed or left. */
+  attachments?: readonly AttachmentRef[];
 }
 
 const attr = (name: string, value: unknown) => (value === undefined || value === null ? "" : ` ${name}="${escapeHtml(String(value))}"`);
@@ -129,6 +132,18 @@ function requirementsHtml(outcomes: RequirementOutcome[] | undefined): string {
   return `<div class="orbit-check-requirements"><strong>Call requirements</strong><ul>${outcomes.map(line).join("")}</ul></div>`;
 }
 
+/** "Made from <file>, orbit <n>", and what happened to that file since, when the attachments are known. */
+function sourceHtml(value: unknown, options: RenderOptions): string {
+  const source = sourceOf(value);
+  if (!source) return "";
+  const note = sourceNote(source, options.attachments ?? null);
+  return (
+    `<div class="orbit-check-source" data-orbit-check-source="${escapeHtml(note.state)}">${escapeHtml(note.madeFrom)}` +
+    (note.problem ? `<div class="orbit-check-source-problem" role="status">${escapeHtml(note.problem)}</div>` : "") +
+    `</div>`
+  );
+}
+
 function renderOrbitCheck(node: DossierNode, options: RenderOptions): string {
   const a = node.attrs ?? {};
   const blockId = String(a.blockId ?? "");
@@ -157,6 +172,7 @@ function renderOrbitCheck(node: DossierNode, options: RenderOptions): string {
   return (
     `<figure class="orbit-check" id="orbit-check-${escapeHtml(blockId)}" data-orbit-check="" data-block-id="${escapeHtml(blockId)}" data-kind="${escapeHtml(claim.kind)}"${verdict ? attr("data-status", verdict.status) : ""}>` +
     `<figcaption><strong>${escapeHtml(label)}</strong> · ${escapeHtml(kindLabel(claim.kind))} · ${escapeHtml(bodyName(claim.body))}</figcaption>` +
+    sourceHtml(a.source, options) +
     `<table class="orbit-check-values"><tbody>${rows("Given", claim.given, "given")}${rows("Claimed", claim.claimed, "claimed")}</tbody></table>` +
     verdictHtml +
     `</figure>`

@@ -1,6 +1,7 @@
 // A proposer in a real browser attaches an element set, reads what the server made of it,
 // makes an orbit-check block from it, names that block as the orbit the text describes, and
-// sees the file disagree with the text; the block's orbit downloads as an OPM.
+// sees the file disagree with the text; the block's orbit downloads as an OPM; the block names
+// its file, and says so once that file is removed.
 import crypto from "node:crypto";
 import { describe, expect, it } from "vitest";
 import { tleChecksum } from "@/lib/orbit-files";
@@ -62,6 +63,10 @@ describe("orbit files in the browser", () => {
     const made = blocks.nth(1);
     const name = made.getByLabel("Name in the text");
     await expect(name.inputValue()).resolves.toBe("VV-LANTERN");
+    // The block names the file it was made from.
+    const madeFrom = made.locator("[data-orbit-check-source]");
+    await expect(madeFrom.textContent()).resolves.toBe("Made from lantern.tle, orbit 1");
+    await expect(madeFrom.getAttribute("data-orbit-check-source")).resolves.toBe("same");
     // Focus went to the new block's name; the proposer names it as the orbit of the text, key by key.
     await expect.poll(() => name.evaluate((el) => el === document.activeElement)).toBe(true);
     await page.keyboard.press("Control+A");
@@ -83,6 +88,14 @@ describe("orbit files in the browser", () => {
     const opm = await page.evaluate(async (url) => (await fetch(url!)).text(), href);
     expect(opm.split("\n")[0]).toBe("CCSDS_OPM_VERS = 2.0");
     expect(opm).toContain("EPOCH = 2026-03-01T12:00:00.000");
+
+    // The proposer removes the file: the block made from it says so and what to do.
+    await page.getByRole("button", { name: "Remove lantern.tle" }).click();
+    await made.locator('[data-orbit-check-source="removed"]').waitFor();
+    await expect(madeFrom.getByRole("status").textContent()).resolves.toBe(
+      "lantern.tle is no longer attached to the dossier. Attach it again, or make the claim from another orbit file.",
+    );
+    await expect(madeFrom.textContent()).resolves.toMatch(/^Made from lantern\.tle, orbit 1/);
     expect(errors).toEqual([]);
   });
 });

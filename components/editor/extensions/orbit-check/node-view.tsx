@@ -18,6 +18,8 @@ import { VerdictBadge } from "@/components/dossier/verdict-badge";
 import { ContactPictures } from "@/components/coverage/contact-pictures";
 import { StationsInput } from "@/components/coverage/stations-input";
 import { MassItemsInput, PhasesInput } from "./budget-inputs";
+import { useDraftAttachments } from "./attachments-context";
+import { sourceNote, sourceOf } from "@/lib/orbit-files/source";
 
 /** All orbit-check blocks of the editor's document, in order. */
 export function blocksOf(editor: Editor): OrbitCheckBlock[] {
@@ -165,6 +167,9 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
   const initialFrom: string | null = node.attrs.initialFrom ?? null;
   const written = (node.attrs.written ?? {}) as WrittenValues;
   const tolerance = (extension.options as { tolerance?: ToleranceInput }).tolerance;
+  const source = sourceOf(node.attrs.source);
+  const attachments = useDraftAttachments();
+  const fileNote = source ? sourceNote(source, attachments) : null;
   const info = kindInfo(claim.kind) ?? ORBIT_CHECK_KINDS[0]!;
   const headingId = useId();
   const verdictId = useId();
@@ -259,6 +264,16 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
           </button>
         </div>
       </div>
+      {fileNote ? (
+        <div className="mb-3 space-y-1 text-xs" data-orbit-check-source={fileNote.state}>
+          <p className="text-ink-600">{fileNote.madeFrom}</p>
+          {fileNote.problem ? (
+            <p role="status" className="rounded-chip border border-drift-500/40 bg-drift-100 px-2 py-1 font-semibold text-drift-700">
+              {fileNote.problem}
+            </p>
+          ) : null}
+        </div>
+      ) : null}
       <div className="grid gap-4 lg:grid-cols-[1fr_auto]">
         <div className="space-y-2">
           <div className="flex items-center gap-2">
