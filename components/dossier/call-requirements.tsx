@@ -4,6 +4,7 @@
 // units people write (percent, years, minutes); the server checks them again and names the
 // field it refuses.
 import { useId, useRef, useState } from "react";
+import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { callApi } from "@/components/review/api";
 import { REQUIREMENT_TYPES, requirementType } from "@/lib/requirements";
@@ -28,17 +29,21 @@ export function CallRequirements({
   callId,
   requirements,
   editable,
+  stations = [],
 }: {
   boardId: string;
   callId: string;
   requirements: CallRequirementItem[];
   editable: boolean;
+  /** Names of the board's ground stations, for requirements that name stations (chairs only). */
+  stations?: string[];
 }) {
   const router = useRouter();
   const [type, setType] = useState(REQUIREMENT_TYPES[0]!.type);
   const def = requirementType(type)!;
   const [values, setValues] = useState<Record<string, string>>({});
   const [rationale, setRationale] = useState("");
+  const [picked, setPicked] = useState<string[]>([]);
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [message, setMessage] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
@@ -61,6 +66,8 @@ export function CallRequirements({
       if (n === null) found[f.name] = `Enter ${f.label.toLowerCase()} as a number in ${f.unit}.`;
       else params[f.name] = n / f.scale;
     }
+    // The ticked stations, in the board list's order.
+    if (def.stationList && picked.length > 0) params[def.stationList.name] = stations.filter((n) => picked.includes(n));
     setErrors(found);
     if (Object.keys(found).length > 0) return;
     setBusy(true);
@@ -72,6 +79,7 @@ export function CallRequirements({
     if (answer.ok) {
       setValues({});
       setRationale("");
+      setPicked([]);
       setMessage(`Added: ${answer.data.requirement.summary}.`);
       router.refresh();
     } else {
@@ -80,7 +88,8 @@ export function CallRequirements({
       for (const i of issues) {
         const name = i.path.replace(/^params\./, "");
         const field = def.fields.find((f) => f.name === name);
-        byField[field ? name : "form"] = field ? `${field.label}: ${i.message}.` : i.message;
+        if (def.stationList && name.split(".")[0] === def.stationList.name) byField[def.stationList.name] = `${def.stationList.legend}: ${i.message}.`;
+        else byField[field ? name : "form"] = field ? `${field.label}: ${i.message}.` : i.message;
       }
       setErrors(byField);
       setMessage(issues.length > 0 ? "Not added: correct the marked values." : answer.error);
@@ -138,6 +147,7 @@ export function CallRequirements({
                 setValues({});
                 setErrors({});
                 setRationale("");
+                setPicked([]);
               }}
               className="mt-1 block rounded-chip border border-ink-300 bg-white px-2 py-1"
             >
@@ -179,6 +189,35 @@ export function CallRequirements({
               </p>
             </div>
           ))}
+          {def.stationList ? (
+            <fieldset aria-describedby={`${formId}-stations-help`} className="space-y-1">
+              <legend className="text-sm font-semibold">{def.stationList.legend}</legend>
+              {stations.length === 0 ? (
+                <p className="text-sm text-ink-600">
+                  This board has no ground stations yet, so the requirement counts any station the dossier uses. Add stations on the{" "}
+                  <Link href={`/boards/${boardId}/stations`} className="font-semibold text-trajectory-700 hover:underline">
+                    Ground stations page
+                  </Link>{" "}
+                  to name them here.
+                </p>
+              ) : (
+                stations.map((name) => (
+                  <label key={name} className="flex items-center gap-2 text-sm">
+                    <input
+                      type="checkbox"
+                      checked={picked.includes(name)}
+                      onChange={(e) => setPicked((p) => (e.target.checked ? [...p, name] : p.filter((n) => n !== name)))}
+                    />
+                    {name}
+                  </label>
+                ))
+              )}
+              <p id={`${formId}-stations-help`} className="text-xs text-ink-600">
+                {errors[def.stationList.name] ? <span className="text-void-700">{errors[def.stationList.name]} </span> : null}
+                {stations.length > 0 ? def.stationList.help : null}
+              </p>
+            </fieldset>
+          ) : null}
           <div>
             <label htmlFor={`${formId}-rationale`} className="block text-sm font-semibold">
               Rationale shown to proposers (optional; the type&apos;s own wording when empty)

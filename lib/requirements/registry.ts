@@ -234,6 +234,11 @@ const minDailyContact: RequirementDefinition<z.infer<typeof contactParams>> = {
     "On the day with the least contact in the dossier's contact check, the spacecraft is in view of the stations (above their minimum elevation) at least this long. When the call names stations, only those may be counted.",
   params: contactParams,
   fields: [{ name: "minimumPerDay", label: "Least contact in any one day", unit: "min", scale: 1 / 60, help: "summed over the day's passes" }],
+  stationList: {
+    name: "stations",
+    legend: "Stations that may be counted (optional)",
+    help: "Tick none to count any station the dossier uses.",
+  },
   presets: [],
   defaultRationale: "Data comes home only while a station sees the spacecraft; the board asks for enough contact every day, not only on average.",
   kinds: ["contactTime"],

@@ -83,6 +83,8 @@ export interface RequirementDefinition<P extends Record<string, unknown> = Recor
   /** zod schema of the parameters; its issues name the field (params.<name>). */
   params: z.ZodType<P>;
   fields: readonly RequirementField[];
+  /** A parameter naming stations of the board's list (an array of names), offered as one checkbox per station. */
+  stationList?: { name: string; legend: string; help: string };
   presets: readonly RequirementPreset[];
   defaultRationale: string;
   /** Claim kinds this requirement concerns. */

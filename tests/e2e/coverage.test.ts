@@ -9,6 +9,7 @@ import { createProposal, getDraft, saveDraft, submitProposal } from "@/lib/dal/p
 import { assignReviewers } from "@/lib/dal/assignments";
 import { createStation } from "@/lib/dal/stations";
 import { listStations } from "@/lib/dal/stations";
+import { listRequirements } from "@/lib/dal/requirements";
 import { dossierDoc, makeCall, makeProposal, orbitBlock } from "../integration/matrix/dossiers";
 import { createBoardWithCast } from "../support/factories";
 
@@ -121,8 +122,23 @@ describe("ground stations and contact checks in the browser", () => {
       await chair.getByRole("combobox", { name: /^Requirement/ }).selectOption("minDailyContact");
       await chair.getByLabel("Least contact in any one day (min)").click();
       await chair.keyboard.type("90");
+      // The board's stations are offered as checkboxes named by the station; the chair ticks one by clicking it.
+      const stationsGroup = chair.getByRole("group", { name: "Stations that may be counted (optional)" });
+      const northSite = stationsGroup.getByRole("checkbox", { name: "North site" });
+      expect(await northSite.isChecked()).toBe(false);
+      await northSite.click();
+      expect(await northSite.isChecked()).toBe(true);
       await chair.getByRole("button", { name: "Add requirement" }).click();
-      await chair.getByText("Added: Contact at least 90 min every day.").waitFor();
+      await chair.getByText("Added: Contact at least 90 min every day at North site.").waitFor();
+      // Listed on the call with the station named, and stored as the API takes it.
+      await chair
+        .getByRole("list", { name: "Requirements of this call" })
+        .getByText("Contact at least 90 min every day at North site", { exact: true })
+        .waitFor();
+      const stored = await listRequirements(chairUser, cast.board.id, call.id);
+      expect(stored).toEqual([expect.objectContaining({ type: "minDailyContact", params: { minimumPerDay: 5400, stations: ["North site"] } })]);
+      // The form is cleared for the next requirement.
+      expect(await northSite.isChecked()).toBe(false);
     } finally {
       await chair.close();
     }
@@ -166,7 +182,7 @@ describe("ground stations and contact checks in the browser", () => {
       await reviewer.getByRole("link", { name: "Petrel downlink demonstrator" }).click();
       const checks = reviewer.locator("section[aria-labelledby=checks-heading]");
       await checks.locator('[data-requirement-outcome="notMet"]').waitFor();
-      await expect(checks.textContent()).resolves.toMatch(/Requirement not met.*Contact at least 90 min every day/);
+      await expect(checks.textContent()).resolves.toMatch(/Requirement not met.*Contact at least 90 min every day at North site/);
       await expect(checks.textContent()).resolves.toMatch(/the day with the least contact has 4\d(\.\d)? min, the call asks at least 90 min/);
     } finally {
       await reviewer.close();

@@ -11,6 +11,7 @@ import { can } from "@/lib/auth/policy";
 import { getBoard } from "@/lib/dal/boards";
 import { getCall } from "@/lib/dal/calls";
 import { listRequirements } from "@/lib/dal/requirements";
+import { listStations } from "@/lib/dal/stations";
 import { CallRequirements } from "@/components/dossier/call-requirements";
 
 export const metadata: Metadata = { title: "Call" };
@@ -25,6 +26,7 @@ export default async function CallPage({ params }: { params: Promise<{ boardId: 
   const isChair = can(user, "call.manage", { role: board.myRole });
   const isProposer = can(user, "proposal.create", { role: board.myRole });
   const requirements = await listRequirements(user, boardId, callId);
+  const stationNames = isChair ? (await listStations(user, boardId)).stations.map((s) => s.name) : [];
   const abs = Object.entries(call.tolerance.absolute ?? {});
   const submitted = isChair ? await listProposals(user, boardId, proposalListQuerySchema.parse({ callId, pageSize: 50, sort: "title", dir: "asc" })) : null;
   if (submitted) submitted.rows = submitted.rows.filter((p) => p.latestVersion > 0);
@@ -72,6 +74,7 @@ export default async function CallPage({ params }: { params: Promise<{ boardId: 
           boardId={boardId}
           callId={callId}
           editable={isChair}
+          stations={stationNames}
           requirements={requirements.map((r) => ({ id: r.id, type: r.type, summary: r.summary, rationale: r.rationale, params: r.params }))}
         />
       </Panel>
