@@ -5,7 +5,7 @@ import Link from "next/link";
 import { useParams } from "next/navigation";
 import { useEffect, useId, useState } from "react";
 
-interface BoardStation {
+export interface BoardStation {
   id: string;
   name: string;
   latitude: number;
@@ -24,11 +24,11 @@ export interface ClaimStation {
 
 const deg = (v: number, pos: string, neg: string) => `${Math.abs(v).toFixed(2)}° ${v < 0 ? neg : pos}`;
 
-export function StationsInput({ value, onChange }: { value: unknown; onChange: (v: ClaimStation[] | undefined) => void }) {
+/** The board's ground stations (kept by the chair), read once per mount; null while loading. */
+export function useBoardStations(): { boardId: string | undefined; stations: BoardStation[] | null; error: string | null } {
   const params = useParams<{ boardId?: string }>();
   const boardId = params?.boardId;
-  const legendId = useId();
-  const [board, setBoard] = useState<BoardStation[] | null>(null);
+  const [stations, setStations] = useState<BoardStation[] | null>(null);
   const [error, setError] = useState<string | null>(null);
   useEffect(() => {
     if (!boardId) return;
@@ -39,12 +39,18 @@ export function StationsInput({ value, onChange }: { value: unknown; onChange: (
           throw new Error(res.status === 404 ? "this board's stations are not available to you" : `the station list could not be read (${res.status})`);
         return (await res.json()) as { stations: BoardStation[] };
       })
-      .then((json) => live && setBoard(json.stations))
+      .then((json) => live && setStations(json.stations))
       .catch((e: unknown) => live && setError(e instanceof Error ? e.message : "the station list could not be read"));
     return () => {
       live = false;
     };
   }, [boardId]);
+  return { boardId, stations, error };
+}
+
+export function StationsInput({ value, onChange }: { value: unknown; onChange: (v: ClaimStation[] | undefined) => void }) {
+  const { boardId, stations: board, error } = useBoardStations();
+  const legendId = useId();
   const chosen: ClaimStation[] = Array.isArray(value) ? (value as ClaimStation[]) : [];
   const chosenNames = new Set(chosen.map((s) => s.name));
   const gone = chosen.filter((s) => board !== null && !board.some((b) => b.name === s.name));

@@ -110,12 +110,14 @@ function checkLine(c: NonNullable<BlockVerdict["checks"]>[number]): string {
 }
 
 /** "96.5 min (= 5790 s)": the value as written, with the contract-unit value when converted. */
-function writtenValue(name: string, value: unknown, written: { text: string; unit: string } | undefined): string {
+function writtenValue(name: string, value: unknown, written: { text: string; unit: string; station?: string } | undefined): string {
   const unit = unitOf(name);
   if (!written) return `${formatValue(value)}${unit ? ` ${unit}` : ""}`;
+  // A value copied from a board station says so ("10 deg, from the board station North site").
+  const from = written.station ? `, from the board station ${written.station}` : "";
   const c = convertWritten(written, quantityInfo(name)?.unit ?? "");
-  if ("error" in c || c.factor === 1) return `${written.text}${written.unit && written.unit !== "1" ? ` ${written.unit}` : ""}`;
-  return `${written.text} ${written.unit} (= ${formatValue(c.value)}${unit ? ` ${unit}` : ""})`;
+  if ("error" in c || c.factor === 1) return `${written.text}${written.unit && written.unit !== "1" ? ` ${written.unit}` : ""}${from}`;
+  return `${written.text} ${written.unit} (= ${formatValue(c.value)}${unit ? ` ${unit}` : ""})${from}`;
 }
 
 function formatPercent(fraction: number): string {

@@ -33,8 +33,15 @@ export interface OrbitCheckAttrs {
 
 /** Typed text and unit per given and claimed quantity; the claim holds the contract-unit values. */
 export interface WrittenValues {
-  given?: Record<string, { text: string; unit: string }>;
-  claimed?: Record<string, { text: string; unit: string }>;
+  given?: Record<string, WrittenEntry>;
+  claimed?: Record<string, WrittenEntry>;
+}
+
+/** One typed value; `station` names the board station a value was copied from (link budget's minimum elevation). */
+export interface WrittenEntry {
+  text: string;
+  unit: string;
+  station?: string;
 }
 
 export interface DossierMark {
@@ -138,19 +145,20 @@ function parseWritten(text: string | null): WrittenValues | null {
 const WRITTEN_KEY = /^[A-Za-z][A-Za-z0-9_]{0,59}$/;
 const WRITTEN_UNIT = /^[A-Za-z/°]{1,12}$/;
 
-/** Keeps only `{ given, claimed }` maps of `{ text ≤ 60 chars, unit }` under quantity names. */
+/** Keeps only `{ given, claimed }` maps of `{ text ≤ 60 chars, unit, station? ≤ 80 chars }` under quantity names. */
 export function cleanWritten(v: unknown): WrittenValues | undefined {
   if (typeof v !== "object" || v === null || Array.isArray(v)) return undefined;
   const out: WrittenValues = {};
   for (const side of ["given", "claimed"] as const) {
     const raw = (v as Record<string, unknown>)[side];
     if (typeof raw !== "object" || raw === null || Array.isArray(raw)) continue;
-    const map: Record<string, { text: string; unit: string }> = {};
+    const map: Record<string, WrittenEntry> = {};
     for (const [k, e] of Object.entries(raw).slice(0, 40)) {
       if (!WRITTEN_KEY.test(k) || typeof e !== "object" || e === null) continue;
-      const { text, unit } = e as { text?: unknown; unit?: unknown };
+      const { text, unit, station } = e as { text?: unknown; unit?: unknown; station?: unknown };
       if (typeof text !== "string" || typeof unit !== "string" || !WRITTEN_UNIT.test(unit)) continue;
       map[k] = { text: text.slice(0, 60), unit };
+      if (typeof station === "string" && station.trim() !== "") map[k].station = station.trim().slice(0, 80);
     }
     if (Object.keys(map).length > 0) out[side] = map;
   }

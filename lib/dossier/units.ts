@@ -66,6 +66,8 @@ export function parseDecimal(raw: string): ParsedDecimal {
 export interface WrittenValue {
   text: string;
   unit: string;
+  /** The board station the value was copied from (link budget's minimum elevation). */
+  station?: string;
 }
 
 export interface ConvertedValue {

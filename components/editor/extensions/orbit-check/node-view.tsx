@@ -9,7 +9,7 @@ import { BODY_NAMES, ORBIT_CHECK_KINDS, SCREENING_CAUTION, conicForPlot, evaluat
 import { REFERENCEABLE_KINDS, REFERENCING_KINDS, resolveClaim, type OrbitCheckBlock, type ToleranceInput } from "@/lib/dossier/claims";
 import type { DossierClaim, WrittenValues } from "@/lib/dossier/schema";
 import { bodyLabel, kindLabel, plainQuantities, quantityLabel } from "@/lib/orbit/labels";
-import { NOT_A_NUMBER, parseDecimal, type ConvertedValue, type WrittenValue } from "@/lib/dossier/units";
+import { NOT_A_NUMBER, convertWritten, parseDecimal, type ConvertedValue, type WrittenValue } from "@/lib/dossier/units";
 import { WrittenInput, initialWritten } from "./written-input";
 import { CheckRowDetail, ConsistentMeaning } from "@/components/dossier/check-explain";
 import { formatValue } from "@/lib/dossier/render";
@@ -17,6 +17,7 @@ import { OrbitPlot } from "@/components/orbit-plot/orbit-plot";
 import { VerdictBadge } from "@/components/dossier/verdict-badge";
 import { ContactPictures } from "@/components/coverage/contact-pictures";
 import { StationsInput } from "@/components/coverage/stations-input";
+import { StationElevationPick } from "@/components/coverage/station-elevation-pick";
 import { MassItemsInput, PhasesInput } from "./budget-inputs";
 import { useDraftAttachments } from "./attachments-context";
 import { sourceNote, sourceOf } from "@/lib/orbit-files/source";
@@ -205,6 +206,20 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
     if (side === "claimed") setPending((p) => (p.includes(name) ? p : [...p, name]));
     updateAttributes({ claim: { ...claim, [side]: values }, written: { ...written, [side]: texts } });
   };
+  // Copies a board station's minimum elevation (and its name) into the block; the count remounts the typed field.
+  const [stationPicks, setStationPicks] = useState(0);
+  const pickStationElevation = (name: string, unit: string, s: { name: string; minimumElevation: number } | null) => {
+    const current = written.given?.[name];
+    if (!s) {
+      // The value stays; only the station's name goes.
+      if (current?.station) updateAttributes({ written: { ...written, given: { ...written.given, [name]: { text: current.text, unit: current.unit } } } });
+      return;
+    }
+    const w: WrittenValue = { text: String(s.minimumElevation), unit, station: s.name };
+    const c = convertWritten(w, unit);
+    setWritten("given", name, w, "error" in c ? undefined : c);
+    setStationPicks((n) => n + 1);
+  };
   const claimed = claim.claimed ?? {};
   // Rows added but not filled in yet stay local: an empty claim is not a claim.
   const [pending, setPending] = useState<string[]>([]);
@@ -363,9 +378,9 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
                       onChange={(v) => setGiven(g.name, v)}
                     />
                   );
-                return (
+                const input = (
                   <WrittenInput
-                    key={key}
+                    key={`${key}-${stationPicks}`}
                     name={g.name}
                     contractUnit={g.unit}
                     optional={g.use === "optional"}
@@ -374,6 +389,15 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
                     onChange={(w, c) => setWritten("given", g.name, w, c)}
                   />
                 );
+                // A link budget's worst-case slant range may use a board station's minimum elevation.
+                if (info.kind === "linkBudget" && g.name === "minimumElevation")
+                  return (
+                    <div key={key} className="space-y-1">
+                      {input}
+                      <StationElevationPick station={written.given?.[g.name]?.station} onPick={(s) => pickStationElevation(g.name, g.unit, s)} />
+                    </div>
+                  );
+                return input;
               })}
             {notes.length > 0 ? <p className="text-xs text-ink-600">{plainQuantities(notes.join("; "))}</p> : null}
           </fieldset>
