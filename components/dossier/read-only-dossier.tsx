@@ -1,8 +1,10 @@
 // A stored dossier (a submitted version, or a draft for readers who cannot edit), rendered
 // on the server from its JSON through the shared sanitizer. With `results`, the server's
 // verdict stands beside each orbit-check block (matched by data-block-id). Each orbit-check
-// block at the top level of the text is drawn with the same to-scale plot the editor shows.
+// block at the top level of the text is drawn with the same to-scale plot the editor shows, and a
+// stored contact check with its ground-track map and 24-hour contact timeline.
 import { OrbitPlot } from "@/components/orbit-plot/orbit-plot";
+import { storedContactPictures } from "@/components/coverage/stored-contact-pictures";
 import { extractOrbitChecks, resolveClaim } from "@/lib/dossier/claims";
 import { renderDossierHtml, type BlockVerdict } from "@/lib/dossier/render";
 import { sanitizeDossier } from "@/lib/dossier/sanitize";
@@ -28,6 +30,10 @@ export interface StoredCheckResult {
   result: Record<string, unknown>;
   /** The call's requirements judged on the claim at submission. */
   requirements?: BlockVerdict["requirements"];
+  /** With kind and claim, a contactTime result gets its ground-track map and contact timeline. */
+  label?: string;
+  kind?: string;
+  claim?: unknown;
 }
 
 export function ReadOnlyDossier({
@@ -47,6 +53,10 @@ export function ReadOnlyDossier({
   const verdicts = results
     ? Object.fromEntries(results.map((r) => [r.blockId, { ...(r.result as unknown as BlockVerdict), status: r.status, requirements: r.requirements }]))
     : undefined;
+  // Contact pictures of stored contactTime results, drawn on the server from the recorded claims.
+  const pictures = results
+    ? storedContactPictures(results.map((r) => ({ blockId: r.blockId, label: r.label ?? "", kind: r.kind ?? "", claim: r.claim, result: r.result })))
+    : {};
   const { doc } = sanitizeDossier(document, { boardId });
   const blocks = extractOrbitChecks(doc);
   // Runs of ordinary blocks as one piece of HTML; each orbit-check block with its plot.
@@ -72,6 +82,7 @@ export function ReadOnlyDossier({
                   <OrbitPlot plot={plot} title={`Plot of ${block.label || `the ${block.claim.kind} claim`}`} size={220} />
                 </div>
               ) : null}
+              {block && pictures[block.blockId] ? <div className="md:col-span-2">{pictures[block.blockId]}</div> : null}
             </div>
           );
         })}

@@ -3,7 +3,7 @@
 // rubric as an editable table. Scores autosave with the review's revision; a stale save is
 // refused by the server (409) and what the reviewer typed stays on screen.
 import { formatDateTime } from "@/lib/format/dates";
-import { useCallback, useEffect, useMemo, useRef, useState } from "react";
+import { useCallback, useEffect, useMemo, useRef, useState, type ReactNode } from "react";
 import { createColumnHelper, getCoreRowModel, useReactTable } from "@tanstack/react-table";
 import { TableView } from "@/components/data-table/table-view";
 import { VerdictBadge } from "@/components/dossier/verdict-badge";
@@ -27,6 +27,8 @@ interface Props {
   items: ReviewItemView[];
   /** The chair may raise items too; the assigned reviewer may while the review is a draft. */
   canRaise: boolean;
+  /** Server-drawn contact pictures (ground-track map, contact timeline) by block id. */
+  contactPictures?: Record<string, ReactNode>;
 }
 
 const saveText: Record<SaveState, string> = {
@@ -40,7 +42,7 @@ const saveText: Record<SaveState, string> = {
   error: "Not saved",
 };
 
-export function ReviewWorkspace({ boardId, screen, items: initialItems, canRaise }: Props) {
+export function ReviewWorkspace({ boardId, screen, items: initialItems, canRaise, contactPictures }: Props) {
   const criteria = useMemo(() => screen.rubric?.criteria ?? [], [screen.rubric]);
   const base = `/api/v1/boards/${boardId}/reviews/${screen.assignment.id}`;
   const [review, setReview] = useState<ReviewState>(screen.review);
@@ -381,7 +383,13 @@ export function ReviewWorkspace({ boardId, screen, items: initialItems, canRaise
           </div>
           {screen.canReopen && review.status === "submitted" ? <ReopenForm base={base} onReopened={(r) => setReview(r)} /> : null}
         </section>
-        <ChecksPanel base={base} checks={screen.checks} editable={canEdit} onRevision={(r) => (revision.current = Math.max(revision.current, r))} />
+        <ChecksPanel
+          base={base}
+          checks={screen.checks}
+          editable={canEdit}
+          pictures={contactPictures}
+          onRevision={(r) => (revision.current = Math.max(revision.current, r))}
+        />
         <ReviewItemsPanel
           boardId={boardId}
           items={items}
@@ -553,7 +561,19 @@ function ReopenForm({ base, onReopened }: { base: string; onReopened: (r: Review
   );
 }
 
-function ChecksPanel({ base, checks, editable, onRevision }: { base: string; checks: CheckRow[]; editable: boolean; onRevision: (r: number) => void }) {
+function ChecksPanel({
+  base,
+  checks,
+  editable,
+  pictures,
+  onRevision,
+}: {
+  base: string;
+  checks: CheckRow[];
+  editable: boolean;
+  pictures?: Record<string, ReactNode>;
+  onRevision: (r: number) => void;
+}) {
   const [notes, setNotes] = useState<Record<string, string>>(Object.fromEntries(checks.map((c) => [c.id, c.note])));
   const [state, setState] = useState<Record<string, string>>({});
   if (checks.length === 0) return null;
@@ -589,6 +609,7 @@ function ChecksPanel({ base, checks, editable, onRevision }: { base: string; che
               </p>
             ))}
             <RequirementFlags outcomes={c.verdict.requirements} showRows />
+            {pictures?.[c.blockId] ? <div className="mt-2">{pictures[c.blockId]}</div> : null}
             {editable || notes[c.id] ? (
               <label className="mt-2 block text-xs font-semibold text-ink-700">
                 Your note on this verdict

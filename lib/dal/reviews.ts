@@ -58,6 +58,8 @@ export interface CheckRow {
   note: string;
   /** The tolerance policy the verdict was found under (recorded since contract version 2). */
   tolerance?: { relative: number; absolute?: Record<string, number> } | null;
+  /** A contactTime result's recorded claim and figures, for the contact pictures. */
+  contact?: { claim: unknown; computed: unknown };
 }
 
 export interface ReviewScreen {
@@ -188,6 +190,7 @@ export async function getReviewScreen(user: SessionUser, boardId: string, assign
       result: checkResults.result,
       requirements: checkResults.requirements,
       tolerance: checkResults.tolerance,
+      claim: checkResults.claim,
     })
     .from(checkResults)
     .where(and(eq(checkResults.versionId, version.id), eq(checkResults.boardId, boardId)));
@@ -214,6 +217,7 @@ export async function getReviewScreen(user: SessionUser, boardId: string, assign
       verdict,
       note: noteOf.get(c.id) ?? "",
       tolerance: c.tolerance ?? null,
+      ...(c.kind === "contactTime" ? { contact: { claim: c.claim, computed: (c.result as { computed?: unknown }).computed ?? {} } } : {}),
     };
   });
   const html = renderDossierHtml(version.document, { boardId, verdicts, tolerance: checks.find((c) => c.tolerance)?.tolerance ?? undefined });

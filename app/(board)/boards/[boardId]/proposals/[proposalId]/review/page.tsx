@@ -5,6 +5,7 @@ import { notFound } from "next/navigation";
 import { PageTitle } from "@/components/ui/panel";
 import { formatScore } from "@/components/review/api";
 import { ReviewWorkspace } from "@/components/review/review-workspace";
+import { storedContactPictures } from "@/components/coverage/stored-contact-pictures";
 import { orNotFound, pageUser } from "@/lib/auth/page-guard";
 import { can } from "@/lib/auth/policy";
 import { proposalAccess } from "@/lib/dal/assignments";
@@ -97,7 +98,16 @@ export default async function ReviewPage({
           ))}
         </nav>
       ) : null}
-      <ReviewWorkspace key={assignmentId} boardId={boardId} screen={screen} items={items} canRaise={isChair} />
+      <ReviewWorkspace
+        key={assignmentId}
+        boardId={boardId}
+        screen={screen}
+        items={items}
+        canRaise={isChair}
+        contactPictures={storedContactPictures(
+          screen.checks.map((c) => ({ blockId: c.blockId, label: c.label, kind: c.kind, claim: c.contact?.claim, result: { computed: c.contact?.computed } })),
+        )}
+      />
     </div>
   );
 }
