@@ -6,7 +6,7 @@
 // own verdict when it is built, so the demo stays honest if the engine changes.
 import crypto from "node:crypto";
 import { evaluateClaim, type ClaimResult } from "@/lib/orbit";
-import type { DossierClaim, DossierNode } from "@/lib/dossier/schema";
+import type { DossierClaim, DossierNode, WrittenValues } from "@/lib/dossier/schema";
 
 export type Verdict = "consistent" | "inconsistent";
 
@@ -23,6 +23,8 @@ export interface SeedBlock {
   mistake: Mistake | null;
   /** Everything the engine computed for the given values (for the prose around the block). */
   computed: Record<string, unknown>;
+  /** Values as the proposer typed them, where that says more than the number (a board station's name). */
+  written?: WrittenValues;
 }
 
 type Given = Record<string, unknown>;
@@ -208,7 +210,16 @@ export function budgetWithoutMargin(input: {
 
 /** The Tiptap node of a block. */
 export function blockNode(block: SeedBlock): DossierNode {
-  return { type: "orbitCheck", attrs: { blockId: block.blockId, label: block.label, claim: block.claim, initialFrom: block.initialFrom } };
+  return {
+    type: "orbitCheck",
+    attrs: {
+      blockId: block.blockId,
+      label: block.label,
+      claim: block.claim,
+      initialFrom: block.initialFrom,
+      ...(block.written ? { written: block.written } : {}),
+    },
+  };
 }
 
 /** A computed number of a block, for the prose around it. */

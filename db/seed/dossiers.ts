@@ -554,13 +554,52 @@ function harrow(): DossierSpec {
     { name: "disposal (perigee to 350 km)", deltaV: rounded(value(disposal, "deltaV1"), 3) },
   ];
   const dv = budget({ label: "the Δv budget", maneuvers, specificImpulse: 220, initialMass: 410, margin: 0.2, requiredMargin: 0.1 });
+  // Ground coverage: the cooperative's two polar stations (on the board's station list), the
+  // 4-day repeat the ground-track maintenance keeps, and the X-band downlink at the 5° mask.
+  // The inclination as the dossier states it (the flagged 500 km figure): the proposer used it throughout.
+  const inclination = claimed(sso, "inclination");
+  const stations = HARROW_STATIONS.map((name) => stationValues(name));
+  const contact = consistent({
+    label: "daily contact at the cooperative's stations",
+    kind: "contactTime",
+    body: "earth",
+    given: { altitude: 800, inclination, stations, dataRate: 150e6 },
+    claim: { passesPerDay: 1, contactPerDayMin: 0, longestGap: 0, dataVolumePerDay: 0 },
+  });
+  const repeat = consistent({
+    label: "the 4-day repeating ground track",
+    kind: "repeatGroundTrack",
+    body: "earth",
+    given: { revolutionsPerCycle: 57, daysPerCycle: 4, inclination, eccentricity: 0 },
+    claim: { altitude: 0, trackSpacing: 0 },
+  });
+  const link = {
+    ...consistent({
+      label: "the X-band downlink",
+      kind: "linkBudget",
+      body: "earth",
+      given: {
+        frequency: 8.2,
+        transmitPower: 10,
+        transmitGain: 10,
+        gOverT: 24,
+        losses: 4.5,
+        dataRate: 150e6,
+        requiredEbN0: 4.4,
+        altitude: 800,
+        minimumElevation: stationValues("Tarnholm polar site").minimumElevation,
+      },
+      claim: { eirp: 1, pathLoss: 1, margin: 1 },
+    }),
+    written: { given: { minimumElevation: { text: "5", unit: "deg", station: "Tarnholm polar site" } } },
+  };
   return {
     key: "harrow",
     call: "open",
     owner: "kofi",
     title: "Harrow Sea-Ice Radar Satellite",
     missionType: "earth-observation",
-    blocks: [orbit, sso, eclipse, pass, disposal, dv],
+    blocks: [orbit, sso, eclipse, pass, disposal, dv, contact, repeat, link],
     doc: doc({
       "Mission objectives": [
         p(
@@ -589,7 +628,20 @@ function harrow(): DossierSpec {
         dv,
       ],
       "Operations and risks": [
-        p("Two polar stations of the cooperative downlink 40 minutes of radar data per orbit in X-band."),
+        p(
+          `The ground track repeats after 57 revolutions in 4 days at ${km(claimed(repeat, "altitude"))}, with adjacent tracks ${km(claimed(repeat, "trackSpacing"))} apart at the equator; acquisition trims the 800 km baseline to it and the ground-track maintenance keeps it.`,
+        ),
+        repeat,
+        p(
+          `The cooperative's two polar stations, Tarnholm and Vesterhaug, see Harrow on about ${fixed(claimed(contact, "passesPerDay"), 1)} passes a day; `,
+          { b: `even the day with the least contact has ${fixed(claimed(contact, "contactPerDayMin") / 60, 0)} minutes` },
+          `, and at 150 Mbit/s that brings down about ${fixed(claimed(contact, "dataVolumePerDay"), 0)} Gbit a day. The longest silence is ${fixed(claimed(contact, "longestGap") / 3600, 1)} hours.`,
+        ),
+        contact,
+        p(
+          `The X-band downlink (10 W into a 10 dBi antenna, 150 Mbit/s, stations with G/T 24 dB/K) is sized at Tarnholm's 5° mask, where the range is longest: it closes with ${fixed(claimed(link, "margin"), 1)} dB.`,
+        ),
+        link,
         list(
           "The deployable radar antenna is the main mechanical risk; a qualification model passed deployment tests at −40 °C.",
           "Frequency coordination for L-band radar is handled with the national authority.",
@@ -1134,6 +1186,24 @@ function curlew(): DossierSpec {
   };
 }
 
+// ---------------------------------------------------------------------------------------
+// The board's ground stations (invented sites), kept by the chair under "Ground stations"
+
+export const DEMO_STATIONS = [
+  { name: "Tarnholm polar site", latitude: 70.4, longitude: 22.6, altitude: 0.08, minimumElevation: 5 },
+  { name: "Vesterhaug station", latitude: 62.3, longitude: -7.0, altitude: 0.12, minimumElevation: 5 },
+  { name: "Sorrel campus dish", latitude: 47.6, longitude: 9.9, altitude: 0.52, minimumElevation: 10 },
+] as const;
+
+const HARROW_STATIONS = ["Tarnholm polar site", "Vesterhaug station"] as const;
+
+/** A station's values as a contact claim copies them from the board's list. */
+function stationValues(name: string) {
+  const s = DEMO_STATIONS.find((x) => x.name === name);
+  if (!s) throw new Error(`no demo station ${name}`);
+  return { ...s };
+}
+
 /** Every demo dossier, version 1. */
 export function demoDossiers(): DossierSpec[] {
   return [tern1(), skiffEp(1), wisp(), lantern(), aurora(), harrow(), quill(), petrel(), kite(), sable(), glint(), vesper(), plover(), curlew()];
@@ -1149,4 +1219,10 @@ export const OPEN_CALL_REQUIREMENTS = [
   { type: "systemMassMargin", params: { minimumMargin: 0.2 }, rationale: "" },
   { type: "disposalDeadline", params: { years: 25 }, rationale: "" },
   { type: "maxEclipse", params: { maximumDuration: 40 * 60 }, rationale: "The board's reference battery is sized for 40 minutes of shadow per orbit." },
+  {
+    type: "minDailyContact",
+    params: { minimumPerDay: 90 * 60, stations: [...HARROW_STATIONS] },
+    rationale: "The cooperative's sea-ice service needs every day's radar data on the ground the same day.",
+  },
+  { type: "minLinkMargin", params: { minimumMargin: 3 }, rationale: "A 3 dB link margin is common practice for screening, not the rule of any authority." },
 ] as const;

@@ -13,6 +13,8 @@ import { assignReviewers } from "@/lib/dal/assignments";
 import { confirmAttachment, presignAttachmentUpload } from "@/lib/dal/attachments";
 import { createCall, updateCall } from "@/lib/dal/calls";
 import { addRequirement } from "@/lib/dal/requirements";
+import { createStation } from "@/lib/dal/stations";
+import { stationInput } from "@/lib/validation/stations";
 import { requirementInputSchema } from "@/lib/validation/requirements";
 import { declareConflict } from "@/lib/dal/conflicts";
 import { createInvitation, revokeInvitation } from "@/lib/dal/invitations";
@@ -25,7 +27,7 @@ import { dossierPlainText, type DossierNode } from "@/lib/dossier";
 import { callInputSchema } from "@/lib/validation/dossier";
 import type { RubricInput } from "@/lib/validation/review";
 import { DEMO_BOARD, ensureBoard, ensurePerson, type SeedBoard } from "./accounts";
-import { demoDossiers, OPEN_CALL_REQUIREMENTS, REQUIRED_SECTIONS, skiffEp, type CallKey, type DossierSpec } from "./dossiers";
+import { DEMO_STATIONS, demoDossiers, OPEN_CALL_REQUIREMENTS, REQUIRED_SECTIONS, skiffEp, type CallKey, type DossierSpec } from "./dossiers";
 import type { SeedFile } from "./files";
 import { DEMO_PEOPLE, type PersonKey } from "./people";
 
@@ -482,6 +484,8 @@ export async function seedScenario(database: Database, options: { board?: SeedBo
       reviewersPerProposal: 2,
     }),
   );
+  // The board's ground stations, which contact requirements and contact blocks name.
+  for (const station of DEMO_STATIONS) await createStation(chair, boardId, stationInput.parse(station));
   // The open call's requirements, set before any dossier is submitted so each is judged.
   for (const r of OPEN_CALL_REQUIREMENTS) await addRequirement(chair, boardId, openCall.id, requirementInputSchema.parse(r));
   const callIds: Record<CallKey, string> = { decided: decidedCall.id, open: openCall.id };

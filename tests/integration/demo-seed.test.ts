@@ -20,6 +20,7 @@ import {
 import { verifyPassword } from "@/lib/auth/passwords";
 import { listInvitations } from "@/lib/dal/invitations";
 import { getAssignmentBoard } from "@/lib/dal/assignments";
+import { listStations } from "@/lib/dal/stations";
 import { dossierPlainText } from "@/lib/dossier";
 import { DEMO_ACCOUNTS, seedDemoAccounts } from "@/db/seed/accounts";
 import { assertDemoMode, seedDemo } from "@/db/seed/index";
@@ -145,7 +146,7 @@ describe("demo scenario", () => {
     // The open call's requirements judged each claim at submission (figures from the engine):
     // Plover has no propulsion and misses the 25-year deadline; Curlew's budget closes only
     // without its statistical margin; its mass budget meets the 20 % system margin.
-    expect((await db().select({ id: callRequirements.id }).from(callRequirements).where(eq(callRequirements.callId, open.id))).length).toBe(4);
+    expect((await db().select({ id: callRequirements.id }).from(callRequirements).where(eq(callRequirements.callId, open.id))).length).toBe(6);
     const judged = await db()
       .select({ blockId: checkResults.blockId, versionId: checkResults.versionId, requirements: checkResults.requirements })
       .from(checkResults)
@@ -158,6 +159,18 @@ describe("demo scenario", () => {
     expect(outcome("curlew", "the phased Δv budget")).toMatchObject([{ type: "deltaVMargin", status: "notMet" }]);
     expect(outcome("curlew", "the phased Δv budget")[0]!.reason).toMatch(/closes only without the statistical phases' margin/);
     expect(outcome("curlew", "the mass budget")).toMatchObject([{ type: "systemMassMargin", status: "met" }]);
+    // Ground coverage: the board keeps three stations; Harrow's two polar stations give well over
+    // the call's 90 minutes a day, and its X-band link closes with 2.3 dB against the call's 3 dB.
+    const boardStations = await listStations(s.people.chair, boardId);
+    expect(boardStations.stations.map((st) => st.name).sort()).toEqual(["Sorrel campus dish", "Tarnholm polar site", "Vesterhaug station"]);
+    expect(outcome("harrow", "daily contact at the cooperative's stations")).toMatchObject([{ type: "minDailyContact", status: "met" }]);
+    expect(outcome("harrow", "the X-band downlink")).toMatchObject([{ type: "minLinkMargin", status: "notMet" }]);
+    expect(outcome("harrow", "the X-band downlink")[0]!.reason).toMatch(/the link margin is 2\.3 dB, the call asks at least 3 dB/);
+    expect(outcome("harrow", "the 4-day repeating ground track")).toEqual([]);
+    const harrowBlocks = s.blocks.filter((b) => b.proposal === "harrow");
+    expect(results.filter((r) => harrowBlocks.some((b) => b.blockId === r.blockId && b.label === "the X-band downlink")).map((r) => r.status)).toEqual([
+      "consistent",
+    ]);
     // Claims of the decided call are judged by nothing (that call sets no requirements).
     const decidedVersions = new Set(versionRows.filter((v) => rows.find((r) => r.id === v.proposalId)?.callId === decided.id).map((v) => v.id));
     expect(judged.filter((r) => decidedVersions.has(r.versionId)).every((r) => r.requirements.length === 0)).toBe(true);
