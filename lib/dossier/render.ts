@@ -158,7 +158,10 @@ function renderOrbitCheck(node: DossierNode, options: RenderOptions): string {
     return (
       `<tr><th colspan="2" scope="colgroup">${escapeHtml(title)}</th></tr>` +
       entries
-        .map(([k, v]) => `<tr><th scope="row">${escapeHtml(quantityLabel(k, ""))}</th><td>${escapeHtml(writtenValue(k, v, written[side]?.[k]))}</td></tr>`)
+        .map(
+          ([k, v]) =>
+            `<tr><th scope="row">${escapeHtml(quantityLabel(k, "", claim.kind))}</th><td>${escapeHtml(writtenValue(k, v, written[side]?.[k]))}</td></tr>`,
+        )
         .join("")
     );
   };

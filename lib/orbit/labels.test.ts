@@ -36,3 +36,25 @@ describe("engine sentences in plain words", () => {
     expect(plainQuantities("see iPhone")).toBe("see iPhone");
   });
 });
+
+describe("ground coverage and link labels", () => {
+  it("names every contactTime, linkBudget and repeatGroundTrack quantity in words, never by its code name", async () => {
+    const { ORBIT_CHECK_KINDS } = await import("./kinds");
+    for (const kind of ["contactTime", "linkBudget", "repeatGroundTrack"]) {
+      const info = ORBIT_CHECK_KINDS.find((k) => k.kind === kind)!;
+      for (const q of [...info.given, ...info.computed]) {
+        const label = quantityLabel(q.name, q.unit, kind);
+        // A fallback label splits the code name into lower-case words ("G over t", "Eb n0").
+        expect(label, `${kind}.${q.name}`).not.toMatch(/^(G over t|Eirp|C over n0|Eb n0|Required eb n0|.* min \(|.* max \()/);
+      }
+    }
+    expect(quantityLabel("gOverT", "dB/K", "linkBudget")).toBe("Receive figure of merit G/T (dB/K)");
+    expect(quantityLabel("requiredEbN0", "dB", "linkBudget")).toBe("Required Eb/N0 (dB)");
+  });
+
+  it("linkBudget's margin reads as a link margin; the Δv budget's stays a Δv margin", () => {
+    expect(quantityLabel("margin", "dB", "linkBudget")).toBe("Link margin (dB)");
+    expect(quantityLabel("margin", "", "deltaVBudget")).toBe("Δv margin");
+    expect(quantityLabel("margin", "")).toBe("Δv margin");
+  });
+});

@@ -111,6 +111,46 @@ const Q: Record<string, Label> = {
   deadlineYears: { name: "Disposal deadline" },
   deadlineMet: { name: "Deadline met" },
   targetPerigeeAltitude: { name: "Target perigee altitude", symbol: "h_p" },
+  // Ground coverage and links (contactTime, linkBudget, repeatGroundTrack).
+  stations: { name: "Ground stations" },
+  days: { name: "Span searched" },
+  passesPerDay: { name: "Passes per day, mean" },
+  passesPerDayMin: { name: "Fewest passes in a day" },
+  passesPerDayMax: { name: "Most passes in a day" },
+  contactPerDay: { name: "Contact time per day, mean" },
+  contactPerDayMin: { name: "Contact time on the least day" },
+  longestPass: { name: "Longest pass" },
+  shortestPass: { name: "Shortest pass" },
+  longestGap: { name: "Longest gap between contacts" },
+  dataVolumePerDay: { name: "Data volume per day, mean" },
+  dataVolumePerDayMin: { name: "Data volume on the least day" },
+  frequency: { name: "Carrier frequency", symbol: "f" },
+  transmitPower: { name: "Transmit power", symbol: "P_t" },
+  transmitGain: { name: "Transmit antenna gain", symbol: "G_t" },
+  transmitDiameter: { name: "Transmit dish diameter", symbol: "D_t" },
+  receiveGain: { name: "Receive antenna gain", symbol: "G_r" },
+  receiveDiameter: { name: "Receive dish diameter", symbol: "D_r" },
+  gOverT: { name: "Receive figure of merit", symbol: "G/T" },
+  systemNoiseTemperature: { name: "System noise temperature", symbol: "T_s" },
+  antennaEfficiency: { name: "Antenna aperture efficiency", symbol: "η" },
+  losses: { name: "Other losses, total (line, pointing, atmosphere, polarisation)" },
+  dataRate: { name: "Data rate", symbol: "R" },
+  requiredEbN0: { name: "Required Eb/N0" },
+  range: { name: "Slant range", symbol: "d" },
+  eirp: { name: "EIRP" },
+  pathLoss: { name: "Free-space path loss", symbol: "L_fs" },
+  cOverN0: { name: "Received C/N0" },
+  ebN0: { name: "Received Eb/N0" },
+  revolutionsPerCycle: { name: "Revolutions per repeat cycle" },
+  daysPerCycle: { name: "Days per repeat cycle" },
+  nodalPeriod: { name: "Nodal period", symbol: "T_N" },
+  trackSpacing: { name: "Equatorial spacing of adjacent tracks" },
+  revolutionsPerDay: { name: "Revolutions per day" },
+};
+
+/** Names a kind gives a shared code name in its own sense (linkBudget's `margin` is in dB). */
+const KIND_Q: Record<string, Record<string, Label>> = {
+  linkBudget: { margin: { name: "Link margin" } },
 };
 
 const K: Record<string, string> = {
@@ -171,8 +211,8 @@ export function quantityName(code: string): string {
 }
 
 /** "Periapsis altitude h_p (km)": name, symbol and unit; `unit` overrides the contract unit. */
-export function quantityLabel(code: string, unit?: string): string {
-  const l = Q[code];
+export function quantityLabel(code: string, unit?: string, kind?: string): string {
+  const l = (kind ? KIND_Q[kind]?.[code] : undefined) ?? Q[code];
   const u = displayUnit(unit ?? quantityInfo(code)?.unit);
   const symbol = l?.symbol && !l.name.split(" ").includes(l.symbol) ? ` ${l.symbol}` : "";
   return `${l?.name ?? words(code)}${symbol}${u ? ` (${u})` : ""}`;

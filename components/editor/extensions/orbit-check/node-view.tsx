@@ -426,12 +426,12 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
                   return (
                     <tr key={`${info.kind}-${name}`} className="border-t border-ink-100">
                       <th scope="row" className="py-1 pr-2 font-normal">
-                        {quantityLabel(name)}
+                        {quantityLabel(name, unit, info.kind)}
                       </th>
                       <td className="pr-2">
                         {unit === "" && typeof computed === "string" ? (
                           <input
-                            aria-label={`Claimed ${quantityLabel(name)}`}
+                            aria-label={`Claimed ${quantityLabel(name, unit, info.kind)}`}
                             data-claimed-input={name}
                             value={String(claimed[name] ?? "")}
                             onChange={(e) => setClaimed(name, e.target.value)}
@@ -489,7 +489,7 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
                   <option value="">choose a quantity…</option>
                   {unclaimed.map((c) => (
                     <option key={c.name} value={c.name}>
-                      {quantityLabel(c.name, c.unit)}
+                      {quantityLabel(c.name, c.unit, info.kind)}
                     </option>
                   ))}
                 </select>
@@ -516,7 +516,7 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
               <dl className="mt-1 grid grid-cols-[auto_1fr] gap-x-3 font-mono">
                 {Object.entries(result.computed).map(([k, v]) => (
                   <div key={k} className="contents">
-                    <dt className="font-sans text-ink-600">{quantityLabel(k, info.computed.find((c) => c.name === k)?.unit ?? "")}</dt>
+                    <dt className="font-sans text-ink-600">{quantityLabel(k, info.computed.find((c) => c.name === k)?.unit ?? "", info.kind)}</dt>
                     <dd>
                       {info.computed.find((c) => c.name === k)?.type === "table" && Array.isArray(v)
                         ? `${v.length} rows (see the rail's chart)`
