@@ -3,7 +3,7 @@
 // and sees passes per day and the 24-hour contact timeline, stored with the draft.
 import { describe, expect, it } from "vitest";
 import type { Locator, Page } from "playwright-core";
-import { browserSession } from "../support/browser";
+import { browserSession, typeInto as typeKeys } from "../support/browser";
 import { asSessionUser } from "../support/factories";
 import { createProposal, getDraft, saveDraft, submitProposal } from "@/lib/dal/proposals";
 import { assignReviewers } from "@/lib/dal/assignments";
@@ -13,9 +13,9 @@ import { listRequirements } from "@/lib/dal/requirements";
 import { dossierDoc, makeCall, makeProposal, orbitBlock } from "../integration/matrix/dossiers";
 import { createBoardWithCast } from "../support/factories";
 
-async function typeInto(page: Page, field: Locator, text: string) {
-  await field.click();
-  await page.keyboard.type(text);
+// Types key by key and fails if the field did not keep the text (tests/support/browser.ts).
+async function typeInto(_page: Page, field: Locator, text: string) {
+  await typeKeys(field, text);
 }
 
 describe("ground stations and contact checks in the browser", () => {
@@ -95,6 +95,57 @@ describe("ground stations and contact checks in the browser", () => {
       const again = page.locator("[data-orbit-check-block]").first();
       await again.getByRole("img", { name: /Contact timeline of downlink contact/ }).waitFor();
       expect(await again.getByRole("checkbox", { name: new RegExp(stationName) }).isChecked()).toBe(true);
+    } finally {
+      await page.close();
+    }
+  });
+
+  it("proposer takes a board station's minimum elevation into a link budget, and typing another drops the station", async () => {
+    const { cast, proposal } = await makeProposal();
+    const stationName = `Brekka ${crypto.randomUUID().slice(0, 6)}`;
+    await createStation(asSessionUser(cast.chair), cast.board.id, { name: stationName, latitude: 61.2, longitude: 5.4, altitude: 0.1, minimumElevation: 7.5 });
+    const page = await as(cast.proposer.email);
+    try {
+      await page.goto("/boards");
+      await page.getByRole("link", { name: cast.board.name }).first().click();
+      await page.getByRole("link", { name: proposal.title }).first().click();
+      const editor = page.getByRole("textbox", { name: "Dossier text" });
+      await editor.waitFor();
+      await editor.click();
+      await page.keyboard.press("Control+End");
+      await page.keyboard.type("The X-band downlink is sized at the station's mask.");
+      await page.getByRole("button", { name: "Insert orbit check" }).click();
+      const block = page.locator("[data-orbit-check-block]").first();
+      await block.waitFor();
+      await typeInto(page, block.getByLabel("Name in the text"), "X-band downlink");
+      await block.getByLabel("Kind").selectOption("linkBudget");
+      await typeInto(page, block.getByLabel("Carrier frequency f (GHz)"), "8.2");
+      await typeInto(page, block.getByLabel("Transmit power P_t (W)"), "10");
+      await typeInto(page, block.getByLabel("Transmit antenna gain G_t (dBi)"), "10");
+      await typeInto(page, block.getByLabel("Receive figure of merit G/T (dB/K)"), "24");
+      await typeInto(page, block.getByLabel("Data rate R (bit/s)"), "150000000");
+      await typeInto(page, block.getByLabel("Required Eb/N0 (dB)"), "4.4");
+      await typeInto(page, block.getByLabel("Altitude h (km)", { exact: true }), "800");
+      // The board's station, chosen from the list: its minimum elevation fills the field.
+      const pick = block.getByLabel("Minimum elevation of a board station");
+      await pick.selectOption(stationName);
+      const elevation = block.getByLabel("Minimum elevation ε_min (deg)");
+      await expect.poll(() => elevation.inputValue()).toBe("7.5");
+      expect(await pick.inputValue()).toBe(stationName);
+      // The link is recomputed at that station's mask.
+      await block.getByText("All recomputed values").click();
+      const recomputed = block.locator("details dl");
+      await recomputed.getByText(/^Slant range d \(km\)$/).waitFor();
+      await expect
+        .poll(async () => JSON.stringify((await getDraft(asSessionUser(cast.proposer), cast.board.id, proposal.id)).document), { timeout: 20_000 })
+        .toContain(`"station":"${stationName}"`);
+      expect(JSON.stringify((await getDraft(asSessionUser(cast.proposer), cast.board.id, proposal.id)).document)).toContain('"minimumElevation":7.5');
+      // Typing another elevation makes it the proposer's own: the station's name goes.
+      await typeInto(page, elevation, "6");
+      expect(await pick.inputValue()).toBe("");
+      const draftText = async () => JSON.stringify((await getDraft(asSessionUser(cast.proposer), cast.board.id, proposal.id)).document);
+      await expect.poll(draftText, { timeout: 20_000 }).toContain('"minimumElevation":6');
+      expect(await draftText()).not.toContain(`"station":"${stationName}"`);
     } finally {
       await page.close();
     }
@@ -184,8 +235,33 @@ describe("ground stations and contact checks in the browser", () => {
       await checks.locator('[data-requirement-outcome="notMet"]').waitFor();
       await expect(checks.textContent()).resolves.toMatch(/Requirement not met.*Contact at least 90 min every day at North site/);
       await expect(checks.textContent()).resolves.toMatch(/the day with the least contact has 4\d(\.\d)? min, the call asks at least 90 min/);
+      // The contact pictures stand beside the flag, drawn from the recorded claim (SVG with text alternatives).
+      const timeline = checks.getByRole("img", { name: /Contact timeline of downlink contact/ });
+      await timeline.waitFor();
+      expect(await timeline.locator("desc").textContent()).toMatch(/Day 1: \d+ contacts?, \d+ min \d+ s in all/);
+      await checks.getByRole("img", { name: /Ground track of downlink contact/ }).waitFor();
+      await expect(checks.getByLabel("Contact figures of downlink contact").textContent()).resolves.toMatch(/Passes per day\d+\.\d\d on average/);
     } finally {
       await reviewer.close();
+    }
+
+    // The chair: board → the proposal (its latest version, read-only) → version 1, and Back.
+    const chairAgain = await as(cast.chair.email);
+    try {
+      await chairAgain.goto("/boards");
+      await chairAgain.getByRole("link", { name: cast.board.name }).first().click();
+      await chairAgain.getByRole("link", { name: "Petrel downlink demonstrator" }).first().click();
+      await chairAgain.getByRole("img", { name: /Contact timeline of downlink contact/ }).waitFor();
+      await chairAgain.getByRole("link", { name: "Version 1", exact: true }).click();
+      await chairAgain.getByRole("heading", { name: /Petrel downlink demonstrator: version 1/ }).waitFor();
+      const map = chairAgain.getByRole("img", { name: /Ground track of downlink contact/ });
+      await map.waitFor();
+      expect(await map.locator("desc").textContent()).toMatch(/North site/);
+      await chairAgain.goBack();
+      await chairAgain.getByRole("link", { name: "Version 1", exact: true }).waitFor();
+      await chairAgain.getByRole("img", { name: /Contact timeline of downlink contact/ }).waitFor();
+    } finally {
+      await chairAgain.close();
     }
   });
 });
