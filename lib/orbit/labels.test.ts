@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { hintSentence, kindLabel, plainQuantities, policySummary, quantityLabel } from "./labels";
+import { ORBIT_CHECK_KINDS } from "./index";
 
 describe("plain labels for code names", () => {
   it("labels quantities with symbol and unit, and kinds in words", () => {
@@ -38,8 +39,7 @@ describe("engine sentences in plain words", () => {
 });
 
 describe("ground coverage and link labels", () => {
-  it("names every contactTime, linkBudget and repeatGroundTrack quantity in words, never by its code name", async () => {
-    const { ORBIT_CHECK_KINDS } = await import("./kinds");
+  it("names every contactTime, linkBudget and repeatGroundTrack quantity in words, never by its code name", () => {
     for (const kind of ["contactTime", "linkBudget", "repeatGroundTrack"]) {
       const info = ORBIT_CHECK_KINDS.find((k) => k.kind === kind)!;
       for (const q of [...info.given, ...info.computed]) {
