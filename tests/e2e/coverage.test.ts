@@ -245,21 +245,24 @@ describe("ground stations and contact checks in the browser", () => {
       await reviewer.close();
     }
 
-    // The chair: board → the proposal (its latest version, read-only) → version 1, and Back.
+    // The chair: board → the call → version 1 (read-only) → the proposal, and Back.
     const chairAgain = await as(cast.chair.email);
     try {
       await chairAgain.goto("/boards");
       await chairAgain.getByRole("link", { name: cast.board.name }).first().click();
-      await chairAgain.getByRole("link", { name: "Petrel downlink demonstrator" }).first().click();
-      await chairAgain.getByRole("img", { name: /Contact timeline of downlink contact/ }).waitFor();
-      await chairAgain.getByRole("link", { name: "Version 1", exact: true }).click();
+      await chairAgain.getByRole("link", { name: call.title }).first().click();
+      await chairAgain.getByRole("link", { name: "Petrel downlink demonstrator: version 1" }).click();
       await chairAgain.getByRole("heading", { name: /Petrel downlink demonstrator: version 1/ }).waitFor();
       const map = chairAgain.getByRole("img", { name: /Ground track of downlink contact/ });
       await map.waitFor();
-      expect(await map.locator("desc").textContent()).toMatch(/North site/);
-      await chairAgain.goBack();
+      expect(await map.locator("desc").textContent()).toMatch(/Stations: North site at 64\.8° N, 147\.7° W/);
+      await chairAgain.getByRole("img", { name: /Contact timeline of downlink contact/ }).waitFor();
+      await chairAgain.getByRole("link", { name: "back to the proposal" }).click();
       await chairAgain.getByRole("link", { name: "Version 1", exact: true }).waitFor();
       await chairAgain.getByRole("img", { name: /Contact timeline of downlink contact/ }).waitFor();
+      await chairAgain.goBack();
+      await chairAgain.getByRole("heading", { name: /Petrel downlink demonstrator: version 1/ }).waitFor();
+      await chairAgain.getByRole("img", { name: /Ground track of downlink contact/ }).waitFor();
     } finally {
       await chairAgain.close();
     }

@@ -206,8 +206,7 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
     if (side === "claimed") setPending((p) => (p.includes(name) ? p : [...p, name]));
     updateAttributes({ claim: { ...claim, [side]: values }, written: { ...written, [side]: texts } });
   };
-  // Copies a board station's minimum elevation (and its name) into the block; the count remounts the typed field.
-  const [stationPicks, setStationPicks] = useState(0);
+  // Copies a board station's minimum elevation (and its name) into the block; the field shows it (WrittenInput).
   const pickStationElevation = (name: string, unit: string, s: { name: string; minimumElevation: number } | null) => {
     const current = written.given?.[name];
     if (!s) {
@@ -218,7 +217,6 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
     const w: WrittenValue = { text: String(s.minimumElevation), unit, station: s.name };
     const c = convertWritten(w, unit);
     setWritten("given", name, w, "error" in c ? undefined : c);
-    setStationPicks((n) => n + 1);
   };
   const claimed = claim.claimed ?? {};
   // Rows added but not filled in yet stay local: an empty claim is not a claim.
@@ -380,7 +378,7 @@ export function OrbitCheckView({ node, updateAttributes, deleteNode, editor, ext
                   );
                 const input = (
                   <WrittenInput
-                    key={`${key}-${stationPicks}`}
+                    key={key}
                     name={g.name}
                     contractUnit={g.unit}
                     optional={g.use === "optional"}

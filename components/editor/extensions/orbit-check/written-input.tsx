@@ -58,6 +58,17 @@ export function WrittenInput({
   const id = useId();
   const [text, setText] = useState(written.text);
   const [unit, setUnit] = useState(written.unit || contractUnit);
+  // A value copied in from outside (a board station's minimum elevation) replaces what is shown;
+  // typing drops the station, and then the field keeps its own text.
+  const copied = written.station ? `${written.station}|${written.text}|${written.unit}` : undefined;
+  const [seenCopy, setSeenCopy] = useState(copied);
+  if (copied !== seenCopy) {
+    setSeenCopy(copied);
+    if (copied !== undefined) {
+      setText(written.text);
+      setUnit(written.unit || contractUnit);
+    }
+  }
   const choices = unitChoices(contractUnit);
   const converted = text.trim() === "" ? null : convertWritten({ text, unit }, contractUnit);
   const error = converted && "error" in converted ? converted.error : null;
