@@ -260,6 +260,13 @@ describe("ground stations and contact checks in the browser", () => {
       await chairAgain.getByRole("link", { name: "back to the proposal" }).click();
       await chairAgain.getByRole("link", { name: "Version 1", exact: true }).waitFor();
       await chairAgain.getByRole("img", { name: /Contact timeline of downlink contact/ }).waitFor();
+      // The decision page lists the checks compactly; the contact pictures open on request.
+      await chairAgain.getByRole("link", { name: "Write the decision" }).click();
+      const decisionCheck = chairAgain.locator("[data-decision-check]").filter({ hasText: "downlink contact" });
+      await decisionCheck.getByText("Contact pictures of downlink contact").click();
+      await decisionCheck.getByRole("img", { name: /Contact timeline of downlink contact/ }).waitFor();
+      await chairAgain.goBack();
+      await chairAgain.getByRole("link", { name: "Version 1", exact: true }).waitFor();
       await chairAgain.goBack();
       await chairAgain.getByRole("heading", { name: /Petrel downlink demonstrator: version 1/ }).waitFor();
       await chairAgain.getByRole("img", { name: /Ground track of downlink contact/ }).waitFor();

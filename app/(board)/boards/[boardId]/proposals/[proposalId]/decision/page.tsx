@@ -14,6 +14,8 @@ import { DecisionForm } from "./_components/decision-form";
 import { ConsistentMeaning, FailingChecks } from "@/components/dossier/check-explain";
 import { storedRows } from "@/lib/dossier/verdict-text";
 import { kindLabel } from "@/lib/orbit/labels";
+import { getVersion } from "@/lib/dal/proposals";
+import { storedContactPictures } from "@/components/coverage/stored-contact-pictures";
 
 export const metadata: Metadata = { title: "Decision" };
 
@@ -96,6 +98,11 @@ export default async function DecisionPage({ params }: { params: Promise<{ board
   }
 
   const w = await getDecisionWorkspace(user, boardId, proposalId);
+  // Contact checks keep their ground-track map and timeline here too, from the recorded claims.
+  const contactPictures =
+    w.version && w.checks.some((c) => c.kind === "contactTime")
+      ? storedContactPictures((await getVersion(user, boardId, proposalId, w.version.number)).checkResults)
+      : {};
   const submitted = w.reviews.filter((r) => r.status === "submitted").length;
   const claims = w.claimCounts;
   const openItems = w.reviewItems.filter((i) => i.status === "open");
@@ -160,6 +167,12 @@ export default async function DecisionPage({ params }: { params: Promise<{ board
                 </div>
                 <RequirementFlags outcomes={c.requirements} />
                 <FailingChecks checks={storedRows({ checks: c.failing })} />
+                {contactPictures[c.blockId] ? (
+                  <details className="mt-1">
+                    <summary className="cursor-pointer text-xs font-semibold text-trajectory-700">Contact pictures of {c.label || kindLabel(c.kind)}</summary>
+                    <div className="mt-2">{contactPictures[c.blockId]}</div>
+                  </details>
+                ) : null}
               </li>
             ))}
             {w.checks.length === 0 ? <li className="text-ink-500">No orbit claims in this version.</li> : null}
