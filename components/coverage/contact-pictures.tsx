@@ -24,6 +24,16 @@ export function ContactPictures({ claim, label, computed }: { claim: unknown; la
         </dd>
         <dt className="font-semibold">Longest gap</dt>
         <dd>{typeof computed.longestGap === "number" ? `${(computed.longestGap / 3600).toFixed(1)} h` : "—"}</dd>
+        {typeof computed.dataVolumePerDay === "number" ? (
+          <>
+            <dt className="font-semibold">Data volume per day</dt>
+            <dd>
+              {computed.dataVolumePerDay.toFixed(1)} Gbit on average
+              {typeof computed.dataVolumePerDayMin === "number" ? `, ${computed.dataVolumePerDayMin.toFixed(1)} Gbit on the least day` : ""} (contact time ×
+              data rate)
+            </dd>
+          </>
+        ) : null}
       </dl>
       <ContactTimeline picture={picture} title={`Contact timeline of ${name}`} />
       <GroundTrackMap picture={picture} title={`Ground track of ${name}`} />

@@ -34,6 +34,15 @@ describe("stored contact pictures", () => {
     expect(out).toMatch(/Day 7: \d+ contacts?/);
     expect(out).toContain(`${(result.computed.passesPerDay as number).toFixed(2)} on average`);
     expect(out).toContain("Tallvik");
+    expect(out).not.toContain("Data volume per day");
+  });
+
+  it("shows the daily data volume (contact time × data rate) when the claim gives a data rate", () => {
+    const stored = { ...claim(7), given: { ...claim(7).given, dataRate: 50e6 } };
+    const result = evaluateClaim(stored);
+    const out = html(storedContactPictures([{ blockId: "v", label: "volume", kind: "contactTime", claim: stored, result }]).v);
+    const perDay = ((result.computed.contactPerDay as number) * 50e6) / 1e9;
+    expect(out).toContain(`Data volume per day</dt><dd>${perDay.toFixed(1)} Gbit on average`);
   });
 
   it("a page draws at most the engine's 300 station-days; later blocks get a note instead", () => {
