@@ -9,6 +9,7 @@ import { DossierEditor, useDossierEditor } from "@/components/editor/editor";
 import { DraftAttachmentsProvider } from "@/components/editor/extensions/orbit-check/attachments-context";
 import { AttachmentUploader, type AttachmentItem } from "@/components/upload/attachment-uploader";
 import { OrbitFilesPanel } from "@/components/orbit-files/orbit-files-panel";
+import type { FileComparisonTolerance } from "@/lib/orbit-files/tolerance";
 import { deltaVBudget, evaluateBlocks, extractOrbitChecks, type ToleranceInput } from "@/lib/dossier/claims";
 import { mergeDocuments } from "@/lib/dossier/merge";
 import { renderDossierHtml } from "@/lib/dossier/render";
@@ -42,6 +43,8 @@ export interface DossierWorkspaceProps {
   proposalId: string;
   draft: { revision: number; document: Record<string, unknown>; updatedAt: string };
   tolerance: ToleranceInput;
+  /** The call's bounds for comparing orbit files with the text. */
+  fileTolerance?: FileComparisonTolerance;
   /** The call's requirements, judged live in the rail. */
   requirements?: RailRequirement[];
   requiredSections: string[];
@@ -372,7 +375,7 @@ export function DossierWorkspace(props: DossierWorkspaceProps) {
           proposalId={proposalId}
           attachmentIds={attachments.map((a) => a.id)}
           document={doc}
-          tolerance={props.tolerance}
+          fileTolerance={props.fileTolerance}
           exportFrom={{ draft: true }}
           onMakeClaim={(made) => {
             if (!editor) return;

@@ -6,7 +6,8 @@
 import { useEffect, useMemo, useState } from "react";
 import { extractOrbitChecks } from "@/lib/dossier/claims";
 import { claimFromSummary, type ClaimFromFile } from "@/lib/orbit-files/claim";
-import { FILE_QUESTION, compareFilesWithText, fileTolerance, type FileComparison, type LinkedFile } from "@/lib/orbit-files/compare";
+import { FILE_QUESTION, compareFilesWithText, type FileComparison, type LinkedFile } from "@/lib/orbit-files/compare";
+import { effectiveFileTolerance, fileToleranceSummary, type FileComparisonTolerance } from "@/lib/orbit-files/tolerance";
 import type { OrbitSummary } from "@/lib/orbit-files/summary";
 
 interface OrbitFileItem extends LinkedFile {
@@ -30,8 +31,8 @@ export interface OrbitFilesPanelProps {
   attachmentIds: string[];
   /** The dossier document (the editor's live one, or a version's). */
   document: Record<string, unknown>;
-  /** The call's tolerance policy (its fileComparison part applies here). */
-  tolerance?: unknown;
+  /** The call's bounds for comparing orbit files with the text (its own setting, not the orbit-check policy). */
+  fileTolerance?: FileComparisonTolerance;
   /** Where block exports come from: the draft or a submitted version. */
   exportFrom: { draft: true } | { version: number };
   /** Inserts a block made from a file (authors on the draft only). */
@@ -66,8 +67,8 @@ export function OrbitFilesPanel(props: OrbitFilesPanelProps) {
 
   const blocks = useMemo(() => extractOrbitChecks(props.document), [props.document]);
   const comparisons = useMemo(
-    () => (files ? compareFilesWithText(blocks, files, fileTolerance((props.tolerance as { fileComparison?: unknown } | undefined)?.fileComparison)) : []),
-    [blocks, files, props.tolerance],
+    () => (files ? compareFilesWithText(blocks, files, effectiveFileTolerance(props.fileTolerance)) : []),
+    [blocks, files, props.fileTolerance],
   );
   const exportBase =
     "draft" in props.exportFrom
@@ -102,6 +103,11 @@ export function OrbitFilesPanel(props: OrbitFilesPanelProps) {
       {files.map((f) => (
         <OrbitFileCard key={f.attachmentId} file={f} onMakeClaim={props.onMakeClaim} />
       ))}
+      {files.length > 0 ? (
+        <p className="text-2xs text-ink-600" data-file-tolerance="">
+          {`This call compares orbit files with the text within: ${fileToleranceSummary(effectiveFileTolerance(props.fileTolerance))}.`}
+        </p>
+      ) : null}
       {comparisons.length > 0 ? <Comparisons comparisons={comparisons} /> : null}
       {blocks.length > 0 ? (
         <div className="space-y-1">
