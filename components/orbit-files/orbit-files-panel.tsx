@@ -8,7 +8,7 @@ import { extractOrbitChecks } from "@/lib/dossier/claims";
 import { claimFromSummary, type ClaimFromFile } from "@/lib/orbit-files/claim";
 import { FILE_QUESTION, compareFilesWithText, type FileComparison, type LinkedFile } from "@/lib/orbit-files/compare";
 import { effectiveFileTolerance, fileToleranceSummary, type FileComparisonTolerance } from "@/lib/orbit-files/tolerance";
-import type { OrbitSummary } from "@/lib/orbit-files/summary";
+import type { CovarianceSigmas, OrbitSummary } from "@/lib/orbit-files/summary";
 
 interface OrbitFileItem extends LinkedFile {
   parsedAt: string;
@@ -183,13 +183,26 @@ function Row({ term, children }: { term: string; children: React.ReactNode }) {
   );
 }
 
+/** "1σ position 18.3, 26.0, 18.0 m; velocity 0.021, 0.013, 0.025 m/s (EME2000, 1996-12-18 12:00:00.331)". */
+function sigmaText(c: CovarianceSigmas): string {
+  const where = [c.refFrame, c.epoch?.replace("T", " ")].filter(Boolean).join(", ");
+  return `1σ position ${c.positionKm.map((x) => fmt(x * 1000, 1)).join(", ")} m; velocity ${c.velocityKmS.map((x) => fmt(x * 1000, 3)).join(", ")} m/s${where ? ` (${where})` : ""}`;
+}
+
 function SummaryList({ summary: s }: { summary: OrbitSummary }) {
   const o = s.osculating;
   return (
     <dl className="space-y-0.5 text-xs" aria-label={`Orbit of ${s.label}`}>
       <Row term="Object">{s.label}</Row>
       <Row term="Epoch">{`${s.epoch.replace("T", " ")} ${s.timeSystem}`}</Row>
+      {s.epochUtc && s.timeSystem !== "UTC" ? <Row term="Epoch in UTC">{`${s.epochUtc.replace("T", " ")} UTC`}</Row> : null}
       <Row term="Frame, centre">{`${s.frame}, ${s.center}`}</Row>
+      {s.planes ? (
+        <>
+          <Row term="Inclination, RAAN of date (compared)">{`${fmt(s.planes.ofDate.inclinationDeg, 3)}°, ${fmt(s.planes.ofDate.raanDeg, 3)}°`}</Row>
+          <Row term="Inclination, RAAN in EME2000">{`${fmt(s.planes.eme2000.inclinationDeg, 3)}°, ${fmt(s.planes.eme2000.raanDeg, 3)}°`}</Row>
+        </>
+      ) : null}
       {o ? (
         <>
           <Row term="Semi-major axis (osculating)">{`${fmt(o.semiMajorAxisKm, 1)} km`}</Row>
@@ -218,6 +231,12 @@ function SummaryList({ summary: s }: { summary: OrbitSummary }) {
         <Row term="Mean against osculating">
           {`a ${signed(s.meanVsOsculating.semiMajorAxisKm, 1)} km, e ${signed(s.meanVsOsculating.eccentricity, 5)}, i ${signed(s.meanVsOsculating.inclinationDeg, 3)}°`}
         </Row>
+      ) : null}
+      {s.covariance ? (
+        <>
+          <Row term={s.covariance.count > 1 ? `Covariance (${s.covariance.count} matrices), first` : "Covariance"}>{sigmaText(s.covariance.first)}</Row>
+          {s.covariance.count > 1 ? <Row term="Covariance, last">{sigmaText(s.covariance.last)}</Row> : null}
+        </>
       ) : null}
       {s.notes.map((n, i) => (
         <p key={i} className="text-2xs text-ink-600">
