@@ -20,7 +20,7 @@ import { asSessionUser, unique } from "../support/factories";
 import type { MatrixCast as Cast } from "./matrix/types";
 import { dossierDoc, makeProposal } from "./matrix/dossiers";
 
-/** Invented satellite 99007 "VV-KESTREL": mean motion 15.06 rev/day, a mean altitude of about 548 km (SGP4 mean elements). */
+/** Invented satellite 99007 "VV-KESTREL": mean motion 15.06 rev/day, a mean altitude of about 545.4 km (SGP4 mean elements). */
 function kestrelTle(): string {
   const l1 = "1 99007U 26006A   26060.50000000  .00000000  00000-0  00000-0 0  999";
   const l2 = "2 99007  97.6000  10.0000 0001000  90.0000   0.0000 15.06000000    1";
@@ -119,21 +119,21 @@ describe("the call's tolerance for orbit files against the text", () => {
         json: { title: base.title, description: base.description, opensAt: base.opensAt, closesAt: base.closesAt, tolerance: base.tolerance, fileTolerance },
       });
 
-    // The file's mean altitude is about 548 km; the text claims 3 km less: inside the default ±5 km.
-    const first = await submitClaiming(cast, call.id, 545);
-    expect(first.fileAltitude).toBeGreaterThan(547);
-    expect(first.fileAltitude).toBeLessThan(550);
+    // The file's mean altitude is about 545.4 km; the text claims 548 km, 2.6 km more: inside the default ±5 km.
+    const first = await submitClaiming(cast, call.id, 548);
+    expect(first.fileAltitude).toBeGreaterThan(545);
+    expect(first.fileAltitude).toBeLessThan(546);
     expect(first.flag.status).toBe("consistent");
 
     expect((await put({ km: "1 km", deg: "0.1°", "1": "0.002", s: "60 s" })).status).toBe(200);
-    const tightened = await submitClaiming(cast, call.id, 545);
+    const tightened = await submitClaiming(cast, call.id, 548);
     expect(tightened.flag.status).toBe("inconsistent");
     expect((tightened.flag.result as { messages: string[] }).messages[0]).toMatch(
-      /^the attached element set gives 54[78]\.\d km altitude, the text claims 545 km \(the science orbit; tolerance ±1 km\)$/,
+      /^the attached element set gives 545\.\d km altitude, the text claims 548 km \(the science orbit; tolerance ±1 km\)$/,
     );
     expect((tightened.flag.claim as { tolerance: unknown }).tolerance).toEqual({ km: 1, deg: 0.1, "1": 0.002, s: 60 });
 
-    // The reverse: 540 km in the text is outside ±5 km; the chair widens the bound to 10 km (typed in metres).
+    // The reverse: 540 km in the text is 5.4 km off, outside ±5 km; the chair widens the bound to 10 km (typed in metres).
     expect((await put(null)).status).toBe(200);
     expect((await submitClaiming(cast, call.id, 540)).flag.status).toBe("inconsistent");
     expect((await put({ km: "10000 m", deg: "0.1°", "1": "0.002", s: "60 s" })).status).toBe(200);
