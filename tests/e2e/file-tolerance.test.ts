@@ -75,7 +75,11 @@ describe("file tolerance in the browser", () => {
     await expect(altitudes.inputValue()).resolves.toBe("5 km");
     await typeInto(altitudes, "1 mile");
     await chair.getByRole("button", { name: "Save call" }).click();
-    await chair.getByText('"mile" is not a unit for altitudes: use km, m.').waitFor();
+    await chair.getByRole("alert").filter({ hasText: '"mile" is not a unit for altitudes: use km, m.' }).waitFor();
+    // The field itself carries the sentence (its accessible description), so a screen reader hears it there.
+    const described = (await altitudes.getAttribute("aria-describedby"))!.split(" ");
+    const texts = await Promise.all(described.map((id) => chair.locator(`[id="${id}"]`).textContent()));
+    expect(texts).toContain('"mile" is not a unit for altitudes: use km, m.');
     // Nothing was saved.
     await expect(chair.locator("[data-call-file-tolerance]").textContent()).resolves.toMatch(/^altitudes ±5 km/);
     await typeInto(altitudes, "1 km");
