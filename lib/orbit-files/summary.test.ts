@@ -120,3 +120,16 @@ describe("frames and time scales of orbit files", () => {
     expect(o!.sunSynchronous!.sunSynchronous).toBe(true);
   });
 });
+
+describe("an OMM in TT", () => {
+  it("the same message in TT, its clock 65.184 s ahead (TT − UTC in 2007: TAI − UTC 33 s + 32.184 s), has the same UTC epoch and orbit", () => {
+    const utcText = fs.readFileSync(path.join(__dirname, "fixtures", "ccsds-omm-example.kvn"), "utf8");
+    const [u] = summaries(utcText);
+    const ttEpoch = new Date(Date.parse(`${u!.epoch}Z`) + 65_184).toISOString().replace("Z", "");
+    expect(/TIME_SYSTEM\s*=\s*UTC/.test(utcText)).toBe(true);
+    const [t] = summaries(utcText.replace(/TIME_SYSTEM\s*=\s*UTC/, "TIME_SYSTEM = TT").replace(/EPOCH\s*=\s*\S+/, `EPOCH = ${ttEpoch}`));
+    expect(t!.epochUtc).toBe(u!.epochUtc);
+    expect(t!.compare).toEqual(u!.compare);
+    expect(t!.notes.some((n) => n.startsWith("Epoch in UTC: "))).toBe(true);
+  });
+});

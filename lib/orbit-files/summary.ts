@@ -380,6 +380,12 @@ function withFramesAndTime(summary: OrbitSummary, epoch: Epoch, timeSystem: stri
   return out;
 }
 
+function epochInUtc(epoch: Epoch, timeSystem: string): string {
+  if (timeSystem !== "TAI" && timeSystem !== "TT") return epoch.iso;
+  const utc = toUtc(epoch.ms, timeSystem);
+  return utc.ok ? isoOf(utc.ms) : epoch.iso;
+}
+
 function fromOmm(file: Extract<OrbitFile, { format: "omm" }>): OrbitSummary {
   const m = file.meanElements;
   const meta = file.metadata;
@@ -389,7 +395,8 @@ function fromOmm(file: Extract<OrbitFile, { format: "omm" }>): OrbitSummary {
     const satrec = json2satrec({
       OBJECT_NAME: meta.objectName,
       OBJECT_ID: meta.objectId,
-      EPOCH: m.epoch.iso,
+      // SGP4 counts time in UTC: a TAI or TT epoch goes through the leap-second table first.
+      EPOCH: epochInUtc(m.epoch, meta.timeSystem),
       MEAN_MOTION: m.meanMotion!,
       ECCENTRICITY: m.eccentricity,
       INCLINATION: m.inclination,
