@@ -211,6 +211,27 @@ export function DossierWorkspace(props: DossierWorkspaceProps) {
     };
   }, [editor, boardId, proposalId]);
 
+  // Back and Forward can also bring back the attachment list as the router cached it, without an
+  // upload or a removal made since: re-read it when the page appears.
+  useEffect(() => {
+    let cancelled = false;
+    const refresh = async () => {
+      const response = await fetch(`/api/v1/boards/${boardId}/proposals/${proposalId}/attachments`, { cache: "no-store" }).catch(() => null);
+      if (cancelled || !response?.ok) return;
+      const body = (await response.json().catch(() => null)) as { attachments?: AttachmentItem[] } | null;
+      if (!cancelled && body?.attachments) setAttachments(body.attachments);
+    };
+    void refresh();
+    const onPageShow = (e: PageTransitionEvent) => {
+      if (e.persisted) void refresh();
+    };
+    window.addEventListener("pageshow", onPageShow);
+    return () => {
+      cancelled = true;
+      window.removeEventListener("pageshow", onPageShow);
+    };
+  }, [boardId, proposalId]);
+
   /**
    * Loads the latest revision and merges this tab's changes into it block by block. When both
    * changed the same block, this tab's text is saved over the latest revision, which stays
