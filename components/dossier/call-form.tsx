@@ -12,6 +12,8 @@ export interface CallFormValues {
   opensAt: string;
   closesAt: string;
   tolerance: { relative: number; absolute?: Record<string, number> };
+  /** Bounds for comparing orbit files with the text (km, deg, "1", s). */
+  fileTolerance?: { km: number; deg: number; "1": number; s: number };
   requiredSections: string[];
   reviewersPerProposal: number;
 }
@@ -26,6 +28,19 @@ const ABSOLUTE_UNITS = [
   { unit: "deg/day", fallback: "0.001" },
 ] as const;
 
+/** Bounds for comparing attached orbit files with the text, typed with their unit (lib/orbit-files/tolerance.ts reads them). */
+const FILE_TOLERANCE_FIELDS = [
+  { unit: "km", label: "Altitudes", hint: "such as 5 km or 500 m" },
+  { unit: "deg", label: "Inclination", hint: "such as 0.1° or 6 arcmin" },
+  { unit: "1", label: "Eccentricity", hint: "a plain number such as 0.002" },
+  { unit: "s", label: "Period", hint: "such as 60 s or 1 min" },
+] as const;
+
+/** The product's defaults (DEFAULT_FILE_TOLERANCE), shown in a new call's form. */
+const DEFAULT_FILE_BOUNDS = { km: 5, deg: 0.1, "1": 0.002, s: 60 } as const;
+
+const showFileBound = (unit: string, v: number | undefined) => (v === undefined ? "" : unit === "deg" ? `${v}°` : unit === "1" ? String(v) : `${v} ${unit}`);
+
 const toLocalInput = (iso: string) => (iso ? iso.slice(0, 16) : "");
 
 export function CallForm({ boardId, initial, afterSave }: { boardId: string; initial?: CallFormValues; afterSave?: "list" | "refresh" }) {
@@ -35,6 +50,8 @@ export function CallForm({ boardId, initial, afterSave }: { boardId: string; ini
   const [saving, setSaving] = useState(false);
   const [saved, setSaved] = useState(false);
   const descriptionCount = useCharacterCount(initial?.description);
+  const shownFileBound = (unit: (typeof FILE_TOLERANCE_FIELDS)[number]["unit"]) =>
+    showFileBound(unit, initial?.fileTolerance?.[unit] ?? DEFAULT_FILE_BOUNDS[unit]);
 
   const onSubmit = async (event: React.FormEvent<HTMLFormElement>) => {
     event.preventDefault();
@@ -56,6 +73,10 @@ export function CallForm({ boardId, initial, afterSave }: { boardId: string; ini
         .map((s) => s.trim())
         .filter(Boolean),
       reviewersPerProposal: Number(text("reviewersPerProposal")),
+      // Sent only when the chair changed a bound: an untouched call keeps following the product's defaults.
+      ...(FILE_TOLERANCE_FIELDS.some((f) => text(`file-${f.unit}`) !== shownFileBound(f.unit))
+        ? { fileTolerance: Object.fromEntries(FILE_TOLERANCE_FIELDS.map((f) => [f.unit, text(`file-${f.unit}`)])) }
+        : {}),
     };
     setSaving(true);
     setError(null);
@@ -155,6 +176,23 @@ export function CallForm({ boardId, initial, afterSave }: { boardId: string; ini
             defaultValue={abs[u.unit] !== undefined ? String(abs[u.unit]) : ""}
             hint={`default ${u.fallback}`}
             error={fieldErrors[`tolerance.absolute.${u.unit}`]}
+          />
+        ))}
+      </fieldset>
+      <fieldset className="grid gap-3 rounded-panel border border-ink-200 p-3 sm:grid-cols-2" aria-describedby="call-file-tolerance-rule">
+        <legend className="px-1 text-sm font-semibold text-ink-800">Tolerance for orbit files against the text</legend>
+        <p id="call-file-tolerance-rule" className="text-xs text-ink-600 sm:col-span-2">
+          At submission each named orbit is compared with the orbit files linked to it; a difference larger than these bounds becomes a flag. Type each bound
+          with its unit. Changes apply to submissions from now on.
+        </p>
+        {FILE_TOLERANCE_FIELDS.map((f) => (
+          <TextField
+            key={f.unit}
+            name={`file-${f.unit}`}
+            label={`${f.label}, largest difference`}
+            defaultValue={shownFileBound(f.unit)}
+            hint={f.hint}
+            error={fieldErrors[`fileTolerance.${f.unit}`] ?? (f.unit === "km" ? fieldErrors.fileTolerance : undefined)}
           />
         ))}
       </fieldset>

@@ -9,6 +9,7 @@ import { DossierEditor, useDossierEditor } from "@/components/editor/editor";
 import { DraftAttachmentsProvider } from "@/components/editor/extensions/orbit-check/attachments-context";
 import { AttachmentUploader, type AttachmentItem } from "@/components/upload/attachment-uploader";
 import { OrbitFilesPanel } from "@/components/orbit-files/orbit-files-panel";
+import type { FileComparisonTolerance } from "@/lib/orbit-files/tolerance";
 import { deltaVBudget, evaluateBlocks, extractOrbitChecks, type ToleranceInput } from "@/lib/dossier/claims";
 import { mergeDocuments } from "@/lib/dossier/merge";
 import { renderDossierHtml } from "@/lib/dossier/render";
@@ -42,6 +43,8 @@ export interface DossierWorkspaceProps {
   proposalId: string;
   draft: { revision: number; document: Record<string, unknown>; updatedAt: string };
   tolerance: ToleranceInput;
+  /** The call's bounds for comparing orbit files with the text. */
+  fileTolerance?: FileComparisonTolerance;
   /** The call's requirements, judged live in the rail. */
   requirements?: RailRequirement[];
   requiredSections: string[];
@@ -208,6 +211,27 @@ export function DossierWorkspace(props: DossierWorkspaceProps) {
     };
   }, [editor, boardId, proposalId]);
 
+  // Back and Forward can also bring back the attachment list as the router cached it, without an
+  // upload or a removal made since: re-read it when the page appears.
+  useEffect(() => {
+    let cancelled = false;
+    const refresh = async () => {
+      const response = await fetch(`/api/v1/boards/${boardId}/proposals/${proposalId}/attachments`, { cache: "no-store" }).catch(() => null);
+      if (cancelled || !response?.ok) return;
+      const body = (await response.json().catch(() => null)) as { attachments?: AttachmentItem[] } | null;
+      if (!cancelled && body?.attachments) setAttachments(body.attachments);
+    };
+    void refresh();
+    const onPageShow = (e: PageTransitionEvent) => {
+      if (e.persisted) void refresh();
+    };
+    window.addEventListener("pageshow", onPageShow);
+    return () => {
+      cancelled = true;
+      window.removeEventListener("pageshow", onPageShow);
+    };
+  }, [boardId, proposalId]);
+
   /**
    * Loads the latest revision and merges this tab's changes into it block by block. When both
    * changed the same block, this tab's text is saved over the latest revision, which stays
@@ -372,7 +396,7 @@ export function DossierWorkspace(props: DossierWorkspaceProps) {
           proposalId={proposalId}
           attachmentIds={attachments.map((a) => a.id)}
           document={doc}
-          tolerance={props.tolerance}
+          fileTolerance={props.fileTolerance}
           exportFrom={{ draft: true }}
           onMakeClaim={(made) => {
             if (!editor) return;

@@ -6,8 +6,9 @@
 import { useEffect, useMemo, useState } from "react";
 import { extractOrbitChecks } from "@/lib/dossier/claims";
 import { claimFromSummary, type ClaimFromFile } from "@/lib/orbit-files/claim";
-import { FILE_QUESTION, compareFilesWithText, fileTolerance, type FileComparison, type LinkedFile } from "@/lib/orbit-files/compare";
-import type { OrbitSummary } from "@/lib/orbit-files/summary";
+import { FILE_QUESTION, compareFilesWithText, type FileComparison, type LinkedFile } from "@/lib/orbit-files/compare";
+import { effectiveFileTolerance, fileToleranceSummary, type FileComparisonTolerance } from "@/lib/orbit-files/tolerance";
+import type { CovarianceSigmas, OrbitSummary } from "@/lib/orbit-files/summary";
 
 interface OrbitFileItem extends LinkedFile {
   parsedAt: string;
@@ -30,8 +31,8 @@ export interface OrbitFilesPanelProps {
   attachmentIds: string[];
   /** The dossier document (the editor's live one, or a version's). */
   document: Record<string, unknown>;
-  /** The call's tolerance policy (its fileComparison part applies here). */
-  tolerance?: unknown;
+  /** The call's bounds for comparing orbit files with the text (its own setting, not the orbit-check policy). */
+  fileTolerance?: FileComparisonTolerance;
   /** Where block exports come from: the draft or a submitted version. */
   exportFrom: { draft: true } | { version: number };
   /** Inserts a block made from a file (authors on the draft only). */
@@ -66,8 +67,8 @@ export function OrbitFilesPanel(props: OrbitFilesPanelProps) {
 
   const blocks = useMemo(() => extractOrbitChecks(props.document), [props.document]);
   const comparisons = useMemo(
-    () => (files ? compareFilesWithText(blocks, files, fileTolerance((props.tolerance as { fileComparison?: unknown } | undefined)?.fileComparison)) : []),
-    [blocks, files, props.tolerance],
+    () => (files ? compareFilesWithText(blocks, files, effectiveFileTolerance(props.fileTolerance)) : []),
+    [blocks, files, props.fileTolerance],
   );
   const exportBase =
     "draft" in props.exportFrom
@@ -102,6 +103,11 @@ export function OrbitFilesPanel(props: OrbitFilesPanelProps) {
       {files.map((f) => (
         <OrbitFileCard key={f.attachmentId} file={f} onMakeClaim={props.onMakeClaim} />
       ))}
+      {files.length > 0 ? (
+        <p className="text-2xs text-ink-600" data-file-tolerance="">
+          {`This call compares orbit files with the text within: ${fileToleranceSummary(effectiveFileTolerance(props.fileTolerance))}.`}
+        </p>
+      ) : null}
       {comparisons.length > 0 ? <Comparisons comparisons={comparisons} /> : null}
       {blocks.length > 0 ? (
         <div className="space-y-1">
@@ -177,13 +183,26 @@ function Row({ term, children }: { term: string; children: React.ReactNode }) {
   );
 }
 
+/** "1σ position 18.3, 26.0, 18.0 m; velocity 0.021, 0.013, 0.025 m/s (EME2000, 1996-12-18 12:00:00.331)". */
+function sigmaText(c: CovarianceSigmas): string {
+  const where = [c.refFrame, c.epoch?.replace("T", " ")].filter(Boolean).join(", ");
+  return `1σ position ${c.positionKm.map((x) => fmt(x * 1000, 1)).join(", ")} m; velocity ${c.velocityKmS.map((x) => fmt(x * 1000, 3)).join(", ")} m/s${where ? ` (${where})` : ""}`;
+}
+
 function SummaryList({ summary: s }: { summary: OrbitSummary }) {
   const o = s.osculating;
   return (
     <dl className="space-y-0.5 text-xs" aria-label={`Orbit of ${s.label}`}>
       <Row term="Object">{s.label}</Row>
       <Row term="Epoch">{`${s.epoch.replace("T", " ")} ${s.timeSystem}`}</Row>
+      {s.epochUtc && s.timeSystem !== "UTC" ? <Row term="Epoch in UTC">{`${s.epochUtc.replace("T", " ")} UTC`}</Row> : null}
       <Row term="Frame, centre">{`${s.frame}, ${s.center}`}</Row>
+      {s.planes ? (
+        <>
+          <Row term="Inclination, RAAN of date (compared)">{`${fmt(s.planes.ofDate.inclinationDeg, 3)}°, ${fmt(s.planes.ofDate.raanDeg, 3)}°`}</Row>
+          <Row term="Inclination, RAAN in EME2000">{`${fmt(s.planes.eme2000.inclinationDeg, 3)}°, ${fmt(s.planes.eme2000.raanDeg, 3)}°`}</Row>
+        </>
+      ) : null}
       {o ? (
         <>
           <Row term="Semi-major axis (osculating)">{`${fmt(o.semiMajorAxisKm, 1)} km`}</Row>
@@ -212,6 +231,12 @@ function SummaryList({ summary: s }: { summary: OrbitSummary }) {
         <Row term="Mean against osculating">
           {`a ${signed(s.meanVsOsculating.semiMajorAxisKm, 1)} km, e ${signed(s.meanVsOsculating.eccentricity, 5)}, i ${signed(s.meanVsOsculating.inclinationDeg, 3)}°`}
         </Row>
+      ) : null}
+      {s.covariance ? (
+        <>
+          <Row term={s.covariance.count > 1 ? `Covariance (${s.covariance.count} matrices), first` : "Covariance"}>{sigmaText(s.covariance.first)}</Row>
+          {s.covariance.count > 1 ? <Row term="Covariance, last">{sigmaText(s.covariance.last)}</Row> : null}
+        </>
       ) : null}
       {s.notes.map((n, i) => (
         <p key={i} className="text-2xs text-ink-600">

@@ -9,6 +9,14 @@ export interface TolerancePolicy {
   absolute?: Partial<Record<"km" | "km/s" | "deg" | "s" | "kg" | "deg/day", number>>;
 }
 
+/** Absolute bounds per unit for file-against-text comparisons (lib/orbit-files/tolerance.ts). */
+export interface FileTolerancePolicy {
+  km: number;
+  deg: number;
+  "1": number;
+  s: number;
+}
+
 /** A review round of a board. */
 export const calls = pgTable(
   "calls",
@@ -22,6 +30,12 @@ export const calls = pgTable(
     opensAt: timestamp("opens_at", { withTimezone: true }).notNull(),
     closesAt: timestamp("closes_at", { withTimezone: true }).notNull(),
     tolerance: jsonb("tolerance").$type<TolerancePolicy>().notNull().default({ relative: 0.01 }),
+    /**
+     * Per-unit bounds for comparing attached orbit files with the text (km, deg, "1" for
+     * eccentricity, s); null means the product's defaults (DEFAULT_FILE_TOLERANCE). Its own
+     * column: calls.tolerance is parsed strictly by the engine.
+     */
+    fileTolerance: jsonb("file_tolerance").$type<FileTolerancePolicy>(),
     /** Headings (level 2) a dossier must contain before it can be submitted. */
     requiredSections: jsonb("required_sections").$type<string[]>().notNull().default([]),
     reviewersPerProposal: integer("reviewers_per_proposal").notNull().default(2),

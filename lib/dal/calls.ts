@@ -1,13 +1,14 @@
 import "server-only";
 import { and, asc, desc, eq } from "drizzle-orm";
 import { db, type Database, type Transaction } from "@/db/client";
-import { calls, type TolerancePolicy } from "@/db/schema";
+import { calls, type FileTolerancePolicy, type TolerancePolicy } from "@/db/schema";
 import { authorize } from "@/lib/auth/policy";
 import type { SessionUser } from "@/lib/auth/session";
 import { notFound } from "@/lib/errors";
 import { recordAudit } from "./audit";
 import { boardRole, isUuid } from "./boards";
 import type { CallInput } from "@/lib/validation/dossier";
+import { effectiveFileTolerance } from "@/lib/orbit-files/tolerance";
 
 export type CallState = "upcoming" | "open" | "closed";
 
@@ -19,6 +20,9 @@ export interface CallView {
   opensAt: string;
   closesAt: string;
   tolerance: TolerancePolicy;
+  /** Bounds for comparing attached orbit files with the text (the defaults unless the chair set them). */
+  fileTolerance: FileTolerancePolicy;
+  fileToleranceIsDefault: boolean;
   requiredSections: string[];
   reviewersPerProposal: number;
   rubricTemplateId: string | null;
@@ -33,12 +37,16 @@ const callColumns = {
   opensAt: calls.opensAt,
   closesAt: calls.closesAt,
   tolerance: calls.tolerance,
+  fileTolerance: calls.fileTolerance,
   requiredSections: calls.requiredSections,
   reviewersPerProposal: calls.reviewersPerProposal,
   rubricTemplateId: calls.rubricTemplateId,
 };
 
-type CallRow = { opensAt: Date; closesAt: Date } & Omit<CallView, "opensAt" | "closesAt" | "state">;
+type CallRow = { opensAt: Date; closesAt: Date; fileTolerance: FileTolerancePolicy | null } & Omit<
+  CallView,
+  "opensAt" | "closesAt" | "state" | "fileTolerance" | "fileToleranceIsDefault"
+>;
 
 export function callState(call: { opensAt: Date; closesAt: Date }, now = new Date()): CallState {
   if (now.getTime() < call.opensAt.getTime()) return "upcoming";
@@ -47,7 +55,14 @@ export function callState(call: { opensAt: Date; closesAt: Date }, now = new Dat
 }
 
 function toView(row: CallRow): CallView {
-  return { ...row, opensAt: row.opensAt.toISOString(), closesAt: row.closesAt.toISOString(), state: callState(row) };
+  return {
+    ...row,
+    opensAt: row.opensAt.toISOString(),
+    closesAt: row.closesAt.toISOString(),
+    fileTolerance: effectiveFileTolerance(row.fileTolerance),
+    fileToleranceIsDefault: row.fileTolerance === null,
+    state: callState(row),
+  };
 }
 
 /** Loads a call of a board without any policy check (callers check first). */
@@ -111,6 +126,8 @@ function callValues(input: CallInput) {
     tolerance: input.tolerance,
     requiredSections: uniqueSections(input.requiredSections),
     reviewersPerProposal: input.reviewersPerProposal,
+    // Absent: left as it is; null: back to the product's defaults.
+    ...(input.fileTolerance !== undefined ? { fileTolerance: input.fileTolerance } : {}),
   };
 }
 
@@ -124,7 +141,17 @@ export async function updateCall(user: SessionUser, boardId: string, callId: str
       .where(and(eq(calls.boardId, boardId), eq(calls.id, callId)))
       .returning(callColumns);
     if (!row) throw notFound("That call");
-    await recordAudit({ action: "call.update", actorId: user.id, actorEmail: user.email, boardId, target: callId, details: { title: input.title } }, tx);
+    await recordAudit(
+      {
+        action: "call.update",
+        actorId: user.id,
+        actorEmail: user.email,
+        boardId,
+        target: callId,
+        details: { title: input.title, ...(input.fileTolerance !== undefined ? { fileTolerance: input.fileTolerance } : {}) },
+      },
+      tx,
+    );
     return toView(row);
   });
 }

@@ -7,7 +7,8 @@ import { notFound, unprocessable } from "@/lib/errors";
 import { extractOrbitChecks } from "@/lib/dossier/claims";
 import { opmForBlock } from "@/lib/orbit-files/export-opm";
 import { LIMITS, detectOrbitFormat, parseOrbitFile, type OrbitFile } from "@/lib/orbit-files";
-import { FILE_QUESTION, compareFilesWithText, fileTolerance, type ComparedBlock, type FileComparison, type LinkedFile } from "@/lib/orbit-files/compare";
+import { FILE_QUESTION, compareFilesWithText, type ComparedBlock, type FileComparison, type LinkedFile } from "@/lib/orbit-files/compare";
+import { effectiveFileTolerance, type FileComparisonTolerance } from "@/lib/orbit-files/tolerance";
 import { summarizeOrbitFile, type OrbitSummary } from "@/lib/orbit-files/summary";
 import { readObjectStream } from "@/storage/object-store";
 import { isUuid } from "./boards";
@@ -201,10 +202,10 @@ export function fileComparisonBlockId(blockId: string, attachmentId: string | nu
  */
 export async function recordFileComparisons(
   tx: Transaction,
-  input: { versionId: string; boardId: string; proposalId: string; blocks: ComparedBlock[]; tolerance: unknown },
+  input: { versionId: string; boardId: string; proposalId: string; blocks: ComparedBlock[]; fileTolerance: Partial<FileComparisonTolerance> | null },
 ): Promise<FileComparison[]> {
   const files = await linkedFiles(tx, input.boardId, input.proposalId);
-  const tolerance = fileTolerance((input.tolerance as { fileComparison?: unknown } | null)?.fileComparison);
+  const tolerance = effectiveFileTolerance(input.fileTolerance);
   const comparisons = compareFilesWithText(input.blocks, files, tolerance);
   if (comparisons.length > 0) {
     await tx.insert(checkResults).values(

@@ -39,6 +39,7 @@ import { recordAudit } from "./audit";
 import { recordFileComparisons } from "./orbit-files";
 import { boardRole, isUuid } from "./boards";
 import { callState, loadCall } from "./calls";
+import { effectiveFileTolerance, type FileComparisonTolerance } from "@/lib/orbit-files/tolerance";
 import { isConflicted as reviewerIsConflicted } from "./conflicts";
 import { enqueueSubmissionReceipt } from "@/lib/mail/notices";
 import { formatDateTime } from "@/lib/format/dates";
@@ -427,6 +428,8 @@ export interface ProposalDetail extends Omit<ProposalRecord, "ownerId"> {
   callState: "upcoming" | "open" | "closed";
   requiredSections: string[];
   tolerance: { relative: number; absolute?: Record<string, number> };
+  /** The call's bounds for comparing attached orbit files with the text (defaults unless the chair set them). */
+  fileTolerance: FileComparisonTolerance;
   /** The call's requirements, shown to proposers with their rationale and judged live in the rail. */
   requirements: CallRequirementView[];
   owner: { id: string; name: string } | null;
@@ -459,6 +462,7 @@ export async function getProposal(user: SessionUser, boardId: string, proposalId
     callState: callState(call),
     requiredSections: call.requiredSections,
     tolerance: call.tolerance,
+    fileTolerance: effectiveFileTolerance(call.fileTolerance),
     requirements: await loadRequirements(boardId, proposal.callId),
     owner: hidden ? null : (owner ?? { id: proposal.ownerId, name: "(unknown)" }),
     coauthors: hidden ? [] : coauthors,
@@ -715,7 +719,7 @@ export async function submitProposal(user: SessionUser, boardId: string, proposa
         );
       }
       // The file against the text: named orbits linked to attached orbit files become flags too.
-      await recordFileComparisons(tx, { versionId: version!.id, boardId, proposalId, blocks: extractOrbitChecks(doc), tolerance: call.tolerance });
+      await recordFileComparisons(tx, { versionId: version!.id, boardId, proposalId, blocks: extractOrbitChecks(doc), fileTolerance: call.fileTolerance });
       await tx.update(proposals).set({ status: "submitted", latestVersion: number, updatedAt: new Date() }).where(eq(proposals.id, proposalId));
       await tx.update(proposalDrafts).set({ basedOnVersion: number }).where(eq(proposalDrafts.proposalId, proposalId));
       const counts = { consistent: 0, inconsistent: 0, invalid: 0 };

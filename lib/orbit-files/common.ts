@@ -15,6 +15,8 @@ export const LIMITS = {
   maxSegments: 200,
   /** States kept per OEM segment (first and last included). */
   oemSampleStates: 50,
+  /** Covariance matrices kept per OEM segment (first and last included); all are checked. */
+  oemSampleCovariances: 10,
   /** KVN line length (CCSDS 502.0-B-2 limits ODM lines to 254 characters; recalled from memory). */
   maxKvnLineChars: 254,
   /** XML nesting depth. */

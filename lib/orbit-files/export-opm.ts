@@ -7,6 +7,8 @@
 import { evaluateClaim } from "@/lib/orbit";
 import { BODIES, isBodyName } from "@/lib/orbit/constants";
 import { elementsToState } from "@/lib/orbit/state-vectors";
+import { convertState } from "@/lib/orbit/frames";
+import { toUtc, type TimeScale } from "@/lib/orbit/time-scales";
 
 const DEG = Math.PI / 180;
 
@@ -102,8 +104,17 @@ export function opmForBlock(
     r = s.position;
     v = s.velocity;
   }
-  comments.push("Orbit-check blocks state no frame; EME2000 is written.");
   const epoch = options.epochIso ?? null;
+  const scale: TimeScale = epoch && options.timeSystem && ["UTC", "TAI", "TT"].includes(options.timeSystem) ? (options.timeSystem as TimeScale) : "UTC";
+  // An Earth orbit's angles in a block are read as the text gives them, against Earth's equator at
+  // the epoch (as element sets are, TEME); with an epoch they are rotated to EME2000 (lib/orbit/frames.ts).
+  const utc = epoch && body === "earth" && block.claim.kind !== "stateVector" ? toUtc(Date.parse(`${epoch.slice(0, 23)}Z`), scale) : null;
+  const rotated = utc?.ok ? convertState(r as [number, number, number], v as [number, number, number], "TEME", "EME2000", utc.ms) : null;
+  if (rotated?.ok) {
+    r = rotated.r;
+    v = rotated.v;
+    comments.push("The block's angles are against Earth's equator at the epoch; the state is rotated to EME2000 (IAU-76/FK5 reduction).");
+  } else comments.push("Orbit-check blocks state no frame; EME2000 is written.");
   if (!epoch) comments.push("The block gives no epoch; J2000.0 (2000-01-01T12:00:00.000) is written as a placeholder.");
   const created = (options.creationDate ?? new Date()).toISOString().slice(0, 23);
   const f = (x: number, d: number) => (Object.is(x, -0) ? 0 : x).toFixed(d);
@@ -118,7 +129,7 @@ export function opmForBlock(
     `OBJECT_ID = ${kvnText(options.objectId ?? `BLOCK-${block.blockId.slice(0, 8)}`)}`,
     `CENTER_NAME = ${body.toUpperCase()}`,
     "REF_FRAME = EME2000",
-    `TIME_SYSTEM = ${epoch && options.timeSystem && ["UTC", "TAI", "TT"].includes(options.timeSystem) ? options.timeSystem : "UTC"}`,
+    `TIME_SYSTEM = ${scale}`,
     `EPOCH = ${epoch ? epoch.slice(0, 23) : "2000-01-01T12:00:00.000"}`,
     `X = ${f(r[0]!, 9)} [km]`,
     `Y = ${f(r[1]!, 9)} [km]`,

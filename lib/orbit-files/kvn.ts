@@ -4,7 +4,7 @@
  * blocks and ephemeris data lines.
  */
 import { LIMITS, ParseStop, asciiLines, clip, deadline, stop } from "./common";
-import { buildOem, buildOmm, buildOpm, type Entry, type RawSegment, type VersionLine } from "./odm";
+import { COVARIANCE_KEYS, buildOem, buildOmm, buildOpm, type Entry, type RawSegment, type VersionLine } from "./odm";
 import type { ParseOutcome } from "./types";
 
 const KV = /^([A-Z][A-Z0-9_]*)\s*=\s*(.*)$/;
@@ -66,6 +66,50 @@ function parseFlat(text: string, message: "OPM" | "OMM"): ParseOutcome {
 export const parseOpmKvn = (text: string) => parseFlat(text, "OPM");
 export const parseOmmKvn = (text: string) => parseFlat(text, "OMM");
 
+/**
+ * One line of an OEM covariance block (CCSDS 502.0-B-2, OEM covariance section; recalled from
+ * memory): "EPOCH = …" opens a matrix, "COV_REF_FRAME = …" may follow, then six rows of the
+ * lower triangle holding 1, 2, … 6 numbers.
+ */
+function covarianceLine(seg: RawSegment, line: string, n: number): void {
+  const e = entryOf(line, n);
+  if (!e || e.key === "COMMENT") return;
+  const current = seg.covariances[seg.covariances.length - 1];
+  if (e.key === "EPOCH") {
+    covarianceComplete(seg, n);
+    seg.covariances.push({ line: n, epoch: { text: e.value, line: n }, refFrame: null, values: [] });
+    seg.covarianceCount += 1;
+    return;
+  }
+  if (e.key === "COV_REF_FRAME") {
+    if (!current || current.values.length > 0) stop(n, "COV_REF_FRAME goes right after a covariance matrix's EPOCH line");
+    current.refFrame = { text: e.value, line: n };
+    return;
+  }
+  if (e.key !== "") stop(n, `${clip(e.key)} = … is not a line of a covariance block (EPOCH, COV_REF_FRAME, then six rows of numbers)`);
+  if (!current || current.epoch === null) stop(n, "covariance numbers come after the matrix's EPOCH = line");
+  const row = rowsOf(current.values.length);
+  if (row >= 6) stop(n, `the covariance matrix of line ${current.line} already has its six rows; start the next matrix with EPOCH =`);
+  const fields = e.value.split(/\s+/);
+  if (fields.length !== row + 1)
+    stop(n, `row ${row + 1} of a covariance matrix holds ${row + 1} number${row === 0 ? "" : "s"} (lower triangle); this line has ${fields.length}`);
+  for (const text of fields) current.values.push({ text, line: n, key: COVARIANCE_KEYS[current.values.length]! });
+}
+
+/** Rows already written, from the count of values (1 + 2 + … + rows). */
+function rowsOf(values: number): number {
+  let rows = 0;
+  let sum = 0;
+  while (sum < values) sum += ++rows;
+  return rows;
+}
+
+function covarianceComplete(seg: RawSegment, n: number): void {
+  const current = seg.covariances[seg.covariances.length - 1];
+  if (current && current.values.length !== 21)
+    stop(n, `the covariance matrix of line ${current.line} has ${current.values.length} of its 21 values (six rows of 1 to 6 numbers)`);
+}
+
 /** OEM in KVN: header lines, then segments of metadata block, data lines and covariance blocks. */
 export function parseOemKvn(text: string): ParseOutcome {
   try {
@@ -88,7 +132,7 @@ export function parseOemKvn(text: string): ParseOutcome {
         if (mode === "cov") stop(n, `META_START inside the covariance block opened on line ${openedAt}; close it with COVARIANCE_STOP first`);
         if (!version) stop(n, "the first line must be CCSDS_OEM_VERS = version");
         if (segments.length >= 1000) stop(n, "too many segments; split the file");
-        seg = { line: n, meta: [], metaEndLine: n, states: [], covarianceCount: 0 };
+        seg = { line: n, meta: [], metaEndLine: n, states: [], covarianceCount: 0, covariances: [] };
         segments.push(seg);
         mode = "meta";
         openedAt = n;
@@ -104,15 +148,18 @@ export function parseOemKvn(text: string): ParseOutcome {
         if (mode !== "data") stop(n, "COVARIANCE_START must follow a segment's ephemeris lines");
         mode = "cov";
         openedAt = n;
-        seg!.covarianceCount += 1;
         continue;
       }
       if (trimmed === "COVARIANCE_STOP") {
         if (mode !== "cov") stop(n, "COVARIANCE_STOP without a COVARIANCE_START before it");
+        covarianceComplete(seg!, n);
         mode = "data";
         continue;
       }
-      if (mode === "cov") continue; // covariance blocks are counted, not kept
+      if (mode === "cov") {
+        covarianceLine(seg!, lines[i]!, n);
+        continue;
+      }
       const e = entryOf(lines[i]!, n);
       if (!e) continue;
       if (mode === "header") {

@@ -11,6 +11,7 @@ import type {
   KeplerianElements,
   Maneuver,
   OdmMetadata,
+  OemCovariance,
   OemFile,
   OemSegment,
   OmmFile,
@@ -438,12 +439,38 @@ export interface RawState {
   fields: string[];
 }
 
+/** One covariance matrix as read, before its numbers are checked. */
+export interface RawCovariance {
+  line: number;
+  epoch: { text: string; line: number } | null;
+  refFrame: { text: string; line: number } | null;
+  /** The 21 values in COVARIANCE_KEYS order, each with its line (and unit, in XML). */
+  values: { text: string; line: number; key: string; unit?: string | null }[];
+}
+
 export interface RawSegment {
   line: number;
   meta: Entry[];
   metaEndLine: number;
   states: RawState[];
   covarianceCount: number;
+  covariances: RawCovariance[];
+}
+
+function parseOemCovariance(raw: RawCovariance): OemCovariance {
+  if (!raw.epoch) stop(raw.line, "EPOCH missing in the covariance matrix");
+  const epoch = parseCcsdsEpoch(raw.epoch.text, raw.epoch.line, "EPOCH");
+  const refFrame = raw.refFrame ? raw.refFrame.text.trim().toUpperCase() : null;
+  if (raw.refFrame) checkCovFrame(raw.refFrame.text, raw.refFrame.line);
+  if (raw.values.length !== 21) stop(raw.line, `the covariance matrix has ${raw.values.length} of its 21 values`);
+  const lowerTriangle = raw.values.map((v) => {
+    if (v.unit !== undefined && v.unit !== null && !covUnit(v.key).includes(v.unit.toLowerCase()))
+      stop(v.line, `${v.key} is given in [${clip(v.unit)}]; a CCSDS OEM gives it in [${covUnit(v.key)[0]}]`);
+    return parseNumber(v.text, v.line, v.key);
+  });
+  // The diagonal holds variances (the 1st, 3rd, 6th, 10th, 15th and 21st values of the lower triangle).
+  for (const d of [0, 2, 5, 9, 14, 20]) if (lowerTriangle[d]! < 0) stop(raw.values[d]!.line, `${raw.values[d]!.key} is negative; a variance cannot be`);
+  return { epoch, refFrame, lowerTriangle };
 }
 
 function parseState(raw: RawState): StateVector {
@@ -486,6 +513,25 @@ export function buildOem(segments: RawSegment[], headerEntries: Entry[], version
     });
     const f = first as unknown as StateVector;
     const l = last as unknown as StateVector;
+    // Covariance matrices: every one is checked, the first, the last and a bounded sample kept.
+    let covariance: OemSegment["covariance"] = null;
+    if (seg.covariances.length > 0) {
+      const every = Math.max(1, Math.ceil(seg.covariances.length / (LIMITS.oemSampleCovariances - 1)));
+      const kept: OemCovariance[] = [];
+      let lastCov: OemCovariance | null = null;
+      seg.covariances.forEach((raw, idx) => {
+        tick();
+        const c = parseOemCovariance(raw);
+        if (idx === seg.covariances.length - 1) lastCov = c;
+        if (idx % every === 0 || idx === seg.covariances.length - 1) kept.push(c);
+      });
+      const lc = lastCov as unknown as OemCovariance;
+      covariance = {
+        first: kept[0]!,
+        last: lc,
+        sample: kept.length > LIMITS.oemSampleCovariances ? [...kept.slice(0, LIMITS.oemSampleCovariances - 1), lc] : kept,
+      };
+    }
     if (f.epoch.ms < start.ms - 1 || l.epoch.ms > stopTime.ms + 1)
       stop(seg.states[f.epoch.ms < start.ms - 1 ? 0 : seg.states.length - 1]!.line, "this ephemeris line lies outside START_TIME … STOP_TIME of its segment");
     return {
@@ -503,6 +549,7 @@ export function buildOem(segments: RawSegment[], headerEntries: Entry[], version
       last: l,
       sample: sample.length > LIMITS.oemSampleStates ? [...sample.slice(0, LIMITS.oemSampleStates - 1), l] : sample,
       covarianceCount: seg.covarianceCount,
+      covariance,
     };
   });
   return { format: "oem", encoding, header: header(bags[0]!, version, comments), segments: out };

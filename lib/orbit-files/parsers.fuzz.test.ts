@@ -12,11 +12,47 @@ import { parseOemKvn, parseOemXml, parseOmmKvn, parseOmmXml, parseOpmKvn, parseO
 const fixture = (name: string) => fs.readFileSync(path.join(__dirname, "fixtures", name), "utf8");
 
 const opmKvn = fixture("ccsds-opm-example-2.kvn").replace("REF_FRAME = TOD", "REF_FRAME = EME2000");
+/** The example OEM with a covariance block after its first segment (two matrices; the OPM example's covariance numbers). */
+const covarianceRows = [
+  "3.3313494e-04",
+  "4.6189273e-04 6.7824216e-04",
+  "-3.0700078e-04 -4.2212341e-04 3.2319319e-04",
+  "-3.3493650e-07 -4.6860842e-07 2.4849495e-07 4.2960228e-10",
+  "-2.2118325e-07 -2.8641868e-07 1.7980986e-07 2.6088992e-10 1.7675147e-10",
+  "-3.0413460e-07 -4.9894969e-07 3.5403109e-07 1.8692631e-10 1.0088625e-10 6.2244443e-10",
+];
+const oemWithCovariance = (() => {
+  const kvn = fixture("ccsds-oem-example.kvn");
+  const at = kvn.lastIndexOf("\nMETA_START");
+  const block = [
+    "COVARIANCE_START",
+    "EPOCH = 1996-12-18T12:00:00.331",
+    "COV_REF_FRAME = EME2000",
+    ...covarianceRows,
+    "EPOCH = 1996-12-18T12:01:00.331",
+    ...covarianceRows,
+    "COVARIANCE_STOP",
+  ];
+  return `${kvn.slice(0, at)}\n${block.join("\n")}${kvn.slice(at)}`;
+})();
+const oemXmlWithCovariance = (() => {
+  const xml = fixture("ccsds-oem-example.xml");
+  const keys = ["X", "Y", "Z", "X_DOT", "Y_DOT", "Z_DOT"].flatMap((a, i) =>
+    ["X", "Y", "Z", "X_DOT", "Y_DOT", "Z_DOT"].slice(0, i + 1).map((b) => `C${a}_${b}`),
+  );
+  const values = covarianceRows.join(" ").split(" ");
+  const block = `<covarianceMatrix><EPOCH>1996-12-18T12:00:00.331</EPOCH>\n${keys.map((k, i) => `<${k}>${values[i]}</${k}>`).join("\n")}\n</covarianceMatrix>\n`;
+  const at = xml.indexOf("</data>");
+  return xml.slice(0, at) + block + xml.slice(at);
+})();
+
 const cases: [string, (t: string) => ParseOutcome, string][] = [
   ["element sets", parseTle, `${fixture("sgp4-verification-00005.tle")}VV-TEST\n${fixture("sgp4-verification-00005.tle")}`],
   ["OPM (KVN)", parseOpmKvn, opmKvn],
   ["OMM (KVN)", parseOmmKvn, fixture("ccsds-omm-example.kvn")],
   ["OEM (KVN)", parseOemKvn, fixture("ccsds-oem-example.kvn")],
+  ["OEM with covariance (KVN)", parseOemKvn, oemWithCovariance],
+  ["OEM with covariance (XML)", parseOemXml, oemXmlWithCovariance],
   ["OPM (XML)", parseOpmXml, fixture("ccsds-opm-example.xml")],
   ["OMM (XML)", parseOmmXml, fixture("ccsds-omm-example.xml")],
   ["OEM (XML)", parseOemXml, fixture("ccsds-oem-example.xml")],
@@ -49,6 +85,16 @@ function mutated(base: string) {
     return text;
   });
 }
+
+it("the covariance bases parse (so the fuzzing starts from valid files)", () => {
+  for (const [parse, text] of [
+    [parseOemKvn, oemWithCovariance],
+    [parseOemXml, oemXmlWithCovariance],
+  ] as const) {
+    const r = parse(text);
+    expect(r.ok && r.file.format === "oem" && r.file.segments[0]!.covarianceCount).toBeGreaterThan(0);
+  }
+});
 
 describe("fuzzing the orbit-file parsers (fast-check, 10,000 inputs each)", { timeout: 180_000 }, () => {
   for (const [name, parse, base] of cases) {

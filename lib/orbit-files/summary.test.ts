@@ -72,3 +72,64 @@ describe("orbit summaries", () => {
     expect(summaries(`${l1}${checksum(l1)}\n${l2b}${checksum(l2b)}\n`)[0]!.sunSynchronous!.sunSynchronous).toBe(false);
   });
 });
+
+describe("frames and time scales of orbit files", () => {
+  // Invented satellite 99008 "VV-HERON", mean elements near 548 km, 97.6° (demo data).
+  const l1 = "1 99008U 26007A   26060.50000000  .00000000  00000-0  00000-0 0  999";
+  const l2 = "2 99008  97.6000  10.0000 0001000  90.0000   0.0000 15.06000000    1";
+  const sum = (l: string) => (l.split("").reduce((a, ch) => a + (ch === "-" ? 1 : /\d/.test(ch) ? Number(ch) : 0), 0) % 10).toString();
+  const tle = `VV-HERON\n${l1}${sum(l1)}\n${l2}${sum(l2)}\n`;
+
+  it("an element set (TEME, UTC) gets its plane in EME2000 beside the one it is compared in", () => {
+    const [s] = summaries(tle);
+    expect(s!.epochUtc).toBe("2026-03-01T12:00:00.000");
+    expect(s!.planes!.ofDate).toEqual({ inclinationDeg: 97.6, raanDeg: 10 });
+    // 26 years of precession tilt a polar plane by up to about 0.15° (20″/year in declination; Meeus ch. 21).
+    const tilt = Math.abs(s!.planes!.eme2000.inclinationDeg - 97.6);
+    expect(tilt).toBeGreaterThan(0.001);
+    expect(tilt).toBeLessThan(0.16);
+    expect(s!.compare!.inclinationDeg).toBe(97.6);
+    expect(s!.notes.some((n) => n.startsWith("In EME2000 (J2000) this orbit has inclination "))).toBe(true);
+  });
+
+  it("the same state written as an OPM in EME2000 with a TT epoch gives back the element set's epoch in UTC and its inclination of date", () => {
+    const [t] = summaries(tle);
+    const r = t!.planes!.stateEme2000!.r;
+    const v = t!.planes!.stateEme2000!.v;
+    // TT − UTC = 37 s + 32.184 s = 69.184 s in 2026 (IERS Bulletin C; IAU 1991 TT = TAI + 32.184 s).
+    const opm = [
+      "CCSDS_OPM_VERS = 2.0",
+      "CREATION_DATE = 2026-03-01T00:00:00",
+      "ORIGINATOR = VISVIVA TEST",
+      "OBJECT_NAME = VV-HERON",
+      "OBJECT_ID = 2026-007A",
+      "CENTER_NAME = EARTH",
+      "REF_FRAME = EME2000",
+      "TIME_SYSTEM = TT",
+      "EPOCH = 2026-03-01T12:01:09.184",
+      ...["X", "Y", "Z"].map((k, i) => `${k} = ${r[i]!.toFixed(9)}`),
+      ...["X_DOT", "Y_DOT", "Z_DOT"].map((k, i) => `${k} = ${v[i]!.toFixed(12)}`),
+      "",
+    ].join("\n");
+    const [o] = summaries(opm);
+    expect(o!.epochUtc).toBe("2026-03-01T12:00:00.000");
+    expect(o!.notes).toContain("Epoch in UTC: 2026-03-01 12:00:00.000 (TT through the leap-second table; TT = TAI + 32.184 s).");
+    // The OPM's inclination compared with the text is the one of date: the TLE's osculating (TEME) inclination, to 1e-6°.
+    expect(o!.compare!.inclinationDeg).toBeCloseTo(t!.osculating!.inclinationDeg, 6);
+    expect(o!.planes!.eme2000.inclinationDeg).toBeCloseTo(o!.osculating!.inclinationDeg, 12);
+    expect(o!.sunSynchronous!.sunSynchronous).toBe(true);
+  });
+});
+
+describe("an OMM in TT", () => {
+  it("the same message in TT, its clock 65.184 s ahead (TT − UTC in 2007: TAI − UTC 33 s + 32.184 s), has the same UTC epoch and orbit", () => {
+    const utcText = fs.readFileSync(path.join(__dirname, "fixtures", "ccsds-omm-example.kvn"), "utf8");
+    const [u] = summaries(utcText);
+    const ttEpoch = new Date(Date.parse(`${u!.epoch}Z`) + 65_184).toISOString().replace("Z", "");
+    expect(/TIME_SYSTEM\s*=\s*UTC/.test(utcText)).toBe(true);
+    const [t] = summaries(utcText.replace(/TIME_SYSTEM\s*=\s*UTC/, "TIME_SYSTEM = TT").replace(/EPOCH\s*=\s*\S+/, `EPOCH = ${ttEpoch}`));
+    expect(t!.epochUtc).toBe(u!.epochUtc);
+    expect(t!.compare).toEqual(u!.compare);
+    expect(t!.notes.some((n) => n.startsWith("Epoch in UTC: "))).toBe(true);
+  });
+});

@@ -10,7 +10,10 @@ import { solveKeplerElliptic, trueFromEccentric } from "@/lib/orbit/anomalies/ke
 import { BODIES, MEAN_SUN_RATE_DEG_PER_DAY, type BodyName } from "@/lib/orbit/constants";
 import { inclinationForNodalRate, j2SecularRates } from "@/lib/orbit/j2";
 import { elementsToState, stateToElements } from "@/lib/orbit/state-vectors";
-import type { OrbitFile, StateVector } from "./types";
+import { convertState, inertialFrame, rotatePlane, temeToJ2000Matrix, transpose } from "@/lib/orbit/frames";
+import { julianCenturiesTT, toUtc, type TimeScale } from "@/lib/orbit/time-scales";
+import type { Epoch, OrbitFile, StateVector } from "./types";
+import { isoOf } from "./common";
 
 const DEG = Math.PI / 180;
 const RAD = 180 / Math.PI;
@@ -61,7 +64,49 @@ export interface OrbitSummary {
   sunSynchronous: { nodalRateDegPerDay: number; meanSunRateDegPerDay: number; sunSynchronous: boolean; inclinationForSunSyncDeg: number | null } | null;
   /** The state at epoch (km, km/s) the osculating elements come from. */
   state: { r: [number, number, number]; v: [number, number, number] } | null;
+  /** The epoch in UTC (TAI and TT through the leap-second table); null when it cannot be converted. */
+  epochUtc?: string | null;
+  /**
+   * The orbit plane in both frames: against Earth's equator at the epoch (TEME, the frame the
+   * text's inclination is read in) and in EME2000 (J2000). Element sets are TEME; CCSDS states
+   * in EME2000/J2000/GCRF are rotated (IAU-76/FK5, lib/orbit/frames.ts).
+   */
+  planes?: {
+    ofDate: { inclinationDeg: number; raanDeg: number };
+    eme2000: { inclinationDeg: number; raanDeg: number };
+    /** The state at epoch in EME2000 (km, km/s), when the file has a state. */
+    stateEme2000: { r: [number, number, number]; v: [number, number, number] } | null;
+  } | null;
+  /**
+   * The file's covariance for this orbit, as 1σ per axis (the square roots of the diagonal):
+   * OPM/OMM their one matrix, OEM segments their first and last (with the count).
+   */
+  covariance?: {
+    count: number;
+    first: CovarianceSigmas;
+    last: CovarianceSigmas;
+  } | null;
   notes: string[];
+}
+
+export interface CovarianceSigmas {
+  epoch: string | null;
+  /** null: the orbit's own frame. */
+  refFrame: string | null;
+  /** 1σ of x, y, z (km). */
+  positionKm: [number, number, number];
+  /** 1σ of ẋ, ẏ, ż (km/s). */
+  velocityKmS: [number, number, number];
+}
+
+/** σ = √(diagonal) of a 6×6 lower triangle given row by row (indices 0, 2, 5, 9, 14, 20). */
+export function sigmasOf(lowerTriangle: number[], epoch: string | null, refFrame: string | null): CovarianceSigmas {
+  const d = [0, 2, 5, 9, 14, 20].map((k) => Math.sqrt(Math.max(0, lowerTriangle[k] ?? NaN)));
+  return { epoch, refFrame, positionKm: [d[0]!, d[1]!, d[2]!], velocityKmS: [d[3]!, d[4]!, d[5]!] };
+}
+
+function withCovariance(summary: OrbitSummary, cov: OrbitSummary["covariance"]): OrbitSummary {
+  return { ...summary, covariance: cov ?? null };
 }
 
 const CENTERS: Record<string, BodyName> = {
@@ -234,32 +279,111 @@ export function summarizeOrbitFile(file: OrbitFile, max = 20): OrbitSummary[] {
         return file.sets.slice(0, max).map((s, idx) => {
           const satrec = twoline2satrec(s.line1, s.line2);
           const label = `${s.name ?? "Element set"} (catalogue ${s.catalogNumber})`;
-          return fromSgp4(
-            idx,
-            label,
-            s.epoch.iso,
-            satrec,
-            { e: s.eccentricity, i: s.inclination, raan: s.raan, argp: s.argPerigee, m: s.meanAnomaly },
-            "TEME",
-            [],
+          return withFramesAndTime(
+            fromSgp4(idx, label, s.epoch.iso, satrec, { e: s.eccentricity, i: s.inclination, raan: s.raan, argp: s.argPerigee, m: s.meanAnomaly }, "TEME", []),
+            s.epoch,
+            "UTC",
           );
         });
-      case "opm":
-        return [fromState(0, file.metadata.objectName, file.state, file.metadata.refFrame, file.metadata.timeSystem, file.metadata.centerName, [])];
+      case "opm": {
+        const c = file.covariance ? sigmasOf(file.covariance.lowerTriangle, file.state.epoch.iso, file.covariance.refFrame) : null;
+        return [
+          withCovariance(
+            withFramesAndTime(
+              fromState(0, file.metadata.objectName, file.state, file.metadata.refFrame, file.metadata.timeSystem, file.metadata.centerName, []),
+              file.state.epoch,
+              file.metadata.timeSystem,
+            ),
+            c ? { count: 1, first: c, last: c } : null,
+          ),
+        ];
+      }
       case "oem":
-        return file.segments
-          .slice(0, max)
-          .map((s, idx) =>
-            fromState(idx, `${s.metadata.objectName} (segment ${idx + 1})`, s.first, s.metadata.refFrame, s.metadata.timeSystem, s.metadata.centerName, [
-              `First state of ${s.stateCount} in the segment.`,
-            ]),
-          );
-      case "omm":
-        return [fromOmm(file)];
+        return file.segments.slice(0, max).map((s, idx) =>
+          withCovariance(
+            withFramesAndTime(
+              fromState(idx, `${s.metadata.objectName} (segment ${idx + 1})`, s.first, s.metadata.refFrame, s.metadata.timeSystem, s.metadata.centerName, [
+                `First state of ${s.stateCount} in the segment.`,
+              ]),
+              s.first.epoch,
+              s.metadata.timeSystem,
+            ),
+            s.covariance
+              ? {
+                  count: s.covarianceCount,
+                  first: sigmasOf(s.covariance.first.lowerTriangle, s.covariance.first.epoch.iso, s.covariance.first.refFrame),
+                  last: sigmasOf(s.covariance.last.lowerTriangle, s.covariance.last.epoch.iso, s.covariance.last.refFrame),
+                }
+              : null,
+          ),
+        );
+      case "omm": {
+        const c = file.covariance ? sigmasOf(file.covariance.lowerTriangle, file.meanElements.epoch.iso, file.covariance.refFrame) : null;
+        return [
+          withCovariance(withFramesAndTime(fromOmm(file), file.meanElements.epoch, file.metadata.timeSystem), c ? { count: 1, first: c, last: c } : null),
+        ];
+      }
     }
   } catch {
     return [];
   }
+}
+
+const fixed = (x: number, d: number) => x.toFixed(d);
+
+/**
+ * The epoch in UTC and the orbit plane in both frames; the inclination compared with the text
+ * (and the sun-synchronous check) is the one against Earth's equator at the epoch, whatever
+ * frame the file is written in, so an EME2000 file and an element set of the same orbit agree.
+ */
+function withFramesAndTime(summary: OrbitSummary, epoch: Epoch, timeSystem: string): OrbitSummary {
+  const notes = [...summary.notes];
+  const scale = (["UTC", "TAI", "TT"] as const).includes(timeSystem as TimeScale) ? (timeSystem as TimeScale) : null;
+  const utc = scale ? toUtc(epoch.ms, scale) : null;
+  const utcMs = utc?.ok ? utc.ms : null;
+  if (utc && !utc.ok) notes.push(`Epoch not converted to UTC: ${utc.message}.`);
+  else if (utc?.ok && scale !== "UTC")
+    notes.push(
+      `Epoch in UTC: ${isoOf(utc.ms).replace("T", " ")} (${timeSystem} through the leap-second table${scale === "TT" ? "; TT = TAI + 32.184 s" : ""}).`,
+    );
+  if (utc?.ok && utc.note) notes.push(utc.note);
+  const out: OrbitSummary = { ...summary, epochUtc: utcMs !== null ? isoOf(utcMs) : null, planes: null, notes };
+  const frame = inertialFrame(summary.frame);
+  const plane = summary.compare?.basis === "mean" ? summary.mean : summary.osculating;
+  if (!frame || !plane || utcMs === null || summary.center.toUpperCase() !== "EARTH") return out;
+  const T = julianCenturiesTT(utcMs);
+  if (T === null) return out;
+  const m = temeToJ2000Matrix(T);
+  const given = { inclinationDeg: plane.inclinationDeg, raanDeg: plane.raanDeg };
+  const ofDate = frame === "TEME" ? given : rotatePlane(transpose(m), given.inclinationDeg, given.raanDeg);
+  const eme2000 = frame === "TEME" ? rotatePlane(m, given.inclinationDeg, given.raanDeg) : given;
+  let stateEme2000: { r: [number, number, number]; v: [number, number, number] } | null = null;
+  if (summary.state) {
+    const c = convertState(summary.state.r, summary.state.v, summary.frame, "EME2000", utcMs);
+    if (c.ok) stateEme2000 = { r: c.r, v: c.v };
+  }
+  out.planes = { ofDate, eme2000, stateEme2000 };
+  if (frame === "TEME")
+    notes.push(
+      `In EME2000 (J2000) this orbit has inclination ${fixed(eme2000.inclinationDeg, 3)}° and RAAN ${fixed(eme2000.raanDeg, 3)}° (TEME to J2000, IAU-76/FK5; good to about 0.5″).`,
+    );
+  else {
+    notes.push(
+      `Against Earth's equator at the epoch (true equator, as element sets are) this orbit has inclination ${fixed(ofDate.inclinationDeg, 3)}° and RAAN ${fixed(ofDate.raanDeg, 3)}°; the text is compared with these (${summary.frame} gives ${fixed(given.inclinationDeg, 3)}°).`,
+    );
+    if (out.compare) out.compare = { ...out.compare, inclinationDeg: ofDate.inclinationDeg };
+    if (out.sunSynchronous && out.compare && plane) {
+      const body: BodyName = "earth";
+      out.sunSynchronous = sunSync(body, plane.semiMajorAxisKm, plane.eccentricity, ofDate.inclinationDeg);
+    }
+  }
+  return out;
+}
+
+function epochInUtc(epoch: Epoch, timeSystem: string): string {
+  if (timeSystem !== "TAI" && timeSystem !== "TT") return epoch.iso;
+  const utc = toUtc(epoch.ms, timeSystem);
+  return utc.ok ? isoOf(utc.ms) : epoch.iso;
 }
 
 function fromOmm(file: Extract<OrbitFile, { format: "omm" }>): OrbitSummary {
@@ -271,7 +395,8 @@ function fromOmm(file: Extract<OrbitFile, { format: "omm" }>): OrbitSummary {
     const satrec = json2satrec({
       OBJECT_NAME: meta.objectName,
       OBJECT_ID: meta.objectId,
-      EPOCH: m.epoch.iso,
+      // SGP4 counts time in UTC: a TAI or TT epoch goes through the leap-second table first.
+      EPOCH: epochInUtc(m.epoch, meta.timeSystem),
       MEAN_MOTION: m.meanMotion!,
       ECCENTRICITY: m.eccentricity,
       INCLINATION: m.inclination,

@@ -143,7 +143,21 @@ export interface OemSegment {
   last: StateVector;
   /** At most OEM_SAMPLE_STATES states spread evenly over the segment (first and last included). */
   sample: StateVector[];
+  /** How many covariance matrices the segment holds. */
   covarianceCount: number;
+  /**
+   * The segment's covariance matrices, bounded as its states are: the first, the last and at
+   * most LIMITS.oemSampleCovariances spread evenly (first and last included). Absent in
+   * results stored before covariances were kept.
+   */
+  covariance?: { first: OemCovariance; last: OemCovariance; sample: OemCovariance[] } | null;
+}
+
+/** One covariance matrix of an OEM segment: its epoch, frame (null: the segment's) and lower triangle (21 values, km², km²/s, km²/s²). */
+export interface OemCovariance {
+  epoch: Epoch;
+  refFrame: string | null;
+  lowerTriangle: number[];
 }
 
 export interface OemFile {

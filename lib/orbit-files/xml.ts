@@ -8,7 +8,7 @@
  */
 import { XMLParser, XMLValidator } from "fast-xml-parser";
 import { LIMITS, ParseStop, asciiLines, clip, deadline, stop } from "./common";
-import { buildOem, buildOmm, buildOpm, type Entry, type RawSegment, type VersionLine } from "./odm";
+import { COVARIANCE_KEYS, buildOem, buildOmm, buildOpm, type Entry, type RawSegment, type VersionLine } from "./odm";
 import type { ParseOutcome } from "./types";
 
 type XmlNode = Record<string, unknown>;
@@ -175,13 +175,36 @@ export function parseOemXml(text: string): ParseOutcome {
       const meta = leafEntries(metadata, lineAt, [], tick);
       const data = child(seg, "data");
       if (!data) stop(lineAt(seg), "the <segment> has no <data> (the file may be cut short)");
-      const out: RawSegment = { line: lineAt(seg), meta, metaEndLine: lineAt(data), states: [], covarianceCount: 0 };
+      const out: RawSegment = { line: lineAt(seg), meta, metaEndLine: lineAt(data), states: [], covarianceCount: 0, covariances: [] };
       for (const c of elements(data)) {
         tick();
         const tag = tagOf(c);
         if (tag === "COMMENT") continue;
         if (tag === "covarianceMatrix") {
           out.covarianceCount += 1;
+          const values = new Map<string, XmlNode>();
+          let epoch: { text: string; line: number } | null = null;
+          let refFrame: { text: string; line: number } | null = null;
+          for (const e of elements(c)) {
+            tick();
+            const k = tagOf(e);
+            if (k === "COMMENT") continue;
+            if (k === "EPOCH") epoch = { text: textOf(e), line: lineAt(e) };
+            else if (k === "COV_REF_FRAME") refFrame = { text: textOf(e), line: lineAt(e) };
+            else if (COVARIANCE_KEYS.includes(k)) values.set(k, e);
+            else stop(lineAt(e), `<${clip(k)}> is not an element of a <covarianceMatrix>`);
+          }
+          if (!epoch) stop(lineAt(c), "EPOCH missing in the <covarianceMatrix>");
+          for (const k of COVARIANCE_KEYS) if (!values.has(k)) stop(lineAt(c), `${k} missing in the <covarianceMatrix>`);
+          out.covariances.push({
+            line: lineAt(c),
+            epoch,
+            refFrame,
+            values: COVARIANCE_KEYS.map((k) => {
+              const e = values.get(k)!;
+              return { text: textOf(e), line: lineAt(e), key: k, unit: attrsOf(e).units ?? null };
+            }),
+          });
           continue;
         }
         if (tag !== "stateVector") stop(lineAt(c), `<${clip(tag)}> is not an element of OEM data; use <stateVector> or <covarianceMatrix>`);

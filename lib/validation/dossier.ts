@@ -2,6 +2,7 @@
 // route handlers, the server actions and the OpenAPI document.
 import { z } from "zod";
 import { proposalStatuses } from "@/db/schema/proposals";
+import { FILE_TOLERANCE_RULES, FILE_TOLERANCE_UNITS, parseFileToleranceValue } from "@/lib/orbit-files/tolerance";
 
 export const TOLERANCE_UNITS = ["km", "km/s", "deg", "s", "kg", "deg/day", "rev/day"] as const;
 
@@ -26,6 +27,32 @@ export const tolerancePolicySchema = z.strictObject(
 );
 export type TolerancePolicyInput = z.infer<typeof tolerancePolicySchema>;
 
+/**
+ * A call's tolerance for comparing orbit files with the text: each bound as a number in its
+ * unit or as typed ("500 m", "6 arcmin", "1 min"); null returns to the product's defaults.
+ */
+function fileBound(unit: (typeof FILE_TOLERANCE_UNITS)[number]) {
+  const rule = FILE_TOLERANCE_RULES[unit];
+  return z.union([z.number(), z.string().max(60)], `type a bound for ${rule.what} such as ${rule.example}`).transform((raw, ctx) => {
+    const parsed = parseFileToleranceValue(unit, raw);
+    if (parsed.ok) return parsed.value;
+    ctx.addIssue({ code: "custom", message: parsed.message });
+    return z.NEVER;
+  });
+}
+
+export const fileToleranceInputSchema = z
+  .strictObject(
+    { km: fileBound("km"), deg: fileBound("deg"), "1": fileBound("1"), s: fileBound("s") },
+    "the file tolerance takes km, deg, 1 (eccentricity) and s only",
+  )
+  .nullable();
+
+/** A call's file-comparison bounds as the API shows them (absolute, in km, deg, 1, s). */
+export const fileToleranceSchema = z
+  .object({ km: z.number(), deg: z.number(), "1": z.number(), s: z.number() })
+  .describe("absolute bounds for comparing attached orbit files with the text: km (altitudes), deg (inclination), 1 (eccentricity), s (period)");
+
 /** The contract version 2 default for a new call: 0.1 % relative (absolute bounds: the contract's). */
 export const DEFAULT_CALL_TOLERANCE = { relative: 0.001 };
 
@@ -40,6 +67,8 @@ export const callInputSchema = z
     opensAt: dateInput,
     closesAt: dateInput,
     tolerance: tolerancePolicySchema.default(DEFAULT_CALL_TOLERANCE),
+    /** Absent: unchanged (defaults for a new call); null: back to the defaults. */
+    fileTolerance: fileToleranceInputSchema.optional(),
     requiredSections: z.array(sectionName).max(30, "at most 30 required sections").default([]),
     reviewersPerProposal: z.coerce.number().int().min(1, "at least one reviewer per proposal").max(10, "at most 10 reviewers per proposal").default(2),
   })
@@ -54,6 +83,9 @@ export const callSchema = z.object({
   opensAt: z.string(),
   closesAt: z.string(),
   tolerance: tolerancePolicySchema,
+  fileTolerance: fileToleranceSchema,
+  /** True while the call uses the product's default file tolerance. */
+  fileToleranceIsDefault: z.boolean(),
   requiredSections: z.array(z.string()),
   reviewersPerProposal: z.number().int(),
   state: z.enum(["upcoming", "open", "closed"]),

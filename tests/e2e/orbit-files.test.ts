@@ -82,6 +82,16 @@ describe("orbit files in the browser", () => {
 
     // The block's orbit as an OPM once the draft is saved.
     await page.locator('[data-save-state="saved"]').waitFor({ timeout: 30_000 });
+    // Back to the board and Forward again: the name typed and the comparison it drives are still there.
+    await page.goBack();
+    await page.getByRole("link", { name: proposal.title }).waitFor();
+    await page.goForward();
+    await page.getByRole("textbox", { name: "Dossier text" }).waitFor();
+    await expect.poll(() => blocks.nth(1).getByLabel("Name in the text").inputValue()).toBe("the operational orbit");
+    await page.locator('[data-comparison-status="inconsistent"]').waitFor();
+    await expect(page.locator("[data-file-tolerance]").textContent()).resolves.toBe(
+      "This call compares orbit files with the text within: altitudes ±5 km, inclination ±0.1°, eccentricity ±0.002, period ±60 s.",
+    );
     const link = page.getByRole("link", { name: "OPM of the operational orbit" }).last();
     const href = await link.getAttribute("href");
     expect(href).toMatch(/\/draft\/orbit-checks\/[0-9a-f-]{36}\/opm$/);

@@ -96,7 +96,8 @@ export const dossierOperations = defineOperations([
     method: "put",
     path: `${board}/calls/{callId}`,
     operationId: "updateCall",
-    summary: "Change a call (chairs)",
+    summary:
+      'Change a call (chairs), including its tolerance for orbit files against the text (fileTolerance: each bound a number in km, deg, 1 or s, or typed with its unit such as "500 m"; null returns to the defaults)',
     tag: "calls",
     access: "signed-in",
     body: callInputSchema,

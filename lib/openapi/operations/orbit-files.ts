@@ -15,10 +15,14 @@ const orbitFileSchema = z.object({
   file: z
     .record(z.string(), z.unknown())
     .nullable()
-    .describe("the parsed file (two-line element sets, or the OPM/OMM/OEM's header, metadata and data); null when unparsed"),
+    .describe(
+      "the parsed file (two-line element sets, or the OPM/OMM/OEM's header, metadata and data; OEM segments keep their first, last and a bounded sample of states and of covariance matrices); null when unparsed",
+    ),
   summaries: z
     .array(z.record(z.string(), z.unknown()))
-    .describe("per orbit of the file: epoch, frame, osculating (and mean) elements, altitude range, period, sun-synchronous check"),
+    .describe(
+      "per orbit of the file: epoch (and epochUtc for TAI/TT files), frame, osculating (and mean) elements, altitude range, period, sun-synchronous check, the orbit plane of date and in EME2000 (planes), covariance as 1σ per axis (first and last matrix, count)",
+    ),
   parsedAt: z.string(),
 });
 

@@ -20,3 +20,22 @@ declare module "astronomia/kepler" {
   };
   export default kepler;
 }
+
+declare module "astronomia/nutation" {
+  /** [Δψ, Δε] in radians, IAU 1980 theory (terms under 0.0003″ neglected), for a Julian ephemeris day. */
+  export function nutation(jde: number): [number, number];
+  export function approxNutation(jde: number): [number, number];
+  /** Mean obliquity (rad), IAU 1980 polynomial. */
+  export function meanObliquity(jde: number): number;
+}
+
+declare module "astronomia/precess" {
+  /** Precession from one Julian epoch (years) to another; ζ and z in radians, θ through its sine and cosine. */
+  export class Precessor {
+    constructor(epochFrom: number, epochTo: number);
+    ζ: number;
+    z: number;
+    sθ: number;
+    cθ: number;
+  }
+}

@@ -13,6 +13,7 @@ import { getCall } from "@/lib/dal/calls";
 import { listRequirements } from "@/lib/dal/requirements";
 import { listStations } from "@/lib/dal/stations";
 import { CallRequirements } from "@/components/dossier/call-requirements";
+import { fileToleranceSummary } from "@/lib/orbit-files/tolerance";
 
 export const metadata: Metadata = { title: "Call" };
 
@@ -51,6 +52,14 @@ export default async function CallPage({ params }: { params: Promise<{ boardId: 
               {abs.length > 0 ? `; absolute ${abs.map(([u, v]) => `${v} ${u}`).join(", ")}` : "; the contract's absolute bounds"})
             </span>
             <span className="block text-xs text-ink-600">{CONSISTENT_MEANS}</span>
+          </dd>
+          <dt className="font-semibold">Orbit files against the text</dt>
+          <dd>
+            <span data-call-file-tolerance="">{fileToleranceSummary(call.fileTolerance)}</span>
+            {call.fileToleranceIsDefault ? <span className="ml-1 text-xs text-ink-600">(the product&apos;s defaults)</span> : null}
+            <span className="block text-xs text-ink-600">
+              At submission each named orbit is compared with the orbit files linked to it; a difference beyond these bounds becomes a flag.
+            </span>
           </dd>
           <dt className="font-semibold">Reviewers per proposal</dt>
           <dd>{call.reviewersPerProposal}</dd>

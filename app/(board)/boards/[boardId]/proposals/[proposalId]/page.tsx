@@ -111,6 +111,7 @@ export default async function ProposalPage({ params }: { params: Promise<{ board
           proposalId={proposalId}
           draft={draft}
           tolerance={proposal.tolerance}
+          fileTolerance={proposal.fileTolerance}
           requirements={proposal.requirements}
           requiredSections={proposal.requiredSections}
           attachments={attachments}
@@ -165,7 +166,7 @@ export default async function ProposalPage({ params }: { params: Promise<{ board
             proposalId={proposalId}
             attachmentIds={latest.attachments.map((a) => a.attachmentId)}
             document={latest.document}
-            tolerance={proposal.tolerance}
+            fileTolerance={proposal.fileTolerance}
             exportFrom={{ version: latest.number }}
           />
         </div>
