@@ -3,6 +3,7 @@ import { users } from "./accounts";
 import { boards } from "./boards";
 import { calls, proposalVersions } from "./proposals";
 import { reviewItems } from "./reviews";
+import { DISPOSITION_CODES } from "../../lib/review/responses";
 
 /**
  * The response round of a call: between `opensAt` and `closesAt` proposers see the review
@@ -63,8 +64,8 @@ export const reviewItemAnswers = pgTable(
   (t) => [uniqueIndex("review_item_answers_item_key").on(t.reviewItemId), index("review_item_answers_board_idx").on(t.boardId)],
 );
 
-/** Our own plain labels for what became of a review item (see lib/review/dispositions.ts). */
-export const dispositionCodes = ["agreed", "fix-next-version", "not-accepted", "closed"] as const;
+/** What became of a review item; labels in lib/review/responses.ts. */
+export const dispositionCodes = DISPOSITION_CODES;
 export type DispositionCode = (typeof dispositionCodes)[number];
 
 /**

@@ -2,6 +2,7 @@ import { index, integer, jsonb, numeric, pgTable, text, timestamp, uniqueIndex, 
 import { users } from "./accounts";
 import { boards } from "./boards";
 import { calls, checkResults, proposals, proposalVersions } from "./proposals";
+import { REVIEWER_LEVELS } from "../../lib/review/responses";
 
 export interface RubricCriterion {
   id: string;
@@ -80,7 +81,7 @@ export const assignments = pgTable(
 );
 
 /** Three levels for a reviewer's confidence and expertise; labels in lib/review/confidence.ts. */
-export const reviewerLevels = ["low", "medium", "high"] as const;
+export const reviewerLevels = REVIEWER_LEVELS;
 export type ReviewerLevel = (typeof reviewerLevels)[number];
 
 export interface CriterionScore {

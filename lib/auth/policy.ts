@@ -99,6 +99,7 @@ const rules: Record<Permission, Rule> = {
     f.role === "chair" ||
     f.isAuthorOfItem === true ||
     (f.isAuthor === true && f.decisionIssued === true) ||
+    (f.isAuthor === true && f.responseWindowOpen === true && f.itemReleased === true) ||
     (f.role === "reviewer" && f.isAssigned === true && f.isConflicted !== true),
   "review-item.answer": (_a, f) => f.isAuthor === true && f.responseWindowOpen === true && f.itemReleased === true,
   "review-item.dispose": (_a, f) => f.role === "chair" || (f.role === "reviewer" && f.isAuthorOfItem === true),

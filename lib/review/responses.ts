@@ -1,6 +1,13 @@
 // Plain labels of the response round (pure, shared by screens, e-mails and the API docs).
-import type { DispositionCode } from "@/db/schema/responses";
-import type { ReviewerLevel } from "@/db/schema/reviews";
+// No imports from db/: client components use these.
+
+/** Our own plain labels for what became of a review item (codes stored in review_item_dispositions). */
+export const DISPOSITION_CODES = ["agreed", "fix-next-version", "not-accepted", "closed"] as const;
+export type DispositionCode = (typeof DISPOSITION_CODES)[number];
+
+/** Three levels for a reviewer's confidence and expertise (stored in reviews.confidence / expertise). */
+export const REVIEWER_LEVELS = ["low", "medium", "high"] as const;
+export type ReviewerLevel = (typeof REVIEWER_LEVELS)[number];
 
 export const DISPOSITION_LABELS: Record<DispositionCode, string> = {
   agreed: "Agreed",

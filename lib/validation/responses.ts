@@ -1,9 +1,7 @@
 /** zod schemas of the response round, shared by the forms, the route handlers and the OpenAPI document. */
 import { z } from "zod";
-import { dispositionCodes } from "@/db/schema/responses";
-import { reviewerLevels } from "@/db/schema/reviews";
 import { parseWrittenDate, type DateEdge } from "@/lib/format/parse-date";
-import { ANSWER_MAX, REASON_MAX } from "@/lib/review/responses";
+import { ANSWER_MAX, DISPOSITION_CODES as dispositionCodes, REASON_MAX, REVIEWER_LEVELS as reviewerLevels } from "@/lib/review/responses";
 
 const writtenDate = (edge: DateEdge) =>
   z
