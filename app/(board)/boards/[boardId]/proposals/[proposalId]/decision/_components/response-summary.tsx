@@ -22,7 +22,11 @@ export async function ResponseSummary({ user, boardId, proposalId }: { user: Ses
   const responsesUrl = `/boards/${boardId}/proposals/${proposalId}/responses`;
   return (
     <div className="grid gap-4 md:grid-cols-2">
-      <Panel title="Reviewer confidence and expertise" description="As each reviewer stated it. Shown for your judgement; it weights no score.">
+      <Panel
+        id="reviewer-levels"
+        title="Reviewer confidence and expertise"
+        description="As each reviewer stated it. Shown for your judgement; it weights no score."
+      >
         <ul className="space-y-1 text-sm" data-reviewer-levels="">
           {reviews.map((r) => (
             <li key={r.assignmentId}>
@@ -35,6 +39,7 @@ export async function ResponseSummary({ user, boardId, proposalId }: { user: Ses
         </ul>
       </Panel>
       <Panel
+        id="answers-dispositions"
         title="Answers and dispositions"
         description={
           window
