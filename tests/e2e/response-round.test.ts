@@ -54,7 +54,7 @@ describe("the response round in the browser", () => {
     // The second reviewer has not submitted: their item is not shown yet. Reviewers are numbered, never named.
     expect(await proposer.getByText("Eclipse season").count()).toBe(0);
     expect(await item.textContent()).toContain("Reviewer 1");
-    expect(await proposer.locator("main").textContent()).not.toContain(s.reviewer.name);
+    expect(await proposer.locator("main").textContent()).not.toContain(s.reviewer.email);
     const answerText = "The drift orbit period now follows from the altitudes; see the transfer section.";
     const answerBox = item.getByRole("textbox", { name: "Your answer to “Drift orbit period”" });
     await typeInto(answerBox, answerText);
