@@ -120,7 +120,7 @@ describe("the response round in the browser", () => {
     await answers.getByText(`Answer: ${answerText}`).waitFor();
     await answers.getByText("Will be fixed in the next version").first().waitFor();
     const levels = chair.getByRole("region", { name: "Reviewer confidence and expertise" });
-    await levels.getByText(s.reviewer.name).waitFor();
+    await levels.getByText(s.reviewer.name, { exact: true }).waitFor();
     expect(await levels.locator("li").filter({ hasText: s.reviewer2.name }).textContent()).toContain("confidence high · expertise: outside my field");
     await answers.getByRole("link", { name: "Response round page" }).click();
     await chair.waitForURL((url) => url.pathname === `${p}/responses`);
