@@ -6,6 +6,8 @@ import { listProposals } from "@/lib/dal/proposals";
 import { proposalListQuerySchema } from "@/lib/validation/dossier";
 import { CallForm } from "@/components/dossier/call-form";
 import { PageTitle, Panel } from "@/components/ui/panel";
+import { ResponseWindowForm } from "@/components/review/response-window-form";
+import { getResponseWindow } from "@/lib/dal/responses";
 import { orNotFound, pageUser } from "@/lib/auth/page-guard";
 import { can } from "@/lib/auth/policy";
 import { getBoard } from "@/lib/dal/boards";
@@ -13,8 +15,6 @@ import { getCall } from "@/lib/dal/calls";
 import { listRequirements } from "@/lib/dal/requirements";
 import { listStations } from "@/lib/dal/stations";
 import { CallRequirements } from "@/components/dossier/call-requirements";
-import { ResponseWindowForm } from "@/components/review/response-window-form";
-import { getResponseWindow } from "@/lib/dal/responses";
 
 export const metadata: Metadata = { title: "Call" };
 
