@@ -5,6 +5,7 @@
 // sees answers, dispositions and the stated levels on the decision page.
 import { describe, expect, it } from "vitest";
 import { browserSession, typeInto } from "../support/browser";
+import { describeViolations, seriousViolations } from "../support/axe";
 import { decisionScenario } from "../integration/decision-fixtures";
 import { caughtMessages, waitFor } from "../integration/outbox-support";
 
@@ -62,6 +63,8 @@ describe("the response round in the browser", () => {
     await item.getByRole("status").filter({ hasText: "Answer saved." }).waitFor();
     await item.getByText(answerText).waitFor();
     expect(await item.getByRole("button", { name: "Change the answer" }).count()).toBe(1);
+    const violations = await seriousViolations(proposer);
+    expect(violations, describeViolations("the response round page", violations)).toEqual([]);
     // Back to the proposal and Forward again: the saved answer is what the page shows.
     await proposer.goBack();
     await proposer.waitForURL((url) => url.pathname === p);
@@ -109,6 +112,8 @@ describe("the response round in the browser", () => {
     await expertise.getByRole("radio", { name: "Outside my field" }).focus();
     await second.keyboard.press("Space");
     await second.getByText("All changes saved").waitFor();
+    const reviewViolations = await seriousViolations(second);
+    expect(reviewViolations, describeViolations("the review screen", reviewViolations)).toEqual([]);
 
     // The chair records a second disposition from the response round page; both stay in the history.
     await chair.goto("/boards");
