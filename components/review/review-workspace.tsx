@@ -69,6 +69,23 @@ export function ReviewWorkspace({ boardId, screen, items: initialItems, canRaise
     li.focus({ preventScroll: true });
   }, [raised]);
   const [items, setItems] = useState(initialItems);
+  // Items change under other hands (answers, dispositions): re-read them when the screen appears (mount, pageshow).
+  useEffect(() => {
+    let live = true;
+    const reread = async () => {
+      const answer = await callApi<{ items: ReviewItemView[] }>(`/api/v1/boards/${boardId}/review-items?proposalId=${encodeURIComponent(screen.proposal.id)}`);
+      if (answer.ok && live) setItems(answer.data.items.filter((i) => i.versionId === screen.version.id));
+    };
+    void reread();
+    const onShow = (e: PageTransitionEvent) => {
+      if (e.persisted) void reread();
+    };
+    window.addEventListener("pageshow", onShow);
+    return () => {
+      live = false;
+      window.removeEventListener("pageshow", onShow);
+    };
+  }, [boardId, screen.proposal.id, screen.version.id]);
   const [activeItem, setActiveItem] = useState<string | null>(null);
 
   const revision = useRef(screen.review.revision);

@@ -95,6 +95,14 @@ describe("the response round in the browser", () => {
     await history.getByText("Why: Accepted; the next version must show the new period.").waitFor();
     expect(await history.textContent()).toContain("Will be fixed in the next version");
     expect(await history.textContent()).toContain("(reviewer)");
+    // Back to "My reviews" and Forward: the review screen still shows the disposition and the answer.
+    await reviewer.goBack();
+    await reviewer.waitForURL((url) => url.pathname === `${b}/reviews`);
+    await reviewer.goForward();
+    await reviewer.waitForURL((url) => url.pathname === `${p}/review`);
+    const again = reviewer.locator("li[data-item]").filter({ hasText: "Drift orbit period" });
+    await again.locator('[data-disposition="fix-next-version"]').waitFor();
+    await again.getByText(answerText).waitFor();
 
     // The second reviewer (review still a draft) states confidence and expertise with the keyboard.
     const second = await as(s.reviewer2.email);
