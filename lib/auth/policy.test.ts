@@ -75,6 +75,9 @@ describe("response round", () => {
     expect(decide(member, "review-item.answer", { ...author, responseWindowOpen: false, itemReleased: true })).toBe("forbid");
     expect(decide(member, "review-item.answer", { role: "proposer", isAuthor: false, responseWindowOpen: true, itemReleased: true })).toBe("forbid");
     expect(decide(member, "review-item.answer", { role: "chair", responseWindowOpen: true, itemReleased: true })).toBe("forbid");
+    // They may discuss in the item's thread while the window is open, not before.
+    expect(decide(member, "review-item.reply", { ...author, responseWindowOpen: true, itemReleased: true })).toBe("allow");
+    expect(decide(member, "review-item.reply", { ...author, responseWindowOpen: false, itemReleased: true })).toBe("forbid");
   });
 
   it("lets the item's reviewer or the chair record a disposition, nobody else", () => {
