@@ -240,7 +240,7 @@ function dueStage(w: ResponseWindowRow, now: Date): Stage | null {
  * Sends whatever e-mails of one window are due at `now`, inside `tx`. A stage is claimed by
  * setting its `*_mailed_at` column where it is still null, so two runs never both send it;
  * the dedupe keys (window, stage, end date, proposal, recipient) make a second enqueue a no-op.
- * A window that closed before its opening mail went out sends only the closing one.
+ * A window that closed before its opening mail went out sends none (nobody was told it opened).
  */
 async function sendDueWindowMails(windowId: string, now: Date, tx: Transaction): Promise<ResponseWindowRow | null> {
   let latest: ResponseWindowRow | null = null;
