@@ -122,6 +122,8 @@ export async function setResponseWindow(
         .returning(windowColumns)) as [ResponseWindowRow];
     } else {
       const endMoved = existing.closesAt.getTime() !== input.closesAt.getTime();
+      // Reopening a closed round tells the proposers again.
+      const reopened = windowState(existing, now) === "closed";
       [row] = (await tx
         .update(responseWindows)
         .set({
@@ -129,6 +131,7 @@ export async function setResponseWindow(
           closesAt: input.closesAt,
           updatedAt: now,
           ...(endMoved ? { reminderMailedAt: null, closingMailedAt: null } : {}),
+          ...(reopened ? { openingMailedAt: null } : {}),
         })
         .where(and(eq(responseWindows.id, existing.id), eq(responseWindows.boardId, boardId)))
         .returning(windowColumns)) as [ResponseWindowRow];

@@ -220,6 +220,15 @@ describe("response window", () => {
     ).toBe("Revised answer.");
     // Still visible to the proposer after the round.
     expect((await listReviewItems(proposer, s.board.id, s.proposal.id)).map((i) => [i.id, i.canAnswer])).toEqual([[s.released.id, false]]);
+
+    // Reopening the closed round tells the proposers again and takes answers again.
+    const reopened = await setResponseWindow(s.chairUser, s.board.id, s.call.id, {
+      opensAt: new Date(Date.now() - HOUR),
+      closesAt: new Date(Date.now() + 3 * DAY),
+    });
+    expect(reopened.state).toBe("open");
+    expect((await mailsFor(window.id)).filter((m) => m.kind === "response-opening")).toHaveLength(2);
+    expect((await answerReviewItem(proposer, s.board.id, s.released.id, { body: "Reopened answer." })).answer!.body).toBe("Reopened answer.");
   });
 
   it("sends the reminder once to proposers with unanswered items, and a future window mails at its start", async () => {
