@@ -21,6 +21,7 @@ import { createInvitation, revokeInvitation } from "@/lib/dal/invitations";
 import { createDecision, getLetterTemplate, reassignPreviousReviewers } from "@/lib/dal/decisions";
 import { createProposal, getDraft, saveDraft, submitProposal } from "@/lib/dal/proposals";
 import { createReviewItem, listReviewItems } from "@/lib/dal/review-items";
+import { answerReviewItem, recordDisposition, setResponseWindow } from "@/lib/dal/responses";
 import { getReviewScreen, saveCheckNote, saveReviewDraft, submitReview } from "@/lib/dal/reviews";
 import { saveCallRubric } from "@/lib/dal/rubrics";
 import { dossierPlainText, type DossierNode } from "@/lib/dossier";
@@ -600,6 +601,17 @@ export async function seedScenario(database: Database, options: { board?: SeedBo
   await submitProposal(tobias, boardId, proposals["skiff-ep"]!);
   await reassignPreviousReviewers(chair, boardId, proposals["skiff-ep"]!, { dueAt: new Date(now + 14 * DAY) });
   log("Skiff-EP version 2 resubmitted and reassigned");
+
+  // The open call's response round: Ayla answers the injection item on Lantern and Teodor, who raised it, agrees.
+  await setResponseWindow(chair, boardId, openCall.id, { opensAt: new Date(now - DAY), closesAt: new Date(now + 12 * DAY) });
+  const injection = (await listReviewItems(people.ayla, boardId, proposals.lantern!)).find((i) => i.title === "Who performs the injection");
+  if (injection) {
+    await answerReviewItem(people.ayla, boardId, injection.id, {
+      body: "The rideshare contract includes the translunar injection by the upper stage; the signed statement of work is annex C.",
+    });
+    await recordDisposition(people.teodor, boardId, injection.id, { disposition: "agreed", reason: "Annex C settles it." });
+  }
+  log("response round open on the open call");
 
   // Two invitations still out and one the chair withdrew (invented people, reserved domain).
   await createInvitation(chair, boardId, { email: "saoirse.vantongeren@lumenfjord.example.com", name: "Saoirse van Tongeren", role: "proposer" });

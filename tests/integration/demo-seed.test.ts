@@ -13,6 +13,9 @@ import {
   outboxMessages,
   proposals,
   proposalVersions,
+  responseWindows,
+  reviewItemAnswers,
+  reviewItemDispositions,
   reviewItems,
   reviews,
   users,
@@ -234,6 +237,17 @@ describe("demo scenario", () => {
     expect(letters.flatMap((m) => m.to).sort()).toEqual([s.people.nadia.email, s.people.tobias.email, s.people.maren.email].sort());
     // 8 proposals × 2 reviewers, and the two reviewers asked again for Skiff-EP's version 2.
     expect(mail.filter((m) => m.kind === "reviewer-assignment")).toHaveLength(18);
+    // The open call's response round: opened (proposers of its proposals under review told), one answer, one disposition.
+    const [window] = await db().select().from(responseWindows).where(eq(responseWindows.callId, open.id));
+    expect(window!.openingMailedAt).not.toBeNull();
+    expect(mail.filter((m) => m.kind === "response-opening").length).toBeGreaterThan(0);
+    const answered = await db().select({ itemId: reviewItemAnswers.reviewItemId }).from(reviewItemAnswers).where(eq(reviewItemAnswers.boardId, boardId));
+    expect(answered).toHaveLength(1);
+    const disposed = await db()
+      .select({ itemId: reviewItemDispositions.reviewItemId, disposition: reviewItemDispositions.disposition })
+      .from(reviewItemDispositions)
+      .where(eq(reviewItemDispositions.boardId, boardId));
+    expect(disposed).toEqual([{ itemId: answered[0]!.itemId, disposition: "agreed" }]);
 
     // Running it again changes nothing.
     const again = await seedDemo(db(), { mode: "demo", board });

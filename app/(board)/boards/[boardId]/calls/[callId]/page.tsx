@@ -6,6 +6,8 @@ import { listProposals } from "@/lib/dal/proposals";
 import { proposalListQuerySchema } from "@/lib/validation/dossier";
 import { CallForm } from "@/components/dossier/call-form";
 import { PageTitle, Panel } from "@/components/ui/panel";
+import { ResponseWindowForm } from "@/components/review/response-window-form";
+import { getResponseWindow } from "@/lib/dal/responses";
 import { orNotFound, pageUser } from "@/lib/auth/page-guard";
 import { can } from "@/lib/auth/policy";
 import { getBoard } from "@/lib/dal/boards";
@@ -27,6 +29,7 @@ export default async function CallPage({ params }: { params: Promise<{ boardId: 
   const isChair = can(user, "call.manage", { role: board.myRole });
   const isProposer = can(user, "proposal.create", { role: board.myRole });
   const requirements = await listRequirements(user, boardId, callId);
+  const responseWindow = await getResponseWindow(user, boardId, callId);
   const stationNames = isChair ? (await listStations(user, boardId)).stations.map((s) => s.name) : [];
   const abs = Object.entries(call.tolerance.absolute ?? {});
   const submitted = isChair ? await listProposals(user, boardId, proposalListQuerySchema.parse({ callId, pageSize: 50, sort: "title", dir: "asc" })) : null;
@@ -102,6 +105,22 @@ export default async function CallPage({ params }: { params: Promise<{ boardId: 
               </li>
             ))}
           </ul>
+        </Panel>
+      ) : null}
+      {isChair ? (
+        <Panel
+          id="response-round"
+          title="Response round"
+          description="While the round is open, proposers read the review items on their versions (reviewers stay anonymous) and answer each one. Reviewers and you then record a disposition per item."
+        >
+          <ResponseWindowForm boardId={boardId} callId={callId} initial={responseWindow} />
+        </Panel>
+      ) : responseWindow ? (
+        <Panel id="response-round" title="Response round">
+          <p className="text-sm">
+            {responseWindow.state === "open" ? "Open" : responseWindow.state === "upcoming" ? "Opens" : "Closed"}: {formatDateTime(responseWindow.opensAt)} –{" "}
+            {formatDateTime(responseWindow.closesAt)}. Proposers answer the review items from the page of each proposal.
+          </p>
         </Panel>
       ) : null}
       {isChair ? (
