@@ -138,7 +138,7 @@ export function MeetingRoom({ boardId, callId, initial }: { boardId: string; cal
             />
           ) : null}
 
-          <Panel title="Order of discussion" description={chair ? "Choose a proposal to move the meeting to it." : undefined}>
+          <Panel id="meeting-order" title="Order of discussion" description={chair ? "Choose a proposal to move the meeting to it." : undefined}>
             <ol className="divide-y divide-ink-100">
               {view.agenda.map((a, i) => {
                 const isCurrent = view.current?.proposalId === a.proposalId;
@@ -163,7 +163,7 @@ export function MeetingRoom({ boardId, callId, initial }: { boardId: string; cal
             </ol>
           </Panel>
 
-          <Panel title="Panel">
+          <Panel id="meeting-panel" title="Panel">
             <ul className="divide-y divide-ink-100 text-sm">
               {view.panel.map((p) => (
                 <li key={p.userId} className="flex flex-wrap items-center justify-between gap-2 py-1.5">

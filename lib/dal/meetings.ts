@@ -19,6 +19,7 @@ import { authorize } from "@/lib/auth/policy";
 import type { SessionUser } from "@/lib/auth/session";
 import { conflict, notFound, unprocessable } from "@/lib/errors";
 import { calibrateScores, rankChangeNote, type CalibrationResult, type RankBy } from "@/lib/review/calibration";
+import { signalMeeting } from "@/lib/meetings/signal";
 import { hasHardConflict } from "@/lib/review/conflicts";
 import type { Recommendation } from "@/lib/validation/meetings";
 import { recordAudit } from "./audit";
@@ -462,6 +463,7 @@ export async function startMeeting(user: SessionUser, boardId: string, callId: s
       tx,
     );
   });
+  signalMeeting(callId);
   return getMeeting(user, boardId, callId);
 }
 
@@ -477,6 +479,7 @@ export async function moveMeeting(user: SessionUser, boardId: string, callId: st
       tx,
     );
   });
+  signalMeeting(callId);
   return getMeeting(user, boardId, callId);
 }
 
@@ -527,6 +530,7 @@ export async function recordMeetingOutcome(
       tx,
     );
   });
+  signalMeeting(callId);
   return getMeeting(user, boardId, callId);
 }
 
@@ -544,6 +548,7 @@ export async function setMeetingAttendance(user: SessionUser, boardId: string, c
       });
     await bump(meeting.id, tx);
   });
+  signalMeeting(callId);
   return getMeeting(user, boardId, callId);
 }
 
@@ -555,6 +560,7 @@ export async function closeMeeting(user: SessionUser, boardId: string, callId: s
     await bump(meeting.id, tx, { status: "closed", closedAt: new Date() });
     await recordAudit({ action: "meeting.close", actorId: user.id, actorEmail: user.email, boardId, target: callId }, tx);
   });
+  signalMeeting(callId);
   return getMeeting(user, boardId, callId);
 }
 

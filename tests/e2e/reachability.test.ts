@@ -77,7 +77,7 @@ describe("every page a role uses is reachable by links from /boards", () => {
     const c = `${b}/calls/${s.call.id}`;
     const expected = {
       proposer: [b, `${b}/proposals`, p, `${p}/versions/1`, c],
-      reviewer: [b, `${b}/reviews`, `${b}/conflicts`, `${p}/review`, c],
+      reviewer: [b, `${b}/reviews`, `${b}/conflicts`, `${p}/review`, c, `${c}/meeting`],
       chair: [
         b,
         c,
@@ -85,6 +85,7 @@ describe("every page a role uses is reachable by links from /boards", () => {
         `${c}/rubric`,
         `${c}/assignments`,
         `${c}/overview`,
+        `${c}/meeting`,
         p,
         `${p}/review`,
         `${p}/decision`,

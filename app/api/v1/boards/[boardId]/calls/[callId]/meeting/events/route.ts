@@ -1,6 +1,7 @@
 import { requireUser } from "@/lib/auth/session";
 import { getMeeting, meetingRevision, type MeetingView } from "@/lib/dal/meetings";
 import { isAppError } from "@/lib/errors";
+import { onMeetingSignal } from "@/lib/meetings/signal";
 import { parseWith, route, searchParamsObject } from "@/lib/http/api";
 import { meetingEventsQuerySchema } from "@/lib/validation/meetings";
 
@@ -36,12 +37,14 @@ export const GET = route(async (request, { boardId, callId }) => {
 
   let timer: ReturnType<typeof setTimeout> | undefined;
   let closed = false;
+  let unsubscribe = () => {};
   const stream = new ReadableStream<Uint8Array>({
     start(controller) {
       const close = () => {
         if (closed) return;
         closed = true;
         if (timer) clearTimeout(timer);
+        unsubscribe();
         request.signal.removeEventListener("abort", close);
         try {
           controller.close();
@@ -50,15 +53,29 @@ export const GET = route(async (request, { boardId, callId }) => {
         }
       };
       const send = (bytes: Uint8Array) => {
-        if (!closed) controller.enqueue(bytes);
+        if (closed) return;
+        try {
+          controller.enqueue(bytes);
+        } catch {
+          close(); // the client went away between two looks
+        }
       };
       request.signal.addEventListener("abort", close);
       send(encoder.encode("retry: 1000\n\n"));
       send(meetingEvent(view));
       let lastSent = Date.now();
       let lastBuilt = Date.now();
+      let running = false;
+      let again = false;
       const tick = async () => {
         if (closed) return;
+        // One look at a time; a signal during a look asks for one more right after it.
+        if (running) {
+          again = true;
+          return;
+        }
+        running = true;
+        if (timer) clearTimeout(timer);
         try {
           const revision = (await meetingRevision(user, boardId!, callId!)) ?? 0;
           const now = Date.now();
@@ -81,14 +98,22 @@ export const GET = route(async (request, { boardId, callId }) => {
           send(encoder.encode(`event: closed\ndata: ${JSON.stringify({ error: message })}\n\n`));
           close();
           return;
+        } finally {
+          running = false;
         }
-        if (!closed) timer = setTimeout(() => void tick(), POLL_MS);
+        if (closed) return;
+        if (again) {
+          again = false;
+          void tick();
+        } else timer = setTimeout(() => void tick(), POLL_MS);
       };
+      unsubscribe = onMeetingSignal(callId!, () => void tick());
       timer = setTimeout(() => void tick(), POLL_MS);
     },
     cancel() {
       closed = true;
       if (timer) clearTimeout(timer);
+      unsubscribe();
     },
   });
   return new Response(stream, { headers });
