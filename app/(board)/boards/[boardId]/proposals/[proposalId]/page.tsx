@@ -17,6 +17,7 @@ import { listReviewItems } from "@/lib/dal/review-items";
 import { ProposalReviewItems } from "@/components/review/proposal-review-items";
 import { getDraft, getProposal, getVersion, listVersions } from "@/lib/dal/proposals";
 import { deltaVBudget, evaluateBlocks, extractOrbitChecks } from "@/lib/dossier/claims";
+import { getProposalResponseWindow } from "@/lib/dal/responses";
 
 export const metadata: Metadata = { title: "Proposal" };
 
@@ -58,6 +59,19 @@ export default async function ProposalPage({ params }: { params: Promise<{ board
       </Link>
     </nav>
   ) : null;
+  const responseWindow = proposal.latestVersion > 0 ? await getProposalResponseWindow(user, boardId, proposalId) : null;
+  const responseLink = responseWindow ? (
+    <p className="text-sm" data-response-window={responseWindow.state}>
+      <Link href={`/boards/${boardId}/proposals/${proposalId}/responses`} className="font-semibold text-trajectory-700 underline">
+        Response round
+      </Link>
+      {responseWindow.state === "open"
+        ? `: open until ${formatDateTime(responseWindow.closesAt)}. ${access.isAuthor ? "Read the review items and answer each one." : "Answers and dispositions."}`
+        : responseWindow.state === "upcoming"
+          ? `: opens on ${formatDateTime(responseWindow.opensAt)}.`
+          : `: closed on ${formatDateTime(responseWindow.closesAt)}. Answers and dispositions.`}
+    </p>
+  ) : null;
   const reviewItemsPanel = reviewItems.length > 0 ? <ProposalReviewItems boardId={boardId} initialItems={reviewItems} /> : null;
 
   const header = (
@@ -74,6 +88,7 @@ export default async function ProposalPage({ params }: { params: Promise<{ board
     <>
       {header}
       {chairLinks}
+      {responseLink}
     </>
   );
 
