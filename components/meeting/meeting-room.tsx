@@ -268,7 +268,7 @@ function CurrentProposal({ view }: { view: MeetingView }) {
         <p className="text-sm text-ink-600">No submitted reviews on the latest version yet.</p>
       )}
       <div>
-        <h3 className="font-semibold">Open review items</h3>
+        <h3 className="font-semibold">Open review items, answers and dispositions</h3>
         {current.openItems.length === 0 ? (
           <p className="text-sm text-ink-600">None open.</p>
         ) : (
@@ -276,6 +276,18 @@ function CurrentProposal({ view }: { view: MeetingView }) {
             {current.openItems.map((item) => (
               <li key={item.id}>
                 <span className="font-semibold">{SEVERITY[item.severity]}:</span> {item.title}
+                {item.disposition ? (
+                  <span className="ml-2 rounded-chip bg-ink-100 px-2 py-0.5 text-xs">
+                    {item.disposition.label}
+                    {item.disposition.reason ? `: ${item.disposition.reason}` : ""}
+                  </span>
+                ) : null}
+                {item.answer ? (
+                  <p className="text-ink-700">
+                    Answer: {item.answer.body}
+                    {item.answer.section ? ` (see ${item.answer.section})` : ""}
+                  </p>
+                ) : null}
               </li>
             ))}
           </ul>

@@ -26,6 +26,7 @@ import { recordAudit } from "./audit";
 import { boardRole, isUuid } from "./boards";
 import { loadCall } from "./calls";
 import { conflictMatrix } from "./conflicts";
+import { itemResponses } from "./item-responses";
 import { loadTemplate } from "./rubrics";
 
 type Db = Database | Transaction;
@@ -197,7 +198,14 @@ export interface MeetingCurrent {
     rankNote: string | null;
     reviews: { label: string; total: number; outlier: boolean; deviations: number | null }[];
   } | null;
-  openItems: { id: string; severity: "major" | "minor" | "comment"; title: string }[];
+  /** Open review items with the proposer's answer (response round) and the latest disposition. */
+  openItems: {
+    id: string;
+    severity: "major" | "minor" | "comment";
+    title: string;
+    answer: { body: string; section: string | null } | null;
+    disposition: { label: string; reason: string } | null;
+  }[];
   record: MeetingRecordView | null;
 }
 
@@ -324,13 +332,28 @@ export async function getMeeting(user: SessionUser, boardId: string, callId: str
       for (const o of ordinals) if (!labels.has(o.reviewerId)) labels.set(o.reviewerId, `Reviewer ${labels.size + 1}`);
       const flagged = new Map(calibration.outliers.filter((o) => o.proposalId === currentId).map((o) => [o.reviewerId, o.deviations]));
       const version = candidatesRows.find((p) => p.id === currentId)?.versionId;
-      const items = version
+      const itemRows = version
         ? await tx
             .select({ id: reviewItems.id, severity: reviewItems.severity, title: reviewItems.title })
             .from(reviewItems)
             .where(and(eq(reviewItems.boardId, boardId), eq(reviewItems.versionId, version), eq(reviewItems.status, "open")))
             .orderBy(asc(reviewItems.createdAt))
         : [];
+      const responses = await itemResponses(
+        itemRows.map((i) => i.id),
+        tx,
+      );
+      const items = itemRows.map((i) => {
+        const answer = responses.answers.get(i.id);
+        const latest = responses.dispositions.get(i.id)?.at(-1);
+        return {
+          ...i,
+          answer: answer
+            ? { body: answer.body, section: answer.section ? `version ${answer.section.versionNumber}, “${answer.section.heading}”` : null }
+            : null,
+          disposition: latest ? { label: latest.label, reason: latest.reason } : null,
+        };
+      });
       const record = recordOf.get(currentId);
       current = {
         proposalId: currentId,

@@ -9,11 +9,16 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
 import { auditEvents, callRankings, panelMeetingRecords, panelMeetings } from "@/db/schema";
 import type { MeetingView } from "@/lib/dal/meetings";
+import { createReviewItem } from "@/lib/dal/review-items";
+import { answerReviewItem, recordDisposition, setResponseWindow } from "@/lib/dal/responses";
+import { dossierPlainText } from "@/lib/dossier";
+import { makeAnchor } from "@/lib/review/anchors";
 import { calibrateScores } from "@/lib/review/calibration";
 import { appUrl } from "../support/app";
-import { signedIn, type HttpClient } from "../support/http";
-import { baseUrl } from "../support/http";
+import { asSessionUser } from "../support/factories";
+import { baseUrl, signedIn, type HttpClient } from "../support/http";
 import { meetingScenario } from "./meeting-fixtures";
+import { dossierDocument } from "./review-fixtures";
 
 const pdfParse = createRequire(import.meta.url)("pdf-parse/lib/pdf-parse.js") as (data: Buffer) => Promise<{ text: string }>;
 
@@ -194,6 +199,36 @@ describe("calibrated scores and the panel meeting over HTTP", () => {
     const seen = await readEvents(chairStream, (v) => v.panel.some((p) => p.userId === s.reviewer.id && p.present));
     expect((await present).status).toBe(200);
     expect(seen.at(-1)!.panel.find((p) => p.userId === s.reviewer.id)?.present).toBe(true);
+  });
+
+  it("open items carry the proposer's answer (response round) and the latest disposition", async () => {
+    const text = dossierPlainText(dossierDocument(s.p3.title));
+    const from = text.indexOf("95.6 minutes");
+    const item = await createReviewItem(asSessionUser(s.chair), s.board.id, {
+      proposalId: s.p3.id,
+      severity: "major",
+      title: "Disposal deadline",
+      body: "Show the decay time from the final orbit.",
+      anchor: makeAnchor(text, from, from + 12),
+    });
+    await setResponseWindow(asSessionUser(s.chair), s.board.id, s.call.id, {
+      opensAt: new Date(Date.now() - 3_600_000),
+      closesAt: new Date(Date.now() + 5 * 86_400_000),
+    });
+    await answerReviewItem(asSessionUser(s.proposer), s.board.id, item.id, { body: "Decay in 4.1 years; table added to section 6." });
+    await recordDisposition(asSessionUser(s.chair), s.board.id, item.id, { disposition: "fix-next-version", reason: "Table expected in version 2." });
+    const move = await chair.request(`${callPath}/meeting/current`, { method: "PUT", json: { proposalId: s.p3.id } });
+    expect(move.status).toBe(200);
+    const view = (await (await reviewer.get(`${callPath}/meeting`)).json()) as MeetingView;
+    expect(view.current?.openItems).toEqual([
+      {
+        id: item.id,
+        severity: "major",
+        title: "Disposal deadline",
+        answer: { body: "Decay in 4.1 years; table added to section 6.", section: null },
+        disposition: { label: "Will be fixed in the next version", reason: "Table expected in version 2." },
+      },
+    ]);
   });
 
   it("the minutes PDF has its sections; after closing, meeting actions get 409", async () => {

@@ -39,7 +39,15 @@ const meetingView = z.object({
           reviews: z.array(z.object({ label: z.string(), total: z.number(), outlier: z.boolean(), deviations: z.number().nullable() })),
         })
         .nullable(),
-      openItems: z.array(z.object({ id: z.string(), severity: z.enum(["major", "minor", "comment"]), title: z.string() })),
+      openItems: z.array(
+        z.object({
+          id: z.string(),
+          severity: z.enum(["major", "minor", "comment"]),
+          title: z.string(),
+          answer: z.object({ body: z.string(), section: z.string().nullable() }).nullable(),
+          disposition: z.object({ label: z.string(), reason: z.string() }).nullable(),
+        }),
+      ),
       record: z.object({ consensusScore: z.number().nullable(), recommendation: z.string().nullable(), notes: z.string(), updatedAt: z.string() }).nullable(),
     })
     .nullable(),
