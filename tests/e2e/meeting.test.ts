@@ -5,6 +5,7 @@
 import { createRequire } from "node:module";
 import type { Page } from "playwright-core";
 import { describe, expect, it } from "vitest";
+import { assertAccessible } from "../support/axe";
 import { browserSession, typeInto } from "../support/browser";
 import { meetingScenario } from "../integration/meeting-fixtures";
 
@@ -75,6 +76,9 @@ describe("the panel meeting in two browsers", () => {
     await chair.getByRole("button", { name: "Next proposal" }).click();
     await reviewer.getByRole("heading", { name: `Now discussing: ${s.p3.title}` }).waitFor();
     await reviewer.getByText("Outlying: 5.0 standard deviations below the others").waitFor();
+    // Both screens, mid-meeting, under axe: no serious or critical violations.
+    await assertAccessible(reviewer, "meeting (reviewer)");
+    await assertAccessible(chair, "meeting (chair)");
     await chair.getByRole("button", { name: `Discuss ${s.p2.title}` }).click();
     await reviewer.getByRole("heading", { name: `Now discussing: ${s.p2.title}` }).waitFor();
     expect(await notReloaded()).toBe(true);
