@@ -7,7 +7,7 @@ import { createRequire } from "node:module";
 import { and, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
-import { auditEvents, callRankings, panelMeetingRecords, panelMeetings } from "@/db/schema";
+import { auditEvents, boardMembers, callRankings, panelMeetingRecords, panelMeetings } from "@/db/schema";
 import type { MeetingView } from "@/lib/dal/meetings";
 import { createReviewItem } from "@/lib/dal/review-items";
 import { answerReviewItem, recordDisposition, setResponseWindow } from "@/lib/dal/responses";
@@ -229,6 +229,23 @@ describe("calibrated scores and the panel meeting over HTTP", () => {
         disposition: { label: "Will be fixed in the next version", reason: "Table expected in version 2." },
       },
     ]);
+  });
+
+  it("a member removed from the board mid-meeting gets a closed event and the stream ends", async () => {
+    const second = await signedIn(s.reviewer2.email);
+    const stream = await fetch(`${baseUrl()}${callPath}/meeting/events`, { headers: { cookie: second.cookieHeader() } });
+    expect(stream.status).toBe(200);
+    await db()
+      .update(boardMembers)
+      .set({ status: "deactivated" })
+      .where(and(eq(boardMembers.boardId, s.board.id), eq(boardMembers.userId, s.reviewer2.id)));
+    // The chair's next move makes every open stream look again; this one finds no membership.
+    expect((await chair.request(`${callPath}/meeting/current`, { method: "PUT", json: { proposalId: s.p2.id } })).status).toBe(200);
+    const text = await stream.text(); // resolves only when the server ends the stream
+    expect(text).toMatch(/^event: closed$/m);
+    expect(text.slice(text.lastIndexOf("event: closed"))).toMatch(/"error":"That board was not found\."/);
+    // The chair's move never reached the removed member.
+    expect(text).not.toContain(`"current":{"proposalId":"${s.p2.id}"`);
   });
 
   it("the minutes PDF has its sections; after closing, meeting actions get 409", async () => {
