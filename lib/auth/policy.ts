@@ -63,6 +63,8 @@ export type Permission =
   | "review-item.dispose"
   | "decision.make"
   | "decision.view"
+  | "meeting.view"
+  | "meeting.run"
   | "site.admin";
 
 export type Outcome = "allow" | "forbid" | "hide";
@@ -105,6 +107,9 @@ const rules: Record<Permission, Rule> = {
   "review-item.dispose": (_a, f) => f.role === "chair" || (f.role === "reviewer" && f.isAuthorOfItem === true),
   "decision.make": isChair,
   "decision.view": (_a, f) => f.role === "chair" || (f.isAuthor === true && f.decisionIssued === true),
+  // The panel meeting: the chair and the board's reviewers follow it; only the chair runs it.
+  "meeting.view": (_a, f) => f.role === "chair" || f.role === "reviewer",
+  "meeting.run": isChair,
   "site.admin": () => false,
 };
 

@@ -8,6 +8,7 @@ import { reviewOperations } from "./operations/review";
 import { decisionOperations } from "./operations/decisions";
 import { orbitFileOperations } from "./operations/orbit-files";
 import { stationOperations } from "./operations/stations";
+import { meetingOperations } from "./operations/meetings";
 import { responseOperations } from "./operations/responses";
 
 /** Every /api/v1 operation. Each feature area adds its list here. */
@@ -20,6 +21,7 @@ export const apiOperations: ApiOperation[] = [
   ...decisionOperations,
   ...orbitFileOperations,
   ...stationOperations,
+  ...meetingOperations,
   ...responseOperations,
 ];
 

@@ -44,6 +44,9 @@ async function crawl(page: Page, scope: string, limit = 60): Promise<Crawl> {
   await settle(page);
   const visit = async (here: string, depth: number) => {
     if (depth > 6) return;
+    // Back is a client-side navigation: the URL changes before the page does, so after
+    // Back we wait for this page's own heading before looking for its links again.
+    const heading = await page.locator("main h1").first().textContent();
     for (const target of await visibleLinks(page, scope)) {
       if (reached.has(target) || reached.size >= limit) continue;
       const link = page
@@ -61,6 +64,7 @@ async function crawl(page: Page, scope: string, limit = 60): Promise<Crawl> {
       await page.goBack();
       await page.waitForURL((url) => url.pathname === here);
       await settle(page);
+      await page.waitForFunction((text) => document.querySelector("main h1")?.textContent === text, heading);
     }
   };
   await visit("/boards", 0);
@@ -84,7 +88,7 @@ describe("every page a role uses is reachable by links from /boards", () => {
     });
     const expected = {
       proposer: [b, `${b}/proposals`, p, `${p}/versions/1`, c, `${p}/responses`],
-      reviewer: [b, `${b}/reviews`, `${b}/conflicts`, `${p}/review`, c, `${p}/responses`],
+      reviewer: [b, `${b}/reviews`, `${b}/conflicts`, `${p}/review`, c, `${p}/responses`, `${c}/meeting`],
       chair: [
         b,
         c,
@@ -92,6 +96,7 @@ describe("every page a role uses is reachable by links from /boards", () => {
         `${c}/rubric`,
         `${c}/assignments`,
         `${c}/overview`,
+        `${c}/meeting`,
         p,
         `${p}/review`,
         `${p}/decision`,

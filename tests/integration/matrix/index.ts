@@ -8,6 +8,7 @@ import { accountActionCases, accountRouteCases } from "./accounts";
 import { decisionActionCases, decisionRouteCases } from "./decisions";
 import { orbitFileRouteCases } from "./orbit-files";
 import { stationActionCases, stationRouteCases } from "./stations";
+import { meetingRouteCases } from "./meetings";
 import { responseRouteCases } from "./responses";
 
 export const routeCases: RouteCase[] = [
@@ -19,6 +20,7 @@ export const routeCases: RouteCase[] = [
   ...decisionRouteCases,
   ...orbitFileRouteCases,
   ...stationRouteCases,
+  ...meetingRouteCases,
   ...responseRouteCases,
 ];
 export const actionCases: ActionCase[] = [...accountActionCases, ...decisionActionCases, ...stationActionCases];
