@@ -116,7 +116,12 @@ export const reviews = pgTable(
     submittedAt: timestamp("submitted_at", { withTimezone: true }),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [uniqueIndex("reviews_assignment_key").on(t.assignmentId), index("reviews_proposal_idx").on(t.proposalId)],
+  (t) => [
+    uniqueIndex("reviews_assignment_key").on(t.assignmentId),
+    index("reviews_proposal_idx").on(t.proposalId),
+    // The call overview's per-version aggregate of submitted reviews.
+    index("reviews_version_status_idx").on(t.versionId, t.status),
+  ],
 );
 
 /** A reviewer's note on the server's verdict for one claim ("explained in section 4"). */

@@ -6,15 +6,34 @@ import { orNotFound, pageUser } from "@/lib/auth/page-guard";
 import { can } from "@/lib/auth/policy";
 import { getBoard } from "@/lib/dal/boards";
 import { getCallOverview } from "@/lib/dal/reviews";
+import { overviewQuerySchema, type OverviewQuery } from "@/lib/validation/review";
 
 export const metadata: Metadata = { title: "Call overview" };
 
-export default async function OverviewPage({ params }: { params: Promise<{ boardId: string; callId: string }> }) {
+// The table's view lives in the URL; a parameter that does not parse falls back to its default.
+function viewFrom(searchParams: Record<string, string | string[] | undefined>): OverviewQuery {
+  const view: Record<string, unknown> = {};
+  for (const key of Object.keys(overviewQuerySchema.shape) as (keyof typeof overviewQuerySchema.shape)[]) {
+    const raw = searchParams[key];
+    const value = Array.isArray(raw) ? raw[0] : raw;
+    if (value !== undefined && overviewQuerySchema.shape[key].safeParse(value).success) view[key] = value;
+  }
+  return overviewQuerySchema.parse(view);
+}
+
+export default async function OverviewPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ boardId: string; callId: string }>;
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
   const { boardId, callId } = await params;
+  const view = viewFrom(await searchParams);
   const user = await pageUser(`/boards/${boardId}/calls/${callId}/overview`);
   const board = await orNotFound(getBoard(user, boardId));
   if (!can(user, "review.view-all", { role: board.myRole })) return <NotAllowed what="Only the board's chair sees the scores of every review." />;
-  const overview = await orNotFound(getCallOverview(user, boardId, callId));
+  const overview = await orNotFound(getCallOverview(user, boardId, callId, view));
   return (
     <div className="space-y-6">
       <PageTitle eyebrow={`${board.name} · ${overview.call.title}`} title="Review overview">

@@ -1,0 +1,1 @@
+CREATE INDEX "reviews_version_status_idx" ON "reviews" USING btree ("version_id","status");
