@@ -11,7 +11,6 @@ import {
   decisions,
   proposals,
   proposalVersions,
-  reviewItems,
   reviews,
   users,
   type CriterionScore,
