@@ -738,7 +738,10 @@ export function callOverviewStatement(boardId: string, callId: string, o: Overvi
   const base = sql`(
       select p.id as proposal_id, p.title, p.status, v.id as version_id, v.number as version_number
       from proposals p
-      join proposal_versions v on v.proposal_id = p.id and v.number = p.latest_version and v.board_id = p.board_id
+      -- Per proposal through proposal_versions_number_key (LIMIT keeps it a lookup, never a hash join over the board's versions).
+      join lateral (
+        select v.id, v.number from proposal_versions v where v.proposal_id = p.id and v.number = p.latest_version and v.board_id = p.board_id limit 1
+      ) v on true
       where ${sql.join(conditions, sql` and `)}
     ) b`;
   const innerCols = [...inner].map((p) => overviewColumns[p]).join(", ");
@@ -784,6 +787,13 @@ interface OverviewDbRow {
   total?: string | number;
 }
 
+/** The defaults, overridden by the options given (already parsed by the caller). */
+function withDefaults<T extends object>(defaults: T, given: Partial<T>): T {
+  const out = { ...defaults };
+  for (const [key, value] of Object.entries(given)) if (value !== undefined) (out as Record<string, unknown>)[key] = value;
+  return out;
+}
+
 async function overviewCall(user: SessionUser, boardId: string, callId: string) {
   if (!isUuid(boardId)) throw notFound("That board");
   const role = await boardRole(user.id, boardId);
@@ -826,7 +836,7 @@ function toOverviewRow(r: OverviewDbRow, target: number, scale: { min: number; m
  */
 export async function getCallOverview(user: SessionUser, boardId: string, callId: string, query: Partial<OverviewQuery> = {}): Promise<CallOverview> {
   const call = await overviewCall(user, boardId, callId);
-  const q = overviewQuerySchema.parse(query);
+  const q = withDefaults(overviewQuerySchema.parse({}), query);
   const { rows } = await db().execute<OverviewDbRow & Record<string, unknown>>(
     callOverviewStatement(boardId, callId, { ...q, limit: q.pageSize, offset: (q.page - 1) * q.pageSize, withTotal: true }),
   );
@@ -890,7 +900,7 @@ export async function streamCallOverviewCsv(
   batchSize = OVERVIEW_CSV_BATCH,
 ): Promise<{ filename: string; stream: ReadableStream<Uint8Array> }> {
   const call = await overviewCall(user, boardId, callId);
-  const filters = overviewCsvQuerySchema.parse(query);
+  const filters = withDefaults(overviewCsvQuerySchema.parse({}), query);
   const encoder = new TextEncoder();
   const fmt = (v: number | null) => (v === null ? "" : v.toFixed(3));
   let after: { title: string; id: string } | undefined;
