@@ -1,0 +1,2 @@
+CREATE INDEX "outbox_messages_created_idx" ON "outbox_messages" USING btree ("created_at","id");--> statement-breakpoint
+CREATE INDEX "outbox_messages_status_created_idx" ON "outbox_messages" USING btree ("status","created_at","id");
