@@ -17,7 +17,8 @@
  *     while a chair loads the overview over and over; then req/s at 1, 8 and 32 connections
  *     (autocannon) for the app's and the baseline's first page, with their ratio.
  *
- * Options: --scale 0.1 (quick run), --seconds 5 (per autocannon run), --samples 30.
+ * Options: --scale 0.1 (quick run), --seconds 5 (per autocannon run), --samples 30,
+ * --fill-only (make and fill the database, print its sizes, stop: no build needed).
  * Every run is bounded in time; everything started here is stopped on exit.
  */
 import { spawn, type ChildProcess } from "node:child_process";
@@ -295,9 +296,12 @@ function stopAll() {
   if (startedPostgres) stopServices("test", "postgres");
 }
 
+const fillOnly = process.argv.includes("--fill-only");
+
 async function main() {
   const buildId = path.join(root, ".next-test", "BUILD_ID");
-  if (!fs.existsSync(buildId)) throw new Error("No build in .next-test: build it first (NEXT_DIST_DIR=.next-test npx next build, or run an HTTP test once).");
+  if (!fillOnly && !fs.existsSync(buildId))
+    throw new Error("No build in .next-test: build it first (NEXT_DIST_DIR=.next-test npx next build, or run an HTTP test once).");
   if (!(await portAnswers(config.postgres.port))) {
     await startOneService("test", "postgres");
     startedPostgres = true;
@@ -309,6 +313,7 @@ async function main() {
   await runMigrations(benchUrl);
   log(`scale ${scale}: ${PROPOSALS} proposals in one board, ${CALLS} calls`);
   const { boardId, largestCallId, middle } = await fill(benchUrl);
+  if (fillOnly) return;
 
   const appPort = config.app.port + 50;
   const basePort = config.app.port + 51;
