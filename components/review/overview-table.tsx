@@ -48,7 +48,8 @@ export function OverviewTable({ boardId, overview }: { boardId: string; overview
   const sendFilter = (value: string, mode: "push" | "replace") => {
     if (timer.current) clearTimeout(timer.current);
     const trimmed = value.trim();
-    if (trimmed === overview.q) return;
+    // Compared with what was last sent, not the shown view: a filter still on its way counts.
+    if (trimmed === sent) return;
     setSent(trimmed);
     navigate({ q: trimmed, page: undefined }, mode);
   };

@@ -59,7 +59,7 @@ describe("the call overview in the browser", () => {
     await page.getByRole("checkbox", { name: /Only proposals with flags/ }).uncheck();
     await typeIntoSearch(page, filter, "");
     await expect.poll(() => status.textContent()).toBe("Proposals 1–31 of 31");
-    await page.getByRole("combobox", { name: "Rows per page" }).selectOption("25");
+    await page.getByRole("combobox", { name: /Rows per page/ }).selectOption("25");
     await expect.poll(() => status.textContent()).toBe("Proposals 1–25 of 31");
     await page.getByRole("button", { name: "Next" }).click();
     await expect.poll(() => status.textContent()).toBe("Proposals 26–31 of 31");
