@@ -7,7 +7,7 @@
 // server with the same filters.
 import Link from "next/link";
 import { usePathname, useRouter, useSearchParams } from "next/navigation";
-import { useEffect, useMemo, useRef, useState, useTransition } from "react";
+import { useEffect, useMemo, useOptimistic, useRef, useState, useTransition } from "react";
 import { createColumnHelper, getCoreRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
 import { TableView } from "@/components/data-table/table-view";
 import type { CallOverview, OverviewRow } from "@/lib/dal/reviews";
@@ -35,7 +35,9 @@ export function OverviewTable({ boardId, overview }: { boardId: string; overview
   const timer = useRef<ReturnType<typeof setTimeout> | null>(null);
   useEffect(() => () => (timer.current ? clearTimeout(timer.current) : undefined), []);
 
-  const navigate = (changes: Record<string, string | undefined>, mode: "push" | "replace" = "push") => {
+  // The checkbox and the page size show the chair's choice at once, while the server answers.
+  const [shown, setShown] = useOptimistic({ flagged: overview.flagged, pageSize: overview.pageSize });
+  const navigate = (changes: Record<string, string | undefined>, mode: "push" | "replace" = "push", optimistic?: Partial<typeof shown>) => {
     const next = new URLSearchParams(searchParams.toString());
     for (const [key, value] of Object.entries(changes)) {
       if (value === undefined || value === "") next.delete(key);
@@ -43,7 +45,11 @@ export function OverviewTable({ boardId, overview }: { boardId: string; overview
     }
     const qs = next.toString();
     const href = qs ? `${pathname}?${qs}` : pathname;
-    startTransition(() => (mode === "push" ? router.push(href, { scroll: false }) : router.replace(href, { scroll: false })));
+    startTransition(() => {
+      if (optimistic) setShown((current) => ({ ...current, ...optimistic }));
+      if (mode === "push") router.push(href, { scroll: false });
+      else router.replace(href, { scroll: false });
+    });
   };
   const sendFilter = (value: string, mode: "push" | "replace") => {
     if (timer.current) clearTimeout(timer.current);
@@ -216,8 +222,8 @@ export function OverviewTable({ boardId, overview }: { boardId: string; overview
         <label className="flex items-center gap-2 text-sm">
           <input
             type="checkbox"
-            checked={overview.flagged}
-            onChange={(e) => navigate({ flagged: e.target.checked ? "1" : undefined, page: undefined })}
+            checked={shown.flagged}
+            onChange={(e) => navigate({ flagged: e.target.checked ? "1" : undefined, page: undefined }, "push", { flagged: e.target.checked })}
             className="accent-trajectory-600"
           />
           Only proposals with flags, unmet requirements or open major items
@@ -239,8 +245,8 @@ export function OverviewTable({ boardId, overview }: { boardId: string; overview
           <label className="flex items-center gap-1">
             Rows per page
             <select
-              value={overview.pageSize}
-              onChange={(e) => navigate({ pageSize: e.target.value, page: undefined })}
+              value={shown.pageSize}
+              onChange={(e) => navigate({ pageSize: e.target.value, page: undefined }, "push", { pageSize: Number(e.target.value) })}
               className="rounded-chip border border-ink-300 bg-white px-2 py-1"
             >
               {PAGE_SIZES.map((n) => (

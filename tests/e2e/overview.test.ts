@@ -6,6 +6,9 @@ import { browserSession, signInThroughPage } from "../support/browser";
 import { TEST_PASSWORD } from "../support/factories";
 import { seededCall } from "../integration/overview-fixtures";
 
+// The server answers each change; on a shared machine that can take a few seconds.
+const WAIT = { timeout: 20_000 };
+
 describe("the call overview in the browser", () => {
   const { page: openPage } = browserSession();
 
@@ -19,9 +22,9 @@ describe("the call overview in the browser", () => {
     await page.getByRole("link", { name: "Overview, reviews and decisions" }).first().click();
     await page.getByRole("heading", { name: "Review overview" }).waitFor();
     const status = page.getByRole("navigation", { name: "Overview pages" }).getByRole("status");
-    await expect.poll(() => status.textContent()).toBe("Proposals 1–31 of 31");
+    await expect.poll(() => status.textContent(), WAIT).toBe("Proposals 1–31 of 31");
     const rows = page.locator("tbody tr[data-proposal]");
-    const titles = async () => rows.locator("td:first-child a:first-child").evaluateAll((links) => links.map((a) => a.firstChild?.textContent ?? ""));
+    const titles = async () => rows.locator("td:first-child > div > a").evaluateAll((links) => links.map((a) => a.firstChild?.textContent ?? ""));
     // Default order: weighted mean, highest first; a chart only for rows on the page.
     expect(await page.getByRole("img", { name: /Weighted totals for/ }).count()).toBe(31);
 
@@ -29,40 +32,40 @@ describe("the call overview in the browser", () => {
     const filter = page.getByRole("searchbox", { name: "Filter by title" });
     await filter.click();
     await page.keyboard.type("seeded 1");
-    await expect.poll(() => status.textContent()).toBe("Proposals 1–10 of 10");
+    await expect.poll(() => status.textContent(), WAIT).toBe("Proposals 1–10 of 10");
     expect(await filter.inputValue()).toBe("seeded 1");
     expect(await filter.evaluate((el) => el === document.activeElement)).toBe(true);
     expect(new URL(page.url()).searchParams.get("q")).toBe("seeded 1");
 
     // Sort by title (ascending first for text), then only the flagged ones.
     await page.getByRole("button", { name: /^Proposal/ }).click();
-    await expect.poll(titles).toEqual(models.filter((m) => m.title.startsWith("Seeded 1")).map((m) => m.title));
+    await expect.poll(titles, WAIT).toEqual(models.filter((m) => m.title.startsWith("Seeded 1")).map((m) => m.title));
     const flaggedTens = models.filter((m) => m.title.startsWith("Seeded 1") && m.flagged).map((m) => m.title);
     await page.getByRole("checkbox", { name: /Only proposals with flags/ }).check();
-    await expect.poll(titles).toEqual(flaggedTens);
+    await expect.poll(titles, WAIT).toEqual(flaggedTens);
 
     // Back: the flag filter goes, the sort by title stays; Back again: the default order, the filter kept.
     await page.goBack();
-    await expect.poll(titles).toEqual(models.filter((m) => m.title.startsWith("Seeded 1")).map((m) => m.title));
+    await expect.poll(titles, WAIT).toEqual(models.filter((m) => m.title.startsWith("Seeded 1")).map((m) => m.title));
     expect(await page.getByRole("checkbox", { name: /Only proposals with flags/ }).isChecked()).toBe(false);
     await page.goBack();
-    await expect.poll(() => new URL(page.url()).searchParams.get("sort")).toBeNull();
+    await expect.poll(() => new URL(page.url()).searchParams.get("sort"), WAIT).toBeNull();
     expect(await filter.inputValue()).toBe("seeded 1");
     // Forward again to the title order, then to the flagged view.
     await page.goForward();
-    await expect.poll(() => new URL(page.url()).searchParams.get("sort")).toBe("title");
+    await expect.poll(() => new URL(page.url()).searchParams.get("sort"), WAIT).toBe("title");
     await page.goForward();
-    await expect.poll(titles).toEqual(flaggedTens);
+    await expect.poll(titles, WAIT).toEqual(flaggedTens);
     expect(await page.getByRole("checkbox", { name: /Only proposals with flags/ }).isChecked()).toBe(true);
 
-    // Clear the filter and page by 25: page 2 holds the last 6 of 31 by title... once the flag filter is off.
+    // Flags off, the filter cleared, 25 rows a page: page 2 holds the last 6 of 31 by title.
     await page.getByRole("checkbox", { name: /Only proposals with flags/ }).uncheck();
     await typeIntoSearch(page, filter, "");
-    await expect.poll(() => status.textContent()).toBe("Proposals 1–31 of 31");
+    await expect.poll(() => status.textContent(), WAIT).toBe("Proposals 1–31 of 31");
     await page.getByRole("combobox", { name: /Rows per page/ }).selectOption("25");
-    await expect.poll(() => status.textContent()).toBe("Proposals 1–25 of 31");
+    await expect.poll(() => status.textContent(), WAIT).toBe("Proposals 1–25 of 31");
     await page.getByRole("button", { name: "Next" }).click();
-    await expect.poll(() => status.textContent()).toBe("Proposals 26–31 of 31");
+    await expect.poll(() => status.textContent(), WAIT).toBe("Proposals 26–31 of 31");
     const sortedTitles = [...models].map((m) => m.title).sort((a, b) => (a < b ? -1 : a > b ? 1 : 0));
     expect(await titles()).toEqual(sortedTitles.slice(25));
     // Only this page's rows get charts.
@@ -71,7 +74,7 @@ describe("the call overview in the browser", () => {
     await page.getByRole("link", { name: /^Seeded 30/ }).click();
     await page.waitForURL(/\/proposals\/[0-9a-f-]+$/);
     await page.goBack();
-    await expect.poll(() => status.textContent()).toBe("Proposals 26–31 of 31");
+    await expect.poll(() => status.textContent(), WAIT).toBe("Proposals 26–31 of 31");
   });
 });
 
