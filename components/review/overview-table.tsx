@@ -37,13 +37,21 @@ export function OverviewTable({ boardId, overview }: { boardId: string; overview
 
   // The checkbox and the page size show the chair's choice at once, while the server answers.
   const [shown, setShown] = useOptimistic({ flagged: overview.flagged, pageSize: overview.pageSize });
+  // The view last asked for: a change made while another is on its way builds on it, not on
+  // the URL still shown (unticking the flags, then clearing the filter, keeps both changes).
+  const asked = useRef(searchParams.toString());
+  const current = searchParams.toString();
+  useEffect(() => {
+    asked.current = current;
+  }, [current]);
   const navigate = (changes: Record<string, string | undefined>, mode: "push" | "replace" = "push", optimistic?: Partial<typeof shown>) => {
-    const next = new URLSearchParams(searchParams.toString());
+    const next = new URLSearchParams(asked.current);
     for (const [key, value] of Object.entries(changes)) {
       if (value === undefined || value === "") next.delete(key);
       else next.set(key, value);
     }
     const qs = next.toString();
+    asked.current = qs;
     const href = qs ? `${pathname}?${qs}` : pathname;
     startTransition(() => {
       if (optimistic) setShown((current) => ({ ...current, ...optimistic }));
