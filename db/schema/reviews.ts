@@ -119,8 +119,9 @@ export const reviews = pgTable(
   (t) => [
     uniqueIndex("reviews_assignment_key").on(t.assignmentId),
     index("reviews_proposal_idx").on(t.proposalId),
-    // The call overview's per-version aggregate of submitted reviews.
-    index("reviews_version_status_idx").on(t.versionId, t.status),
+    // The call overview's per-version aggregate of submitted reviews, answered from the index
+    // alone (every column the aggregate reads is in it).
+    index("reviews_version_status_idx").on(t.versionId, t.status, t.boardId, t.weightedTotal, t.rubricTemplateId),
   ],
 );
 

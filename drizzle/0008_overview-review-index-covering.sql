@@ -1,0 +1,2 @@
+DROP INDEX "reviews_version_status_idx";--> statement-breakpoint
+CREATE INDEX "reviews_version_status_idx" ON "reviews" USING btree ("version_id","status","board_id","weighted_total","rubric_template_id");
