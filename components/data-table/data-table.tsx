@@ -18,6 +18,12 @@ export interface DataTableProps<TRow> {
   total?: number;
   /** For lists without a count: whether another page follows this one. */
   hasMore?: boolean;
+  /**
+   * Keyset paging: the server's cursors for the next and previous pages. When given (even
+   * null), Next and Previous write `cursor` (and `page`, the shown number) instead of OFFSET paging.
+   */
+  nextCursor?: string | null;
+  prevCursor?: string | null;
   page: number;
   pageSize: number;
   /** The column id the server sorted by, and the direction. Column ids are the sort keys. */
@@ -36,6 +42,8 @@ export function DataTable<TRow>({
   rows,
   total,
   hasMore = false,
+  nextCursor,
+  prevCursor,
   page,
   pageSize,
   sort,
@@ -79,9 +87,17 @@ export function DataTable<TRow>({
     onSortingChange: (updater) => {
       const nextSorting = typeof updater === "function" ? updater(sorting) : updater;
       const first = nextSorting[0];
-      navigate({ sort: first?.id, dir: first ? (first.desc ? "desc" : "asc") : undefined, page: undefined });
+      navigate({ sort: first?.id, dir: first ? (first.desc ? "desc" : "asc") : undefined, page: undefined, cursor: undefined });
     },
   });
+
+  const byCursor = nextCursor !== undefined || prevCursor !== undefined;
+  // Previous to page 1 starts from the top again (no cursor); otherwise the page before by keyset.
+  const previous = () =>
+    byCursor
+      ? navigate(page - 1 <= 1 || !prevCursor ? { cursor: undefined, page: undefined } : { cursor: prevCursor, page: String(page - 1) })
+      : navigate({ page: String(page - 1) });
+  const next = () => (byCursor ? navigate({ cursor: nextCursor ?? undefined, page: String(page + 1) }) : navigate({ page: String(page + 1) }));
 
   const shown = counted ? Math.min(total, page * pageSize) - (page - 1) * pageSize : rows.length;
   const from = shown <= 0 ? 0 : (page - 1) * pageSize + 1;
@@ -95,7 +111,7 @@ export function DataTable<TRow>({
           className="flex flex-wrap items-end gap-2"
           onSubmit={(event) => {
             event.preventDefault();
-            navigate({ q: query.trim(), page: undefined });
+            navigate({ q: query.trim(), page: undefined, cursor: undefined });
           }}
         >
           <label className="text-sm font-semibold text-ink-800">
@@ -117,7 +133,7 @@ export function DataTable<TRow>({
               className="px-2 py-1.5 text-sm text-trajectory-700 underline"
               onClick={() => {
                 setQuery("");
-                navigate({ q: undefined, page: undefined });
+                navigate({ q: undefined, page: undefined, cursor: undefined });
               }}
             >
               Clear
@@ -131,19 +147,14 @@ export function DataTable<TRow>({
       <nav aria-label={`${caption} pages`} className="flex flex-wrap items-center justify-between gap-2 text-sm text-ink-600">
         <p>{counted ? `${from}–${to} of ${total}` : hasMore ? `${from}–${to}, more follow` : `${from}–${to}, the last of them`}</p>
         <div className="flex items-center gap-2">
-          <button
-            type="button"
-            disabled={page <= 1}
-            onClick={() => navigate({ page: String(page - 1) })}
-            className="rounded-chip border border-ink-300 bg-white px-3 py-1 disabled:opacity-40"
-          >
+          <button type="button" disabled={page <= 1} onClick={previous} className="rounded-chip border border-ink-300 bg-white px-3 py-1 disabled:opacity-40">
             Previous
           </button>
           <span>{counted ? `Page ${page} of ${pageCount}` : `Page ${page}`}</span>
           <button
             type="button"
-            disabled={page >= pageCount}
-            onClick={() => navigate({ page: String(page + 1) })}
+            disabled={byCursor ? !nextCursor : page >= pageCount}
+            onClick={next}
             className="rounded-chip border border-ink-300 bg-white px-3 py-1 disabled:opacity-40"
           >
             Next

@@ -26,6 +26,8 @@ interface Page {
   page: number;
   pageSize: number;
   hasMore: boolean;
+  nextCursor: string | null;
+  prevCursor: string | null;
 }
 
 const STATUS_TEXT: Record<ProposalListRow["status"], string> = {
@@ -41,7 +43,8 @@ const column = createColumnHelper<ProposalListRow>();
 export function ProposalsTable({ boardId }: { boardId: string }) {
   const searchParams = useSearchParams();
   const params = new URLSearchParams();
-  for (const key of ["page", "pageSize", "sort", "dir", "q", "status"]) {
+  // `cursor` pages by keyset (the index range after or before a row); `page` is only the number shown.
+  for (const key of ["page", "pageSize", "sort", "dir", "q", "status", "cursor"]) {
     const v = searchParams.get(key);
     if (v) params.set(key, v);
   }
@@ -97,6 +100,8 @@ export function ProposalsTable({ boardId }: { boardId: string }) {
             columns={columns}
             rows={query.data.rows}
             hasMore={query.data.hasMore}
+            nextCursor={query.data.nextCursor}
+            prevCursor={query.data.prevCursor}
             page={query.data.page}
             pageSize={query.data.pageSize}
             sort={searchParams.get("sort") ?? "updatedAt"}

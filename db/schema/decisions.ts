@@ -58,5 +58,11 @@ export const outboxMessages = pgTable(
     sentAt: timestamp("sent_at", { withTimezone: true }),
     nextAttemptAt: timestamp("next_attempt_at", { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [uniqueIndex("outbox_messages_dedupe_key").on(t.dedupeKey), index("outbox_messages_status_idx").on(t.status, t.nextAttemptAt)],
+  (t) => [
+    uniqueIndex("outbox_messages_dedupe_key").on(t.dedupeKey),
+    index("outbox_messages_status_idx").on(t.status, t.nextAttemptAt),
+    // The admin's list, newest first, unfiltered and by status: an index range, not a scan and sort.
+    index("outbox_messages_created_idx").on(t.createdAt, t.id),
+    index("outbox_messages_status_created_idx").on(t.status, t.createdAt, t.id),
+  ],
 );

@@ -125,7 +125,13 @@ export const reviews = pgTable(
     /** The reviewer's expertise in the proposal's subject (null: not stated yet). Weights nothing. */
     expertise: text("expertise", { enum: reviewerLevels }),
   },
-  (t) => [uniqueIndex("reviews_assignment_key").on(t.assignmentId), index("reviews_proposal_idx").on(t.proposalId)],
+  (t) => [
+    uniqueIndex("reviews_assignment_key").on(t.assignmentId),
+    index("reviews_proposal_idx").on(t.proposalId),
+    // The call overview's per-version aggregate of submitted reviews, answered from the index
+    // alone (every column the aggregate reads is in it).
+    index("reviews_version_status_idx").on(t.versionId, t.status, t.boardId, t.weightedTotal, t.rubricTemplateId),
+  ],
 );
 
 /** A reviewer's note on the server's verdict for one claim ("explained in section 4"). */

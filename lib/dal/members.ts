@@ -59,8 +59,15 @@ export async function listMembers(
   user: SessionUser,
   boardId: string,
   query: MemberListQuery,
-): Promise<{ members: MemberRow[]; total: number; page: number; pageSize: number }> {
+): Promise<{ members: MemberRow[]; hasMore: boolean; page: number; pageSize: number }> {
   await requireBoardPermission(user, boardId, "members.view");
+  const fetched = await memberListStatement(boardId, query);
+  const hasMore = fetched.length > query.pageSize;
+  return { members: hasMore ? fetched.slice(0, query.pageSize) : fetched, hasMore, page: query.page, pageSize: query.pageSize };
+}
+
+/** The members list's statement (one row more than the page; no count), also used by the plan check in the tests. */
+export function memberListStatement(boardId: string, query: MemberListQuery) {
   const conditions: SQL[] = [eq(boardMembers.boardId, boardId)];
   if (query.q)
     conditions.push(or(ilike(users.name, likePattern(query.q)), ilike(users.email, likePattern(query.q)), ilike(users.organisation, likePattern(query.q)))!);
@@ -68,22 +75,14 @@ export async function listMembers(
   if (query.status) conditions.push(eq(boardMembers.status, query.status));
   const where = and(...conditions);
   const order = query.dir === "desc" ? desc(sortColumns[query.sort]) : asc(sortColumns[query.sort]);
-  const [members, [count]] = await Promise.all([
-    db()
-      .select(memberColumns)
-      .from(boardMembers)
-      .innerJoin(users, eq(users.id, boardMembers.userId))
-      .where(where)
-      .orderBy(order, asc(boardMembers.id))
-      .limit(query.pageSize)
-      .offset((query.page - 1) * query.pageSize),
-    db()
-      .select({ n: sql<number>`count(*)::int` })
-      .from(boardMembers)
-      .innerJoin(users, eq(users.id, boardMembers.userId))
-      .where(where),
-  ]);
-  return { members, total: count?.n ?? 0, page: query.page, pageSize: query.pageSize };
+  return db()
+    .select(memberColumns)
+    .from(boardMembers)
+    .innerJoin(users, eq(users.id, boardMembers.userId))
+    .where(where)
+    .orderBy(order, asc(boardMembers.id))
+    .limit(query.pageSize + 1)
+    .offset((query.page - 1) * query.pageSize);
 }
 
 /**

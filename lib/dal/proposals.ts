@@ -212,7 +212,8 @@ const escapeLike = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`);
 // Keyset paging: a cursor names the sort, its direction, the last row's sort value (as
 // PostgreSQL prints it, so timestamps keep their microseconds) and its id. It is opaque to
 // clients; a cursor made for another sort or direction is refused with a 400.
-const cursorSchema = z.object({ s: z.enum(proposalSortColumns), d: z.enum(["asc", "desc"]), v: z.string().max(1000), i: z.uuid() });
+// `b: 1` marks a cursor that reads backwards (the page before the row it names: the UI's Previous).
+const cursorSchema = z.object({ s: z.enum(proposalSortColumns), d: z.enum(["asc", "desc"]), v: z.string().max(1000), i: z.uuid(), b: z.literal(1).optional() });
 type ProposalCursor = z.infer<typeof cursorSchema>;
 
 export function encodeProposalCursor(cursor: ProposalCursor): string {
@@ -245,6 +246,8 @@ export interface ProposalPage {
   hasMore: boolean;
   /** Pass as `cursor` to get the next page by keyset; null on the last page. */
   nextCursor: string | null;
+  /** Pass as `cursor` to get the page before this one by keyset; null on the first page. */
+  prevCursor: string | null;
 }
 
 /** The list's statement, also used by the plan check in the tests. */
@@ -275,14 +278,17 @@ export function proposalListStatement(user: SessionUser, boardId: string, role: 
     callTitle,
     latestVersion: proposals.latestVersion,
   }[query.sort];
+  // A backward cursor walks the same index the other way; listProposals puts its rows back in order.
+  const backward = query.cursor ? decodeProposalCursor(query.cursor, query).b === 1 : false;
+  const ascending = (query.dir === "asc") !== backward;
   if (query.cursor) {
     const cursor = decodeProposalCursor(query.cursor, query);
     const type = query.sort === "updatedAt" || query.sort === "createdAt" ? "timestamptz" : query.sort === "latestVersion" ? "integer" : "text";
     // A row comparison, so (board, column, id) is one index range in either direction.
-    conditions.push(sql`(${sortColumn}, ${proposals.id}) ${sql.raw(query.dir === "asc" ? ">" : "<")} (${cursor.v}::${sql.raw(type)}, ${cursor.i}::uuid)`);
+    conditions.push(sql`(${sortColumn}, ${proposals.id}) ${sql.raw(ascending ? ">" : "<")} (${cursor.v}::${sql.raw(type)}, ${cursor.i}::uuid)`);
   }
   // The id tie-break runs in the sort's direction so one index (board, column, id) serves both directions.
-  const order = query.dir === "asc" ? [asc(sortColumn), asc(proposals.id)] : [desc(sortColumn), desc(proposals.id)];
+  const order = ascending ? [asc(sortColumn), asc(proposals.id)] : [desc(sortColumn), desc(proposals.id)];
   return db()
     .select({
       id: proposals.id,
@@ -314,8 +320,15 @@ export async function listProposals(user: SessionUser, boardId: string, query: P
   const role = await boardRole(user.id, boardId);
   authorize(user, "board.view", { role }, "That board");
   const fetched = await proposalListStatement(user, boardId, role, query);
-  const hasMore = fetched.length > query.pageSize;
-  const rows = hasMore ? fetched.slice(0, query.pageSize) : fetched;
+  const backward = query.cursor ? decodeProposalCursor(query.cursor, query).b === 1 : false;
+  // The extra row lies beyond the page in the direction read: after it going forward, before it going back.
+  const extra = fetched.length > query.pageSize;
+  const page = extra ? fetched.slice(0, query.pageSize) : fetched;
+  const rows = backward ? page.reverse() : page;
+  // Going back, the page we came from follows; going forward, a page precedes unless this is the first.
+  const hasMore = backward ? true : extra;
+  const hasBefore = backward ? extra : Boolean(query.cursor) || query.page > 1;
+  const first = rows.at(0);
   const last = rows.at(-1);
   return {
     rows: rows.map((r) => ({
@@ -334,6 +347,7 @@ export async function listProposals(user: SessionUser, boardId: string, query: P
     pageSize: query.pageSize,
     hasMore,
     nextCursor: hasMore && last ? encodeProposalCursor({ s: query.sort, d: query.dir, v: last.sortValue, i: last.id }) : null,
+    prevCursor: hasBefore && first ? encodeProposalCursor({ s: query.sort, d: query.dir, v: first.sortValue, i: first.id, b: 1 }) : null,
   };
 }
 

@@ -1,7 +1,7 @@
 import "server-only";
 import { formatDate } from "@/lib/format/dates";
 import { csvCell } from "@/lib/review/csv";
-import { and, asc, desc, eq, inArray, sql } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, sql, type SQL } from "drizzle-orm";
 import { db, type Database, type Transaction } from "@/db/client";
 import {
   assignments,
@@ -11,7 +11,6 @@ import {
   decisions,
   proposals,
   proposalVersions,
-  reviewItems,
   reviews,
   users,
   type CriterionScore,
@@ -24,11 +23,19 @@ import { dossierPlainText, renderDossierHtml, type BlockVerdict } from "@/lib/do
 import { conflict, notFound, unprocessable } from "@/lib/errors";
 import { scoreProblems, submitProblems, weightedTotal } from "@/lib/review/rubric";
 import { aggregateTotals, histogram, type ScoreAggregate } from "@/lib/review/stats";
-import type { ReviewDraftInput } from "@/lib/validation/review";
+import {
+  overviewCsvQuerySchema,
+  overviewQuerySchema,
+  type OverviewCsvQuery,
+  type OverviewQuery,
+  type OverviewSort,
+  type ReviewDraftInput,
+} from "@/lib/validation/review";
 import { proposalAccess, type ProposalAccess } from "./assignments";
 import { recordAudit } from "./audit";
 import { boardRole, isUuid } from "./boards";
 import { isConflicted } from "./conflicts";
+import { callCalibration } from "./meetings";
 import { freezeTemplate, loadTemplate, type RubricView } from "./rubrics";
 import { loadCall } from "./calls";
 import { orbitCheckNotice } from "@/lib/dossier/verdict-text";
@@ -664,136 +671,342 @@ export interface OverviewRow {
 export interface CallOverview {
   call: { id: string; title: string; reviewersPerProposal: number };
   scale: { min: number; max: number } | null;
+  /** This page's rows, in the asked order. */
   rows: OverviewRow[];
+  /** Proposals matching the filters in the whole call (one call: a few thousand rows at most). */
+  total: number;
+  page: number;
+  pageSize: number;
+  sort: OverviewSort;
+  dir: "asc" | "desc";
+  q: string;
+  flagged: boolean;
 }
 
-/** The chair's view of a call: per proposal (latest version) the aggregate, open review items by severity and orbit-check flags. */
-export async function getCallOverview(user: SessionUser, boardId: string, callId: string): Promise<CallOverview> {
+// The overview is one statement per call: the call's proposals (latest version) and, per
+// version, LATERAL aggregates that read only that version's rows through the indexes
+// (reviews_version_status_idx, assignments_version_reviewer_key, review_items_version_status_idx,
+// check_results_version_status_idx). Which aggregates the sort and filter need are computed for
+// every proposal of the call; the others only for the rows of the page.
+type OverviewPart = "reviews" | "assigned" | "items" | "checks";
+
+const overviewLaterals: Record<OverviewPart, (boardId: string) => SQL> = {
+  reviews: (boardId) => sql`left join lateral (
+      select count(*)::int as review_count,
+        avg(r.weighted_total)::float8 as mean,
+        stddev_samp(r.weighted_total)::float8 as spread,
+        coalesce(array_agg(r.weighted_total::float8 order by r.weighted_total), '{}') as totals,
+        (array_agg(r.rubric_template_id))[1] as template_id
+      from reviews r
+      where r.version_id = b.version_id and r.board_id = ${boardId} and r.status = 'submitted' and r.weighted_total is not null
+    ) rv on true`,
+  assigned: (boardId) => sql`left join lateral (
+      select count(*)::int as assigned from assignments a where a.version_id = b.version_id and a.board_id = ${boardId}
+    ) asg on true`,
+  items: (boardId) => sql`left join lateral (
+      select count(*) filter (where i.severity = 'major')::int as major,
+        count(*) filter (where i.severity = 'minor')::int as minor,
+        count(*) filter (where i.severity = 'comment')::int as comment
+      from review_items i
+      where i.version_id = b.version_id and i.board_id = ${boardId} and i.status = 'open'
+    ) it on true`,
+  checks: (boardId) => sql`left join lateral (
+      select count(*) filter (where c.status = 'inconsistent')::int as inconsistent,
+        count(*) filter (where c.status = 'invalid')::int as invalid,
+        coalesce(sum((select count(*) from jsonb_array_elements(c.requirements) o where o->>'status' = 'notMet')), 0)::int as not_met
+      from check_results c
+      where c.version_id = b.version_id and c.board_id = ${boardId}
+    ) ck on true`,
+};
+
+const overviewColumns: Record<OverviewPart, string> = {
+  reviews: "rv.review_count, rv.mean, rv.spread, rv.totals, rv.template_id",
+  assigned: "asg.assigned",
+  items: "it.major, it.minor, it.comment",
+  checks: "ck.inconsistent, ck.invalid, ck.not_met",
+};
+
+/** Each sort: the aggregates it needs and its ORDER BY terms (nulls last both ways; ties by title, then id). */
+export const OVERVIEW_SORTS: Record<OverviewSort, { needs: OverviewPart[]; terms: string[] }> = {
+  weightedMean: { needs: ["reviews"], terms: ["rv.mean"] },
+  // The calibrated means come from lib/review/calibration.ts (fitted over the whole call) as one jsonb parameter.
+  calibratedMean: { needs: [], terms: ["b.calibrated_mean"] },
+  title: { needs: [], terms: [] },
+  spread: { needs: ["reviews"], terms: ["rv.spread"] },
+  reviews: { needs: ["reviews"], terms: ["rv.review_count"] },
+  items: { needs: ["items"], terms: ["it.major", "it.minor", "it.comment"] },
+  flags: { needs: ["checks"], terms: ["(ck.inconsistent + ck.invalid)"] },
+  requirements: { needs: ["checks"], terms: ["ck.not_met"] },
+};
+
+const FLAGGED = "(ck.inconsistent + ck.invalid + ck.not_met + it.major) > 0";
+
+interface OverviewStatementOptions {
+  sort: OverviewSort;
+  dir: "asc" | "desc";
+  q?: string;
+  flagged: boolean;
+  limit: number;
+  offset?: number;
+  /** Keyset in title order (the CSV's batches): rows after this (title, id). */
+  after?: { title: string; id: string };
+  /** Add the count of matching rows to every row (the page's total). */
+  withTotal?: boolean;
+  /** Calibrated mean per proposal id, for the calibratedMean sort. */
+  calibrated?: Record<string, number>;
+}
+
+/** The overview's one statement for a call, also used by the plan check in the tests. */
+export function callOverviewStatement(boardId: string, callId: string, o: OverviewStatementOptions): SQL {
+  const sortSpec = o.after ? OVERVIEW_SORTS.title : OVERVIEW_SORTS[o.sort];
+  // Sorting by calibrated mean always joins the means (none given: every row has none and sorts last).
+  const calibrated = o.sort === "calibratedMean" && !o.after ? (o.calibrated ?? {}) : o.calibrated;
+  const dir = o.after ? "asc" : o.dir;
+  const inner = new Set<OverviewPart>(sortSpec.needs);
+  if (o.flagged) (["checks", "items"] as const).forEach((p) => inner.add(p));
+  const outer = (Object.keys(overviewLaterals) as OverviewPart[]).filter((p) => !inner.has(p));
+  const nullsLast = (t: string) => `${t} ${dir} nulls last`;
+  const titleDir = o.sort === "title" && !o.after ? dir : "asc";
+  const order = [...sortSpec.terms.map(nullsLast), `b.title ${titleDir}`, `b.proposal_id ${titleDir}`].join(", ");
+  const conditions: SQL[] = [sql`p.board_id = ${boardId}`, sql`p.call_id = ${callId}`, sql`p.status in ('submitted', 'in_review', 'decided')`];
+  if (o.q) conditions.push(sql`p.title ilike ${`%${o.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`}`);
+  if (o.after) conditions.push(sql`(p.title, p.id) > (${o.after.title}, ${o.after.id}::uuid)`);
+  const base = sql`(
+      select p.id as proposal_id, p.title, p.status, v.id as version_id, v.number as version_number${calibrated ? sql`, cm.calibrated_mean` : sql``}
+      from proposals p
+      -- Per proposal through proposal_versions_number_key (LIMIT keeps it a lookup, never a hash join over the board's versions).
+      join lateral (
+        select v.id, v.number from proposal_versions v where v.proposal_id = p.id and v.number = p.latest_version and v.board_id = p.board_id limit 1
+      ) v on true
+      ${calibrated ? sql`left join (select key::uuid as proposal_id, value::float8 as calibrated_mean from jsonb_each_text(${JSON.stringify(calibrated)}::jsonb)) cm on cm.proposal_id = p.id` : sql``}
+      where ${sql.join(conditions, sql` and `)}
+    ) b`;
+  const innerCols = [...inner].map((p) => overviewColumns[p]).join(", ");
+  const pageRows = sql`(
+      select b.*${sql.raw(innerCols ? `, ${innerCols}` : "")}${sql.raw(o.withTotal ? ", count(*) over () as total" : "")},
+        row_number() over (order by ${sql.raw(order)}) as pos
+      from ${base}
+      ${sql.join(
+        [...inner].map((p) => overviewLaterals[p](boardId)),
+        sql` `,
+      )}
+      ${o.flagged ? sql.raw(`where ${FLAGGED}`) : sql``}
+      order by pos
+      limit ${o.limit} offset ${o.offset ?? 0}
+    ) b`;
+  const outerCols = outer.map((p) => overviewColumns[p]).join(", ");
+  return sql`select b.*${sql.raw(outerCols ? `, ${outerCols}` : "")}
+    from ${pageRows}
+    ${sql.join(
+      outer.map((p) => overviewLaterals[p](boardId)),
+      sql` `,
+    )}
+    order by b.pos`;
+}
+
+interface OverviewDbRow {
+  proposal_id: string;
+  title: string;
+  status: string;
+  version_number: number;
+  review_count: number;
+  mean: number | null;
+  spread: number | null;
+  totals: number[];
+  template_id: string | null;
+  assigned: number;
+  major: number;
+  minor: number;
+  comment: number;
+  inconsistent: number;
+  invalid: number;
+  not_met: number;
+  total?: string | number;
+}
+
+/** The defaults, overridden by the options given (already parsed by the caller). */
+function withDefaults<T extends object>(defaults: T, given: Partial<T>): T {
+  const out = { ...defaults };
+  for (const [key, value] of Object.entries(given)) if (value !== undefined) (out as Record<string, unknown>)[key] = value;
+  return out;
+}
+
+async function overviewCall(user: SessionUser, boardId: string, callId: string) {
   if (!isUuid(boardId)) throw notFound("That board");
   const role = await boardRole(user.id, boardId);
   authorize(user, "review.view-all", { role }, "That board");
   const call = await loadCall(boardId, callId);
   if (!call) throw notFound("That call");
-  const rows = await db()
-    .select({
-      proposalId: proposals.id,
-      title: proposals.title,
-      status: proposals.status,
-      versionId: proposalVersions.id,
-      versionNumber: proposalVersions.number,
-    })
-    .from(proposals)
-    .innerJoin(proposalVersions, and(eq(proposalVersions.proposalId, proposals.id), eq(proposalVersions.number, proposals.latestVersion)))
-    .where(and(eq(proposals.boardId, boardId), eq(proposals.callId, callId), inArray(proposals.status, ["submitted", "in_review", "decided"])))
-    .orderBy(asc(proposals.title));
-  const aggregates = await aggregatesForVersions(boardId, rows, db());
-  const versionIds = rows.map((r) => r.versionId);
-  const items = versionIds.length
-    ? await db()
-        .select({ versionId: reviewItems.versionId, severity: reviewItems.severity, n: sql<number>`count(*)::int` })
-        .from(reviewItems)
-        .where(and(eq(reviewItems.boardId, boardId), inArray(reviewItems.versionId, versionIds), eq(reviewItems.status, "open")))
-        .groupBy(reviewItems.versionId, reviewItems.severity)
-    : [];
-  const flags = versionIds.length
-    ? await db()
-        .select({ versionId: checkResults.versionId, status: checkResults.status, n: sql<number>`count(*)::int` })
-        .from(checkResults)
-        .where(and(eq(checkResults.boardId, boardId), inArray(checkResults.versionId, versionIds)))
-        .groupBy(checkResults.versionId, checkResults.status)
-    : [];
-  const itemCounts = new Map(items.map((x) => [`${x.versionId}|${x.severity}`, x.n]));
-  const flagCounts = new Map(flags.map((x) => [`${x.versionId}|${x.status}`, x.n]));
-  const unmet = versionIds.length
-    ? await db()
-        .select({
-          versionId: checkResults.versionId,
-          n: sql<number>`coalesce(sum((select count(*) from jsonb_array_elements(${checkResults.requirements}) o where o->>'status' = 'notMet')), 0)::int`,
-        })
-        .from(checkResults)
-        .where(and(eq(checkResults.boardId, boardId), inArray(checkResults.versionId, versionIds)))
-        .groupBy(checkResults.versionId)
-    : [];
-  const template = call.rubricTemplateId ? await loadTemplate(boardId, call.rubricTemplateId) : null;
-  const scale =
-    aggregates.find((a) => a.scale)?.scale ?? (template?.criteria[0] ? { min: template.criteria[0].scaleMin, max: template.criteria[0].scaleMax } : null);
+  return call;
+}
+
+async function overviewScale(boardId: string, templateId: string | null): Promise<{ min: number; max: number } | null> {
+  if (!templateId) return null;
+  const c = (await loadTemplate(boardId, templateId))?.criteria[0];
+  return c ? { min: c.scaleMin, max: c.scaleMax } : null;
+}
+
+function toOverviewRow(r: OverviewDbRow, target: number, scale: { min: number; max: number } | null): OverviewRow {
+  const totals = r.totals ?? [];
   return {
-    call: { id: call.id, title: call.title, reviewersPerProposal: call.reviewersPerProposal },
-    scale,
-    rows: rows.map((r, i) => {
-      const a = aggregates[i]!;
-      const count = (sev: "major" | "minor" | "comment") => itemCounts.get(`${r.versionId}|${sev}`) ?? 0;
-      const flag = (st: "inconsistent" | "invalid") => flagCounts.get(`${r.versionId}|${st}`) ?? 0;
-      return {
-        proposalId: r.proposalId,
-        title: r.title,
-        status: r.status,
-        versionNumber: r.versionNumber,
-        assigned: a.assigned,
-        target: call.reviewersPerProposal,
-        reviews: a.count,
-        weightedMean: a.weightedMean,
-        spread: a.spread,
-        totals: a.totals,
-        distribution: scale ? histogram(a.totals, scale.min, scale.max) : [],
-        openItems: { major: count("major"), minor: count("minor"), comment: count("comment") },
-        checks: { inconsistent: flag("inconsistent"), invalid: flag("invalid") },
-        requirementsNotMet: unmet.find((x) => x.versionId === r.versionId)?.n ?? 0,
-      };
-    }),
+    proposalId: r.proposal_id,
+    title: r.title,
+    status: r.status,
+    versionNumber: r.version_number,
+    assigned: r.assigned ?? 0,
+    target,
+    reviews: r.review_count ?? 0,
+    weightedMean: r.mean ?? null,
+    spread: r.spread ?? null,
+    totals,
+    distribution: scale ? histogram(totals, scale.min, scale.max) : [],
+    openItems: { major: r.major ?? 0, minor: r.minor ?? 0, comment: r.comment ?? 0 },
+    checks: { inconsistent: r.inconsistent ?? 0, invalid: r.invalid ?? 0 },
+    requirementsNotMet: r.not_met ?? 0,
   };
 }
 
-/** The overview as CSV (one row per proposal; spread is the sample standard deviation). */
-export async function getCallOverviewCsv(user: SessionUser, boardId: string, callId: string): Promise<{ filename: string; csv: string }> {
-  const overview = await getCallOverview(user, boardId, callId);
-  const header = [
-    "proposal_id",
-    "title",
-    "status",
-    "version",
-    "reviews_submitted",
-    "reviewers_assigned",
-    "reviewers_target",
-    "weighted_mean",
-    "sample_std_dev",
-    "open_major",
-    "open_minor",
-    "open_comment",
-    "checks_inconsistent",
-    "checks_invalid",
-    "requirements_not_met",
-  ];
-  const fmt = (v: number | null) => (v === null ? "" : v.toFixed(3));
-  const lines = [header.join(",")];
-  for (const r of overview.rows)
-    lines.push(
-      [
-        r.proposalId,
-        r.title,
-        r.status,
-        r.versionNumber,
-        r.reviews,
-        r.assigned,
-        r.target,
-        fmt(r.weightedMean),
-        fmt(r.spread),
-        r.openItems.major,
-        r.openItems.minor,
-        r.openItems.comment,
-        r.checks.inconsistent,
-        r.checks.invalid,
-        r.requirementsNotMet,
-      ]
-        .map(csvCell)
-        .join(","),
+/**
+ * The chair's view of a call: per proposal (latest version) the aggregate, open review items
+ * by severity, orbit-check flags and unmet requirements; one page of it, sorted and filtered
+ * by the server in one statement.
+ */
+export async function getCallOverview(user: SessionUser, boardId: string, callId: string, query: Partial<OverviewQuery> = {}): Promise<CallOverview> {
+  const call = await overviewCall(user, boardId, callId);
+  const q = withDefaults(overviewQuerySchema.parse({}), query);
+  const calibrated =
+    q.sort === "calibratedMean"
+      ? Object.fromEntries((await callCalibration(boardId, callId)).calibration.proposals.map((p) => [p.proposalId, p.calibratedMean]))
+      : undefined;
+  const { rows } = await db().execute<OverviewDbRow & Record<string, unknown>>(
+    callOverviewStatement(boardId, callId, { ...q, limit: q.pageSize, offset: (q.page - 1) * q.pageSize, withTotal: true, calibrated }),
+  );
+  const templateId = rows.find((r) => r.template_id)?.template_id ?? call.rubricTemplateId ?? null;
+  const scale =
+    (await overviewScale(boardId, templateId)) ?? (templateId !== call.rubricTemplateId ? await overviewScale(boardId, call.rubricTemplateId) : null);
+  let total = Number(rows[0]?.total ?? 0);
+  // A page past the end still says how many rows there are.
+  if (rows.length === 0 && q.page > 1) {
+    const { rows: first } = await db().execute<OverviewDbRow & Record<string, unknown>>(
+      callOverviewStatement(boardId, callId, { ...q, limit: 1, withTotal: true, calibrated }),
     );
+    total = Number(first[0]?.total ?? 0);
+  }
+  return {
+    call: { id: call.id, title: call.title, reviewersPerProposal: call.reviewersPerProposal },
+    scale,
+    rows: rows.map((r) => toOverviewRow(r, call.reviewersPerProposal, scale)),
+    total,
+    page: q.page,
+    pageSize: q.pageSize,
+    sort: q.sort,
+    dir: q.dir,
+    q: q.q ?? "",
+    flagged: q.flagged,
+  };
+}
+
+const CSV_HEADER = [
+  "proposal_id",
+  "title",
+  "status",
+  "version",
+  "reviews_submitted",
+  "reviewers_assigned",
+  "reviewers_target",
+  "weighted_mean",
+  "sample_std_dev",
+  "open_major",
+  "open_minor",
+  "open_comment",
+  "checks_inconsistent",
+  "checks_invalid",
+  "requirements_not_met",
+];
+
+/** Rows per batch of the streamed CSV (keyset in title order). */
+export const OVERVIEW_CSV_BATCH = 500;
+
+/**
+ * The overview as CSV (one row per proposal in title order; spread is the sample standard
+ * deviation), streamed as it is produced: the header first, then batches of rows read by
+ * keyset on (title, id), then the screening notice as the last row. Authorization and the
+ * call are checked before the first byte, so refusals keep their status codes.
+ */
+export async function streamCallOverviewCsv(
+  user: SessionUser,
+  boardId: string,
+  callId: string,
+  query: Partial<OverviewCsvQuery> = {},
+  batchSize = OVERVIEW_CSV_BATCH,
+): Promise<{ filename: string; stream: ReadableStream<Uint8Array> }> {
+  const call = await overviewCall(user, boardId, callId);
+  const filters = withDefaults(overviewCsvQuerySchema.parse({}), query);
+  const encoder = new TextEncoder();
+  const fmt = (v: number | null) => (v === null ? "" : v.toFixed(3));
+  let after: { title: string; id: string } | undefined;
+  let started = false;
+  let done = false;
+  const stream = new ReadableStream<Uint8Array>({
+    async pull(controller) {
+      if (!started) {
+        started = true;
+        controller.enqueue(encoder.encode(`${CSV_HEADER.join(",")}\r\n`));
+        return;
+      }
+      if (done) {
+        // The orbit-check contract's notice travels with the figures: one last row, first cell.
+        controller.enqueue(encoder.encode(`${csvCell(`Notice: ${orbitCheckNotice()}`)}\r\n`));
+        controller.close();
+        return;
+      }
+      const { rows } = await db().execute<OverviewDbRow & Record<string, unknown>>(
+        callOverviewStatement(boardId, callId, { sort: "title", dir: "asc", q: filters.q, flagged: filters.flagged, limit: batchSize, after }),
+      );
+      const last = rows.at(-1);
+      if (last) after = { title: last.title, id: last.proposal_id };
+      if (rows.length < batchSize) done = true;
+      if (rows.length === 0) return;
+      const lines = rows.map((d) => {
+        const r = toOverviewRow(d, call.reviewersPerProposal, null);
+        return [
+          r.proposalId,
+          r.title,
+          r.status,
+          r.versionNumber,
+          r.reviews,
+          r.assigned,
+          r.target,
+          fmt(r.weightedMean),
+          fmt(r.spread),
+          r.openItems.major,
+          r.openItems.minor,
+          r.openItems.comment,
+          r.checks.inconsistent,
+          r.checks.invalid,
+          r.requirementsNotMet,
+        ]
+          .map(csvCell)
+          .join(",");
+      });
+      controller.enqueue(encoder.encode(`${lines.join("\r\n")}\r\n`));
+    },
+  });
   const slug =
-    overview.call.title
+    call.title
       .toLowerCase()
       .replace(/[^a-z0-9]+/g, "-")
       .replace(/^-|-$/g, "") || "call";
-  // The orbit-check contract's notice travels with the figures: one last row, first cell.
-  lines.push(csvCell(`Notice: ${orbitCheckNotice()}`));
-  return { filename: `${slug}-overview.csv`, csv: `${lines.join("\r\n")}\r\n` };
+  return { filename: `${slug}-overview.csv`, stream };
+}
+
+/** The whole CSV as one string (tests and small callers; the route streams). */
+export async function getCallOverviewCsv(
+  user: SessionUser,
+  boardId: string,
+  callId: string,
+  query: Partial<OverviewCsvQuery> = {},
+): Promise<{ filename: string; csv: string }> {
+  const { filename, stream } = await streamCallOverviewCsv(user, boardId, callId, query);
+  return { filename, csv: await new Response(stream).text() };
 }

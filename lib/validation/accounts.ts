@@ -167,7 +167,8 @@ export const memberSchema = z.object({
 
 export const memberPageSchema = z.object({
   members: z.array(memberSchema),
-  total: z.number().int(),
+  /** Whether another page follows (one extra row is fetched; members are not counted per request). */
+  hasMore: z.boolean(),
   page: z.number().int(),
   pageSize: z.number().int(),
 });
@@ -256,4 +257,5 @@ export const auditEventSchema = z.object({
   ipAddress: z.string().nullable(),
 });
 
-export const auditPageSchema = z.object({ events: z.array(auditEventSchema), total: z.number().int(), page: z.number().int(), pageSize: z.number().int() });
+/** `hasMore`: whether another page follows (one extra row is fetched; the log is not counted per request). */
+export const auditPageSchema = z.object({ events: z.array(auditEventSchema), hasMore: z.boolean(), page: z.number().int(), pageSize: z.number().int() });

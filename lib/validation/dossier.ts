@@ -150,6 +150,8 @@ export const proposalPageSchema = z.object({
   hasMore: z.boolean(),
   /** Pass as `cursor` to fetch the next page by keyset; null on the last page. */
   nextCursor: z.string().nullable(),
+  /** Pass as `cursor` to fetch the page before this one by keyset; null on the first page. */
+  prevCursor: z.string().nullable(),
 });
 
 export const draftSaveSchema = z.strictObject({

@@ -91,3 +91,30 @@ export const replyInput = z.object({ body: z.string().trim().min(1, "write a rep
 export const listItemsQuery = z.object({ proposalId: uuid });
 export const callQuery = z.object({ callId: uuid });
 export const reviewsQuery = z.object({ proposalId: uuid.optional() });
+
+/**
+ * The chair's call overview, paged, sorted and filtered on the server. Each sort is a clean
+ * key of its own (a new column such as a calibrated mean adds one key and one SQL expression
+ * in lib/dal/reviews.ts `OVERVIEW_SORTS`).
+ */
+export const overviewSortColumns = ["weightedMean", "calibratedMean", "title", "spread", "reviews", "items", "flags", "requirements"] as const;
+export type OverviewSort = (typeof overviewSortColumns)[number];
+
+export const overviewQuerySchema = z.object({
+  page: z.coerce.number().int().min(1, "must be 1 or more").max(100_000).default(1),
+  pageSize: z.coerce.number().int().min(1, "must be 1 or more").max(200, "cannot exceed 200 rows").default(50),
+  sort: z.enum(overviewSortColumns).default("weightedMean"),
+  dir: z.enum(["asc", "desc"]).default("desc"),
+  /** Part of a proposal title, case ignored. */
+  q: z.string().trim().max(200, "can be at most 200 characters").optional(),
+  /** Only proposals with orbit-check flags, unmet requirements or open major items. */
+  flagged: z
+    .enum(["1", "0", "true", "false"])
+    .optional()
+    .transform((v) => v === "1" || v === "true"),
+});
+export type OverviewQuery = z.infer<typeof overviewQuerySchema>;
+
+/** What the CSV export takes: the overview's filters (rows always in title order). */
+export const overviewCsvQuerySchema = overviewQuerySchema.pick({ q: true, flagged: true });
+export type OverviewCsvQuery = z.infer<typeof overviewCsvQuerySchema>;

@@ -3,17 +3,23 @@
  *
  *  1. Creates its own database (visviva_bench) on the test PostgreSQL (started if it is not
  *     up), applies the migrations and fills one board through generate_series: 20 calls,
- *     100,000 proposals × scale, a submitted version for four in five, three check results and
- *     three assignments per version; the first call holds 4.5 % of the proposals (the
- *     overview's call, as the issue's 4,495 of 100,000). Reviews, rubric scores and review items are not generated.
+ *     100,000 proposals × scale, a submitted version for four in five, four check results (some
+ *     with requirement outcomes), three or four assignments per version (300,000 at scale 1),
+ *     a review for five assignments in six (250,000, four rubric scores each: 1 million), about
+ *     1.1 review items per version (88,000); the first call holds 4.5 % of the proposals (the
+ *     overview's call, as the issue's 4,495 of 100,000). Each call has a four-criterion rubric.
  *  2. Starts the built app (.next-test; build it first with a test that calls appUrl(), or
  *     `NEXT_DIST_DIR=.next-test npx next build`) against that database, and a bare
  *     node:http + pg server (tests/bench/web-baseline.ts) running the same list SQL.
  *  3. Prints p50/p95 for the list's first and middle pages (by page and by cursor), the call
- *     overview API and the orbit-check API (200 claims), then req/s at 1, 8 and 32 connections
+ *     overview API (first page, default sort; and sorted by title), the overview page (HTML),
+ *     the whole CSV (streamed), the orbit-check API (200 claims), and the list's first page
+ *     while a chair loads the overview over and over; then req/s at 1, 8 and 32 connections
  *     (autocannon) for the app's and the baseline's first page, with their ratio.
  *
- * Options: --scale 0.1 (quick run), --seconds 5 (per autocannon run), --samples 30.
+ * Options: --scale 0.1 (quick run), --seconds 5 (per autocannon run), --samples 30,
+ * --fill-only (make and fill the database, print its sizes, stop: no build needed),
+ * --keep-data (measure again on the database the last run filled).
  * Every run is bounded in time; everything started here is stopped on exit.
  */
 import { spawn, type ChildProcess } from "node:child_process";
@@ -111,25 +117,76 @@ async function fill(url: string) {
        from proposals where board_id = $1 and latest_version = 1`,
       [board.id],
     );
+    // Four check results per version (the issue's copy: 315,000 for 80,000 versions); one in ten
+    // carries a requirement the claim does not meet.
     await client.query(
-      `insert into check_results (version_id, board_id, block_id, kind, status, claim, result)
+      `insert into check_results (version_id, board_id, block_id, kind, status, claim, result, requirements)
        select v.id, v.board_id, 'b' || k, 'orbit', (array['consistent','consistent','inconsistent','invalid'])[1 + (k + abs(hashtext(v.id::text))) % 4],
-              '{"kind":"orbit"}'::jsonb, '{}'::jsonb
-       from proposal_versions v, generate_series(1, 3) k where v.board_id = $1`,
+              '{"kind":"orbit"}'::jsonb, '{}'::jsonb,
+              case when (k + abs(hashtext(v.id::text))) % 10 = 0 then '[{"requirementId":"r1","status":"notMet"},{"requirementId":"r2","status":"met"}]'::jsonb
+                   else '[]'::jsonb end
+       from proposal_versions v, generate_series(1, 4) k where v.board_id = $1`,
       [board.id],
     );
+    // Three assignments per version, a fourth for three versions in four (300,000 at scale 1).
     await client.query(
       `with r as (select id, row_number() over (order by email) - 1 as k from users where email like 'reviewer%@bench.example.org')
        insert into assignments (board_id, proposal_id, version_id, reviewer_id, due_at)
        select v.board_id, v.proposal_id, v.id, r.id, now() + interval '14 days'
        from (select v.*, abs(hashtext(v.id::text)) as h from proposal_versions v where v.board_id = $1) v
-       cross join generate_series(0, 2) j join r on r.k = (v.h + j * 7) % 60`,
+       cross join generate_series(0, 3) j join r on r.k = (v.h + j * 7) % 60
+       where j < 3 or v.h % 4 <> 0`,
+      [board.id],
+    );
+    // A four-criterion rubric per call (weights 40/30/20/10, scale 1–5).
+    await client.query(
+      `with t as (
+         insert into rubric_templates (board_id, call_id, version, name, criteria, frozen_at)
+         select $1, c.id, 1, 'Bench rubric', (
+           select jsonb_agg(jsonb_build_object('id', 'c' || n, 'title', 'Criterion ' || n, 'description', '', 'weight', w, 'scaleMin', 1, 'scaleMax', 5,
+                  'levels', '["Poor","Weak","Fair","Good","Strong"]'::jsonb, 'commentRequiredBelow', null) order by n)
+           from (values (1, 40), (2, 30), (3, 20), (4, 10)) as x(n, w)), now()
+         from calls c where c.board_id = $1
+         returning id, call_id
+       )
+       update calls set rubric_template_id = t.id from t where calls.id = t.call_id`,
+      [board.id],
+    );
+    // A review for five assignments in six (250,000 at scale 1), four scores each (1 million);
+    // four in five submitted with their weighted total, the rest drafts.
+    await client.query(
+      `insert into reviews (assignment_id, board_id, proposal_id, version_id, reviewer_id, rubric_template_id, scores, summary, weighted_total, status, submitted_at)
+       select a.id, a.board_id, a.proposal_id, a.version_id, a.reviewer_id, c.rubric_template_id,
+              jsonb_build_object('c1', jsonb_build_object('score', s1, 'comment', ''), 'c2', jsonb_build_object('score', s2, 'comment', ''),
+                                 'c3', jsonb_build_object('score', s3, 'comment', ''), 'c4', jsonb_build_object('score', s4, 'comment', '')),
+              'Bench review.', (40 * s1 + 30 * s2 + 20 * s3 + 10 * s4) / 100.0,
+              case when h % 5 = 0 then 'draft' else 'submitted' end, case when h % 5 = 0 then null else now() end
+       from (select a.*, abs(hashtext(a.id::text)) as h from assignments a where a.board_id = $1) a
+       join proposals p on p.id = a.proposal_id
+       join calls c on c.id = p.call_id
+       cross join lateral (select 1 + h % 5 as s1, 1 + (h / 5) % 5 as s2, 1 + (h / 25) % 5 as s3, 1 + (h / 125) % 5 as s4) s
+       where h % 6 <> 0`,
+      [board.id],
+    );
+    // About 1.1 review items per version (88,000 at scale 1): one each, a second for one in nine;
+    // severities mixed, one in three resolved.
+    await client.query(
+      `insert into review_items (board_id, proposal_id, version_id, author_id, severity, title, body, anchor, status)
+       select v.board_id, v.proposal_id, v.id, a.reviewer_id, (array['major','minor','minor','comment'])[1 + (v.h + j) % 4],
+              'Bench item', 'The claim needs its source.', '{"from":0,"to":1,"quote":"x","prefix":"","suffix":""}'::jsonb,
+              case when (v.h + j) % 3 = 0 then 'resolved' else 'open' end
+       from (select v.*, abs(hashtext(v.id::text)) as h from proposal_versions v where v.board_id = $1) v
+       cross join generate_series(0, 1) j
+       cross join lateral (select reviewer_id from assignments a where a.version_id = v.id limit 1) a
+       where j = 0 or v.h % 9 = 0`,
       [board.id],
     );
     await client.query("commit");
-    await client.query("analyze");
+    // As autovacuum would in time: statistics, and the visibility map for index-only scans.
+    await client.query("vacuum analyze");
     const counts = await client.query(
-      `select (select count(*) from proposals) p, (select count(*) from proposal_versions) v, (select count(*) from check_results) c, (select count(*) from assignments) a`,
+      `select (select count(*) from proposals) p, (select count(*) from proposal_versions) v, (select count(*) from check_results) c, (select count(*) from assignments) a,
+              (select count(*) from reviews) r, (select count(*) from review_items) i`,
     );
     // The overview is measured on the first call: 4.5 % of the proposals, as the issue's 4,495 of 100,000.
     const big = await client.query(
@@ -137,7 +194,10 @@ async function fill(url: string) {
       [board.id],
     );
     const c = counts.rows[0];
-    log(`filled in ${((performance.now() - t0) / 1000).toFixed(1)} s: ${c.p} proposals, ${c.v} versions, ${c.c} check results, ${c.a} assignments`);
+    log(
+      `filled in ${((performance.now() - t0) / 1000).toFixed(1)} s: ${c.p} proposals, ${c.v} versions, ${c.c} check results, ${c.a} assignments, ` +
+        `${c.r} reviews (${Number(c.r) * 4} rubric scores), ${c.i} review items`,
+    );
     log(`the overview's call: ${big.rows[0].n} proposals (the other 19 share the rest)`);
     const middle = await client.query(`select updated_at::text v, id from proposals where board_id = $1 order by updated_at desc, id desc offset $2 limit 1`, [
       board.id,
@@ -184,11 +244,12 @@ const templates = [
 ];
 const orbitRequest = JSON.stringify({ claims: Array.from({ length: 200 }, (_, i) => ({ id: `c${i + 1}`, ...templates[i % templates.length] })) });
 
-async function latency(label: string, url: string, init: RequestInit) {
+async function latency(label: string, url: string, init: RequestInit, minMs = 0): Promise<{ p50: number; p95: number }> {
   const times: number[] = [];
-  const deadline = Date.now() + 60_000;
+  const started = Date.now();
+  const deadline = started + 60_000;
   let status = 0;
-  for (let i = 0; i < samples + 3 && Date.now() < deadline; i++) {
+  for (let i = 0; (i < samples + 3 || Date.now() - started < minMs) && Date.now() < deadline; i++) {
     const t0 = performance.now();
     const r = await fetch(url, { ...init, signal: AbortSignal.timeout(30_000) });
     await r.arrayBuffer();
@@ -197,7 +258,33 @@ async function latency(label: string, url: string, init: RequestInit) {
   }
   times.sort((a, b) => a - b);
   const at = (q: number) => times[Math.min(times.length - 1, Math.floor(times.length * q))]!;
-  log(`  ${label.padEnd(44)} p50 ${ms(at(0.5)).padStart(10)}  p95 ${ms(at(0.95)).padStart(10)}  (${times.length} requests, HTTP ${status})`);
+  log(`  ${label.padEnd(48)} p50 ${ms(at(0.5)).padStart(10)}  p95 ${ms(at(0.95)).padStart(10)}  (${times.length} requests, HTTP ${status})`);
+  return { p50: at(0.5), p95: at(0.95) };
+}
+
+/** Requests each of `targets` in turn, one at a time, until `stop()` is called; answers how many completed. */
+function keepLoading(targets: { url: string; init: RequestInit }[]): { stop: () => Promise<number> } {
+  let running = true;
+  let done = 0;
+  const loop = (async () => {
+    for (let i = 0; running; i++) {
+      const { url, init } = targets[i % targets.length]!;
+      try {
+        const r = await fetch(url, { ...init, signal: AbortSignal.timeout(30_000) });
+        await r.arrayBuffer();
+        done += 1;
+      } catch {
+        // counted as not done
+      }
+    }
+  })();
+  return {
+    stop: async () => {
+      running = false;
+      await loop;
+      return done;
+    },
+  };
 }
 
 async function throughput(url: string, headers: Record<string, string>, connections: number): Promise<number> {
@@ -211,9 +298,34 @@ function stopAll() {
   if (startedPostgres) stopServices("test", "postgres");
 }
 
+const fillOnly = process.argv.includes("--fill-only");
+// Measure again on the database a previous run filled (its fill time was printed then).
+const keepData = process.argv.includes("--keep-data");
+
+async function existing(url: string) {
+  const client = new Client({ connectionString: url });
+  await client.connect();
+  try {
+    const board = await client.query(`select id from boards where slug = 'bench-board'`);
+    if (!board.rows[0]) throw new Error("--keep-data: no bench board in visviva_bench; run once without it.");
+    const boardId = board.rows[0].id as string;
+    const big = await client.query(`select id from calls where board_id = $1 and title = 'Bench call 01'`, [boardId]);
+    const n = await client.query(`select count(*)::int n from proposals where board_id = $1`, [boardId]);
+    const middle = await client.query(`select updated_at::text v, id from proposals where board_id = $1 order by updated_at desc, id desc offset $2 limit 1`, [
+      boardId,
+      Math.floor(n.rows[0].n / 2) - 1,
+    ]);
+    log(`reusing visviva_bench: ${n.rows[0].n} proposals`);
+    return { boardId, largestCallId: big.rows[0].id as string, middle: middle.rows[0] as { v: string; id: string } };
+  } finally {
+    await client.end();
+  }
+}
+
 async function main() {
   const buildId = path.join(root, ".next-test", "BUILD_ID");
-  if (!fs.existsSync(buildId)) throw new Error("No build in .next-test: build it first (NEXT_DIST_DIR=.next-test npx next build, or run an HTTP test once).");
+  if (!fillOnly && !fs.existsSync(buildId))
+    throw new Error("No build in .next-test: build it first (NEXT_DIST_DIR=.next-test npx next build, or run an HTTP test once).");
   if (!(await portAnswers(config.postgres.port))) {
     await startOneService("test", "postgres");
     startedPostgres = true;
@@ -221,10 +333,14 @@ async function main() {
   const env = appEnvironment(config);
   const adminUrl = env.DATABASE_URL!;
   const benchUrl = adminUrl.replace(/\/[^/]+$/, `/${BENCH_DB}`);
-  await recreateDatabase("test", BENCH_DB);
+  if (!keepData) {
+    await recreateDatabase("test", BENCH_DB);
+    log(`scale ${scale}: ${PROPOSALS} proposals in one board, ${CALLS} calls`);
+  }
+  // With --keep-data this brings the kept database up to the current migrations.
   await runMigrations(benchUrl);
-  log(`scale ${scale}: ${PROPOSALS} proposals in one board, ${CALLS} calls`);
-  const { boardId, largestCallId, middle } = await fill(benchUrl);
+  const { boardId, largestCallId, middle } = keepData ? await existing(benchUrl) : await fill(benchUrl);
+  if (fillOnly) return;
 
   const appPort = config.app.port + 50;
   const basePort = config.app.port + 51;
@@ -256,12 +372,26 @@ async function main() {
   await latency(`list, middle page ${middlePage} by page (app)`, `${list}?pageSize=20&page=${middlePage}`, { headers });
   await latency("list, middle page by cursor (app)", `${list}?pageSize=20&cursor=${cursor}`, { headers });
   await latency("list, first page (baseline)", `${baseBase}/proposals?pageSize=20`, {});
-  await latency("overview API, the 4.5 % call (app)", `${appBase}/api/v1/boards/${boardId}/calls/${largestCallId}/overview`, { headers });
+  const overviewApi = `${appBase}/api/v1/boards/${boardId}/calls/${largestCallId}/overview`;
+  await latency("overview API, 4.5 % call, first page (app)", overviewApi, { headers });
+  await latency("overview API, sorted by title, page 40 (app)", `${overviewApi}?sort=title&dir=asc&page=40`, { headers });
+  await latency("overview page, HTML (app)", `${appBase}/boards/${boardId}/calls/${largestCallId}/overview`, { headers: { cookie, accept: "text/html" } });
+  await latency("overview CSV, whole call, streamed (app)", `${overviewApi}/csv`, { headers: { cookie, accept: "text/csv" } });
   await latency("orbit-check API, 200 claims (app)", `${appBase}/api/v1/orbit-checks`, {
     method: "POST",
-    headers: { ...headers, "content-type": "application/json", origin: appBase },
+    // An API client, not a browser: no Origin header (the cross-site guard refuses a foreign one).
+    headers: { ...headers, "content-type": "application/json" },
     body: orbitRequest,
   });
+
+  // A chair loading the overview again and again (API and page in turn) while the list is measured.
+  const chair = keepLoading([
+    { url: overviewApi, init: { headers } },
+    { url: `${appBase}/boards/${boardId}/calls/${largestCallId}/overview`, init: { headers: { cookie, accept: "text/html" } } },
+  ]);
+  // Sampled for at least 20 s so that the list's requests overlap many of the chair's loads.
+  await latency("list, first page, while a chair loads the overview", `${list}?pageSize=20`, { headers }, 20_000);
+  log(`    (the chair's overview loads meanwhile, API and page in turn: ${await chair.stop()})`);
 
   log("");
   log(`Throughput, list first page, ${seconds} s per run (autocannon)`);

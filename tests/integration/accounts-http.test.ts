@@ -181,7 +181,8 @@ describe("the accounts API's answers to bad input", () => {
     const cast = await createBoardWithCast();
     const chair = await signedIn(cast.chair.email);
     const page = await (await chair.get(`/api/v1/boards/${cast.board.id}/members?q=${encodeURIComponent(cast.reviewer.email)}&pageSize=5`)).json();
-    expect(page).toMatchObject({ total: 1, page: 1, pageSize: 5 });
+    expect(page).toMatchObject({ hasMore: false, page: 1, pageSize: 5 });
+    expect(page.members).toHaveLength(1);
     expect(page.members[0]).toMatchObject({ userId: cast.reviewer.id, role: "reviewer", status: "active" });
     const invite = await chair.post(`/api/v1/boards/${cast.board.id}/invitations`, { email: `${unique("api")}@example.org`, role: "proposer" });
     expect(invite.status).toBe(201);

@@ -162,6 +162,30 @@ describe("proposals and drafts", () => {
     expect(seen).toEqual(expected.map((r) => r.id));
   });
 
+  it("walks back by keyset too (the UI's Previous): each prevCursor gives exactly the page before, in order", async () => {
+    const cast = await createBoardWithCast();
+    const call = await makeCall(cast);
+    const chair = asSessionUser(cast.chair);
+    await db().execute(sql`
+      insert into proposals (board_id, call_id, owner_id, title)
+      select ${cast.board.id}, ${call.id}, ${cast.proposer.id}, 'Backward ' || lpad(g::text, 2, '0') from generate_series(1, 17) g`);
+    const query = (cursor?: string) => proposalListQuerySchema.parse({ sort: "title", dir: "desc", pageSize: "5", cursor });
+    const forward = [await listProposals(chair, cast.board.id, query())];
+    expect(forward[0]!.prevCursor).toBeNull();
+    while (forward.at(-1)!.nextCursor) forward.push(await listProposals(chair, cast.board.id, query(forward.at(-1)!.nextCursor!)));
+    expect(forward.map((p) => p.rows.length)).toEqual([5, 5, 5, 2]);
+    // From the last page back to the first, each answer equals the page seen going forward.
+    let current = forward.at(-1)!;
+    for (let i = forward.length - 2; i >= 0; i -= 1) {
+      current = await listProposals(chair, cast.board.id, query(current.prevCursor!));
+      expect(current.rows.map((r) => r.title)).toEqual(forward[i]!.rows.map((r) => r.title));
+      expect(current.hasMore).toBe(true);
+      expect(current.nextCursor).not.toBeNull();
+    }
+    expect(current.prevCursor).toBeNull();
+    expect(current.rows.map((r) => r.title)).toEqual(["Backward 17", "Backward 16", "Backward 15", "Backward 14", "Backward 13"]);
+  });
+
   it("serves first pages from the sort's index, not a scan and sort: default sort with and without a cursor, every proposals-column sort both ways (EXPLAIN)", async () => {
     const cast = await createBoardWithCast();
     const call = await makeCall(cast);

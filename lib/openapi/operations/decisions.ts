@@ -107,7 +107,12 @@ export const decisionOperations = defineOperations([
     tag: "outbox",
     access: "signed-in",
     query: outboxListQuery,
-    response: z.object({ rows: z.array(outboxRow), total: z.number().int(), counts: z.record(z.string(), z.number().int()) }),
+    response: z.object({
+      rows: z.array(outboxRow),
+      hasMore: z.boolean().describe("Whether another page follows (one extra row is fetched; the outbox is not counted per request)"),
+      counts: z.record(z.string(), z.number().int()).describe("Messages per status, counted up to countLimit: a value at the limit means that many or more"),
+      countLimit: z.number().int(),
+    }),
   },
   {
     method: "post",

@@ -128,7 +128,7 @@ export const dossierOperations = defineOperations([
     path: `${board}/proposals`,
     operationId: "listProposals",
     summary:
-      "Proposals the caller may see (all for chairs, own and co-authored for others), sorted and filtered on the server; paged by `page` or by the previous page's `nextCursor` (keyset). Rows are not counted: `hasMore` says whether another page follows",
+      "Proposals the caller may see (all for chairs, own and co-authored for others), sorted and filtered on the server; paged by `page` or by keyset: the previous answer's `nextCursor` (the page after) or `prevCursor` (the page before). Rows are not counted: `hasMore` says whether another page follows",
     tag: "proposals",
     access: "signed-in",
     query: proposalListQuerySchema,

@@ -20,7 +20,7 @@ export default async function AuditPage({ searchParams }: { searchParams: Promis
       <PageTitle eyebrow="Administration" title="Audit log">
         Sign-ins, failed sign-ins, invitations, role changes, deactivations, password changes and board changes.
       </PageTitle>
-      <AuditTable rows={log.events} total={log.total} page={log.page} pageSize={log.pageSize} dir={query.dir} search={query.q} />
+      <AuditTable rows={log.events} hasMore={log.hasMore} page={log.page} pageSize={log.pageSize} dir={query.dir} search={query.q} />
     </div>
   );
 }

@@ -21,8 +21,10 @@ export default async function OutboxPage({ searchParams }: { searchParams: Promi
   const raw = Object.fromEntries(Object.entries(await searchParams).filter((e): e is [string, string] => typeof e[1] === "string"));
   const q = pageQuery.parse(raw);
   const data = await listOutbox(user, { status: q.status, limit: q.pageSize, offset: (q.page - 1) * q.pageSize });
-  const filters: [string, string | undefined, number][] = [
-    ["All", undefined, data.counts.queued + data.counts.sending + data.counts.sent + data.counts.failed],
+  // Counts stop at data.countLimit (an index range each, never a count of the whole outbox).
+  const shown = (n: number) => (n >= data.countLimit ? `${data.countLimit} or more` : String(n));
+  const filters: [string, string | undefined, number | null][] = [
+    ["All", undefined, null],
     ["Queued", "queued", data.counts.queued],
     ["Sending", "sending", data.counts.sending],
     ["Sent", "sent", data.counts.sent],
@@ -41,11 +43,11 @@ export default async function OutboxPage({ searchParams }: { searchParams: Promi
             aria-current={q.status === status ? "page" : undefined}
             className="rounded-chip border border-ink-200 px-3 py-1 aria-[current=page]:border-trajectory-500 aria-[current=page]:bg-trajectory-100"
           >
-            {label} ({n})
+            {n === null ? label : `${label} (${shown(n)})`}
           </Link>
         ))}
       </nav>
-      <OutboxTable rows={data.rows} total={data.total} page={q.page} pageSize={q.pageSize} />
+      <OutboxTable rows={data.rows} hasMore={data.hasMore} page={q.page} pageSize={q.pageSize} />
     </div>
   );
 }

@@ -48,13 +48,13 @@ const columns = [
   column.accessor("ipAddress", { header: "From", enableSorting: false, cell: (info) => <span className="font-mono text-xs">{info.getValue() ?? "—"}</span> }),
 ];
 
-export function AuditTable(props: { rows: AuditRow[]; total: number; page: number; pageSize: number; dir: "asc" | "desc"; search?: string }) {
+export function AuditTable(props: { rows: AuditRow[]; hasMore: boolean; page: number; pageSize: number; dir: "asc" | "desc"; search?: string }) {
   return (
     <DataTable
       caption="Audit log"
       columns={columns}
       rows={props.rows}
-      total={props.total}
+      hasMore={props.hasMore}
       page={props.page}
       pageSize={props.pageSize}
       sort="time"

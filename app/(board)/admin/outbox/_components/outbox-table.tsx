@@ -92,13 +92,13 @@ const columns = [
   }),
 ];
 
-export function OutboxTable(props: { rows: OutboxRow[]; total: number; page: number; pageSize: number }) {
+export function OutboxTable(props: { rows: OutboxRow[]; hasMore: boolean; page: number; pageSize: number }) {
   return (
     <DataTable
       caption="Outbox"
       columns={columns}
       rows={props.rows}
-      total={props.total}
+      hasMore={props.hasMore}
       page={props.page}
       pageSize={props.pageSize}
       getRowId={(row) => row.id}

@@ -57,7 +57,7 @@ export default async function MembersPage({
           boardId={board.id}
           myUserId={user.id}
           rows={members.members}
-          total={members.total}
+          hasMore={members.hasMore}
           page={members.page}
           pageSize={members.pageSize}
           sort={query.sort}

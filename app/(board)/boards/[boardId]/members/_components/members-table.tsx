@@ -14,7 +14,7 @@ export function MembersTable(props: {
   boardId: string;
   myUserId: string;
   rows: MemberRow[];
-  total: number;
+  hasMore: boolean;
   page: number;
   pageSize: number;
   sort: string;
@@ -118,7 +118,7 @@ export function MembersTable(props: {
         caption="Board members"
         columns={columns}
         rows={props.rows}
-        total={props.total}
+        hasMore={props.hasMore}
         page={props.page}
         pageSize={props.pageSize}
         sort={props.sort}

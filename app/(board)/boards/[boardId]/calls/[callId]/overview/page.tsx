@@ -9,16 +9,38 @@ import { can } from "@/lib/auth/policy";
 import { getBoard } from "@/lib/dal/boards";
 import { getCallCalibration } from "@/lib/dal/meetings";
 import { getCallOverview } from "@/lib/dal/reviews";
+import { overviewQuerySchema, type OverviewQuery } from "@/lib/validation/review";
 
 export const metadata: Metadata = { title: "Call overview" };
 
-export default async function OverviewPage({ params }: { params: Promise<{ boardId: string; callId: string }> }) {
+// The table's view lives in the URL; a parameter that does not parse falls back to its default.
+function viewFrom(searchParams: Record<string, string | string[] | undefined>): OverviewQuery {
+  const view: Record<string, unknown> = {};
+  for (const key of Object.keys(overviewQuerySchema.shape) as (keyof typeof overviewQuerySchema.shape)[]) {
+    const raw = searchParams[key];
+    const value = Array.isArray(raw) ? raw[0] : raw;
+    if (value !== undefined && overviewQuerySchema.shape[key].safeParse(value).success) view[key] = value;
+  }
+  return overviewQuerySchema.parse(view);
+}
+
+export default async function OverviewPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ boardId: string; callId: string }>;
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
   const { boardId, callId } = await params;
+  const search = await searchParams;
+  const view = viewFrom(search);
   const user = await pageUser(`/boards/${boardId}/calls/${callId}/overview`);
   const board = await orNotFound(getBoard(user, boardId));
   if (!can(user, "review.view-all", { role: board.myRole })) return <NotAllowed what="Only the board's chair sees the scores of every review." />;
-  const overview = await orNotFound(getCallOverview(user, boardId, callId));
-  const calibration = await getCallCalibration(user, boardId, callId);
+  const calibration = await orNotFound(getCallCalibration(user, boardId, callId));
+  // With no sort in the URL, the table ranks by the figure the chair chose (raw or calibrated mean).
+  if (search.sort === undefined && calibration.rankBy === "calibrated") view.sort = "calibratedMean";
+  const overview = await orNotFound(getCallOverview(user, boardId, callId, view));
   const byProposal = Object.fromEntries(calibration.proposals.map((p) => [p.proposalId, { calibratedMean: p.calibratedMean, rankNote: p.rankNote }]));
   return (
     <div className="space-y-6">
