@@ -8,6 +8,11 @@
  * interactive. Chunks loaded later through next/dynamic or import() are not counted. The
  * polyfill chunk is left out (it is `nomodule`: current browsers never fetch it). Each file
  * is sized gzip-compressed at zlib's default level, as the Next server sends it.
+ *
+ * The chunks of the page's next/dynamic components (server/app/<route>/page/
+ * react-loadable-manifest.json) are printed beside it as "+ deferred": they are fetched only
+ * when such a component renders (the dossier editor for people who may edit, the letter
+ * editor, the orbit-check console...), in parallel with the page when it renders on the server.
  */
 import fs from "node:fs";
 import path from "node:path";
@@ -20,6 +25,8 @@ export interface RouteSize {
   gzipBytes: number;
   rawBytes: number;
   goalBytes: number;
+  /** Chunks of the page's next/dynamic components (react-loadable-manifest.json), beyond the first load. */
+  deferredGzipBytes: number;
 }
 
 /** Issue 19's goals: the dossier page at most 300 kB compressed, every other page 180 kB. */
@@ -84,7 +91,15 @@ export function routeSizes(distDir: string): RouteSize[] {
         gz += s.gz;
         raw += s.raw;
       }
-      sizes.push({ route, files: [...files], gzipBytes: gz, rawBytes: raw, goalBytes: goalFor(route) });
+      let deferred = 0;
+      const loadable = path.join(path.dirname(file), "page", "react-loadable-manifest.json");
+      if (fs.existsSync(loadable)) {
+        const entries = JSON.parse(fs.readFileSync(loadable, "utf8")) as Record<string, { files?: string[] }>;
+        const later = new Set<string>();
+        for (const entry of Object.values(entries)) for (const f of entry.files ?? []) if (f.endsWith(".js") && !files.has(f)) later.add(f);
+        for (const f of later) deferred += sizeOf(f).gz;
+      }
+      sizes.push({ route, files: [...files], gzipBytes: gz, rawBytes: raw, goalBytes: goalFor(route), deferredGzipBytes: deferred });
     }
   }
   return sizes.sort((a, b) => a.route.localeCompare(b.route));
@@ -109,8 +124,10 @@ export function benchBundles(root: string): void {
     const met = s.gzipBytes <= s.goalBytes;
     if (!met) over++;
     console.log(
-      `  ${s.route.padEnd(58)}${kB(s.gzipBytes).padStart(10)}  (${kB(s.rawBytes).padStart(9)} raw)  goal ≤ ${kB(s.goalBytes).padStart(8)} → ${met ? "met" : "NOT met"}`,
+      `  ${s.route.padEnd(58)}${kB(s.gzipBytes).padStart(10)}  (${kB(s.rawBytes).padStart(9)} raw)  goal ≤ ${kB(s.goalBytes).padStart(8)} → ${met ? "met" : "NOT met"}` +
+        (s.deferredGzipBytes > 0 ? `   + ${kB(s.deferredGzipBytes)} deferred (next/dynamic, when used)` : ""),
     );
   }
   console.log(`  ${sizes.length} pages, ${over === 0 ? "all within their goal" : `${over} over their goal`}`);
+  console.log("  (deferred: chunks fetched only when a next/dynamic component renders; not part of the first load)");
 }
