@@ -17,10 +17,17 @@ export interface WindowDecision {
   retryAfterSeconds: number;
 }
 
-/** Counts one request against `key` and says whether it is within `max` per `windowSeconds`. */
+/**
+ * Counts one request against `key` and says whether it is within `max` per `windowSeconds`.
+ * One statement, one round trip. It commits without waiting for the write-ahead log to reach
+ * the disk (synchronous_commit off for this transaction only, set inside the statement): a
+ * counter lost in a database crash only forgets a few requests, and the request no longer
+ * waits for a disk flush, which on a busy machine was most of the orbit-check API's time.
+ */
 export async function takeRateLimit(key: string, max: number, windowSeconds: number): Promise<WindowDecision> {
   const result = await db().execute<{ count: number; window_start: Date }>(sql`
-    insert into ${rateLimitBuckets} (key, window_start, count) values (${key}, now(), 1)
+    insert into ${rateLimitBuckets} (key, window_start, count)
+    select ${key}, now(), 1 from (select set_config('synchronous_commit', 'off', true)) as no_flush_wait
     on conflict (key) do update set
       count = case when ${rateLimitBuckets.windowStart} <= now() - make_interval(secs => ${windowSeconds}) then 1 else ${rateLimitBuckets.count} + 1 end,
       window_start = case when ${rateLimitBuckets.windowStart} <= now() - make_interval(secs => ${windowSeconds}) then now() else ${rateLimitBuckets.windowStart} end
