@@ -2,7 +2,6 @@
 // The live orbit-check block: kind, body, given and claimed values with their units, the
 // engine's recomputation (in the browser, the same lib/orbit the server runs), the verdict
 // per quantity and a to-scale plot.
-import dynamic from "next/dynamic";
 import { useId, useMemo, useRef, useState } from "react";
 import { NodeViewWrapper, useEditorState, type ReactNodeViewProps } from "@tiptap/react";
 import type { Editor } from "@tiptap/core";
@@ -16,14 +15,11 @@ import { CheckRowDetail, ConsistentMeaning } from "@/components/dossier/check-ex
 import { formatValue } from "@/lib/dossier/render";
 import { OrbitPlot } from "@/components/orbit-plot/orbit-plot";
 import { VerdictBadge } from "@/components/dossier/verdict-badge";
+import { ContactPictures } from "@/components/coverage/contact-pictures";
 import { StationsInput } from "@/components/coverage/stations-input";
 import { MassItemsInput, PhasesInput } from "./budget-inputs";
 import { useDraftAttachments } from "./attachments-context";
 import { sourceNote, sourceOf } from "@/lib/orbit-files/source";
-
-// The contact pictures (ground-track map with its world outline, d3-geo) load only when a
-// contact block shows them.
-const ContactPictures = dynamic(() => import("@/components/coverage/contact-pictures").then((m) => m.ContactPictures));
 
 /** All orbit-check blocks of the editor's document, in order. */
 export function blocksOf(editor: Editor): OrbitCheckBlock[] {
