@@ -298,7 +298,8 @@ export function DossierWorkspace(props: DossierWorkspaceProps) {
     }
   };
 
-  const evaluations = useMemo(() => evaluateBlocks(extractOrbitChecks(doc), props.tolerance), [doc, props.tolerance]);
+  const blocks = useMemo(() => extractOrbitChecks(doc), [doc]);
+  const evaluations = useMemo(() => evaluateBlocks(blocks, props.tolerance), [blocks, props.tolerance]);
   const items = evaluations.map((e) => ({
     blockId: e.block.blockId,
     label: e.block.label,
@@ -395,7 +396,7 @@ export function DossierWorkspace(props: DossierWorkspaceProps) {
           boardId={boardId}
           proposalId={proposalId}
           attachmentIds={attachments.map((a) => a.id)}
-          document={doc}
+          blocks={blocks}
           fileTolerance={props.fileTolerance}
           exportFrom={{ draft: true }}
           onMakeClaim={(made) => {

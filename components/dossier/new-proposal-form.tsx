@@ -4,7 +4,7 @@
 import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { SelectField, TextField } from "@/components/ui/form-controls";
-import { MISSION_TYPES } from "@/lib/validation/dossier";
+import { MISSION_TYPES } from "@/lib/validation/dossier-vocabulary";
 
 export function NewProposalForm({ boardId, calls }: { boardId: string; calls: { id: string; title: string }[] }) {
   const router = useRouter();

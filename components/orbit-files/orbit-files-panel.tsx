@@ -4,7 +4,7 @@
 // osculating for element sets), "Make a claim from this file", the live comparison of the
 // dossier's named orbits with their linked files, and each block's orbit as a CCSDS OPM.
 import { useEffect, useMemo, useState } from "react";
-import { extractOrbitChecks } from "@/lib/dossier/claims";
+import type { OrbitCheckBlock } from "@/lib/dossier/claims";
 import { claimFromSummary, type ClaimFromFile } from "@/lib/orbit-files/claim";
 import { FILE_QUESTION, compareFilesWithText, type FileComparison, type LinkedFile } from "@/lib/orbit-files/compare";
 import { effectiveFileTolerance, fileToleranceSummary, type FileComparisonTolerance } from "@/lib/orbit-files/tolerance";
@@ -29,8 +29,12 @@ export interface OrbitFilesPanelProps {
   proposalId: string;
   /** Attachment ids shown by the page; the panel reloads when they change. */
   attachmentIds: string[];
-  /** The dossier document (the editor's live one, or a version's). */
-  document: Record<string, unknown>;
+  /**
+   * The dossier's orbit-check blocks (`extractOrbitChecks` of the editor's live document, or
+   * of a version's, read on the server): taking blocks rather than the document keeps the
+   * sanitizer and Tiptap's schema out of the pages that show this panel without an editor.
+   */
+  blocks: OrbitCheckBlock[];
   /** The call's bounds for comparing orbit files with the text (its own setting, not the orbit-check policy). */
   fileTolerance?: FileComparisonTolerance;
   /** Where block exports come from: the draft or a submitted version. */
@@ -65,7 +69,7 @@ export function OrbitFilesPanel(props: OrbitFilesPanelProps) {
     };
   }, [boardId, proposalId, key]);
 
-  const blocks = useMemo(() => extractOrbitChecks(props.document), [props.document]);
+  const blocks = props.blocks;
   const comparisons = useMemo(
     () => (files ? compareFilesWithText(blocks, files, effectiveFileTolerance(props.fileTolerance)) : []),
     [blocks, files, props.fileTolerance],

@@ -6,7 +6,7 @@
 // with the allowed types listed; a finished upload shows as a file in the attached list.
 import { useCallback, useEffect, useRef, useState } from "react";
 import { useDropzone, type FileRejection } from "react-dropzone";
-import { ATTACHMENT_TYPES } from "@/lib/validation/dossier";
+import { ATTACHMENT_TYPES } from "@/lib/validation/dossier-vocabulary";
 
 export interface AttachmentItem {
   id: string;

@@ -7,7 +7,7 @@ import { hashPassword, verifyPassword } from "@/lib/auth/passwords";
 import { newToken } from "@/lib/auth/tokens";
 import { clearSignInFailures, consumeAccountToken, revokeOtherSessions, type SessionUser } from "@/lib/dal/sessions";
 import { recordAudit } from "@/lib/dal/audit";
-import { consumeRateLimit } from "@/lib/dal/rate-limits";
+import { consumeRateLimits } from "@/lib/dal/rate-limits";
 import { boardOpenForRegistration } from "@/lib/dal/boards";
 import { invitationUrl } from "@/lib/dal/invitations";
 import { env } from "@/lib/env";
@@ -141,18 +141,20 @@ export async function requestSignInLink(
   meta: { ipAddress?: string | null } = {},
 ): Promise<{ message: string }> {
   const ipAddress = meta.ipAddress ?? "local";
-  await consumeRateLimit(
-    `sign-in-link:client:${ipAddress}`,
-    SIGN_IN_LINKS_PER_CLIENT,
-    LINK_WINDOW_SECONDS,
-    "Too many sign-in links were asked for from this network.",
-  );
-  await consumeRateLimit(
-    `sign-in-link:address:${input.email}`,
-    SIGN_IN_LINKS_PER_ADDRESS,
-    LINK_WINDOW_SECONDS,
-    "Too many sign-in links were asked for this address.",
-  );
+  await consumeRateLimits([
+    {
+      key: `sign-in-link:client:${ipAddress}`,
+      max: SIGN_IN_LINKS_PER_CLIENT,
+      windowSeconds: LINK_WINDOW_SECONDS,
+      message: "Too many sign-in links were asked for from this network.",
+    },
+    {
+      key: `sign-in-link:address:${input.email}`,
+      max: SIGN_IN_LINKS_PER_ADDRESS,
+      windowSeconds: LINK_WINDOW_SECONDS,
+      message: "Too many sign-in links were asked for this address.",
+    },
+  ]);
   const [account] = await db()
     .select({ id: users.id, email: users.email, name: users.name })
     .from(users)
@@ -200,18 +202,20 @@ export async function requestPasswordReset(
   meta: { ipAddress?: string | null } = {},
 ): Promise<{ message: string }> {
   const ipAddress = meta.ipAddress ?? "local";
-  await consumeRateLimit(
-    `password-reset:client:${ipAddress}`,
-    SIGN_IN_LINKS_PER_CLIENT,
-    LINK_WINDOW_SECONDS,
-    "Too many password resets were asked for from this network.",
-  );
-  await consumeRateLimit(
-    `password-reset:address:${input.email}`,
-    SIGN_IN_LINKS_PER_ADDRESS,
-    LINK_WINDOW_SECONDS,
-    "Too many password resets were asked for this address.",
-  );
+  await consumeRateLimits([
+    {
+      key: `password-reset:client:${ipAddress}`,
+      max: SIGN_IN_LINKS_PER_CLIENT,
+      windowSeconds: LINK_WINDOW_SECONDS,
+      message: "Too many password resets were asked for from this network.",
+    },
+    {
+      key: `password-reset:address:${input.email}`,
+      max: SIGN_IN_LINKS_PER_ADDRESS,
+      windowSeconds: LINK_WINDOW_SECONDS,
+      message: "Too many password resets were asked for this address.",
+    },
+  ]);
   const [account] = await db()
     .select({ id: users.id, email: users.email, name: users.name })
     .from(users)
@@ -305,8 +309,10 @@ export async function registerProposer(
   const board = await boardOpenForRegistration(input.board);
   if (!board) throw notFound("That board, or its open registration,");
   const ipAddress = meta.ipAddress ?? "local";
-  await consumeRateLimit(`register:client:${ipAddress}`, REGISTRATIONS_PER_CLIENT, 60 * 60, "Too many registrations from this network.");
-  await consumeRateLimit(`register:address:${input.email}`, REGISTRATIONS_PER_ADDRESS, 60 * 60, "Too many registrations for this address.");
+  await consumeRateLimits([
+    { key: `register:client:${ipAddress}`, max: REGISTRATIONS_PER_CLIENT, windowSeconds: 60 * 60, message: "Too many registrations from this network." },
+    { key: `register:address:${input.email}`, max: REGISTRATIONS_PER_ADDRESS, windowSeconds: 60 * 60, message: "Too many registrations for this address." },
+  ]);
   // Hash first in every case, so the answer takes as long whether or not the address is known.
   const passwordHash = await hashPassword(input.password);
   const answer = { message: REGISTRATION_SENT, email: input.email, boardId: board.id };

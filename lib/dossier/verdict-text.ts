@@ -4,7 +4,7 @@
  * likely slip. Pure; takes stored rows of any contract version (version 1 rows lack
  * allowance, basis and hint).
  */
-import { NOTICE } from "@/lib/orbit";
+import { NOTICE } from "@/lib/orbit/notice";
 import { basisText, displayUnit, hintSentence, quantityName } from "@/lib/orbit/labels";
 
 export interface ExplainedRow {

@@ -16,12 +16,9 @@ import { boundFor, DEFAULT_TOLERANCE, mergeTolerance, parseTolerancePolicy, scal
 
 export { DEFAULT_TOLERANCE, mergeTolerance, type Tolerance } from "./tolerance";
 
-/** The contract version this engine implements. */
-export const CONTRACT_VERSION = 2;
-
-/** The caution every response carries (contract version 2, "Other additions"). */
-export const NOTICE =
-  "Two-body screening estimates, not flight-qualified analysis. The mission's own flight dynamics, mission assurance and its licensing authority's rules govern.";
+// The contract version and the notice live in notice.ts (no engine there, for the browser).
+import { CONTRACT_VERSION, NOTICE } from "./notice";
+export { CONTRACT_VERSION, NOTICE };
 
 const MAX_CLAIMED_VALUES = 200;
 

@@ -91,7 +91,8 @@ export const callSchema = z.object({
   state: z.enum(["upcoming", "open", "closed"]),
 });
 
-export const MISSION_TYPES = ["earth-observation", "communications", "science", "technology-demonstration", "lunar", "planetary", "other"] as const;
+// The lists the browser forms need live in dossier-vocabulary.ts (no zod there).
+export { ATTACHMENT_TYPES, MISSION_TYPES } from "./dossier-vocabulary";
 
 export const proposalCreateSchema = z.strictObject({
   title: z.string().trim().min(3, "give the proposal a title of at least 3 characters").max(200),
@@ -173,18 +174,6 @@ export const submitSchema = z.strictObject({
   /** The draft revision the author saw; a newer saved draft makes the submission 409. */
   revision: z.number().int().min(1).optional(),
 });
-
-/** Types an attachment may be declared as, with the file name endings each allows. */
-export const ATTACHMENT_TYPES: Record<string, readonly string[]> = {
-  "application/pdf": [".pdf"],
-  "image/png": [".png"],
-  "image/jpeg": [".jpg", ".jpeg"],
-  "text/csv": [".csv"],
-  // Plain text covers CCSDS orbit data messages in KVN and two-line element sets.
-  "text/plain": [".txt", ".oem", ".opm", ".omm", ".kvn", ".tle", ".3le"],
-  // CCSDS orbit data messages in their XML form (read with entities off).
-  "text/xml": [".xml"],
-};
 
 export const presignUploadSchema = z.strictObject({
   filename: z

@@ -5,10 +5,16 @@
  *     M = E − e sin E over e ∈ [0, 0.99), side by side with astronomia's solvers.
  *  2. A request of 200 mixed claims checked in-process under contract version 2's defaults,
  *     about a third of them failing so that hints are searched: median wall time.
+ *  3. contactTime over 7 days and lifetime solves.
+ *  4. Every page's first-load JavaScript, gzip-compressed, from an existing production build
+ *     (`.next` from `npm run build`, else `.next-test`; `--dist <folder>` to choose), with
+ *     issue 19's goals beside it (tests/bench/bundle-sizes.ts).
  */
 import { kepler2b, kepler3 } from "astronomia/kepler";
 import { solveKeplerElliptic } from "../../lib/orbit/anomalies/kepler";
 import { checkOrbitClaims } from "../../lib/orbit";
+import path from "node:path";
+import { benchBundles } from "./bundle-sizes";
 import { benchLifetime } from "./lifetime";
 
 function lcg(seed: number) {
@@ -283,3 +289,4 @@ console.log(
     `${(contactResult.computed.passesPerDay as number).toFixed(2)} passes/day, ${((contactResult.computed.contactPerDay as number) / 60).toFixed(1)} min/day`,
 );
 benchLifetime();
+benchBundles(path.resolve(__dirname, "../.."));

@@ -1,4 +1,4 @@
-import { OrbitCheckConsole } from "@/components/orbit-check-console/orbit-check-console";
+import { OrbitCheckConsoleLoader } from "@/components/orbit-check-console/orbit-check-console-loader";
 import contractExample from "@/lib/orbit/examples/contract-example.json";
 import invalidClaim from "@/lib/orbit/examples/invalid-claim.json";
 import missionDossier from "@/lib/orbit/examples/mission-dossier.json";
@@ -25,7 +25,7 @@ export default function OrbitCheckToolPage() {
           leaves your browser.
         </p>
       </header>
-      <OrbitCheckConsole examples={examples} />
+      <OrbitCheckConsoleLoader examples={examples} />
     </div>
   );
 }

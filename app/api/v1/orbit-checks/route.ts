@@ -57,14 +57,25 @@ async function readCapped(request: Request): Promise<string | null> {
 
 export async function POST(request: Request): Promise<Response> {
   try {
-    const limit = await takeToken(clientKey(request.headers, env().TRUSTED_PROXY_HOPS));
+    // The rate limit's database round trip and the body's arrival overlap; nothing is parsed
+    // or computed before the limit has answered.
+    const limitAnswer = takeToken(clientKey(request.headers, env().TRUSTED_PROXY_HOPS));
+    const declaredTooLarge = Number(request.headers.get("content-length") ?? "0") > MAX_BODY_BYTES;
+    const bodyRead: Promise<{ text: string | null } | { failed: unknown }> = declaredTooLarge
+      ? Promise.resolve({ text: null })
+      : readCapped(request).then(
+          (text) => ({ text }),
+          (failed: unknown) => ({ failed }),
+        );
+    const limit = await limitAnswer;
     if (!limit.ok) {
       return answer({ error: `Too many orbit-check requests: at most ${PER_MINUTE} per minute. Retry after ${limit.retryAfterSeconds} s.` }, 429, {
         "retry-after": String(limit.retryAfterSeconds),
       });
     }
-    if (Number(request.headers.get("content-length") ?? "0") > MAX_BODY_BYTES) return tooLarge();
-    const text = await readCapped(request);
+    const read = await bodyRead;
+    if ("failed" in read) throw read.failed;
+    const text = read.text;
     if (text === null) return tooLarge();
     let body: unknown;
     try {

@@ -14,8 +14,8 @@ import { getBoard } from "@/lib/dal/boards";
 import { getCall } from "@/lib/dal/calls";
 import { listRequirements } from "@/lib/dal/requirements";
 import { listStations } from "@/lib/dal/stations";
-import { CallRequirements } from "@/components/dossier/call-requirements";
 import { fileToleranceSummary } from "@/lib/orbit-files/tolerance";
+import { CallRequirementsLoader } from "@/components/dossier/call-requirements-loader";
 
 export const metadata: Metadata = { title: "Call" };
 
@@ -90,7 +90,7 @@ export default async function CallPage({ params }: { params: Promise<{ boardId: 
         title="Requirements"
         description="What the board demands of every dossier's budgets and orbit. Each claim they concern is judged met, not met or not evaluated at submission, beside its agreement verdict."
       >
-        <CallRequirements
+        <CallRequirementsLoader
           boardId={boardId}
           callId={callId}
           editable={isChair}

@@ -2,7 +2,7 @@ import { formatDateTime } from "@/lib/format/dates";
 import type { Metadata } from "next";
 import Link from "next/link";
 import { DossierSummary } from "@/components/dossier/dossier-summary";
-import { DossierWorkspace } from "@/components/dossier/dossier-workspace";
+import { DossierWorkspaceLoader } from "@/components/dossier/dossier-workspace-loader";
 import { BudgetRail } from "@/components/dossier/budget-rail";
 import { requiredDeltaVMargin } from "@/lib/requirements";
 import { ReadOnlyDossier } from "@/components/dossier/read-only-dossier";
@@ -121,7 +121,7 @@ export default async function ProposalPage({ params }: { params: Promise<{ board
             The board asked for a revision. Your changes will be submitted as version {proposal.latestVersion + 1}.
           </p>
         ) : null}
-        <DossierWorkspace
+        <DossierWorkspaceLoader
           boardId={boardId}
           proposalId={proposalId}
           draft={draft}
@@ -154,7 +154,8 @@ export default async function ProposalPage({ params }: { params: Promise<{ board
   const latest = await getVersion(user, boardId, proposalId, versions[0]!.number);
   const items = latest.checkResults.map((r) => ({ blockId: r.blockId, label: r.label, kind: r.kind, status: r.status, result: r.result }));
   const recordTolerance = latest.checkResults.find((r) => r.tolerance)?.tolerance ?? proposal.tolerance;
-  const latestEvaluations = evaluateBlocks(extractOrbitChecks(latest.document), proposal.tolerance);
+  const latestBlocks = extractOrbitChecks(latest.document);
+  const latestEvaluations = evaluateBlocks(latestBlocks, proposal.tolerance);
   const budget = deltaVBudget(latestEvaluations);
   return (
     <div className="space-y-6">
@@ -180,7 +181,7 @@ export default async function ProposalPage({ params }: { params: Promise<{ board
             boardId={boardId}
             proposalId={proposalId}
             attachmentIds={latest.attachments.map((a) => a.attachmentId)}
-            document={latest.document}
+            blocks={latestBlocks}
             fileTolerance={proposal.fileTolerance}
             exportFrom={{ version: latest.number }}
           />

@@ -2,8 +2,14 @@
 // The letter editor: Tiptap with StarterKit only (paragraphs, headings, lists, bold, italic,
 // links). Merge fields are plain text in double braces; the palette inserts them at the
 // cursor. Stores getJSON(); the server reduces and validates it (lib/decisions/letter.ts).
-import { EditorContent, useEditor, type Editor } from "@tiptap/react";
-import StarterKit from "@tiptap/starter-kit";
+// Tiptap (and ProseMirror under it) is fetched only once the letter editor mounts, so the
+// decision and letter-template pages load none of it with their first JavaScript; until it
+// arrives the form shows the same placeholder it showed while the editor started.
+import dynamic from "next/dynamic";
+import { useEffect, useRef, useState } from "react";
+import type { Editor } from "@tiptap/core";
+
+const EditorContent = dynamic(() => import("@tiptap/react").then((m) => m.EditorContent), { ssr: false });
 
 export interface MergeFieldChoice {
   name: string;
@@ -11,20 +17,39 @@ export interface MergeFieldChoice {
 }
 
 export function useLetterEditor(content: Record<string, unknown>, onUpdate?: (doc: Record<string, unknown>) => void): Editor | null {
-  return useEditor({
-    extensions: [StarterKit.configure({ heading: { levels: [1, 2, 3] }, code: false, codeBlock: false, strike: false, underline: false })],
-    content,
-    immediatelyRender: false,
-    editorProps: {
-      attributes: {
-        class: "prose-dossier min-h-[18rem] px-5 py-4 focus:outline-none",
-        "aria-label": "Letter text",
-        "aria-multiline": "true",
-        role: "textbox",
-      },
-    },
-    onUpdate: ({ editor }) => onUpdate?.(editor.getJSON() as Record<string, unknown>),
-  });
+  const [editor, setEditor] = useState<Editor | null>(null);
+  // The first content and the latest callback, read when the editor is made and on each update.
+  const initial = useRef(content);
+  const latestOnUpdate = useRef(onUpdate);
+  useEffect(() => {
+    latestOnUpdate.current = onUpdate;
+  }, [onUpdate]);
+  useEffect(() => {
+    let cancelled = false;
+    let made: Editor | null = null;
+    void Promise.all([import("@tiptap/core"), import("@tiptap/starter-kit")]).then(([{ Editor: TiptapEditor }, { default: StarterKit }]) => {
+      if (cancelled) return;
+      made = new TiptapEditor({
+        extensions: [StarterKit.configure({ heading: { levels: [1, 2, 3] }, code: false, codeBlock: false, strike: false, underline: false })],
+        content: initial.current,
+        editorProps: {
+          attributes: {
+            class: "prose-dossier min-h-[18rem] px-5 py-4 focus:outline-none",
+            "aria-label": "Letter text",
+            "aria-multiline": "true",
+            role: "textbox",
+          },
+        },
+        onUpdate: ({ editor: e }) => latestOnUpdate.current?.(e.getJSON() as Record<string, unknown>),
+      });
+      setEditor(made);
+    });
+    return () => {
+      cancelled = true;
+      made?.destroy();
+    };
+  }, []);
+  return editor;
 }
 
 const buttonClass =
