@@ -55,6 +55,7 @@ export type Permission =
   | "review-item.reply"
   | "decision.make"
   | "decision.view"
+  | "report.view"
   | "site.admin";
 
 export type Outcome = "allow" | "forbid" | "hide";
@@ -93,11 +94,17 @@ const rules: Record<Permission, Rule> = {
     (f.role === "reviewer" && f.isAssigned === true && f.isConflicted !== true),
   "decision.make": isChair,
   "decision.view": (_a, f) => f.role === "chair" || (f.isAuthor === true && f.decisionIssued === true),
+  // The review report of a version: the chair; its authors once that version is decided; its
+  // reviewers when the board shares review items after submission and theirs is submitted.
+  "report.view": (_a, f) =>
+    f.role === "chair" ||
+    (f.isAuthor === true && f.decisionIssued === true) ||
+    (f.role === "reviewer" && f.isAssigned === true && f.isConflicted !== true && f.shareItemsAfterSubmit === true && f.ownReviewSubmitted === true),
   "site.admin": () => false,
 };
 
 /** Permissions whose resources are only visible to the people the rule lets in (others get 404). */
-const hiddenUnlessAllowed = new Set<Permission>(["proposal.view", "proposal.edit", "decision.view", "review-item.view"]);
+const hiddenUnlessAllowed = new Set<Permission>(["proposal.view", "proposal.edit", "decision.view", "review-item.view", "report.view"]);
 
 export function decide(actor: Actor, permission: Permission, facts: ResourceFacts): Outcome {
   if (actor.isAdmin) return "allow";

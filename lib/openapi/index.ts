@@ -8,6 +8,7 @@ import { reviewOperations } from "./operations/review";
 import { decisionOperations } from "./operations/decisions";
 import { orbitFileOperations } from "./operations/orbit-files";
 import { stationOperations } from "./operations/stations";
+import { reportOperations } from "./operations/reports";
 
 /** Every /api/v1 operation. Each feature area adds its list here. */
 export const apiOperations: ApiOperation[] = [
@@ -19,6 +20,7 @@ export const apiOperations: ApiOperation[] = [
   ...decisionOperations,
   ...orbitFileOperations,
   ...stationOperations,
+  ...reportOperations,
 ];
 
 export function openApiDocument() {

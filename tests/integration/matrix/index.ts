@@ -8,6 +8,7 @@ import { accountActionCases, accountRouteCases } from "./accounts";
 import { decisionActionCases, decisionRouteCases } from "./decisions";
 import { orbitFileRouteCases } from "./orbit-files";
 import { stationActionCases, stationRouteCases } from "./stations";
+import { reportRouteCases } from "./reports";
 
 export const routeCases: RouteCase[] = [
   ...dossierRouteCases,
@@ -18,5 +19,6 @@ export const routeCases: RouteCase[] = [
   ...decisionRouteCases,
   ...orbitFileRouteCases,
   ...stationRouteCases,
+  ...reportRouteCases,
 ];
 export const actionCases: ActionCase[] = [...accountActionCases, ...decisionActionCases, ...stationActionCases];

@@ -46,6 +46,12 @@ function IssuedDecision({ boardId, proposalId, decision, chairView }: { boardId:
             Download the letter (PDF)
           </a>
         ) : null}
+        <Link
+          className="rounded-chip border border-ink-300 px-3 py-1.5 text-ink-800"
+          href={`/boards/${boardId}/proposals/${proposalId}/versions/${decision.versionNumber}/report`}
+        >
+          Review report, version {decision.versionNumber}
+        </Link>
         {decision.versionNumber > 1 ? (
           <Link
             className="rounded-chip border border-ink-300 px-3 py-1.5 text-ink-800"
@@ -108,6 +114,14 @@ export default async function DecisionPage({ params }: { params: Promise<{ board
           <Link href={`/boards/${boardId}/proposals/${proposalId}`} className="text-trajectory-700 underline">
             read the dossier
           </Link>
+          {w.version ? (
+            <>
+              {" · "}
+              <Link href={`/boards/${boardId}/proposals/${proposalId}/versions/${w.version.number}/report`} className="text-trajectory-700 underline">
+                review report
+              </Link>
+            </>
+          ) : null}
           {w.previousVersionNumber ? (
             <>
               {" · "}
