@@ -25,6 +25,8 @@ export const decisions = pgTable(
     letterHtml: text("letter_html").notNull(),
     letterText: text("letter_text").notNull(),
     pdfKey: text("pdf_key"),
+    /** The review report PDF attached to the letter e-mail, when the chair chose to (stored like the letter). */
+    reportPdfKey: text("report_pdf_key"),
     weightedScore: numeric("weighted_score", { precision: 8, scale: 4, mode: "number" }),
     /** Why the chair decided without the required number of reviews (null when not overridden). */
     overrideReason: text("override_reason"),

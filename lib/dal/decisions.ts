@@ -40,6 +40,7 @@ import { assignReviewers, proposalAccess, type AssignResult } from "./assignment
 import { recordAudit } from "./audit";
 import { isUuid } from "./boards";
 import { startRevisionDraft } from "./proposals";
+import { reportObjectKey, reviewReportPdfForLetter } from "./reports";
 import { reviewAggregate } from "./reviews";
 import { loadTemplate } from "./rubrics";
 
@@ -52,6 +53,8 @@ export interface DecisionRequest {
   letter: Record<string, unknown>;
   selectedReviewItemIds?: string[];
   overrideReason?: string;
+  /** Attach the version's review report (PDF, as the proposers read it) to the letter e-mail. */
+  attachReport?: boolean;
 }
 
 export interface DecisionView {
@@ -67,6 +70,8 @@ export interface DecisionView {
   decidedAt: string;
   decidedByName: string | null;
   hasPdf: boolean;
+  /** The review report PDF went with the letter e-mail. */
+  hasReportPdf: boolean;
   /** The letter e-mail's state in the outbox (null for readers who may not see it). */
   mail: { status: string; attempts: number; lastError: string | null; nextAttemptAt: string | null; sentAt: string | null } | null;
 }
@@ -224,6 +229,7 @@ async function decisionViews(boardId: string, proposalId: string, withMail: bool
       decidedAt: decisions.decidedAt,
       decidedByName: users.name,
       pdfKey: decisions.pdfKey,
+      reportPdfKey: decisions.reportPdfKey,
     })
     .from(decisions)
     .innerJoin(proposalVersions, eq(proposalVersions.id, decisions.versionId))
@@ -257,8 +263,9 @@ async function decisionViews(boardId: string, proposalId: string, withMail: bool
         sentAt: m.sentAt?.toISOString() ?? null,
       });
   }
-  return rows.map(({ pdfKey, decidedAt, ...r }) => ({
+  return rows.map(({ pdfKey, reportPdfKey, decidedAt, ...r }) => ({
     ...r,
+    hasReportPdf: Boolean(reportPdfKey),
     outcomeLabel: OUTCOME_LABELS[r.outcome],
     decidedAt: decidedAt.toISOString(),
     hasPdf: Boolean(pdfKey),
@@ -590,6 +597,10 @@ export async function createDecision(user: SessionUser, boardId: string, proposa
   });
   const pdfKey = letterObjectKey(boardId, proposalId, decisionId);
   await writeObject(pdfKey, pdf, "application/pdf");
+  // The review report as the proposers read it, stored beside the letter (issue 16 C).
+  const report = input.attachReport ? await reviewReportPdfForLetter(boardId, proposalId, version.number, { outcome: input.outcome, decidedAt }) : null;
+  const reportKey = report ? reportObjectKey(boardId, proposalId, decisionId) : null;
+  if (report && reportKey) await writeObject(reportKey, report.pdf, "application/pdf");
 
   try {
     await db().transaction(async (tx) => {
@@ -612,6 +623,7 @@ export async function createDecision(user: SessionUser, boardId: string, proposa
         letterHtml: letter.html,
         letterText: letter.text,
         pdfKey,
+        reportPdfKey: reportKey,
         weightedScore: letter.weightedMean,
         overrideReason: submitted < required ? overrideReason : null,
         decidedBy: user.id,
@@ -638,7 +650,10 @@ export async function createDecision(user: SessionUser, boardId: string, proposa
             to: recipients,
             boardId,
             ...mail,
-            attachments: [{ filename: letterFilename(title, version.number), objectKey: pdfKey, contentType: "application/pdf" }],
+            attachments: [
+              { filename: letterFilename(title, version.number), objectKey: pdfKey, contentType: "application/pdf" },
+              ...(report && reportKey ? [{ filename: report.filename, objectKey: reportKey, contentType: "application/pdf" }] : []),
+            ],
           },
           tx,
         );
@@ -658,6 +673,7 @@ export async function createDecision(user: SessionUser, boardId: string, proposa
             reviewsRequired: required,
             ...(submitted < required ? { overrideReason } : {}),
             recipients: recipients.length,
+            ...(reportKey ? { reportAttached: true } : {}),
           },
         },
         tx,
@@ -665,6 +681,7 @@ export async function createDecision(user: SessionUser, boardId: string, proposa
     });
   } catch (error) {
     await deleteObject(pdfKey).catch(() => undefined);
+    if (reportKey) await deleteObject(reportKey).catch(() => undefined);
     if (isUniqueViolation(error)) throw conflict(`Version ${version.number} has already been decided; a decision cannot be issued twice.`);
     throw error;
   }

@@ -433,6 +433,10 @@ export async function getReviewReportPdf(
   return { pdf: await renderReviewReportPdf(report), filename: reportFilename(report.proposal.title, report.version.number) };
 }
 
+export function reportObjectKey(boardId: string, proposalId: string, decisionId: string): string {
+  return `boards/${boardId}/proposals/${proposalId}/decisions/${decisionId}/review-report.pdf`;
+}
+
 /**
  * The report PDF as the proposers will read it (reviewers numbered, not named), for the
  * decision letter e-mail: the decision is not stored yet, so its outcome and date are given.

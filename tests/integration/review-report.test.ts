@@ -8,9 +8,11 @@ import crypto from "node:crypto";
 import { and, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
-import { boards, checkResults, proposals, reviewItemReplies, users } from "@/db/schema";
-import { createDecision } from "@/lib/dal/decisions";
-import { getReviewReport, getReviewReportPdf } from "@/lib/dal/reports";
+import { boards, checkResults, outboxMessages, proposals, reviewItemReplies, users } from "@/db/schema";
+import { createDecision, letterObjectKey } from "@/lib/dal/decisions";
+import { getReviewReport, getReviewReportPdf, reportObjectKey } from "@/lib/dal/reports";
+import { statObjectOrNull } from "@/storage/object-store";
+import { caughtFor, deliver } from "./outbox-support";
 import { formatDateTime } from "@/lib/format/dates";
 import { isAppError } from "@/lib/errors";
 import { renderReportDocument } from "@/lib/reports/html";
@@ -253,6 +255,50 @@ describe("the review report", () => {
       expect(text).toContain(words);
     expect(text).toContain(CAUTION);
     expect(text).toContain(s.reviewer.name);
+  });
+});
+
+describe("the review report with the decision letter", () => {
+  it("goes with the letter e-mail when the chair ticks it: stored like the letter, two PDFs in the mail catcher, reviewers not named", async () => {
+    const s = await scenario();
+    const view = await createDecision(asSessionUser(s.chair), s.board.id, s.proposal.id, { outcome: "accept", letter, attachReport: true });
+    expect(view.hasReportPdf).toBe(true);
+    const key = reportObjectKey(s.board.id, s.proposal.id, view.id);
+    expect((await statObjectOrNull(key))?.size).toBeGreaterThan(1000);
+    const [message] = await db()
+      .select()
+      .from(outboxMessages)
+      .where(eq(outboxMessages.dedupeKey, `decision:${view.id}`));
+    expect(message!.attachments.map((a) => [a.objectKey, a.contentType])).toEqual([
+      [letterObjectKey(s.board.id, s.proposal.id, view.id), "application/pdf"],
+      [key, "application/pdf"],
+    ]);
+    await deliver([message!.id]);
+    const caught = await caughtFor(message!.id);
+    expect(caught).toHaveLength(1);
+    expect(caught[0]!.attachments.map((a) => [a.filename, a.contentType])).toEqual([
+      [expect.stringMatching(/^decision-.*-v1\.pdf$/), "application/pdf"],
+      [expect.stringMatching(/^review-report-selene-relay-pathfinder-[0-9a-f]+-v1\.pdf$/), "application/pdf"],
+    ]);
+    const text = (await pdfParse(Buffer.from(caught[0]!.attachments[1]!.contentBase64, "base64"))).text.replace(/\s+/g, " ");
+    for (const title of Object.values(REPORT_SECTIONS)) expect(text).toContain(title);
+    expect(text).toContain("accept");
+    expect(text).toContain("Reviewer 1");
+    expect(text).not.toContain(s.reviewer.name);
+    expect(text).not.toContain(s.reviewer2.name);
+    expect(text).toContain(CAUTION);
+  });
+
+  it("sends the letter alone when the box is left unticked", async () => {
+    const s = await scenario();
+    const view = await createDecision(asSessionUser(s.chair), s.board.id, s.proposal.id, { outcome: "decline", letter });
+    expect(view.hasReportPdf).toBe(false);
+    expect(await statObjectOrNull(reportObjectKey(s.board.id, s.proposal.id, view.id))).toBeNull();
+    const [message] = await db()
+      .select()
+      .from(outboxMessages)
+      .where(eq(outboxMessages.dedupeKey, `decision:${view.id}`));
+    expect(message!.attachments).toHaveLength(1);
   });
 });
 
