@@ -89,6 +89,7 @@ describe("every page a role uses is reachable by links from /boards", () => {
         `${p}/review`,
         `${p}/decision`,
         `${p}/versions/1`,
+        `${p}/versions/1/report`,
         `${b}/members`,
         `${b}/settings`,
         `${b}/settings/letter`,
