@@ -4,13 +4,23 @@
 import { useState } from "react";
 import type { ReviewItemView } from "@/lib/dal/review-items";
 import { ReviewItemsPanel } from "./review-items-panel";
+import type { AnswerSectionOption } from "./item-response";
 
-export function ProposalReviewItems({ boardId, initialItems }: { boardId: string; initialItems: ReviewItemView[] }) {
+export function ProposalReviewItems({
+  boardId,
+  initialItems,
+  answerSections,
+}: {
+  boardId: string;
+  initialItems: ReviewItemView[];
+  answerSections?: AnswerSectionOption[];
+}) {
   const [items, setItems] = useState(initialItems);
   return (
     <ReviewItemsPanel
       boardId={boardId}
       items={items}
+      answerSections={answerSections}
       onChange={(changed) => setItems((current) => current.map((item) => (item.id === changed.id ? changed : item)))}
     />
   );

@@ -6,6 +6,7 @@ import { useState } from "react";
 import type { ReviewItemView } from "@/lib/dal/review-items";
 import { callApi } from "./api";
 import { SeverityChip } from "./severity-chip";
+import { ItemResponse, type AnswerSectionOption } from "./item-response";
 
 export function ReviewItemsPanel({
   boardId,
@@ -14,6 +15,7 @@ export function ReviewItemsPanel({
   onActivate,
   onChange,
   canModerate = false,
+  answerSections,
 }: {
   boardId: string;
   items: ReviewItemView[];
@@ -22,6 +24,8 @@ export function ReviewItemsPanel({
   onChange: (item: ReviewItemView) => void;
   /** The chair may resolve anyone's item. */
   canModerate?: boolean;
+  /** Newer versions' sections an answer may point at (the response round). */
+  answerSections?: AnswerSectionOption[];
 }) {
   const [filter, setFilter] = useState<"all" | "open">("all");
   const shown = items.filter((i) => filter === "all" || i.status === "open");
@@ -54,6 +58,7 @@ export function ReviewItemsPanel({
             onActivate={onActivate}
             onChange={onChange}
             canModerate={canModerate}
+            answerSections={answerSections}
           />
         ))}
       </ol>
@@ -68,6 +73,7 @@ function ItemCard({
   onActivate,
   onChange,
   canModerate,
+  answerSections,
 }: {
   boardId: string;
   item: ReviewItemView;
@@ -75,6 +81,7 @@ function ItemCard({
   onActivate?: (id: string | null) => void;
   onChange: (item: ReviewItemView) => void;
   canModerate: boolean;
+  answerSections?: AnswerSectionOption[];
 }) {
   const [reply, setReply] = useState("");
   const [error, setError] = useState<string | null>(null);
@@ -158,6 +165,7 @@ function ItemCard({
           {error}
         </p>
       ) : null}
+      <ItemResponse boardId={boardId} item={item} onChange={onChange} sections={answerSections} />
     </li>
   );
 }

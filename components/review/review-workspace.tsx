@@ -16,6 +16,7 @@ import { changedKeys, keepBoth, mergeDrafts, type Draft, type Overlap } from "@/
 import { anchorForTypedQuote, makeAnchor, resolveAnchor, type Anchor } from "@/lib/review/anchors";
 import { weightedTotal, type CriterionScore, type RubricCriterion } from "@/lib/review/rubric";
 import { callApi, formatScore } from "./api";
+import { CONFIDENCE_LABELS, EXPERTISE_LABELS, REVIEWER_LEVELS, type ReviewerLevel } from "@/lib/review/responses";
 import { domText, highlight, offsetOf } from "./dossier-text";
 import { ReviewItemsPanel } from "./review-items-panel";
 
@@ -46,6 +47,9 @@ export function ReviewWorkspace({ boardId, screen, items: initialItems, canRaise
   const [review, setReview] = useState<ReviewState>(screen.review);
   const [scores, setScores] = useState<Record<string, CriterionScore>>(screen.review.scores);
   const [summary, setSummary] = useState(screen.review.summary);
+  // Confidence and expertise save with the draft (sent only once chosen); they weigh nothing.
+  const [levels, setLevels] = useState<Levels>({ confidence: screen.review.confidence ?? null, expertise: screen.review.expertise ?? null });
+  const levelsRef = useRef(levels);
   const [canEdit, setCanEdit] = useState(screen.canEdit);
   const [saveState, setSaveState] = useState<SaveState>(screen.closedReason ? "closed" : screen.review.status === "submitted" ? "locked" : "idle");
   const [closedReason, setClosedReason] = useState(screen.closedReason);
@@ -97,7 +101,16 @@ export function ReviewWorkspace({ boardId, screen, items: initialItems, canRaise
       for (let merges = 0; ;) {
         again.current = false;
         const sent = latest.current;
-        const answer = await callApi<{ review: ReviewState }>(base, { method: "PUT", body: { revision: revision.current, ...sent } });
+        const chosen = levelsRef.current;
+        const answer = await callApi<{ review: ReviewState }>(base, {
+          method: "PUT",
+          body: {
+            revision: revision.current,
+            ...sent,
+            ...(chosen.confidence ? { confidence: chosen.confidence } : {}),
+            ...(chosen.expertise ? { expertise: chosen.expertise } : {}),
+          },
+        });
         if (answer.ok) {
           revision.current = answer.data.review.revision;
           baseline.current = { scores: answer.data.review.scores, summary: answer.data.review.summary };
@@ -176,6 +189,8 @@ export function ReviewWorkspace({ boardId, screen, items: initialItems, canRaise
     revision.current = server.revision;
     baseline.current = { scores: server.scores, summary: server.summary };
     show(baseline.current);
+    levelsRef.current = { confidence: server.confidence ?? null, expertise: server.expertise ?? null };
+    setLevels(levelsRef.current);
     setReview(server);
     setCanEdit(answer.data.canEdit);
     setClosedReason(answer.data.closedReason);
@@ -296,6 +311,15 @@ export function ReviewWorkspace({ boardId, screen, items: initialItems, canRaise
               className="mt-1 block w-full rounded-chip border border-ink-300 bg-white px-3 py-2 font-normal disabled:bg-ink-50"
             />
           </label>
+          <ReviewerLevels
+            levels={levels}
+            disabled={!canEdit}
+            onChange={(next) => {
+              levelsRef.current = next;
+              setLevels(next);
+              if (saveState !== "stale") schedule();
+            }}
+          />
           {message ? (
             <div role="alert" className="mt-3 rounded-chip border border-void-500/50 bg-void-100 px-3 py-2 text-sm text-void-700">
               <p>{message}</p>
@@ -874,5 +898,40 @@ function RaiseItemForm({
         {pending ? "Raising…" : "Raise item"}
       </button>
     </form>
+  );
+}
+
+type Levels = { confidence: ReviewerLevel | null; expertise: ReviewerLevel | null };
+
+/** The reviewer's confidence in their judgement and expertise in the subject: two named radio groups (arrow keys move within each). */
+function ReviewerLevels({ levels, disabled, onChange }: { levels: Levels; disabled: boolean; onChange: (next: Levels) => void }) {
+  const groups = [
+    { key: "confidence", legend: "Your confidence in this review", labels: CONFIDENCE_LABELS },
+    { key: "expertise", legend: "Your expertise in the subject", labels: EXPERTISE_LABELS },
+  ] as const;
+  return (
+    <div className="mt-4 grid gap-4 sm:grid-cols-2">
+      {groups.map((g) => (
+        <fieldset key={g.key} disabled={disabled} data-level-group={g.key}>
+          <legend className="text-sm font-semibold text-ink-800">{g.legend}</legend>
+          <p className="text-xs text-ink-500">Shown to the chair; it does not weight your scores.</p>
+          <div className="mt-1 space-y-1">
+            {REVIEWER_LEVELS.map((level) => (
+              <label key={level} className="flex items-center gap-2 text-sm">
+                <input
+                  type="radio"
+                  name={`review-${g.key}`}
+                  value={level}
+                  checked={levels[g.key] === level}
+                  onChange={() => onChange({ ...levels, [g.key]: level })}
+                  className="accent-trajectory-600"
+                />
+                {g.labels[level]}
+              </label>
+            ))}
+          </div>
+        </fieldset>
+      ))}
+    </div>
   );
 }

@@ -5,3 +5,4 @@ export * from "./reviews";
 export * from "./decisions";
 export * from "./orbit-files";
 export * from "./coverage";
+export * from "./responses";

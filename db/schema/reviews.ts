@@ -2,6 +2,7 @@ import { index, integer, jsonb, numeric, pgTable, text, timestamp, uniqueIndex, 
 import { users } from "./accounts";
 import { boards } from "./boards";
 import { calls, checkResults, proposals, proposalVersions } from "./proposals";
+import { REVIEWER_LEVELS } from "../../lib/review/responses";
 
 export interface RubricCriterion {
   id: string;
@@ -79,6 +80,10 @@ export const assignments = pgTable(
   (t) => [uniqueIndex("assignments_version_reviewer_key").on(t.versionId, t.reviewerId), index("assignments_reviewer_idx").on(t.reviewerId)],
 );
 
+/** Three levels for a reviewer's confidence and expertise; labels in lib/review/confidence.ts. */
+export const reviewerLevels = REVIEWER_LEVELS;
+export type ReviewerLevel = (typeof reviewerLevels)[number];
+
 export interface CriterionScore {
   score: number | null;
   comment: string;
@@ -115,6 +120,10 @@ export const reviews = pgTable(
       .default("draft"),
     submittedAt: timestamp("submitted_at", { withTimezone: true }),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+    /** The reviewer's confidence in their own judgement (null: not stated yet). Weights nothing. */
+    confidence: text("confidence", { enum: reviewerLevels }),
+    /** The reviewer's expertise in the proposal's subject (null: not stated yet). Weights nothing. */
+    expertise: text("expertise", { enum: reviewerLevels }),
   },
   (t) => [uniqueIndex("reviews_assignment_key").on(t.assignmentId), index("reviews_proposal_idx").on(t.proposalId)],
 );

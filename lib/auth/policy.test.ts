@@ -76,3 +76,24 @@ describe("the authorization policy", () => {
     expect(hidden.message).toBe("That board was not found.");
   });
 });
+
+describe("response round", () => {
+  const member = { id: "u", isAdmin: false };
+  it("shows released items to the proposal's authors once the window has opened, and lets them answer only while it is open", () => {
+    const author = { role: "proposer" as const, isAuthor: true };
+    expect(decide(member, "review-item.view", { ...author, responseWindowStarted: true, itemReleased: true })).toBe("allow");
+    expect(decide(member, "review-item.view", { ...author, responseWindowStarted: true, itemReleased: false })).toBe("hide");
+    expect(decide(member, "review-item.view", { ...author, responseWindowStarted: false, itemReleased: true })).toBe("hide");
+    expect(decide(member, "review-item.answer", { ...author, responseWindowOpen: true, itemReleased: true })).toBe("allow");
+    expect(decide(member, "review-item.answer", { ...author, responseWindowOpen: false, itemReleased: true })).toBe("forbid");
+    expect(decide(member, "review-item.answer", { role: "proposer", isAuthor: false, responseWindowOpen: true, itemReleased: true })).toBe("forbid");
+    expect(decide(member, "review-item.answer", { role: "chair", responseWindowOpen: true, itemReleased: true })).toBe("forbid");
+  });
+
+  it("lets the item's reviewer or the chair record a disposition, nobody else", () => {
+    expect(decide(member, "review-item.dispose", { role: "reviewer", isAuthorOfItem: true })).toBe("allow");
+    expect(decide(member, "review-item.dispose", { role: "reviewer", isAuthorOfItem: false })).toBe("forbid");
+    expect(decide(member, "review-item.dispose", { role: "chair" })).toBe("allow");
+    expect(decide(member, "review-item.dispose", { role: "proposer", isAuthor: true })).toBe("forbid");
+  });
+});

@@ -33,6 +33,12 @@ export interface ResourceFacts {
   shareItemsAfterSubmit?: boolean;
   /** A decision has been issued on the version in question. */
   decisionIssued?: boolean;
+  /** The call's response window has opened (it may have closed since). */
+  responseWindowStarted?: boolean;
+  /** The call's response window is open now. */
+  responseWindowOpen?: boolean;
+  /** The review item is released to the proposer: its reviewer submitted their review (or the chair raised it). */
+  itemReleased?: boolean;
 }
 
 export type Permission =
@@ -53,6 +59,8 @@ export type Permission =
   | "review-item.create"
   | "review-item.view"
   | "review-item.reply"
+  | "review-item.answer"
+  | "review-item.dispose"
   | "decision.make"
   | "decision.view"
   | "report.view"
@@ -86,12 +94,16 @@ const rules: Record<Permission, Rule> = {
     f.role === "chair" ||
     f.isAuthorOfItem === true ||
     (f.isAuthor === true && f.decisionIssued === true) ||
+    (f.isAuthor === true && f.responseWindowStarted === true && f.itemReleased === true) ||
     (f.role === "reviewer" && f.isAssigned === true && f.isConflicted !== true && f.shareItemsAfterSubmit === true && f.ownReviewSubmitted === true),
   "review-item.reply": (_a, f) =>
     f.role === "chair" ||
     f.isAuthorOfItem === true ||
     (f.isAuthor === true && f.decisionIssued === true) ||
+    (f.isAuthor === true && f.responseWindowOpen === true && f.itemReleased === true) ||
     (f.role === "reviewer" && f.isAssigned === true && f.isConflicted !== true),
+  "review-item.answer": (_a, f) => f.isAuthor === true && f.responseWindowOpen === true && f.itemReleased === true,
+  "review-item.dispose": (_a, f) => f.role === "chair" || (f.role === "reviewer" && f.isAuthorOfItem === true),
   "decision.make": isChair,
   "decision.view": (_a, f) => f.role === "chair" || (f.isAuthor === true && f.decisionIssued === true),
   // The review report of a version: the chair; its authors once that version is decided; its

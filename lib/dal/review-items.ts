@@ -12,6 +12,7 @@ import { proposalAccess, type ProposalAccess } from "./assignments";
 import { authorsOf } from "./conflicts";
 import { recordAudit } from "./audit";
 import { isUuid } from "./boards";
+import { itemResponses, loadResponseWindow, responseWindowFacts, type DispositionView, type ReviewItemAnswerView } from "./item-responses";
 
 type Db = Database | Transaction;
 
@@ -24,6 +25,11 @@ export interface ReviewItemReplyView {
   mine: boolean;
   createdAt: string;
 }
+
+/** A proposer's answer as the viewer may see it (author named by the blind rules). */
+export type ReviewItemAnswerEntry = Omit<ReviewItemAnswerView, "authorId"> & { authorLabel: string; mine: boolean };
+/** One disposition of an item, its actor named by the blind rules. */
+export type DispositionEntry = Omit<DispositionView, "actorId"> & { actorLabel: string; mine: boolean };
 
 export interface ReviewItemView {
   id: string;
@@ -39,6 +45,16 @@ export interface ReviewItemView {
   mine: boolean;
   createdAt: string;
   replies: ReviewItemReplyView[];
+  /** The proposer's answer in the response round (null: none yet). */
+  answer: ReviewItemAnswerEntry | null;
+  /** The current disposition (the latest of the history; null: none yet). */
+  disposition: DispositionEntry | null;
+  /** Every disposition, oldest first: who, when, why. */
+  dispositionHistory: DispositionEntry[];
+  /** The viewer may answer the item now (an author of the proposal while the response window is open). */
+  canAnswer: boolean;
+  /** The viewer may record a disposition (the item's reviewer or the chair, before the decision). */
+  canDispose: boolean;
 }
 
 /**
@@ -83,6 +99,17 @@ async function itemFacts(user: SessionUser, access: ProposalAccess, versionId: s
     ownReviewSubmitted = r?.status === "submitted";
   }
   const [decided] = await tx.select({ id: decisions.id }).from(decisions).where(eq(decisions.versionId, versionId));
+  const window = responseWindowFacts(await loadResponseWindow(access.proposal.boardId, access.proposal.callId, tx));
+  // An item reaches the proposer once its reviewer submitted the review of that version (the chair's items at once).
+  let itemReleased = true;
+  if (access.isAuthor && window.started) {
+    const [pending] = await tx
+      .select({ status: reviews.status })
+      .from(assignments)
+      .leftJoin(reviews, eq(reviews.assignmentId, assignments.id))
+      .where(and(eq(assignments.versionId, versionId), eq(assignments.reviewerId, authorId), eq(assignments.boardId, access.proposal.boardId)));
+    itemReleased = !pending || pending.status === "submitted";
+  }
   return {
     role: access.role,
     isAuthor: access.isAuthor,
@@ -92,6 +119,9 @@ async function itemFacts(user: SessionUser, access: ProposalAccess, versionId: s
     ownReviewSubmitted,
     shareItemsAfterSubmit: access.board.shareReviewItemsAfterSubmit,
     decisionIssued: Boolean(decided),
+    responseWindowStarted: window.started,
+    responseWindowOpen: window.open,
+    itemReleased,
   };
 }
 
@@ -128,10 +158,11 @@ export async function listReviewItems(user: SessionUser, boardId: string, propos
     .orderBy(asc(reviewItems.createdAt));
   const visible = [];
   for (const row of rows) if (can(user, "review-item.view", await itemFacts(user, access, row.versionId, row.authorId, tx))) visible.push(row);
-  return present(user, access, visible, tx);
+  return presentReviewItems(user, access, visible, tx);
 }
 
-async function present(
+/** Items as the viewer sees them: names by the blind rules, replies, answer and dispositions. Callers checked visibility. */
+export async function presentReviewItems(
   user: SessionUser,
   access: ProposalAccess,
   rows: (Omit<typeof reviewItems.$inferSelect, "boardId"> & { versionNumber: number })[],
@@ -155,8 +186,23 @@ async function present(
         )
         .orderBy(asc(reviewItemReplies.createdAt))
     : [];
+  const { answers, dispositions } = await itemResponses(
+    rows.map((r) => r.id),
+    tx,
+  );
   const names = await labeller(access, user, tx);
-  await names.load([...rows.map((r) => r.authorId), ...replies.map((r) => r.authorId)]);
+  await names.load([
+    ...rows.map((r) => r.authorId),
+    ...replies.map((r) => r.authorId),
+    ...[...answers.values()].map((a) => a.authorId),
+    ...[...dispositions.values()].flat().flatMap((d) => (d.actorId ? [d.actorId] : [])),
+  ]);
+  const facts = new Map<string, ResourceFacts>();
+  for (const r of rows) facts.set(r.id, await itemFacts(user, access, r.versionId, r.authorId, tx));
+  const entry = (d: DispositionView): DispositionEntry => {
+    const { actorId, ...rest } = d;
+    return { ...rest, actorLabel: actorId ? names.label(actorId) : "A former member", mine: actorId === user.id };
+  };
   return rows.map((r) => ({
     id: r.id,
     proposalId: r.proposalId,
@@ -173,6 +219,19 @@ async function present(
     replies: replies
       .filter((x) => x.itemId === r.id)
       .map((x) => ({ id: x.id, body: x.body, authorLabel: names.label(x.authorId), mine: x.authorId === user.id, createdAt: x.createdAt.toISOString() })),
+    answer: (() => {
+      const a = answers.get(r.id);
+      if (!a) return null;
+      const { authorId, ...rest } = a;
+      return { ...rest, authorLabel: names.label(authorId), mine: authorId === user.id };
+    })(),
+    disposition: (() => {
+      const history = dispositions.get(r.id);
+      return history?.length ? entry(history[history.length - 1]!) : null;
+    })(),
+    dispositionHistory: (dispositions.get(r.id) ?? []).map(entry),
+    canAnswer: can(user, "review-item.answer", facts.get(r.id)!) && !facts.get(r.id)!.decisionIssued,
+    canDispose: can(user, "review-item.dispose", facts.get(r.id)!) && !facts.get(r.id)!.decisionIssued,
   }));
 }
 
@@ -237,11 +296,12 @@ export async function createReviewItem(user: SessionUser, boardId: string, input
       },
       tx,
     );
-    return (await present(user, access, [{ ...row!, versionNumber: version.number }], tx))[0]!;
+    return (await presentReviewItems(user, access, [{ ...row!, versionNumber: version.number }], tx))[0]!;
   });
 }
 
-async function loadItem(user: SessionUser, boardId: string, itemId: string, tx: Db) {
+/** One item, its proposal access and the caller's facts; 404 unless the caller may see it. */
+export async function loadReviewItem(user: SessionUser, boardId: string, itemId: string, tx: Db) {
   if (!isUuid(boardId) || !isUuid(itemId)) throw notFound("That review item");
   const [row] = await tx
     .select(itemColumns)
@@ -257,24 +317,24 @@ async function loadItem(user: SessionUser, boardId: string, itemId: string, tx: 
 }
 
 export async function getReviewItem(user: SessionUser, boardId: string, itemId: string): Promise<ReviewItemView> {
-  const { row, access } = await loadItem(user, boardId, itemId, db());
-  return (await present(user, access, [row], db()))[0]!;
+  const { row, access } = await loadReviewItem(user, boardId, itemId, db());
+  return (await presentReviewItems(user, access, [row], db()))[0]!;
 }
 
 /** A reply in the item's thread, by anyone who can see the item and may reply under the policy. */
 export async function replyToReviewItem(user: SessionUser, boardId: string, itemId: string, input: { body: string }): Promise<ReviewItemView> {
   return db().transaction(async (tx) => {
-    const { row, access, facts } = await loadItem(user, boardId, itemId, tx);
+    const { row, access, facts } = await loadReviewItem(user, boardId, itemId, tx);
     authorize(user, "review-item.reply", facts);
     await tx.insert(reviewItemReplies).values({ reviewItemId: row.id, authorId: user.id, body: input.body });
-    return (await present(user, access, [row], tx))[0]!;
+    return (await presentReviewItems(user, access, [row], tx))[0]!;
   });
 }
 
 /** Resolves or reopens an item: its author or the chair. */
 export async function setReviewItemStatus(user: SessionUser, boardId: string, itemId: string, input: { status: "open" | "resolved" }): Promise<ReviewItemView> {
   return db().transaction(async (tx) => {
-    const { row, access } = await loadItem(user, boardId, itemId, tx);
+    const { row, access } = await loadReviewItem(user, boardId, itemId, tx);
     if (row.authorId !== user.id && !can(user, "review.view-all", { role: access.role }))
       throw forbidden("Only the item's author or the chair can change its status.");
     await tx
@@ -285,6 +345,6 @@ export async function setReviewItemStatus(user: SessionUser, boardId: string, it
       { action: "review-item.status", actorId: user.id, actorEmail: user.email, boardId, target: row.id, details: { status: input.status } },
       tx,
     );
-    return (await present(user, access, [{ ...row, status: input.status }], tx))[0]!;
+    return (await presentReviewItems(user, access, [{ ...row, status: input.status }], tx))[0]!;
   });
 }

@@ -15,6 +15,7 @@ import {
   reviews,
   users,
   type CriterionScore,
+  type ReviewerLevel,
   type RubricCriterion,
 } from "@/db/schema";
 import { authorize, can } from "@/lib/auth/policy";
@@ -46,6 +47,9 @@ export interface ReviewState {
   weightedTotal: number | null;
   submittedAt: string | null;
   updatedAt: string | null;
+  /** The reviewer's confidence in their judgement and expertise in the subject (null: not stated). Weight nothing. */
+  confidence: ReviewerLevel | null;
+  expertise: ReviewerLevel | null;
 }
 
 export interface CheckRow {
@@ -83,6 +87,8 @@ const emptyReview: ReviewState = {
   weightedTotal: null,
   submittedAt: null,
   updatedAt: null,
+  confidence: null,
+  expertise: null,
 };
 
 const reviewColumns = {
@@ -95,6 +101,8 @@ const reviewColumns = {
   submittedAt: reviews.submittedAt,
   updatedAt: reviews.updatedAt,
   rubricTemplateId: reviews.rubricTemplateId,
+  confidence: reviews.confidence,
+  expertise: reviews.expertise,
 };
 
 type ReviewRow = { [K in keyof typeof reviewColumns]: (typeof reviews.$inferSelect)[K] };
@@ -110,6 +118,8 @@ function toState(row: ReviewRow | undefined): ReviewState {
     weightedTotal: row.weightedTotal,
     submittedAt: row.submittedAt?.toISOString() ?? null,
     updatedAt: row.updatedAt.toISOString(),
+    confidence: row.confidence,
+    expertise: row.expertise,
   };
 }
 
@@ -324,12 +334,22 @@ export async function saveReviewDraft(user: SessionUser, boardId: string, assign
           summary: input.summary,
           weightedTotal: total.value,
           revision: 1,
+          confidence: input.confidence ?? null,
+          expertise: input.expertise ?? null,
         })
         .returning(reviewColumns);
     } else {
       [row] = await tx
         .update(reviews)
-        .set({ scores, summary: input.summary, weightedTotal: total.value, revision: existing.revision + 1, updatedAt: new Date() })
+        .set({
+          scores,
+          summary: input.summary,
+          weightedTotal: total.value,
+          revision: existing.revision + 1,
+          updatedAt: new Date(),
+          ...(input.confidence !== undefined ? { confidence: input.confidence } : {}),
+          ...(input.expertise !== undefined ? { expertise: input.expertise } : {}),
+        })
         .where(and(eq(reviews.id, existing.id), eq(reviews.revision, existing.revision)))
         .returning(reviewColumns);
     }
@@ -517,6 +537,9 @@ export interface ProposalReviewSummary {
   status: ReviewStatus;
   weightedTotal: number | null;
   submittedAt: string | null;
+  /** The reviewer's stated confidence and expertise (null: not stated). Shown to the chair; weight nothing. */
+  confidence: ReviewerLevel | null;
+  expertise: ReviewerLevel | null;
 }
 
 /** Every review of a proposal, for the chair. */
@@ -533,6 +556,8 @@ export async function listProposalReviews(user: SessionUser, boardId: string, pr
       status: reviews.status,
       weightedTotal: reviews.weightedTotal,
       submittedAt: reviews.submittedAt,
+      confidence: reviews.confidence,
+      expertise: reviews.expertise,
     })
     .from(assignments)
     .innerJoin(users, eq(users.id, assignments.reviewerId))

@@ -2,6 +2,7 @@ import "server-only";
 import { processOutbox } from "@/lib/mail/outbox";
 import { housekeeping } from "./housekeeping";
 import { enqueueReviewReminders } from "./review-reminders";
+import { runResponseWindowJob } from "./response-windows";
 
 const globalForWorker = globalThis as unknown as {
   visvivaOutboxWorker?: NodeJS.Timeout;
@@ -36,6 +37,7 @@ export function startOutboxWorker(intervalMs = Number(process.env.OUTBOX_POLL_MS
     Promise.all([
       enqueueReviewReminders().catch((error) => console.error("[reminders] pass failed:", error instanceof Error ? error.message : error)),
       housekeeping().catch((error) => console.error("[housekeeping] pass failed:", error instanceof Error ? error.message : error)),
+      runResponseWindowJob().catch((error) => console.error("[response-round] pass failed:", error instanceof Error ? error.message : error)),
     ]);
   void periodic();
   globalForWorker.visvivaReminderJob = setInterval(periodic, REMINDER_INTERVAL_MS);

@@ -9,6 +9,7 @@ import { decisionOperations } from "./operations/decisions";
 import { orbitFileOperations } from "./operations/orbit-files";
 import { stationOperations } from "./operations/stations";
 import { reportOperations } from "./operations/reports";
+import { responseOperations } from "./operations/responses";
 
 /** Every /api/v1 operation. Each feature area adds its list here. */
 export const apiOperations: ApiOperation[] = [
@@ -21,6 +22,7 @@ export const apiOperations: ApiOperation[] = [
   ...orbitFileOperations,
   ...stationOperations,
   ...reportOperations,
+  ...responseOperations,
 ];
 
 export function openApiDocument() {

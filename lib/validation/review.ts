@@ -1,5 +1,6 @@
 /** zod schemas of the review area, shared by the forms, the route handlers and the OpenAPI document. */
 import { z } from "zod";
+import { REVIEWER_LEVELS } from "@/lib/review/responses";
 
 export const uuid = z.uuid({ message: "must be an id" });
 
@@ -55,6 +56,9 @@ export const reviewDraftInput = z.object({
   revision: z.number().int().min(0),
   scores: z.record(z.string().max(60), criterionScore),
   summary: z.string().max(20000).default(""),
+  /** The reviewer's confidence in their judgement and expertise in the subject; omitted: unchanged. */
+  confidence: z.enum(REVIEWER_LEVELS, "choose low, medium or high").nullable().optional(),
+  expertise: z.enum(REVIEWER_LEVELS, "choose low, medium or high").nullable().optional(),
 });
 export type ReviewDraftInput = z.infer<typeof reviewDraftInput>;
 

@@ -6,6 +6,8 @@ import type { Page } from "playwright-core";
 import { describe, expect, it } from "vitest";
 import { browserSession } from "../support/browser";
 import { decisionScenario } from "../integration/decision-fixtures";
+import { setResponseWindow } from "@/lib/dal/responses";
+import { asSessionUser } from "../support/factories";
 
 interface Crawl {
   reached: Set<string>;
@@ -75,9 +77,14 @@ describe("every page a role uses is reachable by links from /boards", () => {
     const b = `/boards/${s.board.id}`;
     const p = `${b}/proposals/${s.proposal.id}`;
     const c = `${b}/calls/${s.call.id}`;
+    // An open response round: its page is reached from the proposal, the review screen and the decision page.
+    await setResponseWindow(asSessionUser(s.chair), s.board.id, s.call.id, {
+      opensAt: new Date(Date.now() - 3_600_000),
+      closesAt: new Date(Date.now() + 5 * 86_400_000),
+    });
     const expected = {
-      proposer: [b, `${b}/proposals`, p, `${p}/versions/1`, c],
-      reviewer: [b, `${b}/reviews`, `${b}/conflicts`, `${p}/review`, c],
+      proposer: [b, `${b}/proposals`, p, `${p}/versions/1`, c, `${p}/responses`],
+      reviewer: [b, `${b}/reviews`, `${b}/conflicts`, `${p}/review`, c, `${p}/responses`],
       chair: [
         b,
         c,
@@ -88,6 +95,7 @@ describe("every page a role uses is reachable by links from /boards", () => {
         p,
         `${p}/review`,
         `${p}/decision`,
+        `${p}/responses`,
         `${p}/versions/1`,
         `${p}/versions/1/report`,
         `${b}/members`,

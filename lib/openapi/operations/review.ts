@@ -47,6 +47,8 @@ const reviewState = z.object({
   weightedTotal: z.number().nullable(),
   submittedAt: z.string().nullable(),
   updatedAt: z.string().nullable(),
+  confidence: z.enum(["low", "medium", "high"]).nullable().describe("The reviewer's confidence in their own judgement; weights nothing"),
+  expertise: z.enum(["low", "medium", "high"]).nullable().describe("The reviewer's expertise in the subject; weights nothing"),
 });
 const conflictView = z.object({
   id: z.uuid(),
@@ -61,6 +63,16 @@ const conflictView = z.object({
 const finding = z.object({ strength: z.enum(["conflict", "likely"]), rule: z.string(), message: z.string() });
 const anchor = z.object({ from: z.number().int(), to: z.number().int(), quote: z.string(), prefix: z.string(), suffix: z.string() });
 const reply = z.object({ id: z.uuid(), body: z.string(), authorLabel: z.string(), mine: z.boolean(), createdAt: z.string() });
+const dispositionEntry = z.object({
+  id: z.uuid(),
+  disposition: z.enum(["agreed", "fix-next-version", "not-accepted", "closed"]),
+  label: z.string(),
+  reason: z.string(),
+  actorRole: z.enum(["reviewer", "chair"]),
+  actorLabel: z.string().describe("Named by the blind rules: proposers see 'Reviewer n' or 'Chair'"),
+  mine: z.boolean(),
+  createdAt: z.string(),
+});
 const item = z.object({
   id: z.uuid(),
   proposalId: z.uuid(),
@@ -75,7 +87,25 @@ const item = z.object({
   mine: z.boolean(),
   createdAt: z.string(),
   replies: z.array(reply),
+  answer: z
+    .object({
+      id: z.uuid(),
+      body: z.string(),
+      section: z.object({ versionId: z.uuid(), versionNumber: z.number().int(), heading: z.string() }).nullable(),
+      authorLabel: z.string(),
+      mine: z.boolean(),
+      createdAt: z.string(),
+      updatedAt: z.string(),
+    })
+    .nullable()
+    .describe("The proposer's answer in the response round"),
+  disposition: dispositionEntry.nullable().describe("The latest disposition"),
+  dispositionHistory: z.array(dispositionEntry).describe("Every disposition, oldest first"),
+  canAnswer: z.boolean(),
+  canDispose: z.boolean(),
 });
+/** A review item as the API shows it (the response round's operations reuse it). */
+export const reviewItemSchema = item;
 const overviewRow = z.object({
   proposalId: z.uuid(),
   title: z.string(),

@@ -9,6 +9,7 @@ import { decisionActionCases, decisionRouteCases } from "./decisions";
 import { orbitFileRouteCases } from "./orbit-files";
 import { stationActionCases, stationRouteCases } from "./stations";
 import { reportRouteCases } from "./reports";
+import { responseRouteCases } from "./responses";
 
 export const routeCases: RouteCase[] = [
   ...dossierRouteCases,
@@ -20,5 +21,6 @@ export const routeCases: RouteCase[] = [
   ...orbitFileRouteCases,
   ...stationRouteCases,
   ...reportRouteCases,
+  ...responseRouteCases,
 ];
 export const actionCases: ActionCase[] = [...accountActionCases, ...decisionActionCases, ...stationActionCases];

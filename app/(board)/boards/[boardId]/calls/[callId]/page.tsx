@@ -13,6 +13,8 @@ import { getCall } from "@/lib/dal/calls";
 import { listRequirements } from "@/lib/dal/requirements";
 import { listStations } from "@/lib/dal/stations";
 import { CallRequirements } from "@/components/dossier/call-requirements";
+import { ResponseWindowForm } from "@/components/review/response-window-form";
+import { getResponseWindow } from "@/lib/dal/responses";
 
 export const metadata: Metadata = { title: "Call" };
 
@@ -26,6 +28,7 @@ export default async function CallPage({ params }: { params: Promise<{ boardId: 
   const isChair = can(user, "call.manage", { role: board.myRole });
   const isProposer = can(user, "proposal.create", { role: board.myRole });
   const requirements = await listRequirements(user, boardId, callId);
+  const responseWindow = await getResponseWindow(user, boardId, callId);
   const stationNames = isChair ? (await listStations(user, boardId)).stations.map((s) => s.name) : [];
   const abs = Object.entries(call.tolerance.absolute ?? {});
   const submitted = isChair ? await listProposals(user, boardId, proposalListQuerySchema.parse({ callId, pageSize: 50, sort: "title", dir: "asc" })) : null;
@@ -93,6 +96,22 @@ export default async function CallPage({ params }: { params: Promise<{ boardId: 
               </li>
             ))}
           </ul>
+        </Panel>
+      ) : null}
+      {isChair ? (
+        <Panel
+          id="response-round"
+          title="Response round"
+          description="While the round is open, proposers read the review items on their versions (reviewers stay anonymous) and answer each one. Reviewers and you then record a disposition per item."
+        >
+          <ResponseWindowForm boardId={boardId} callId={callId} initial={responseWindow} />
+        </Panel>
+      ) : responseWindow ? (
+        <Panel id="response-round" title="Response round">
+          <p className="text-sm">
+            {responseWindow.state === "open" ? "Open" : responseWindow.state === "upcoming" ? "Opens" : "Closed"}: {formatDateTime(responseWindow.opensAt)} –{" "}
+            {formatDateTime(responseWindow.closesAt)}. Proposers answer the review items from the page of each proposal.
+          </p>
         </Panel>
       ) : null}
       {isChair ? (

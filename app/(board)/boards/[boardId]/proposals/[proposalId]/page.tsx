@@ -18,6 +18,7 @@ import { canReadReviewReport } from "@/lib/dal/reports";
 import { ProposalReviewItems } from "@/components/review/proposal-review-items";
 import { getDraft, getProposal, getVersion, listVersions } from "@/lib/dal/proposals";
 import { deltaVBudget, evaluateBlocks, extractOrbitChecks } from "@/lib/dossier/claims";
+import { getProposalResponseWindow } from "@/lib/dal/responses";
 
 export const metadata: Metadata = { title: "Proposal" };
 
@@ -62,6 +63,19 @@ export default async function ProposalPage({ params }: { params: Promise<{ board
   // The review report of each version, for those the policy lets read it ("report.view").
   const reportReadable = new Set<number>();
   for (const v of versions) if (await canReadReviewReport(user, access, v.id)) reportReadable.add(v.number);
+  const responseWindow = proposal.latestVersion > 0 ? await getProposalResponseWindow(user, boardId, proposalId) : null;
+  const responseLink = responseWindow ? (
+    <p className="text-sm" data-response-window={responseWindow.state}>
+      <Link href={`/boards/${boardId}/proposals/${proposalId}/responses`} className="font-semibold text-trajectory-700 underline">
+        Response round
+      </Link>
+      {responseWindow.state === "open"
+        ? `: open until ${formatDateTime(responseWindow.closesAt)}. ${access.isAuthor ? "Read the review items and answer each one." : "Answers and dispositions."}`
+        : responseWindow.state === "upcoming"
+          ? `: opens on ${formatDateTime(responseWindow.opensAt)}.`
+          : `: closed on ${formatDateTime(responseWindow.closesAt)}. Answers and dispositions.`}
+    </p>
+  ) : null;
   const reviewItemsPanel = reviewItems.length > 0 ? <ProposalReviewItems boardId={boardId} initialItems={reviewItems} /> : null;
 
   const header = (
@@ -78,6 +92,7 @@ export default async function ProposalPage({ params }: { params: Promise<{ board
     <>
       {header}
       {chairLinks}
+      {responseLink}
     </>
   );
 

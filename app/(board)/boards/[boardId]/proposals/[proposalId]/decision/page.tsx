@@ -11,6 +11,7 @@ import { getDecisionWorkspace, listProposalDecisions, type DecisionView } from "
 import { MAX_ATTEMPTS } from "@/lib/mail/outbox";
 import { outboxStatusText } from "@/lib/mail/status-text";
 import { DecisionForm } from "./_components/decision-form";
+import { ResponseSummary } from "./_components/response-summary";
 import { ConsistentMeaning, FailingChecks } from "@/components/dossier/check-explain";
 import { storedRows } from "@/lib/dossier/verdict-text";
 import { kindLabel } from "@/lib/orbit/labels";
@@ -193,6 +194,8 @@ export default async function DecisionPage({ params }: { params: Promise<{ board
           </ul>
         </Panel>
       </div>
+
+      <ResponseSummary user={user} boardId={boardId} proposalId={proposalId} />
 
       <Panel title="Reviews">
         <div className="space-y-3">

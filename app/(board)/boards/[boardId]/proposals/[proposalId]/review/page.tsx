@@ -81,6 +81,12 @@ export default async function ReviewPage({
             My reviews
           </Link>
         )}
+        <Link
+          href={`/boards/${boardId}/proposals/${proposalId}/responses`}
+          className="rounded-chip border border-ink-300 px-3 py-1.5 font-semibold hover:border-trajectory-500"
+        >
+          Response round
+        </Link>
       </nav>
       {isChair && reviews.length > 0 ? (
         <nav aria-label="Reviews of this proposal" className="flex flex-wrap gap-2 text-sm">
@@ -93,6 +99,8 @@ export default async function ReviewPage({
             >
               {r.reviewerName} · v{r.versionNumber} · {r.status}
               {r.weightedTotal !== null ? ` · ${formatScore(r.weightedTotal)}` : ""}
+              {r.confidence ? ` · confidence ${r.confidence}` : ""}
+              {r.expertise ? ` · expertise ${r.expertise}` : ""}
             </Link>
           ))}
         </nav>
