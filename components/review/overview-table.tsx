@@ -11,8 +11,14 @@ import { ScoreChart } from "./score-chart";
 
 const column = createColumnHelper<OverviewRow>();
 
-export function OverviewTable({ boardId, overview }: { boardId: string; overview: CallOverview }) {
-  const [sorting, setSorting] = useState<SortingState>([{ id: "weightedMean", desc: true }]);
+/** Calibrated means beside the raw ones (lib/dal/meetings.ts `callCalibration`), and what the chair ranks by. */
+export interface OverviewCalibration {
+  rankBy: "raw" | "calibrated";
+  byProposal: Record<string, { calibratedMean: number; rankNote: string | null }>;
+}
+
+export function OverviewTable({ boardId, overview, calibration }: { boardId: string; overview: CallOverview; calibration?: OverviewCalibration }) {
+  const [sorting, setSorting] = useState<SortingState>([{ id: calibration?.rankBy === "calibrated" ? "calibratedMean" : "weightedMean", desc: true }]);
   const [search, setSearch] = useState("");
   const [onlyFlagged, setOnlyFlagged] = useState(false);
   const scale = overview.scale;
@@ -60,6 +66,27 @@ export function OverviewTable({ boardId, overview }: { boardId: string; overview
           </span>
         ),
       }),
+      ...(calibration
+        ? [
+            column.accessor((r) => calibration.byProposal[r.proposalId]?.calibratedMean ?? null, {
+              id: "calibratedMean",
+              header: () => <span title="The mean less each reviewer's fitted leniency (docs/calibration.md)">Calibrated mean</span>,
+              sortingFn: (a, b) =>
+                (calibration.byProposal[a.original.proposalId]?.calibratedMean ?? -Infinity) -
+                (calibration.byProposal[b.original.proposalId]?.calibratedMean ?? -Infinity),
+              cell: (info) => (
+                <span>
+                  <span className="font-mono" data-testid="calibrated-mean">
+                    {formatScore(info.getValue())}
+                  </span>
+                  {calibration.byProposal[info.row.original.proposalId]?.rankNote ? (
+                    <span className="block text-xs text-drift-700">{calibration.byProposal[info.row.original.proposalId]!.rankNote}</span>
+                  ) : null}
+                </span>
+              ),
+            }),
+          ]
+        : []),
       column.accessor("spread", {
         header: () => <span title="Sample standard deviation (divides by n − 1) of the reviewers' weighted totals">Spread (sample s.d.)</span>,
         sortingFn: (a, b) => (a.original.spread ?? -Infinity) - (b.original.spread ?? -Infinity),
@@ -124,7 +151,7 @@ export function OverviewTable({ boardId, overview }: { boardId: string; overview
           ) : null,
       }),
     ],
-    [boardId, scale],
+    [boardId, scale, calibration],
   );
   // eslint-disable-next-line react-hooks/incompatible-library
   const table = useReactTable({

@@ -6,3 +6,4 @@ export * from "./decisions";
 export * from "./orbit-files";
 export * from "./coverage";
 export * from "./responses";
+export * from "./meetings";

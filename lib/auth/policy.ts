@@ -64,6 +64,8 @@ export type Permission =
   | "decision.make"
   | "decision.view"
   | "report.view"
+  | "meeting.view"
+  | "meeting.run"
   | "site.admin";
 
 export type Outcome = "allow" | "forbid" | "hide";
@@ -112,6 +114,9 @@ const rules: Record<Permission, Rule> = {
     f.role === "chair" ||
     (f.isAuthor === true && f.decisionIssued === true) ||
     (f.role === "reviewer" && f.isAssigned === true && f.isConflicted !== true && f.shareItemsAfterSubmit === true && f.ownReviewSubmitted === true),
+  // The panel meeting: the chair and the board's reviewers follow it; only the chair runs it.
+  "meeting.view": (_a, f) => f.role === "chair" || f.role === "reviewer",
+  "meeting.run": isChair,
   "site.admin": () => false,
 };
 

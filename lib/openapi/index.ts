@@ -10,6 +10,7 @@ import { orbitFileOperations } from "./operations/orbit-files";
 import { stationOperations } from "./operations/stations";
 import { reportOperations } from "./operations/reports";
 import { responseOperations } from "./operations/responses";
+import { meetingOperations } from "./operations/meetings";
 
 /** Every /api/v1 operation. Each feature area adds its list here. */
 export const apiOperations: ApiOperation[] = [
@@ -23,6 +24,7 @@ export const apiOperations: ApiOperation[] = [
   ...stationOperations,
   ...reportOperations,
   ...responseOperations,
+  ...meetingOperations,
 ];
 
 export function openApiDocument() {

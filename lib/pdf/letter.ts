@@ -55,7 +55,7 @@ function splitBySubset(text: string): { subset: Subset; text: string }[] {
   return out;
 }
 
-function registerFonts(doc: PDFKit.PDFDocument) {
+export function registerFonts(doc: PDFKit.PDFDocument) {
   const faces: Record<Face, [number, "normal" | "italic"]> = {
     regular: [400, "normal"],
     bold: [700, "normal"],
@@ -69,7 +69,7 @@ function registerFonts(doc: PDFKit.PDFDocument) {
 }
 
 /** The mark: an eccentric orbit, its focus, and the craft near periapsis (as in components/brand-mark.tsx). */
-function drawMark(doc: PDFKit.PDFDocument, x: number, y: number, size: number) {
+export function drawMark(doc: PDFKit.PDFDocument, x: number, y: number, size: number) {
   const s = size / 32;
   doc.save();
   doc.translate(x, y).scale(s);
@@ -85,7 +85,7 @@ function drawMark(doc: PDFKit.PDFDocument, x: number, y: number, size: number) {
 const MARGIN = 56;
 const FOOTER_SPACE = 64;
 
-function writeRuns(doc: PDFKit.PDFDocument, runs: LetterRun[], options: { x?: number; y?: number; width: number; size: number; colour?: string }) {
+export function writeRuns(doc: PDFKit.PDFDocument, runs: LetterRun[], options: { x?: number; y?: number; width: number; size: number; colour?: string }) {
   const pieces = runs.flatMap((run) => splitBySubset(run.text).map((p) => ({ ...p, face: faceOf(run), href: run.href })));
   if (pieces.length === 0) pieces.push({ subset: "latin", text: " ", face: "regular", href: undefined });
   doc.fillColor(options.colour ?? colours.ink).fontSize(options.size);
@@ -144,7 +144,7 @@ function drawLetterhead(doc: PDFKit.PDFDocument, input: LetterPdfInput) {
   doc.y += 18;
 }
 
-function drawFooters(doc: PDFKit.PDFDocument) {
+export function drawFooters(doc: PDFKit.PDFDocument) {
   const range = doc.bufferedPageRange();
   for (let i = range.start; i < range.start + range.count; i++) {
     doc.switchToPage(i);

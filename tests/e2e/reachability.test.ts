@@ -84,7 +84,7 @@ describe("every page a role uses is reachable by links from /boards", () => {
     });
     const expected = {
       proposer: [b, `${b}/proposals`, p, `${p}/versions/1`, c, `${p}/responses`],
-      reviewer: [b, `${b}/reviews`, `${b}/conflicts`, `${p}/review`, c, `${p}/responses`],
+      reviewer: [b, `${b}/reviews`, `${b}/conflicts`, `${p}/review`, c, `${p}/responses`, `${c}/meeting`],
       chair: [
         b,
         c,
@@ -92,6 +92,7 @@ describe("every page a role uses is reachable by links from /boards", () => {
         `${c}/rubric`,
         `${c}/assignments`,
         `${c}/overview`,
+        `${c}/meeting`,
         p,
         `${p}/review`,
         `${p}/decision`,

@@ -10,6 +10,7 @@ import { orbitFileRouteCases } from "./orbit-files";
 import { stationActionCases, stationRouteCases } from "./stations";
 import { reportRouteCases } from "./reports";
 import { responseRouteCases } from "./responses";
+import { meetingRouteCases } from "./meetings";
 
 export const routeCases: RouteCase[] = [
   ...dossierRouteCases,
@@ -22,5 +23,6 @@ export const routeCases: RouteCase[] = [
   ...stationRouteCases,
   ...reportRouteCases,
   ...responseRouteCases,
+  ...meetingRouteCases,
 ];
 export const actionCases: ActionCase[] = [...accountActionCases, ...decisionActionCases, ...stationActionCases];

@@ -27,6 +27,7 @@ export default async function CallPage({ params }: { params: Promise<{ boardId: 
   const call = await orNotFound(getCall(user, boardId, callId));
   const isChair = can(user, "call.manage", { role: board.myRole });
   const isProposer = can(user, "proposal.create", { role: board.myRole });
+  const onPanel = can(user, "meeting.view", { role: board.myRole });
   const requirements = await listRequirements(user, boardId, callId);
   const responseWindow = await getResponseWindow(user, boardId, callId);
   const stationNames = isChair ? (await listStations(user, boardId)).stations.map((s) => s.name) : [];
@@ -41,6 +42,13 @@ export default async function CallPage({ params }: { params: Promise<{ boardId: 
           {formatDateTime(call.opensAt)} – {formatDateTime(call.closesAt)}
         </p>
         {call.description ? <p className="mt-2 whitespace-pre-line">{call.description}</p> : null}
+        {onPanel ? (
+          <p className="mt-2">
+            <Link href={`/boards/${boardId}/calls/${callId}/meeting`} className="font-semibold text-trajectory-700 underline">
+              Panel meeting
+            </Link>
+          </p>
+        ) : null}
       </PageTitle>
       <Panel title="What a dossier needs">
         <dl className="grid gap-2 text-sm sm:grid-cols-[12rem_1fr]">
