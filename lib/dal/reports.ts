@@ -11,6 +11,7 @@ import { allowanceText, orbitCheckNotice, rowHint, storedRows } from "@/lib/doss
 import { notFound } from "@/lib/errors";
 import { displayUnit, kindLabel, plainQuantities, policySummary, quantityName } from "@/lib/orbit/labels";
 import { mean, sampleStandardDeviation } from "@/lib/review/stats";
+import { calibrateScores, rankChangeNote } from "@/lib/review/calibration";
 import { renderReviewReportPdf } from "@/lib/pdf/review-report";
 import {
   formatFigure,
@@ -26,6 +27,8 @@ import {
 } from "@/lib/reports/review-report";
 import { proposalAccess, type ProposalAccess } from "./assignments";
 import { authorsOf } from "./conflicts";
+import { itemResponses } from "./item-responses";
+import { callScoreRows } from "./meetings";
 import { loadTemplate } from "./rubrics";
 
 type Db = Database | Transaction;
@@ -241,6 +244,7 @@ async function buildReport(
       ownerId: proposals.ownerId,
       boardName: boards.name,
       callTitle: calls.title,
+      callId: calls.id,
     })
     .from(proposals)
     .innerJoin(boards, eq(boards.id, proposals.boardId))
@@ -258,6 +262,8 @@ async function buildReport(
       weightedTotal: reviews.weightedTotal,
       rubricTemplateId: reviews.rubricTemplateId,
       status: reviews.status,
+      confidence: reviews.confidence,
+      expertise: reviews.expertise,
     })
     .from(assignments)
     .leftJoin(reviews, eq(reviews.assignmentId, assignments.id))
@@ -280,6 +286,33 @@ async function buildReport(
     const v = r.scores?.[id]?.score;
     return typeof v === "number" && Number.isFinite(v) ? v : null;
   };
+  // Calibration across the call (the panel's ridge fit of reviewer effects, docs/calibration.md):
+  // the call's latest reviewed versions, with this proposal's scores taken from this version.
+  const callRows = (await callScoreRows(boardId, access.callId, tx)).filter((r) => r.proposalId !== proposalId);
+  const mine = submitted
+    .filter((r) => r.weightedTotal !== null && r.weightedTotal !== undefined && r.reviewerId)
+    .map((r) => ({ proposalId, reviewerId: r.reviewerId!, total: Number(r.weightedTotal), scores: r.scores ?? {} }));
+  const observed = [...callRows, ...mine];
+  const fit = mine.length ? calibrateScores(observed.map((r) => ({ proposalId: r.proposalId, reviewerId: r.reviewerId, score: r.total }))) : null;
+  const fitted = fit?.proposals.find((p) => p.proposalId === proposalId) ?? null;
+  const calibratedOf = (criterionId: string): number | null => {
+    if (!fit) return null;
+    const byCriterion = calibrateScores(
+      observed.flatMap((r) => {
+        const v = r.scores[criterionId]?.score;
+        return typeof v === "number" && Number.isFinite(v) ? [{ proposalId: r.proposalId, reviewerId: r.reviewerId, score: v }] : [];
+      }),
+    );
+    return byCriterion.proposals.find((p) => p.proposalId === proposalId)?.calibratedMean ?? null;
+  };
+  const flags = new Map(
+    (fit?.outliers ?? [])
+      .filter((o) => o.proposalId === proposalId)
+      .map((o) => [
+        o.reviewerId,
+        `outlying: ${Math.abs(o.deviations).toFixed(1)} standard deviations ${o.deviations > 0 ? "above" : "below"} the other reviewers`,
+      ]),
+  );
   const totals = submitted
     .map((r) => r.weightedTotal)
     .filter((t): t is number => t !== null && t !== undefined)
@@ -291,6 +324,10 @@ async function buildReport(
       weightedTotal: r.weightedTotal === null || r.weightedTotal === undefined ? null : Number(r.weightedTotal),
       scores: Object.fromEntries(criteria.map((c) => [c.id, scoreOf(r, c.id)])),
       summary: r.summary ?? "",
+      // Shown to the chair only (issue 16: confidence and expertise weigh nothing and are the chair's to read).
+      confidence: reader.audience === "chair" ? (r.confidence ?? null) : null,
+      expertise: reader.audience === "chair" ? (r.expertise ?? null) : null,
+      flag: flags.get(r.reviewerId!) ?? null,
     })),
     assigned: reviewRows.length,
     perCriterion: criteria.map((c) => {
@@ -302,11 +339,19 @@ async function buildReport(
         rawMean: mean(values),
         min: values.length ? Math.min(...values) : null,
         max: values.length ? Math.max(...values) : null,
-        calibratedMean: null,
+        calibratedMean: calibratedOf(c.id),
       };
     }),
-    overall: { rawMean: mean(totals), spread: sampleStandardDeviation(totals), calibratedMean: null },
-    calibration: null,
+    overall: { rawMean: mean(totals), spread: sampleStandardDeviation(totals), calibratedMean: fitted?.calibratedMean ?? null },
+    calibration:
+      fit && fitted
+        ? {
+            method: `each reviewer's leniency estimated across the call's ${fit.proposals.length} reviewed ${fit.proposals.length === 1 ? "proposal" : "proposals"} as an additive effect shrunk toward zero (ridge, λ = ${fit.lambda}) and taken out of their scores.`,
+            // Where the proposal stands among the others is the chair's to know.
+            note: reader.audience === "chair" ? rankChangeNote(fitted) : null,
+            proposals: fit.proposals.length,
+          }
+        : null,
   };
 
   // Review items of this version with their discussion.
@@ -340,7 +385,18 @@ async function buildReport(
         )
         .orderBy(asc(reviewItemReplies.createdAt))
     : [];
-  await names.load([...itemRows.map((i) => i.authorId), ...replies.map((r) => r.authorId)]);
+  const responses = await itemResponses(
+    itemRows.map((i) => i.id),
+    tx,
+  );
+  const answers = [...responses.answers.values()];
+  const dispositionList = [...responses.dispositions.values()].flat();
+  await names.load([
+    ...itemRows.map((i) => i.authorId),
+    ...replies.map((r) => r.authorId),
+    ...answers.map((a) => a.authorId),
+    ...dispositionList.flatMap((d) => (d.actorId ? [d.actorId] : [])),
+  ]);
   const items: ReportItem[] = itemRows.map((i) => ({
     severity: i.severity,
     title: i.title,
@@ -351,6 +407,22 @@ async function buildReport(
     replies: replies
       .filter((r) => r.itemId === i.id)
       .map((r) => ({ authorLabel: names.label(r.authorId), body: r.body, createdAt: r.createdAt.toISOString() })),
+    answer: (() => {
+      const a = responses.answers.get(i.id);
+      if (!a) return null;
+      return {
+        authorLabel: names.label(a.authorId),
+        body: a.body,
+        updatedAt: a.updatedAt,
+        pointsAt: a.section ? `version ${a.section.versionNumber}, section “${a.section.heading}”` : null,
+      };
+    })(),
+    dispositions: (responses.dispositions.get(i.id) ?? []).map((d) => ({
+      label: d.label,
+      reason: d.reason,
+      actorLabel: d.actorId ? names.label(d.actorId) : d.actorRole === "chair" ? "Chair" : "A reviewer",
+      createdAt: d.createdAt,
+    })),
   }));
 
   // Orbit checks as stored at submission (the record is never rewritten).

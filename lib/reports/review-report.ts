@@ -33,6 +33,11 @@ export interface ReportReview {
   /** criterion id → score (null: not scored). */
   scores: Record<string, number | null>;
   summary: string;
+  /** The reviewer's confidence and expertise (chair's reports only; null when not stated). */
+  confidence: string | null;
+  expertise: string | null;
+  /** Set when the score lies more than 2 standard deviations from the other reviewers' (the panel's outlier flag). */
+  flag: string | null;
 }
 
 export interface ReportScores {
@@ -55,7 +60,7 @@ export interface ReportScores {
    * The calibration across the call (reviewer leniency removed), or null when the product
    * has no calibration to offer: the report then shows raw figures only and says so.
    */
-  calibration: { method: string; note: string | null } | null;
+  calibration: { method: string; note: string | null; proposals: number } | null;
 }
 
 export interface ReportItem {
@@ -67,6 +72,10 @@ export interface ReportItem {
   createdAt: string;
   /** Replies in the item's discussion, oldest first. */
   replies: { authorLabel: string; body: string; createdAt: string }[];
+  /** The proposers' answer in the response round (null: not answered). */
+  answer: { authorLabel: string; body: string; updatedAt: string; /** "version 2, section “Mission design”" */ pointsAt: string | null } | null;
+  /** What became of the item, oldest first: the last one stands. */
+  dispositions: { label: string; reason: string; actorLabel: string; createdAt: string }[];
 }
 
 export interface ReportCheckRow {
@@ -202,12 +211,20 @@ function scoreNodes(report: ReviewReport): ReportNode[] {
     }),
   });
   if (s.reviews.length) {
+    const stated = s.reviews.some((r) => r.confidence !== null || r.expertise !== null);
+    const flagged = s.reviews.some((r) => r.flag !== null);
     nodes.push({
       type: "table",
       caption: "Raw scores per review",
-      columns: ["Reviewer", ...s.criteria.map((c) => c.title), "Weighted total"],
+      columns: ["Reviewer", ...s.criteria.map((c) => c.title), "Weighted total", ...(stated ? ["Confidence", "Expertise"] : []), ...(flagged ? ["Flag"] : [])],
       numeric: [...s.criteria.map((_, i) => i + 1), s.criteria.length + 1],
-      rows: s.reviews.map((r) => [r.reviewerLabel, ...s.criteria.map((c) => formatScore(r.scores[c.id] ?? null, 0)), formatScore(r.weightedTotal)]),
+      rows: s.reviews.map((r) => [
+        r.reviewerLabel,
+        ...s.criteria.map((c) => formatScore(r.scores[c.id] ?? null, 0)),
+        formatScore(r.weightedTotal),
+        ...(stated ? [r.confidence ?? "not stated", r.expertise ?? "not stated"] : []),
+        ...(flagged ? [r.flag ?? ""] : []),
+      ]),
     });
     for (const r of s.reviews) if (r.summary.trim()) nodes.push({ type: "paragraph", text: `${r.reviewerLabel}: ${r.summary.trim()}` });
   } else {
@@ -223,17 +240,40 @@ function itemNodes(report: ReviewReport, dateText: (iso: string) => string): Rep
     return nodes;
   }
   const open = report.items.filter((i) => i.status === "open").length;
-  nodes.push({ type: "paragraph", text: `${report.items.length} ${report.items.length === 1 ? "item" : "items"}, ${open} still open.` });
+  const answered = report.items.filter((i) => i.answer).length;
+  const disposed = report.items.filter((i) => i.dispositions.length).length;
+  nodes.push({
+    type: "paragraph",
+    text: `${report.items.length} ${report.items.length === 1 ? "item" : "items"}, ${open} still open; ${answered} answered by the proposers, ${disposed} with a disposition.`,
+  });
   report.items.forEach((item, i) => {
     nodes.push({ type: "heading", level: 3, text: `${i + 1}. [${SEVERITY_LABELS[item.severity]}] ${item.title}` });
+    const standing = item.dispositions[item.dispositions.length - 1];
     nodes.push({
       type: "facts",
       pairs: [
         ["Raised by", `${item.authorLabel}, ${dateText(item.createdAt)}`],
         ["Status", item.status],
+        ["Disposition", standing ? `${standing.label}${standing.reason ? ` — ${standing.reason}` : ""}` : "none yet"],
       ],
     });
     nodes.push({ type: "paragraph", text: item.body });
+    if (item.answer) {
+      nodes.push({
+        type: "paragraph",
+        tone: "strong",
+        text: `Answer by ${item.answer.authorLabel}, ${dateText(item.answer.updatedAt)}${item.answer.pointsAt ? ` (points at ${item.answer.pointsAt})` : ""}:`,
+      });
+      nodes.push({ type: "paragraph", text: item.answer.body });
+    } else nodes.push({ type: "paragraph", tone: "muted", text: "No answer from the proposers." });
+    if (item.dispositions.length) {
+      nodes.push({
+        type: "table",
+        caption: `Disposition history of item ${i + 1}`,
+        columns: ["When", "Who", "Disposition", "Why"],
+        rows: item.dispositions.map((d) => [dateText(d.createdAt), d.actorLabel, d.label, d.reason]),
+      });
+    }
     if (item.replies.length) {
       nodes.push({
         type: "table",

@@ -8,7 +8,21 @@ import crypto from "node:crypto";
 import { and, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
-import { boards, checkResults, outboxMessages, proposals, reviewItemReplies, users } from "@/db/schema";
+import {
+  assignments,
+  boards,
+  checkResults,
+  outboxMessages,
+  proposals,
+  proposalVersions,
+  responseWindows,
+  reviewItemAnswers,
+  reviewItemDispositions,
+  reviewItemReplies,
+  reviews,
+  users,
+} from "@/db/schema";
+import { calibrateScores } from "@/lib/review/calibration";
 import { createDecision, letterObjectKey } from "@/lib/dal/decisions";
 import { getReviewReport, getReviewReportPdf, reportObjectKey } from "@/lib/dal/reports";
 import { statObjectOrNull } from "@/storage/object-store";
@@ -18,7 +32,7 @@ import { isAppError } from "@/lib/errors";
 import { renderReportDocument } from "@/lib/reports/html";
 import { CLOSES_QUESTION, FILE_QUESTION, NUMBERS_QUESTION, REPORT_SECTIONS } from "@/lib/reports/review-report";
 import { appUrl } from "../support/app";
-import { asSessionUser, unique } from "../support/factories";
+import { addMember, asSessionUser, createUser, unique } from "../support/factories";
 import { HttpClient } from "../support/http";
 import { addVersion, decisionScenario, dossierDoc, parkingOrbitBlock } from "./decision-fixtures";
 
@@ -152,9 +166,11 @@ describe("the review report", () => {
     expect(html).toContain("This is the first version");
     expect(html).toContain(`Reviewer 1 · ${s.reviewer.name}`);
     expect(html).not.toMatch(/<script/i);
-    // No calibration in the product yet: raw figures only, never an empty "calibrated" column.
-    expect(report.scores.calibration).toBeNull();
-    expect(html).not.toContain("Calibrated mean");
+    // One reviewed proposal in the call: its calibrated means are its raw means (the proposal effect absorbs the reviewers').
+    expect(report.scores.calibration).not.toBeNull();
+    expect(report.scores.overall.calibratedMean).toBeCloseTo(4.0, 10);
+    expect(report.scores.perCriterion.map((c) => c.calibratedMean)).toEqual([expect.closeTo(4, 10), expect.closeTo(4, 10)]);
+    expect(html).toContain("Calibrated mean");
   });
 
   it("lets proposers read it only once their version is decided, and never names the reviewers to them", async () => {
@@ -255,6 +271,212 @@ describe("the review report", () => {
       expect(text).toContain(words);
     expect(text).toContain(CAUTION);
     expect(text).toContain(s.reviewer.name);
+  });
+});
+
+/**
+ * Two more proposals in the scenario's call, scored by the scenario's second reviewer and a
+ * third one, so that the call's calibration has something to fit: the second reviewer scores
+ * two points above the third on both.
+ */
+async function otherProposalsInTheCall(s: Awaited<ReturnType<typeof scenario>>) {
+  const third = await createUser({ name: `Lena Vasquez ${unique("n").slice(-6)}` });
+  await addMember(s.board.id, third.id, "reviewer");
+  const observations: { proposalId: string; reviewerId: string; total: number; science: number; feasibility: number }[] = [];
+  for (const [title, lenient, strict] of [
+    ["Tarn weather sounder", 5, 3],
+    ["Fjell ice mapper", 4.6, 2.6],
+  ] as const) {
+    const [proposal] = await db()
+      .insert(proposals)
+      .values({
+        boardId: s.board.id,
+        callId: s.call.id,
+        ownerId: s.proposer.id,
+        title: unique(title),
+        missionType: "earth observation",
+        status: "in_review",
+        latestVersion: 1,
+      })
+      .returning();
+    const [version] = await db()
+      .insert(proposalVersions)
+      .values({
+        proposalId: proposal!.id,
+        boardId: s.board.id,
+        number: 1,
+        title: proposal!.title,
+        document: { type: "doc", content: [] },
+        documentKey: `boards/${s.board.id}/proposals/${proposal!.id}/versions/1/document.json`,
+        htmlKey: `boards/${s.board.id}/proposals/${proposal!.id}/versions/1/document.html`,
+        submittedBy: s.proposer.id,
+      })
+      .returning();
+    for (const [reviewer, total] of [
+      [s.reviewer2, lenient],
+      [third, strict],
+    ] as const) {
+      const [a] = await db()
+        .insert(assignments)
+        .values({
+          boardId: s.board.id,
+          proposalId: proposal!.id,
+          versionId: version!.id,
+          reviewerId: reviewer.id,
+          dueAt: new Date(Date.now() + 86_400_000),
+          assignedBy: s.chair.id,
+        })
+        .returning();
+      const science = Math.round(total);
+      const feasibility = Math.max(1, Math.round(total) - 1);
+      await db()
+        .insert(reviews)
+        .values({
+          assignmentId: a!.id,
+          boardId: s.board.id,
+          proposalId: proposal!.id,
+          versionId: version!.id,
+          reviewerId: reviewer.id,
+          rubricTemplateId: s.rubric.id,
+          scores: { science: { score: science, comment: "" }, feasibility: { score: feasibility, comment: "" } },
+          weightedTotal: total,
+          status: "submitted",
+          submittedAt: new Date(),
+        });
+      observations.push({ proposalId: proposal!.id, reviewerId: reviewer.id, total, science, feasibility });
+    }
+  }
+  // The scenario's own proposal (decision-fixtures.ts): totals 3.6 and 4.4; feasibility 3 and 5; mission return 4 and 4.
+  observations.push({ proposalId: s.proposal.id, reviewerId: s.reviewer.id, total: 3.6, science: 4, feasibility: 3 });
+  observations.push({ proposalId: s.proposal.id, reviewerId: s.reviewer2.id, total: 4.4, science: 4, feasibility: 5 });
+  return observations;
+}
+
+describe("the review report: calibrated scores, confidence, answers and dispositions", () => {
+  it("shows calibrated means beside the raw ones, computed over the whole call with the panel's calibration", async () => {
+    const s = await scenario();
+    const observations = await otherProposalsInTheCall(s);
+    const chair = await getReviewReport(asSessionUser(s.chair), s.board.id, s.proposal.id, 1);
+    // The same observations through lib/review/calibration.ts (its arithmetic is checked against a hand-worked example there).
+    const expected = (pick: (o: (typeof observations)[number]) => number) =>
+      calibrateScores(observations.map((o) => ({ proposalId: o.proposalId, reviewerId: o.reviewerId, score: pick(o) }))).proposals.find(
+        (p) => p.proposalId === s.proposal.id,
+      )!.calibratedMean;
+    expect(chair.scores.calibration).not.toBeNull();
+    expect(chair.scores.calibration!.proposals).toBe(3);
+    expect(chair.scores.overall.rawMean).toBeCloseTo(4.0, 10);
+    expect(chair.scores.overall.calibratedMean).toBeCloseTo(
+      expected((o) => o.total),
+      10,
+    );
+    // The second reviewer scores high across the call, so taking out their leniency lowers this proposal's mean.
+    expect(chair.scores.overall.calibratedMean!).toBeLessThan(4.0);
+    expect(chair.scores.perCriterion.map((c) => c.title)).toEqual(["Mission return", "Feasibility"]);
+    expect(chair.scores.perCriterion[0]!.calibratedMean).toBeCloseTo(
+      expected((o) => o.science),
+      10,
+    );
+    expect(chair.scores.perCriterion[1]!.calibratedMean).toBeCloseTo(
+      expected((o) => o.feasibility),
+      10,
+    );
+    const html = renderReportDocument(chair, formatDateTime);
+    expect(html).toContain("Scores by criterion, raw and calibrated");
+    expect(html).toContain("Calibrated mean");
+    expect(html).toContain("ridge, λ = 2");
+    const pdf = (await pdfParse((await getReviewReportPdf(asSessionUser(s.chair), s.board.id, s.proposal.id, 1)).pdf)).text;
+    expect(pdf).toContain("Calibrated mean");
+    expect(pdf).toContain(chair.scores.overall.calibratedMean!.toFixed(2));
+  });
+
+  it("shows the reviewers' confidence and expertise to the chair only", async () => {
+    const s = await scenario();
+    await db().update(reviews).set({ confidence: "high", expertise: "medium" }).where(eq(reviews.assignmentId, s.assignments[0]!.id));
+    const chair = await getReviewReport(asSessionUser(s.chair), s.board.id, s.proposal.id, 1);
+    expect(chair.scores.reviews.map((r) => [r.confidence, r.expertise])).toEqual([
+      ["high", "medium"],
+      [null, null],
+    ]);
+    const html = renderReportDocument(chair, formatDateTime);
+    expect(html).toContain(">Confidence<");
+    expect(html).toContain(">not stated<");
+    await createDecision(asSessionUser(s.chair), s.board.id, s.proposal.id, { outcome: "revise", letter });
+    const theirs = await getReviewReport(asSessionUser(s.proposer), s.board.id, s.proposal.id, 1);
+    expect(theirs.scores.reviews.map((r) => [r.confidence, r.expertise])).toEqual([
+      [null, null],
+      [null, null],
+    ]);
+    expect(renderReportDocument(theirs, formatDateTime)).not.toContain(">Confidence<");
+  });
+
+  it("lists each item's answer and its disposition history (who, when, why), with names as the reader may see them", async () => {
+    const s = await scenario();
+    const [window] = await db()
+      .insert(responseWindows)
+      .values({
+        boardId: s.board.id,
+        callId: s.call.id,
+        opensAt: new Date(Date.now() - 2 * 86_400_000),
+        closesAt: new Date(Date.now() - 86_400_000),
+        openedBy: s.chair.id,
+      })
+      .returning();
+    await db().insert(reviewItemAnswers).values({
+      boardId: s.board.id,
+      reviewItemId: s.items.major.id,
+      windowId: window!.id,
+      authorId: s.proposer.id,
+      body: "The period was computed with a solar day; version 2 uses the sidereal day.",
+    });
+    await db()
+      .insert(reviewItemDispositions)
+      .values([
+        {
+          boardId: s.board.id,
+          reviewItemId: s.items.major.id,
+          disposition: "fix-next-version",
+          reason: "The answer is right; the table must change.",
+          actorId: s.reviewer.id,
+          actorRole: "reviewer",
+          createdAt: new Date(Date.now() - 3_600_000),
+        },
+        {
+          boardId: s.board.id,
+          reviewItemId: s.items.major.id,
+          disposition: "closed",
+          reason: "Settled in the panel meeting.",
+          actorId: s.chair.id,
+          actorRole: "chair",
+        },
+      ]);
+    const chair = await getReviewReport(asSessionUser(s.chair), s.board.id, s.proposal.id, 1);
+    const major = chair.items[0]!;
+    expect(major.answer).toMatchObject({
+      authorLabel: s.proposer.name,
+      body: "The period was computed with a solar day; version 2 uses the sidereal day.",
+      pointsAt: null,
+    });
+    expect(major.dispositions.map((d) => [d.label, d.actorLabel, d.reason])).toEqual([
+      ["Will be fixed in the next version", `Reviewer 1 · ${s.reviewer.name}`, "The answer is right; the table must change."],
+      ["Closed", `Chair · ${s.chair.name}`, "Settled in the panel meeting."],
+    ]);
+    expect(chair.items[1]!.answer).toBeNull();
+    expect(chair.items[1]!.dispositions).toEqual([]);
+    const html = renderReportDocument(chair, formatDateTime);
+    expect(html).toContain("Disposition history of item 1");
+    expect(html).toContain("Closed — Settled in the panel meeting.");
+    expect(html).toContain(`Answer by ${s.proposer.name}`);
+    expect(html).toContain("No answer from the proposers.");
+
+    await createDecision(asSessionUser(s.chair), s.board.id, s.proposal.id, { outcome: "revise", letter });
+    const theirs = await getReviewReport(asSessionUser(s.proposer), s.board.id, s.proposal.id, 1);
+    expect(theirs.items[0]!.dispositions.map((d) => d.actorLabel)).toEqual(["Reviewer 1", "Chair"]);
+    const pdf = (await pdfParse((await getReviewReportPdf(asSessionUser(s.proposer), s.board.id, s.proposal.id, 1)).pdf)).text.replace(/\s+/g, " ");
+    expect(pdf).toContain("Disposition history of item 1");
+    expect(pdf).toContain("Will be fixed in the next version");
+    expect(pdf).toContain("version 2 uses the sidereal day");
+    expect(pdf).not.toContain(s.reviewer.name);
+    expect(pdf).not.toContain(s.chair.name);
   });
 });
 
