@@ -36,7 +36,9 @@ describe("the review report in the browser", () => {
 
     const report = chair.getByRole("article", { name: "Review report" });
     for (const title of Object.values(REPORT_SECTIONS)) await report.getByRole("heading", { name: title, level: 2 }).waitFor();
-    await report.getByRole("table", { name: "Scores by criterion, raw" }).getByRole("rowheader", { name: "Feasibility" }).waitFor();
+    const byCriterion = report.getByRole("table", { name: "Scores by criterion, raw and calibrated" });
+    await byCriterion.getByRole("rowheader", { name: "Feasibility" }).waitFor();
+    await byCriterion.getByRole("columnheader", { name: "Calibrated mean" }).waitFor();
     await report
       .getByRole("table", { name: "Raw scores per review" })
       .getByRole("rowheader", { name: `Reviewer 1 · ${reviewerName}` })
