@@ -4,8 +4,8 @@
  * quantity it can derive, plus reasons for the ones that do not exist for this case
  * (e.g. a period asked of a hyperbola).
  */
-import { SECONDS_PER_DAY, STANDARD_GRAVITY_KM_S2, type Body, type BodyName } from "./constants";
-import { resolveBody } from "./bodies";
+import { SECONDS_PER_DAY, STANDARD_GRAVITY_KM_S2, type Body, type BodyName } from "../constants";
+import { resolveBody } from "../bodies";
 import {
   angularMomentum,
   apoapsisRadius,
@@ -20,7 +20,7 @@ import {
   type ShapeInput,
   specificEnergy,
   visViva,
-} from "./conics";
+} from "../conics";
 import {
   eccentricFromTrue,
   hyperbolicFromTrue,
@@ -32,29 +32,29 @@ import {
   solveKeplerHyperbolic,
   trueFromEccentric,
   trueFromHyperbolic,
-} from "./anomalies/kepler";
-import { fail, fmt } from "./errors";
-import { departure } from "./escape";
-import { interplanetaryHohmann, sphereOfInfluence, type PlanetLeg } from "./interplanetary";
-import { inclinationForNodalRate, j2SecularRates } from "./j2";
-import { lambert } from "./lambert";
-import { biElliptic, combinedPlaneChange, hohmann, simplePlaneChange } from "./maneuvers";
-import { propagate } from "./propagation";
-import { quantityInfo, quantityInfoFor } from "./quantities";
-import { deltaVBudget, solveRocket } from "./rocket";
-import type { ComputedValue } from "./schema";
-import { elementsToState, stateToElements } from "./state-vectors";
-import { eclipseFraction } from "./eclipse";
-import { contactGeometry, maxPassDuration } from "./ground-contact";
-import { DEG, RAD, norm, type Vec3 } from "./vector";
-import { contactTimeKind } from "./kinds/contact-time";
-import { linkBudgetKind } from "./kinds/link-budget";
-import { repeatGroundTrackKind } from "./kinds/repeat-ground-track";
-import { lifetimeKind } from "./kinds/lifetime";
-import { disposalKind } from "./kinds/disposal";
-import { massBudgetKind } from "./kinds/mass-budget";
-import { phasedDeltaVBudget, phasedValues, readPhases } from "./kinds/delta-v-budget";
-import { SHAPE_FIELDS } from "./kinds/shared";
+} from "../anomalies/kepler";
+import { fail, fmt } from "../errors";
+import { departure } from "../escape";
+import { interplanetaryHohmann, sphereOfInfluence, type PlanetLeg } from "../interplanetary";
+import { inclinationForNodalRate, j2SecularRates } from "../j2";
+import { lambert } from "../lambert";
+import { biElliptic, combinedPlaneChange, hohmann, simplePlaneChange } from "../maneuvers";
+import { propagate } from "../propagation";
+import { quantityInfo, quantityInfoFor } from "../quantities";
+import { deltaVBudget, solveRocket } from "../rocket";
+import type { ComputedValue } from "../schema";
+import { elementsToState, stateToElements } from "../state-vectors";
+import { eclipseFraction } from "../eclipse";
+import { contactGeometry, maxPassDuration } from "../ground-contact";
+import { DEG, RAD, norm, type Vec3 } from "../vector";
+import { contactTimeKind } from "./contact-time";
+import { linkBudgetKind } from "./link-budget";
+import { repeatGroundTrackKind } from "./repeat-ground-track";
+import { lifetimeKind } from "./lifetime";
+import { disposalKind } from "./disposal";
+import { massBudgetKind } from "./mass-budget";
+import { phasedDeltaVBudget, phasedValues, readPhases } from "./delta-v-budget";
+import { SHAPE_FIELDS } from "./shared";
 
 /** One conic to draw with r(θ) = p / (1 + e cos θ), rotated by argPeriapsis in the plot plane. */
 export interface PlotConic {
