@@ -5,7 +5,7 @@
 import type { Body } from "../constants";
 import { contactStatistics, stationPasses, unionOfPasses, type Pass } from "../contact";
 import { fail, fmt } from "../errors";
-import type { Inputs } from "../kinds";
+import type { Inputs } from "./types";
 import type { ComputedValue } from "../schema";
 import { evaluation, ORBIT_SHAPE_NAMES, readClosedShape, readContactOrbit, readStations, type CoverageKindDef } from "./coverage-shared";
 

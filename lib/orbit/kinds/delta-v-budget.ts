@@ -10,9 +10,11 @@
  */
 import { STANDARD_GRAVITY_KM_S2 } from "../constants";
 import { fail, fmt } from "../errors";
-import type { Inputs } from "../kinds";
+import { deltaVBudget } from "../rocket";
 import type { ComputedValue } from "../schema";
+import { result } from "./orbit-shape";
 import { fieldNumber, objectArray } from "./shared";
+import type { Inputs, KindDef } from "./types";
 
 export const PHASE_TYPES = ["deterministic", "statistical"] as const;
 export type PhaseType = (typeof PHASE_TYPES)[number];
@@ -191,3 +193,77 @@ export function phasedValues(b: PhasedBudgetResult, requiredMargin: number | und
     closesWithoutStatisticalMargins: b.closesWithoutStatisticalMargins,
   };
 }
+
+export const deltaVBudgetKind: KindDef = {
+  usesBody: false,
+  summary: "Δv budget against the vehicle's rocket-equation capability",
+  givenRule:
+    "maneuvers [{ name, deltaV (km/s) }] or phases [{ name, type: deterministic or statistical, margin (fraction), maneuvers: [{ name, deltaV, specificImpulse? or engine: main or thrusters }] }], specificImpulse (s, main engine), optional thrusterSpecificImpulse (s), initialMass and finalMass (kg), optional requiredMargin, residualFraction and lossFactor (fractions)",
+  given: [
+    ["maneuvers", "choice"],
+    ["phases", "choice"],
+    ["specificImpulse", "required"],
+    ["thrusterSpecificImpulse", "optional"],
+    ["initialMass", "required"],
+    ["finalMass", "required"],
+    ["requiredMargin", "optional"],
+    ["residualFraction", "optional"],
+    ["lossFactor", "optional"],
+  ],
+  computed: [
+    "deltaVRequired",
+    "deltaVAvailable",
+    "margin",
+    "marginOk",
+    "deltaVWithMargins",
+    "phases",
+    "phaseDeltaV",
+    "phaseDeltaVAvailable",
+    "phasePropellant",
+    "propellantRequired",
+    "propellantLoaded",
+    "propellantUsable",
+    "propellantRemaining",
+    "closes",
+    "closesWithoutStatisticalMargins",
+  ],
+  evaluate(g, body, options) {
+    if (g.has("phases")) {
+      if (g.has("maneuvers")) fail("give maneuvers (a single list) or phases, not both");
+      const isp = g.num("specificImpulse", "positive");
+      const b = phasedDeltaVBudget(
+        readPhases(g, isp),
+        isp,
+        g.num("initialMass", "positive"),
+        g.num("finalMass", "positive"),
+        g.optNum("residualFraction", "nonNegative") ?? 0,
+        g.optNum("lossFactor", "nonNegative") ?? 0,
+      );
+      const loss = g.optNum("lossFactor");
+      return result(phasedValues(b, g.optNum("requiredMargin")), body, {
+        messages: loss ? [`a loss factor of ${fmt(loss * 100)} % is the proposer's stated assumption for finite burns or low thrust`] : [],
+      });
+    }
+    if (!g.has("maneuvers")) fail("give maneuvers [{ name, deltaV }] or phases [{ name, type, margin, maneuvers }]");
+    const raw = g.value("maneuvers");
+    if (!Array.isArray(raw)) fail('given.maneuvers must be an array such as [{ "name": "orbit raising", "deltaV": 0.12 }]');
+    if (raw.length > 500) fail("given.maneuvers has more than 500 entries");
+    const list = raw.map((m, i) => {
+      if (typeof m !== "object" || m === null || Array.isArray(m)) fail(`maneuvers[${i}] must be an object { name, deltaV }`);
+      const o = m as Record<string, unknown>;
+      if (typeof o.deltaV !== "number" || !Number.isFinite(o.deltaV)) fail(`maneuvers[${i}].deltaV must be a finite number in km/s`);
+      const name = typeof o.name === "string" ? o.name : `maneuver ${i + 1}`;
+      return { name, deltaV: o.deltaV };
+    });
+    const req = g.optNum("requiredMargin") ?? 0;
+    const b = deltaVBudget(
+      list,
+      g.num("specificImpulse", "positive"),
+      g.num("initialMass", "positive"),
+      g.num("finalMass", "positive"),
+      req,
+      options?.g0 ?? STANDARD_GRAVITY_KM_S2,
+    );
+    return result({ ...b }, body);
+  },
+};

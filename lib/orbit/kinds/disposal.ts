@@ -6,7 +6,7 @@ import { STANDARD_GRAVITY_KM_S2 } from "../constants";
 import { visViva } from "../conics";
 import { decayOrbit, REENTRY_PERIGEE_KM } from "../decay";
 import { fail, fmt } from "../errors";
-import type { KindDef } from "../kinds";
+import type { KindDef } from "./types";
 import { DRAG_GIVEN, DRAG_RULE, evaluation, readBallisticCoefficient, readClosedOrbit, readSolarActivity, requireEarth, SHAPE_GIVEN_CHOICES } from "./shared";
 
 export const disposalKind: KindDef = {

@@ -5,7 +5,7 @@
 import type { Body } from "../constants";
 import { fail, fmt } from "../errors";
 import { contactGeometry } from "../ground-contact";
-import type { Inputs } from "../kinds";
+import type { Inputs } from "./types";
 import { DEG, evaluation, type CoverageKindDef } from "./coverage-shared";
 
 /** Speed of light, m/s (exact, SI definition). */

@@ -11,7 +11,7 @@
  * maturity classes above.
  */
 import { fail, fmt } from "../errors";
-import type { KindDef } from "../kinds";
+import type { KindDef } from "./types";
 import type { ComputedValue } from "../schema";
 import { evaluation, fieldNumber, objectArray } from "./shared";
 

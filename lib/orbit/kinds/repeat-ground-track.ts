@@ -5,7 +5,7 @@
 import type { Body } from "../constants";
 import { fail, fmt } from "../errors";
 import { j2SecularRates } from "../j2";
-import type { Inputs } from "../kinds";
+import type { Inputs } from "./types";
 import { DEG, evaluation, type CoverageKindDef } from "./coverage-shared";
 
 export const MAX_REPEAT_ITERATIONS = 100;
