@@ -68,8 +68,9 @@ function propellantFor(phases: readonly BudgetPhase[], m0: number, loss: number,
     const margin = dropStatisticalMargins && ph.type === "statistical" ? 0 : ph.margin;
     let used = 0;
     for (const mv of ph.maneuvers) {
+      // Δv with margin = Δv × (1 + loss factor) × (1 + phase margin) (common practice in Δv budgets).
       const dv = mv.deltaV * (1 + loss) * (1 + margin);
-      // Rocket equation: mp = m(1 − e^(−Δv/(Isp·g0))).
+      // Rocket equation mp = m(1 − e^(−Δv/(Isp·g0))): Curtis, "Orbital Mechanics for Engineering Students" (3rd ed.), ch. 11, the rocket equation (recalled from memory).
       const mp = m * (1 - Math.exp(-dv / (mv.specificImpulse * STANDARD_GRAVITY_KM_S2)));
       used += mp;
       m -= mp;
@@ -93,14 +94,15 @@ export function phasedDeltaVBudget(
   if (!(residualFraction >= 0 && residualFraction < 1)) fail(`given.residualFraction must be a fraction from 0 to below 1 (got ${fmt(residualFraction)})`);
   if (!(lossFactor >= 0 && lossFactor < 1)) fail(`given.lossFactor must be a fraction from 0 to below 1 (got ${fmt(lossFactor)})`);
   const loaded = m0 - mf;
-  // Usable propellant: the loaded propellant less the residual (unusable) fraction.
+  // Usable propellant: the loaded propellant less the residual (unusable) fraction (common practice in propellant budgets).
   const usable = loaded * (1 - residualFraction);
   const full = propellantFor(phases, m0, lossFactor, false);
   const lean = propellantFor(phases, m0, lossFactor, true);
   let cumulative = 0;
   const results: PhaseResult[] = phases.map((ph, i) => {
+    // A phase's Δv = Σ Δv × (1 + loss factor) (common practice in Δv budgets).
     const dv = ph.maneuvers.reduce((s, mv) => s + mv.deltaV, 0) * (1 + lossFactor);
-    // Tsiolkovsky (Δv = Isp·g0·ln(m_start/m_end)) on the usable propellant still aboard when the phase starts.
+    // Tsiolkovsky Δv = Isp·g0·ln(m_start/m_end) on the usable propellant still aboard when the phase starts: Curtis, "Orbital Mechanics for Engineering Students" (3rd ed.), ch. 11, the rocket equation (recalled from memory).
     const startMass = m0 - cumulative;
     const left = Math.max(0, usable - cumulative);
     const deltaVAvailable = left > 0 && startMass - left > 0 ? mainIsp * STANDARD_GRAVITY_KM_S2 * Math.log(startMass / (startMass - left)) : 0;
@@ -119,14 +121,14 @@ export function phasedDeltaVBudget(
   const deltaVRequired = results.reduce((s, p) => s + p.deltaV, 0);
   if (!(deltaVRequired > 0)) fail("the phases add up to zero Δv: a margin is undefined");
   const deltaVWithMargins = results.reduce((s, p) => s + p.deltaVWithMargin, 0);
-  // Tsiolkovsky with the main engine's Isp on the usable propellant.
+  // Tsiolkovsky Δv = Isp·g0·ln(m0/(m0 − usable)) with the main engine's Isp: Curtis, "Orbital Mechanics for Engineering Students" (3rd ed.), ch. 11, the rocket equation (recalled from memory).
   const deltaVAvailable = mainIsp * STANDARD_GRAVITY_KM_S2 * Math.log(m0 / (m0 - usable));
   return {
     phases: results,
     deltaVRequired,
     deltaVWithMargins,
     deltaVAvailable,
-    // Margin as a fraction of the requirement (available − required)/required.
+    // Margin as a fraction of the requirement (available − required)/required (common practice).
     margin: (deltaVAvailable - deltaVRequired) / deltaVRequired,
     propellantRequired: full.total,
     propellantLoaded: loaded,

@@ -21,6 +21,7 @@ export const eclipseKind: KindDef = {
     const ecl = eclipseFraction(body.radius, r - body.radius, beta);
     const T = periodOf(body.mu, r);
     const messages = ecl.eclipseFraction === 0 ? [`no eclipse: |beta| is above the critical angle ${fmt(ecl.criticalBetaAngle * RAD)}° for this altitude`] : [];
+    // Eclipse duration = shadow fraction × period (definition; the fraction's source is in ../eclipse.ts).
     return result({ eclipseDuration: ecl.eclipseFraction * T, eclipseFraction: ecl.eclipseFraction, sunlitFraction: ecl.sunlitFraction, period: T }, body, {
       messages,
       conics: [plotOf("orbit", circle(r))],

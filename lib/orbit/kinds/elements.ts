@@ -29,7 +29,7 @@ export const elementsKind: KindDef = {
       if (classify(e) === "parabolic") fail("a parabola (e = 1) has no finite semi-major axis; give semiLatusRectum");
       if ((a > 0 && e > 1) || (a < 0 && e < 1) || a === 0)
         fail(`semiMajorAxis ${fmt(a)} km and eccentricity ${fmt(e)} disagree in sign convention (a > 0 for e < 1, a < 0 for e > 1)`);
-      // p = a(1 − e²).
+      // p = a(1 − e²): Curtis, "Orbital Mechanics for Engineering Students" (3rd ed.), ch. 2, elliptical orbits (recalled from memory).
       p = a * (1 - e * e);
     }
     const i = angleBetweenZeroAnd(g, "inclination", 180);
@@ -37,6 +37,7 @@ export const elementsKind: KindDef = {
     const w = g.num("argPeriapsis") * DEG;
     const nu = g.num("trueAnomaly") * DEG;
     const s = elementsToState(p, e, i, raan, w, nu, body.mu);
+    // a = p / (1 − e²), none for the parabola: Curtis, "Orbital Mechanics for Engineering Students" (3rd ed.), ch. 2, the orbit formulas (recalled from memory).
     const conic = { p, e, a: classify(e) === "parabolic" ? Infinity : p / (1 - e * e) };
     const messages = stateWarnings(s.position, conic, body, "the position");
     return result({ position: [...s.position], velocity: [...s.velocity], radius: norm(s.position), speed: norm(s.velocity) }, body, {

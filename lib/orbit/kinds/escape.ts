@@ -17,10 +17,10 @@ export const escapeKind: KindDef = {
   evaluate(g, body) {
     const r = circularRadius(g, body, "parkingAltitude");
     if (g.has("hyperbolicExcessSpeed") === g.has("c3")) fail("give hyperbolicExcessSpeed or c3 (exactly one)");
-    // C3 = v∞².
+    // C3 = v∞²: Curtis, "Orbital Mechanics for Engineering Students" (3rd ed.), ch. 8, planetary departure (recalled from memory).
     const vInf = g.has("c3") ? Math.sqrt(g.num("c3", "nonNegative")) : g.num("hyperbolicExcessSpeed", "nonNegative");
     const d = departure(body.mu, r, vInf);
-    // Departure hyperbola: e = 1 + rp v∞²/μ, p = rp(1 + e).
+    // Departure hyperbola e = 1 + rp v∞²/μ, p = rp(1 + e), a = −μ/v∞²: Curtis, "Orbital Mechanics for Engineering Students" (3rd ed.), ch. 8, planetary departure (recalled from memory).
     const e = 1 + (r * vInf * vInf) / body.mu;
     return result({ ...d }, body, {
       conics: [

@@ -99,35 +99,36 @@ export function conicValues(c: Conic, body: Body, theta?: number): Pick<Evaluati
   values.periapsisRadius = rp;
   values.periapsisAltitude = rp - body.radius;
   values.orbitType = type;
-  // Energy integral ε = −μ/2a and h = √(μp).
+  // Energy integral ε = −μ/2a and h = √(μp): Curtis, "Orbital Mechanics for Engineering Students" (3rd ed.), ch. 2, the energy law and the orbit formulas (recalled from memory).
   values.specificEnergy = specificEnergy(mu, c.a);
   values.specificAngularMomentum = angularMomentum(mu, c.p);
-  // Vis-viva at periapsis.
+  // Vis-viva at periapsis: Vallado, "Fundamentals of Astrodynamics and Applications" (4th ed.), ch. 1, the vis-viva equation (recalled from memory).
   values.periapsisSpeed = visViva(mu, rp, c.a);
   if (closed) {
     const ra = apoapsisRadius(c);
-    // Semi-minor axis of an ellipse b = a√(1 − e²) (conic geometry).
+    // Semi-minor axis of an ellipse b = a√(1 − e²): Curtis, "Orbital Mechanics for Engineering Students" (3rd ed.), ch. 2, elliptical orbits (recalled from memory).
     values.semiMinorAxis = c.a * Math.sqrt(1 - c.e * c.e);
     values.apoapsisRadius = ra;
     values.apoapsisAltitude = ra - body.radius;
     values.period = periodOf(mu, c.a);
-    // Mean motion n = √(μ/a³).
+    // Mean motion n = √(μ/a³): Curtis, "Orbital Mechanics for Engineering Students" (3rd ed.), ch. 3, elliptical orbits (recalled from memory).
     values.meanMotion = Math.sqrt(mu / c.a ** 3) * RAD;
-    // Revolutions per day = 86 400 s / period (SI day, as in TLE mean motion).
+    // Revolutions per day = 86 400 s / period (SI day): the mean-motion field of the two-line element format, Hoots & Roehrich, Spacetrack Report No. 3 (1980) ({R}).
     values.meanMotionRevPerDay = SECONDS_PER_DAY / (values.period as number);
     values.apoapsisSpeed = visViva(mu, ra, c.a);
     unavailable.hyperbolicExcessSpeed = `a hyperbolic excess speed exists only for open orbits (e ≥ 1); ${tag}`;
   } else {
     for (const q of ["semiMinorAxis", "apoapsisRadius", "apoapsisAltitude", "period", "apoapsisSpeed", "meanMotionRevPerDay"])
       unavailable[q] = `${q} ${BOUND_ONLY}; ${tag}`;
-    // v∞ = √(2ε) (energy integral at infinity).
+    // v∞ = √(2ε) (energy integral at infinity): Curtis, "Orbital Mechanics for Engineering Students" (3rd ed.), ch. 2, hyperbolic trajectories (recalled from memory).
     values.hyperbolicExcessSpeed = Math.sqrt(Math.max(0, 2 * specificEnergy(mu, c.a)));
-    // Hyperbolic mean motion √(μ/|a|³) (hyperbolic Kepler's equation).
+    // Hyperbolic mean motion √(μ/|a|³) (hyperbolic Kepler's equation): Vallado, "Fundamentals of Astrodynamics and Applications" (4th ed.), ch. 2, Kepler's problem (recalled from memory).
     if (type === "hyperbolic") values.meanMotion = Math.sqrt(mu / Math.abs(c.a) ** 3) * RAD;
     else unavailable.meanMotion = `a parabola has no mean motion in this sense (${tag})`;
   }
   if (theta !== undefined) {
     if (!closed) {
+      // Asymptote of a hyperbola θ∞ = acos(−1/e): Curtis, "Orbital Mechanics for Engineering Students" (3rd ed.), ch. 2, hyperbolic trajectories (recalled from memory).
       const limit = Math.acos(-1 / c.e);
       const t = Math.abs(((theta + Math.PI) % (2 * Math.PI)) - Math.PI);
       if (t >= limit - 1e-12) fail(`trueAnomaly ${fmt(theta * RAD)}° is beyond the asymptote of this ${type} orbit (±${fmt(limit * RAD)}°)`);
@@ -156,7 +157,7 @@ export function plotOf(label: string, c: Conic, extra: Partial<PlotConic> = {}):
 
 export const circle = (r: number): Conic => ({ a: r, e: 0, p: r });
 
-/** Ellipse through apse radii r1 and r2: a = (r1 + r2)/2, e = |r2 − r1|/(r1 + r2), p = 2 r1 r2/(r1 + r2). */
+/** Ellipse through apse radii r1 and r2: a = (r1 + r2)/2, e = |r2 − r1|/(r1 + r2), p = 2 r1 r2/(r1 + r2) (Curtis, "Orbital Mechanics for Engineering Students" (3rd ed.), ch. 2, elliptical orbits; recalled from memory). */
 export const apseEllipse = (r1: number, r2: number): Conic => ({ a: (r1 + r2) / 2, e: Math.abs(r2 - r1) / (r1 + r2), p: (2 * r1 * r2) / (r1 + r2) });
 
 export function radiusOf(g: Inputs, body: Body, prefix: string, label: string): number {

@@ -22,7 +22,7 @@ export const planeChangeKind: KindDef = {
     if (g.has("speed")) return result({ deltaV: simplePlaneChange(g.num("speed", "positive"), angle) }, body);
     if (g.has("altitude")) {
       const r = circularRadius(g, body, "altitude");
-      // Circular speed √(μ/r).
+      // Circular speed √(μ/r): Curtis, "Orbital Mechanics for Engineering Students" (3rd ed.), ch. 2, circular orbits (recalled from memory).
       return result({ deltaV: simplePlaneChange(Math.sqrt(body.mu / r), angle) }, body, { conics: [plotOf("orbit", circle(r))] });
     }
     const v1 = g.num("initialSpeed", "positive");

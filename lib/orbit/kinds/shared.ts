@@ -76,7 +76,7 @@ export function readBallisticCoefficient(g: Inputs): number {
   const m = g.num("mass", "positive");
   const A = g.num("dragArea", "positive");
   const cd = g.num("dragCoefficient", "positive");
-  // Ballistic coefficient B = m/(Cd·A).
+  // Ballistic coefficient B = m/(Cd·A): Vallado, "Fundamentals of Astrodynamics and Applications" (4th ed.), ch. 9, atmospheric drag (recalled from memory).
   return m / (cd * A);
 }
 

@@ -22,7 +22,7 @@ export const sunSynchronousKind: KindDef = {
           body.name +
           '", "year": 365.25 }',
       );
-    // The mean sun's rate seen from the body: 360° per the body's own (tropical) year.
+    // The mean sun's rate seen from the body, 360° per the body's own (tropical) year: Vallado, "Fundamentals of Astrodynamics and Applications" (4th ed.), ch. 9, sun-synchronous orbits (recalled from memory).
     const sunRateDegPerDay = 360 / body.year;
     const rate = (sunRateDegPerDay * DEG) / SECONDS_PER_DAY;
     const i = inclinationForNodalRate(body.mu, body.j2ReferenceRadius, body.j2, c.a, c.e, rate);

@@ -22,8 +22,9 @@ export const timeOfFlightKind: KindDef = {
     const values: Record<string, ComputedValue> = {};
     if (type === "circular" || c.e < 1) {
       while (t2 < t1) t2 += 2 * Math.PI;
+      // Mean motion n = √(μ/a³): Curtis, "Orbital Mechanics for Engineering Students" (3rd ed.), ch. 3, elliptical orbits (recalled from memory).
       const n = Math.sqrt(mu / c.a ** 3);
-      // Kepler's equation: t = (M2 − M1)/n with M from the eccentric anomaly.
+      // Kepler's equation t = (M2 − M1)/n with M from the eccentric anomaly: Curtis, "Orbital Mechanics for Engineering Students" (3rd ed.), ch. 3, elliptical orbits (recalled from memory).
       const M1 = meanFromEccentric(eccentricFromTrue(t1, c.e), c.e);
       const M2 = meanFromEccentric(eccentricFromTrue(t2, c.e), c.e);
       values.time = (M2 - M1) / n;
@@ -33,14 +34,15 @@ export const timeOfFlightKind: KindDef = {
       unavailable.period = `period ${BOUND_ONLY}; this orbit is ${type} (e = ${fmt(c.e)})`;
       if (type === "parabolic") {
         const h = angularMomentum(mu, c.p);
-        // Barker's equation: t = (h³/μ²)·M_p.
+        // Barker's equation t = (h³/μ²)·M_p: Curtis, "Orbital Mechanics for Engineering Students" (3rd ed.), ch. 3, parabolic trajectories (recalled from memory).
         const k = h ** 3 / (mu * mu);
         const lim = Math.PI;
         if (Math.abs(t1) >= lim || Math.abs(t2) >= lim) fail("true anomalies on a parabola must lie strictly between −180° and 180°");
         values.time = k * (parabolicMeanAnomaly(t2) - parabolicMeanAnomaly(t1));
       } else {
+        // Hyperbolic mean motion √(μ/(−a)³): Curtis, "Orbital Mechanics for Engineering Students" (3rd ed.), ch. 3, hyperbolic trajectories (recalled from memory).
         const n = Math.sqrt(mu / (-c.a) ** 3);
-        // Hyperbolic Kepler's equation: t = (Mh2 − Mh1)/n.
+        // Hyperbolic Kepler's equation t = (Mh2 − Mh1)/n: Curtis, "Orbital Mechanics for Engineering Students" (3rd ed.), ch. 3, hyperbolic trajectories (recalled from memory).
         values.time = (meanFromHyperbolic(hyperbolicFromTrue(t2, c.e), c.e) - meanFromHyperbolic(hyperbolicFromTrue(t1, c.e), c.e)) / n;
       }
     }
