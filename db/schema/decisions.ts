@@ -1,10 +1,10 @@
 import { index, integer, jsonb, numeric, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { users } from "./accounts";
 import { boards } from "./boards";
+import { decisionOutcomes, outboxStatuses } from "../vocabulary";
 import { proposals, proposalVersions } from "./proposals";
 
-export const decisionOutcomes = ["accept", "revise", "decline"] as const;
-export type DecisionOutcome = (typeof decisionOutcomes)[number];
+export { decisionOutcomes, outboxStatuses, type DecisionOutcome, type OutboxStatus } from "../vocabulary";
 
 /** One decision per submitted version; the unique key is what forbids deciding twice. */
 export const decisions = pgTable(
@@ -35,8 +35,6 @@ export const decisions = pgTable(
   },
   (t) => [uniqueIndex("decisions_version_key").on(t.versionId), index("decisions_proposal_idx").on(t.proposalId)],
 );
-
-export const outboxStatuses = ["queued", "sending", "sent", "failed"] as const;
 
 /** Every e-mail the product sends goes through this table; `dedupeKey` makes a send happen once. */
 export const outboxMessages = pgTable(

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { decisionOutcomes } from "@/db/schema/decisions";
+import { decisionOutcomes } from "@/db/vocabulary";
 
 /** A Tiptap JSON document (the letter); its nodes are checked and reduced by lib/decisions/letter.ts. */
 export const letterDocument = z

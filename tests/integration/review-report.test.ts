@@ -23,7 +23,7 @@ import {
   users,
 } from "@/db/schema";
 import { calibrateScores } from "@/lib/review/calibration";
-import { createDecision, letterObjectKey } from "@/lib/dal/decisions";
+import { createDecision, letterObjectKey } from "@/lib/decisions";
 import { getReviewReport, getReviewReportPdf, reportObjectKey } from "@/lib/dal/reports";
 import { statObjectOrNull } from "@/storage/object-store";
 import { caughtFor, deliver } from "./outbox-support";

@@ -1,6 +1,6 @@
 // Reports area: the review report of a version (issue 16 C).
 import { asSessionUser } from "../../support/factories";
-import { createDecision } from "@/lib/dal/decisions";
+import { createDecision } from "@/lib/decisions";
 import { decisionScenario } from "../decision-fixtures";
 import type { MatrixCast, RouteCase } from "./types";
 

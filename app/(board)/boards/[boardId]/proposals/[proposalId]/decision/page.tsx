@@ -7,7 +7,7 @@ import { PageTitle, Panel } from "@/components/ui/panel";
 import { orNotFound, pageUser } from "@/lib/auth/page-guard";
 import { can } from "@/lib/auth/policy";
 import { proposalAccess } from "@/lib/dal/assignments";
-import { getDecisionWorkspace, listProposalDecisions, type DecisionView } from "@/lib/dal/decisions";
+import { getDecisionWorkspace, listProposalDecisions, type DecisionView } from "@/lib/decisions";
 import { MAX_ATTEMPTS } from "@/lib/mail/outbox";
 import { outboxStatusText } from "@/lib/mail/status-text";
 import { DecisionForm } from "./_components/decision-form";
