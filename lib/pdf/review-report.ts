@@ -48,7 +48,7 @@ function registerFonts(doc: PDFKit.PDFDocument) {
 
 const MARGIN = 48;
 const FOOTER_SPACE = 60;
-const MAX_CELL = 1200;
+const MAX_CELL = 800;
 
 /** Writes text that may mix Latin and Greek (Δv) in the right font files. */
 function write(
@@ -177,10 +177,10 @@ function drawNode(doc: PDFKit.PDFDocument, node: ReportNode, width: number) {
       return;
     case "list":
       for (const item of node.items) {
-        const y = doc.y;
         ensureRoom(doc, 14);
-        write(doc, "•", { x: MARGIN + 4, y: doc.y, width: 10, size: 10, colour: colours.brand });
-        write(doc, item, { x: MARGIN + 16, y: Math.max(y, doc.y - 12.5), width: width - 16, size: 9.5 });
+        const y = doc.y;
+        write(doc, "•", { x: MARGIN + 4, y, width: 10, size: 10, colour: colours.brand });
+        write(doc, item, { x: MARGIN + 16, y, width: width - 16, size: 9.5 });
         doc.y += 2;
       }
       doc.y += 2;
