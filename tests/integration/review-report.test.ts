@@ -548,6 +548,11 @@ describe("the review report over HTTP", () => {
     const asJson = await chair.request(`${path}?format=json`);
     expect(asJson.status).toBe(200);
     expect(((await asJson.json()) as { report: { version: { number: number } } }).report.version.number).toBe(1);
+    // A reviewer of the version (own review submitted, the board shares items) reaches it from their review page.
+    const reviewer = await new HttpClient().signInAs(s.reviewer.email);
+    const reviewPage = await (await reviewer.request(`/boards/${s.board.id}/proposals/${s.proposal.id}/review`)).text();
+    expect(reviewPage).toContain(`href="/boards/${s.board.id}/proposals/${s.proposal.id}/versions/1/report"`);
+    expect((await reviewer.request(path)).status).toBe(200);
     const bad = await chair.request(`${path}?format=docx`);
     expect(bad.status).toBe(400);
     expect(((await bad.json()) as { error: string }).error).toMatch(/html, pdf or json/);
