@@ -1,9 +1,9 @@
 import { sql } from "drizzle-orm";
 import { boolean, index, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { boardRoles } from "../vocabulary";
 import { users } from "./accounts";
 
-export const boardRoles = ["proposer", "reviewer", "chair"] as const;
-export type BoardRole = (typeof boardRoles)[number];
+export { boardRoles, type BoardRole } from "../vocabulary";
 
 export const boards = pgTable(
   "boards",

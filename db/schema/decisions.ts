@@ -1,10 +1,10 @@
 import { index, integer, jsonb, numeric, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { users } from "./accounts";
 import { boards } from "./boards";
+import { decisionOutcomes, outboxStatuses } from "../vocabulary";
 import { proposals, proposalVersions } from "./proposals";
 
-export const decisionOutcomes = ["accept", "revise", "decline"] as const;
-export type DecisionOutcome = (typeof decisionOutcomes)[number];
+export { decisionOutcomes, outboxStatuses, type DecisionOutcome, type OutboxStatus } from "../vocabulary";
 
 /** One decision per submitted version; the unique key is what forbids deciding twice. */
 export const decisions = pgTable(
@@ -25,6 +25,8 @@ export const decisions = pgTable(
     letterHtml: text("letter_html").notNull(),
     letterText: text("letter_text").notNull(),
     pdfKey: text("pdf_key"),
+    /** The review report PDF attached to the letter e-mail, when the chair chose to (stored like the letter). */
+    reportPdfKey: text("report_pdf_key"),
     weightedScore: numeric("weighted_score", { precision: 8, scale: 4, mode: "number" }),
     /** Why the chair decided without the required number of reviews (null when not overridden). */
     overrideReason: text("override_reason"),
@@ -33,8 +35,6 @@ export const decisions = pgTable(
   },
   (t) => [uniqueIndex("decisions_version_key").on(t.versionId), index("decisions_proposal_idx").on(t.proposalId)],
 );
-
-export const outboxStatuses = ["queued", "sending", "sent", "failed"] as const;
 
 /** Every e-mail the product sends goes through this table; `dedupeKey` makes a send happen once. */
 export const outboxMessages = pgTable(

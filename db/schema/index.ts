@@ -5,5 +5,5 @@ export * from "./reviews";
 export * from "./decisions";
 export * from "./orbit-files";
 export * from "./coverage";
-export * from "./meetings";
 export * from "./responses";
+export * from "./meetings";

@@ -2,6 +2,7 @@ import { bigint, index, integer, jsonb, pgTable, primaryKey, text, timestamp, un
 import { users } from "./accounts";
 import { boards } from "./boards";
 import type { RequirementOutcome } from "../../lib/requirements/types";
+import { checkStatuses, proposalStatuses } from "../vocabulary";
 
 /** The tolerance a call applies when the server recomputes orbit claims (contract units). */
 export interface TolerancePolicy {
@@ -46,8 +47,7 @@ export const calls = pgTable(
   (t) => [index("calls_board_idx").on(t.boardId)],
 );
 
-export const proposalStatuses = ["draft", "submitted", "in_review", "decided", "withdrawn"] as const;
-export type ProposalStatus = (typeof proposalStatuses)[number];
+export { checkStatuses, proposalStatuses, type CheckStatus, type ProposalStatus } from "../vocabulary";
 
 export const proposals = pgTable(
   "proposals",
@@ -155,7 +155,7 @@ export const checkResults = pgTable(
     blockId: text("block_id").notNull(),
     label: text("label").notNull().default(""),
     kind: text("kind").notNull(),
-    status: text("status", { enum: ["consistent", "inconsistent", "invalid"] }).notNull(),
+    status: text("status", { enum: checkStatuses }).notNull(),
     claim: jsonb("claim").$type<Record<string, unknown>>().notNull(),
     result: jsonb("result").$type<Record<string, unknown>>().notNull(),
     /** The call's requirements judged on this claim at submission (met / not met / not evaluated). */

@@ -45,6 +45,19 @@ describe("the authorization policy", () => {
     expect(decide(member, "review-item.view", { ...facts, ownReviewSubmitted: true, shareItemsAfterSubmit: false })).toBe("hide");
   });
 
+  it("opens a version's review report to the chair, to its authors once decided, and to its reviewers only under the board's sharing rule", () => {
+    expect(decide(member, "report.view", { role: "chair" })).toBe("allow");
+    expect(decide(member, "report.view", { role: "proposer", isAuthor: true, decisionIssued: false })).toBe("hide");
+    expect(decide(member, "report.view", { role: "proposer", isAuthor: true, decisionIssued: true })).toBe("allow");
+    expect(decide(member, "report.view", { role: "proposer", isAuthor: false, decisionIssued: true })).toBe("hide");
+    const reviewer = { role: "reviewer" as const, isAssigned: true, shareItemsAfterSubmit: true, ownReviewSubmitted: true };
+    expect(decide(member, "report.view", reviewer)).toBe("allow");
+    expect(decide(member, "report.view", { ...reviewer, ownReviewSubmitted: false })).toBe("hide");
+    expect(decide(member, "report.view", { ...reviewer, shareItemsAfterSubmit: false })).toBe("hide");
+    expect(decide(member, "report.view", { ...reviewer, isConflicted: true })).toBe("hide");
+    expect(decide(member, "report.view", { ...reviewer, isAssigned: false })).toBe("hide");
+  });
+
   it("throws AppErrors with 404 and 403", () => {
     const thrown = (run: () => unknown): AppError => {
       try {

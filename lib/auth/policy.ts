@@ -63,6 +63,7 @@ export type Permission =
   | "review-item.dispose"
   | "decision.make"
   | "decision.view"
+  | "report.view"
   | "meeting.view"
   | "meeting.run"
   | "site.admin";
@@ -107,6 +108,12 @@ const rules: Record<Permission, Rule> = {
   "review-item.dispose": (_a, f) => f.role === "chair" || (f.role === "reviewer" && f.isAuthorOfItem === true),
   "decision.make": isChair,
   "decision.view": (_a, f) => f.role === "chair" || (f.isAuthor === true && f.decisionIssued === true),
+  // The review report of a version: the chair; its authors once that version is decided; its
+  // reviewers when the board shares review items after submission and theirs is submitted.
+  "report.view": (_a, f) =>
+    f.role === "chair" ||
+    (f.isAuthor === true && f.decisionIssued === true) ||
+    (f.role === "reviewer" && f.isAssigned === true && f.isConflicted !== true && f.shareItemsAfterSubmit === true && f.ownReviewSubmitted === true),
   // The panel meeting: the chair and the board's reviewers follow it; only the chair runs it.
   "meeting.view": (_a, f) => f.role === "chair" || f.role === "reviewer",
   "meeting.run": isChair,
@@ -114,7 +121,7 @@ const rules: Record<Permission, Rule> = {
 };
 
 /** Permissions whose resources are only visible to the people the rule lets in (others get 404). */
-const hiddenUnlessAllowed = new Set<Permission>(["proposal.view", "proposal.edit", "decision.view", "review-item.view"]);
+const hiddenUnlessAllowed = new Set<Permission>(["proposal.view", "proposal.edit", "decision.view", "review-item.view", "report.view"]);
 
 export function decide(actor: Actor, permission: Permission, facts: ResourceFacts): Outcome {
   if (actor.isAdmin) return "allow";

@@ -221,16 +221,19 @@ export async function confirmAttachment(
   const reject = async (message: string, details?: unknown): Promise<never> => {
     await deleteObject(stagingKey).catch(() => undefined);
     await deleteObject(row.objectKey).catch(() => undefined);
-    await db()
-      .delete(attachments)
-      .where(and(eq(attachments.id, row.id), eq(attachments.boardId, boardId)));
-    await recordAudit({
-      action: "attachment.reject",
-      actorId: user.id,
-      actorEmail: user.email,
-      boardId,
-      target: row.id,
-      details: { filename: row.filename, reason: message },
+    await db().transaction(async (tx) => {
+      await tx.delete(attachments).where(and(eq(attachments.id, row.id), eq(attachments.boardId, boardId)));
+      await recordAudit(
+        {
+          action: "attachment.reject",
+          actorId: user.id,
+          actorEmail: user.email,
+          boardId,
+          target: row.id,
+          details: { filename: row.filename, reason: message },
+        },
+        tx,
+      );
     });
     throw unprocessable(message, details);
   };
@@ -257,24 +260,32 @@ export async function confirmAttachment(
   // 3. The final object is known and checked here (inspected.objectKey, .detectedType, .head):
   //    further checks of its content belong at this point, before the row is confirmed.
 
-  const [updated] = await db()
-    .update(attachments)
-    .set({ status: "confirmed", size: inspected.size, sha256: inspected.sha256, detectedType: inspected.detectedType, confirmedAt: new Date() })
-    .where(and(eq(attachments.id, row.id), eq(attachments.boardId, boardId), eq(attachments.status, "pending")))
-    .returning(attachmentColumns);
+  // The row and its audit event commit together.
+  const updated = await db().transaction(async (tx) => {
+    const [confirmed] = await tx
+      .update(attachments)
+      .set({ status: "confirmed", size: inspected.size, sha256: inspected.sha256, detectedType: inspected.detectedType, confirmedAt: new Date() })
+      .where(and(eq(attachments.id, row.id), eq(attachments.boardId, boardId), eq(attachments.status, "pending")))
+      .returning(attachmentColumns);
+    if (confirmed)
+      await recordAudit(
+        {
+          action: "attachment.confirm",
+          actorId: user.id,
+          actorEmail: user.email,
+          boardId,
+          target: row.id,
+          details: { filename: row.filename, size: inspected.size, sha256: inspected.sha256 },
+        },
+        tx,
+      );
+    return confirmed;
+  });
   if (!updated) {
     const again = await loadAttachment(boardId, attachmentId);
     if (again?.status === "confirmed") return toView(again);
     throw notFound("That attachment");
   }
-  await recordAudit({
-    action: "attachment.confirm",
-    actorId: user.id,
-    actorEmail: user.email,
-    boardId,
-    target: row.id,
-    details: { filename: row.filename, size: inspected.size, sha256: inspected.sha256 },
-  });
   // Orbit files (element sets, CCSDS OPM/OMM/OEM) are parsed now; the attachment stays even when unparsed.
   if (inspected.isText)
     await recordOrbitFile({ attachmentId: row.id, boardId, objectKey: updated.objectKey, sha256: inspected.sha256, filename: row.filename });
@@ -421,18 +432,21 @@ export async function deleteAttachment(user: SessionUser, boardId: string, attac
   const { proposal } = await proposalFor(user, boardId, row.proposalId, "proposal.edit");
   const state = await editableState(proposal);
   if (!state.editable) throw conflict(state.reason ?? "This proposal cannot be changed now.");
-  if (await referencedByVersion(row)) {
-    await db()
-      .update(attachments)
-      .set({ status: "removed" })
-      .where(and(eq(attachments.id, row.id), eq(attachments.boardId, boardId)));
-  } else {
-    await deleteObject(row.objectKey).catch(() => undefined);
-    await db()
-      .delete(attachments)
-      .where(and(eq(attachments.id, row.id), eq(attachments.boardId, boardId)));
-  }
-  await recordAudit({ action: "attachment.remove", actorId: user.id, actorEmail: user.email, boardId, target: row.id, details: { filename: row.filename } });
+  const referenced = await referencedByVersion(row);
+  // The row change and its audit event commit together; the object goes only after that.
+  await db().transaction(async (tx) => {
+    if (referenced)
+      await tx
+        .update(attachments)
+        .set({ status: "removed" })
+        .where(and(eq(attachments.id, row.id), eq(attachments.boardId, boardId)));
+    else await tx.delete(attachments).where(and(eq(attachments.id, row.id), eq(attachments.boardId, boardId)));
+    await recordAudit(
+      { action: "attachment.remove", actorId: user.id, actorEmail: user.email, boardId, target: row.id, details: { filename: row.filename } },
+      tx,
+    );
+  });
+  if (!referenced) await deleteObject(row.objectKey).catch(() => undefined);
   return { removed: true };
 }
 

@@ -5,10 +5,10 @@ import { boards, outboxMessages } from "@/db/schema";
 import { authorize } from "@/lib/auth/policy";
 import type { SessionUser } from "@/lib/auth/session";
 import { conflict, notFound } from "@/lib/errors";
-import { requeueMessage } from "@/lib/mail/outbox";
 import type { OutboxListQuery } from "@/lib/validation/decisions";
 import { recordAudit } from "./audit";
 import { isUuid } from "./boards";
+import { requeueFailedMessage } from "./outbox-queue";
 
 export interface OutboxRow {
   id: string;
@@ -114,7 +114,7 @@ export async function requeueOutboxMessage(user: SessionUser, messageId: string)
     .from(outboxMessages)
     .where(and(eq(outboxMessages.id, messageId)));
   if (!row) throw notFound("That message");
-  if (!(await requeueMessage(messageId))) throw conflict(`Only failed messages can be sent again; this one is ${row.status}.`, { status: row.status });
+  if (!(await requeueFailedMessage(messageId))) throw conflict(`Only failed messages can be sent again; this one is ${row.status}.`, { status: row.status });
   await recordAudit({
     action: "outbox.requeue",
     actorId: user.id,

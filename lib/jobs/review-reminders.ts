@@ -1,7 +1,5 @@
 import "server-only";
-import { and, eq, gt, isNull, lte, notInArray, or, ne } from "drizzle-orm";
-import { db } from "@/db/client";
-import { assignments, boardMembers, boards, decisions, proposals, reviews, users } from "@/db/schema";
+import { assignmentsDueForReminder } from "@/lib/dal/reminders";
 import { env } from "@/lib/env";
 import { enqueueMail } from "@/lib/mail/outbox";
 import { renderReviewReminder } from "@/lib/mail/templates/notices";
@@ -20,40 +18,7 @@ const utcDay = (d: Date) => Math.floor(d.getTime() / DAY);
  */
 export async function enqueueReviewReminders(now: Date = new Date()): Promise<{ enqueued: number }> {
   const horizon = new Date((utcDay(now) + Math.max(...REMINDER_DAYS) + 1) * DAY);
-  const rows = await db()
-    .select({
-      assignmentId: assignments.id,
-      boardId: assignments.boardId,
-      proposalId: assignments.proposalId,
-      dueAt: assignments.dueAt,
-      email: users.email,
-      proposalTitle: proposals.title,
-      boardName: boards.name,
-    })
-    .from(assignments)
-    .innerJoin(proposals, and(eq(proposals.id, assignments.proposalId), eq(proposals.boardId, assignments.boardId)))
-    .innerJoin(boards, eq(boards.id, assignments.boardId))
-    .innerJoin(users, and(eq(users.id, assignments.reviewerId), eq(users.status, "active")))
-    .innerJoin(
-      boardMembers,
-      and(
-        eq(boardMembers.boardId, assignments.boardId),
-        eq(boardMembers.userId, assignments.reviewerId),
-        eq(boardMembers.status, "active"),
-        eq(boardMembers.role, "reviewer"),
-      ),
-    )
-    .leftJoin(reviews, eq(reviews.assignmentId, assignments.id))
-    .leftJoin(decisions, eq(decisions.versionId, assignments.versionId))
-    .where(
-      and(
-        gt(assignments.dueAt, now),
-        lte(assignments.dueAt, horizon),
-        notInArray(proposals.status, ["decided", "withdrawn", "draft"]),
-        or(isNull(reviews.id), ne(reviews.status, "submitted")),
-        isNull(decisions.id),
-      ),
-    );
+  const rows = await assignmentsDueForReminder(now, horizon);
 
   const today = utcDay(now);
   const todayIso = new Date(today * DAY).toISOString().slice(0, 10);

@@ -1,5 +1,5 @@
 import "server-only";
-import type { Database, Transaction } from "@/db/client";
+import type { Tx } from "@/lib/dal/transaction";
 import { env } from "@/lib/env";
 import { enqueueMail } from "./outbox";
 import { renderReviewerAssignment, renderSubmissionReceipt } from "./templates/notices";
@@ -23,7 +23,7 @@ export interface SubmissionReceiptInput {
 }
 
 /** Receipt to the authors for a submitted version (dedupe key "submission-receipt:<versionId>"). */
-export async function enqueueSubmissionReceipt(tx: Database | Transaction, input: SubmissionReceiptInput) {
+export async function enqueueSubmissionReceipt(tx: Tx, input: SubmissionReceiptInput) {
   const mail = await renderSubmissionReceipt({
     ...input,
     url: `${env().APP_URL}/boards/${input.boardId}/proposals/${input.proposalId}/versions/${input.versionNumber}`,
@@ -45,7 +45,7 @@ export interface ReviewerAssignmentInput {
 }
 
 /** Tells a reviewer of a new assignment (dedupe key "assignment:<assignmentId>"). */
-export async function enqueueReviewerAssignment(tx: Database | Transaction, input: ReviewerAssignmentInput) {
+export async function enqueueReviewerAssignment(tx: Tx, input: ReviewerAssignmentInput) {
   const mail = await renderReviewerAssignment({ ...input, url: `${env().APP_URL}/boards/${input.boardId}/proposals/${input.proposalId}/review` });
   return enqueueMail({ kind: "reviewer-assignment", dedupeKey: `assignment:${input.assignmentId}`, to: [input.to], boardId: input.boardId, ...mail }, tx);
 }

@@ -1,7 +1,6 @@
 import "server-only";
-import { and, asc, eq, inArray, sql } from "drizzle-orm";
-import { db, type Database, type Transaction } from "@/db/client";
-import { outboxMessages } from "@/db/schema";
+import { claimDueMessages, insertOutboxMessage, recordSendFailure, recordSendSuccess, requeueFailedMessage, type OutgoingMail } from "@/lib/dal/outbox-queue";
+import type { Tx } from "@/lib/dal/transaction";
 import { readObject } from "@/storage/object-store";
 import { OUTBOX_MAX_ATTEMPTS } from "./status-text";
 import { mailFrom, mailTransport } from "./transport";
@@ -28,40 +27,14 @@ import { mailFrom, mailTransport } from "./transport";
  *   write) a receiving server can still drop the copy.
  */
 
-export interface OutgoingMail {
-  kind: string;
-  /** Same key, same message: a second enqueue with this key is ignored (never sent twice). */
-  dedupeKey: string;
-  to: string[];
-  subject: string;
-  html: string;
-  text: string;
-  boardId?: string | null;
-  attachments?: { filename: string; objectKey: string; contentType: string }[];
-}
+export type { OutgoingMail };
 
 /**
  * Puts a message in the outbox. Pass the transaction of the write the message belongs to
  * (a decision, an invitation) so both commit or neither does; the worker sends it after.
  */
-export async function enqueueMail(mail: OutgoingMail, tx: Database | Transaction = db()): Promise<{ id: string; duplicate: boolean }> {
-  const inserted = await tx
-    .insert(outboxMessages)
-    .values({
-      kind: mail.kind,
-      dedupeKey: mail.dedupeKey,
-      toAddresses: mail.to,
-      subject: mail.subject,
-      html: mail.html,
-      text: mail.text,
-      boardId: mail.boardId ?? null,
-      attachments: mail.attachments ?? [],
-    })
-    .onConflictDoNothing({ target: outboxMessages.dedupeKey })
-    .returning({ id: outboxMessages.id });
-  if (inserted[0]) return { id: inserted[0].id, duplicate: false };
-  const [existing] = await tx.select({ id: outboxMessages.id }).from(outboxMessages).where(eq(outboxMessages.dedupeKey, mail.dedupeKey));
-  return { id: existing!.id, duplicate: true };
+export async function enqueueMail(mail: OutgoingMail, tx?: Tx): Promise<{ id: string; duplicate: boolean }> {
+  return insertOutboxMessage(mail, tx);
 }
 
 export const MAX_ATTEMPTS = OUTBOX_MAX_ATTEMPTS;
@@ -160,45 +133,6 @@ async function withTimeout<T>(work: Promise<T>, ms: number, what: string): Promi
   }
 }
 
-/** Claims due messages: queued ones whose time came, and claimed ones whose lease ran out. */
-async function claimDue(limit: number, leaseSeconds: number, ids?: string[], now?: Date) {
-  const clock = now ? sql`${now.toISOString()}::timestamptz` : sql`now()`;
-  return db().transaction(async (tx) => {
-    const due = await tx
-      .select({ id: outboxMessages.id, status: outboxMessages.status })
-      .from(outboxMessages)
-      .where(
-        and(
-          sql`((${outboxMessages.status} = 'queued' and ${outboxMessages.nextAttemptAt} <= ${clock})
-            or (${outboxMessages.status} = 'sending' and ${outboxMessages.nextAttemptAt} <= now() - make_interval(secs => ${leaseSeconds})))`,
-          ids ? inArray(outboxMessages.id, ids.length > 0 ? ids : ["00000000-0000-0000-0000-000000000000"]) : undefined,
-        ),
-      )
-      .orderBy(asc(outboxMessages.nextAttemptAt))
-      .limit(limit)
-      .for("update", { skipLocked: true });
-    if (due.length === 0) return [];
-    const interrupted = due.filter((d) => d.status === "sending").map((d) => d.id);
-    if (interrupted.length > 0) {
-      // Say so on the row: an admin reading it knows why attempts went up without an error.
-      await tx
-        .update(outboxMessages)
-        .set({ lastError: "The previous attempt was interrupted (its worker stopped while sending); sent again with the same Message-ID." })
-        .where(inArray(outboxMessages.id, interrupted));
-    }
-    return tx
-      .update(outboxMessages)
-      .set({ status: "sending", attempts: sql`${outboxMessages.attempts} + 1`, nextAttemptAt: sql`now()` })
-      .where(
-        inArray(
-          outboxMessages.id,
-          due.map((d) => d.id),
-        ),
-      )
-      .returning();
-  });
-}
-
 /**
  * Sends what is due, once. Each message is claimed by moving it to `sending` (attempts + 1)
  * under FOR UPDATE SKIP LOCKED, so concurrent workers never take the same row; the outcome
@@ -208,11 +142,10 @@ export async function processOutbox(options: number | ProcessOptions = {}): Prom
   const opts: ProcessOptions = typeof options === "number" ? { limit: options } : options;
   const leaseSeconds = opts.leaseSeconds ?? DEFAULT_LEASE_SECONDS;
   const transport: MailSender = opts.transport ?? (mailTransport() as unknown as MailSender);
-  const claimed = await claimDue(opts.limit ?? 20, leaseSeconds, opts.ids, opts.now);
+  const claimed = await claimDueMessages(opts.limit ?? 20, leaseSeconds, opts.ids, opts.now);
 
   const report: ProcessReport = { sent: 0, retried: 0, failed: 0 };
   for (const message of claimed) {
-    const ours = and(eq(outboxMessages.id, message.id), eq(outboxMessages.status, "sending"), eq(outboxMessages.attempts, message.attempts));
     let info: { messageId?: string };
     try {
       // Reading attachments happens before any byte goes to the mail server, so a timeout
@@ -248,20 +181,10 @@ export async function processOutbox(options: number | ProcessOptions = {}): Prom
       if (exhausted) report.failed += 1;
       else report.retried += 1;
       const nextAttemptAt = new Date(Date.now() + backoffSeconds(message.attempts) * 1000);
-      await recordOutcome(() =>
-        db()
-          .update(outboxMessages)
-          .set({ status: exhausted ? "failed" : "queued", lastError: errorText(error), nextAttemptAt })
-          .where(ours),
-      );
+      await recordOutcome(() => recordSendFailure(message, { status: exhausted ? "failed" : "queued", lastError: errorText(error), nextAttemptAt }));
       continue;
     }
-    await recordOutcome(() =>
-      db()
-        .update(outboxMessages)
-        .set({ status: "sent", sentAt: new Date(), lastError: null, providerMessageId: info.messageId ?? null })
-        .where(ours),
-    );
+    await recordOutcome(() => recordSendSuccess(message, info.messageId ?? null));
     report.sent += 1;
   }
   return report;
@@ -269,10 +192,5 @@ export async function processOutbox(options: number | ProcessOptions = {}): Prom
 
 /** Puts a failed message back in the queue (admins' "send again"); false unless it had failed. */
 export async function requeueMessage(id: string): Promise<boolean> {
-  const rows = await db()
-    .update(outboxMessages)
-    .set({ status: "queued", nextAttemptAt: sql`now()`, attempts: 0 })
-    .where(and(eq(outboxMessages.id, id), eq(outboxMessages.status, "failed")))
-    .returning({ id: outboxMessages.id });
-  return rows.length > 0;
+  return requeueFailedMessage(id);
 }

@@ -8,8 +8,9 @@ import { reviewOperations } from "./operations/review";
 import { decisionOperations } from "./operations/decisions";
 import { orbitFileOperations } from "./operations/orbit-files";
 import { stationOperations } from "./operations/stations";
-import { meetingOperations } from "./operations/meetings";
+import { reportOperations } from "./operations/reports";
 import { responseOperations } from "./operations/responses";
+import { meetingOperations } from "./operations/meetings";
 
 /** Every /api/v1 operation. Each feature area adds its list here. */
 export const apiOperations: ApiOperation[] = [
@@ -21,8 +22,9 @@ export const apiOperations: ApiOperation[] = [
   ...decisionOperations,
   ...orbitFileOperations,
   ...stationOperations,
-  ...meetingOperations,
+  ...reportOperations,
   ...responseOperations,
+  ...meetingOperations,
 ];
 
 export function openApiDocument() {

@@ -19,6 +19,8 @@ export interface ApiOperation {
   body?: z.ZodType;
   query?: z.ZodObject;
   response?: z.ZodType;
+  /** Media types of the 200 answer when not only JSON (e.g. text/html, application/pdf); JSON uses `response`. */
+  mediaTypes?: string[];
   /** Extra documented statuses beyond the defaults for the access level. */
   errors?: Partial<Record<400 | 403 | 404 | 409 | 413 | 422 | 429, string>>;
 }
@@ -56,7 +58,21 @@ export function buildOpenApiDocument(operations: ApiOperation[], version: string
     const responses: Record<string, unknown> = {
       "200": {
         description: "OK",
-        content: { "application/json": { schema: op.response ? schemaOf(op.response, "output") : {} } },
+        content: op.mediaTypes
+          ? Object.fromEntries(
+              op.mediaTypes.map((type) => [
+                type,
+                {
+                  schema:
+                    type === "application/json"
+                      ? op.response
+                        ? schemaOf(op.response, "output")
+                        : {}
+                      : { type: "string", ...(type === "application/pdf" ? { format: "binary" } : {}) },
+                },
+              ]),
+            )
+          : { "application/json": { schema: op.response ? schemaOf(op.response, "output") : {} } },
       },
       "400": { description: "Malformed request", content: { "application/json": { schema: schemaOf(errorBody, "output") } } },
       "422": { description: "Request failed validation", content: { "application/json": { schema: schemaOf(errorBody, "output") } } },

@@ -26,8 +26,8 @@ export { parseDecimal, parsePlainDecimal, precisionAllowance, readClaimedNumber,
 export type { ParsedDecimal, DecimalError } from "./decimal";
 export { findHint, hintSentence, OTHER_CONSTANTS, UNIT_SCALE_FACTORS, SIDEREAL_DAY_S, SOLAR_DAY_S } from "./hints";
 export type { OtherConstant } from "./hints";
-export { ORBIT_CHECK_KINDS, KIND_NAMES, QUANTITY_ALIASES } from "./kinds";
-export type { KindInfo, GivenInfo, ComputedInfo, PlotConic } from "./kinds";
+export { ORBIT_CHECK_KINDS, KIND_NAMES, QUANTITY_ALIASES, isKindName } from "./kinds";
+export type { KindInfo, GivenInfo, ComputedInfo, PlotConic, KindName } from "./kinds";
 export { QUANTITIES, DEFAULT_ABSOLUTE_TOLERANCE, DEFAULT_RELATIVE_TOLERANCE, quantityInfo } from "./quantities";
 export type { QuantityInfo } from "./quantities";
 export { BODIES, BODY_NAMES, AU_KM, STANDARD_GRAVITY_KM_S2, MEAN_SUN_RATE_DEG_PER_DAY } from "./constants";

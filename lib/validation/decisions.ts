@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { decisionOutcomes } from "@/db/schema/decisions";
+import { decisionOutcomes } from "@/db/vocabulary";
 
 /** A Tiptap JSON document (the letter); its nodes are checked and reduced by lib/decisions/letter.ts. */
 export const letterDocument = z
@@ -21,6 +21,8 @@ export const decisionInput = z.object({
     .max(2000, "keep the reason under 2000 characters")
     .optional()
     .transform((v) => (v ? v : undefined)),
+  /** Attach the version's review report (PDF, as the proposers read it) to the letter e-mail. */
+  attachReport: z.boolean({ message: "must be true or false" }).default(false),
 });
 export type DecisionInput = z.infer<typeof decisionInput>;
 

@@ -1,7 +1,7 @@
 // zod schemas for calls, proposals, drafts and attachments: shared by the forms, the
 // route handlers, the server actions and the OpenAPI document.
 import { z } from "zod";
-import { proposalStatuses } from "@/db/schema/proposals";
+import { proposalStatuses } from "@/db/vocabulary";
 import { FILE_TOLERANCE_RULES, FILE_TOLERANCE_UNITS, parseFileToleranceValue } from "@/lib/orbit-files/tolerance";
 
 export const TOLERANCE_UNITS = ["km", "km/s", "deg", "s", "kg", "deg/day", "rev/day"] as const;

@@ -102,6 +102,7 @@ describe("every page a role uses is reachable by links from /boards", () => {
         `${p}/decision`,
         `${p}/responses`,
         `${p}/versions/1`,
+        `${p}/versions/1/report`,
         `${b}/members`,
         `${b}/settings`,
         `${b}/settings/letter`,

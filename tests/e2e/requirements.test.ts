@@ -8,7 +8,7 @@ import { asSessionUser, createBoardWithCast } from "../support/factories";
 import { dossierDoc, makeCall, orbitBlock } from "../integration/matrix/dossiers";
 import { browserSession } from "../support/browser";
 import { createProposal, getVersion, saveDraft } from "@/lib/dal/proposals";
-import { createDecision } from "@/lib/dal/decisions";
+import { createDecision } from "@/lib/decisions";
 import { assignReviewers } from "@/lib/dal/assignments";
 import { DEFAULT_LETTER_TEMPLATE } from "@/lib/decisions/template";
 

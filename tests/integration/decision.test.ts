@@ -16,9 +16,9 @@ import {
   getLetterTemplate,
   letterObjectKey,
   previewDecision,
-  reassignPreviousReviewers,
   saveLetterTemplate,
-} from "@/lib/dal/decisions";
+} from "@/lib/decisions";
+import { reassignPreviousReviewers } from "@/lib/review/reassign";
 import { getReviewScreen, listReviewQueue, saveReviewDraft } from "@/lib/dal/reviews";
 import { DEFAULT_LETTER_TEMPLATE } from "@/lib/decisions/template";
 import { isAppError } from "@/lib/errors";

@@ -8,7 +8,7 @@ import { dossierPlainText } from "@/lib/dossier";
 import { makeAnchor } from "@/lib/review/anchors";
 import { appUrl } from "../support/app";
 import { signedIn } from "../support/http";
-import { createDecision } from "@/lib/dal/decisions";
+import { createDecision } from "@/lib/decisions";
 import { DEFAULT_LETTER_TEMPLATE } from "@/lib/decisions/template";
 import { asSessionUser } from "../support/factories";
 import { decisionScenario } from "./decision-fixtures";

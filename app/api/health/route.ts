@@ -1,7 +1,6 @@
-import { sql } from "drizzle-orm";
 import { NextResponse } from "next/server";
 import packageJson from "@/package.json";
-import { db } from "@/db/client";
+import { pingDatabase } from "@/lib/dal/health";
 import { checkMailTransport } from "@/lib/mail/transport";
 import { checkObjectStore } from "@/storage/object-store";
 
@@ -18,7 +17,7 @@ async function probe(check: () => Promise<unknown>): Promise<string> {
 
 /** Liveness of the three services the app depends on; 200 when all are ok, 503 otherwise. */
 export async function GET() {
-  const [database, objectStore, mail] = await Promise.all([probe(() => db().execute(sql`select 1`)), probe(checkObjectStore), probe(checkMailTransport)]);
+  const [database, objectStore, mail] = await Promise.all([probe(pingDatabase), probe(checkObjectStore), probe(checkMailTransport)]);
   const ok = database === "ok" && objectStore === "ok" && mail === "ok";
   return NextResponse.json(
     { status: ok ? "ok" : "degraded", version: packageJson.version, services: { database, objectStore, mail } },

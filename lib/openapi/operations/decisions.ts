@@ -17,6 +17,7 @@ const decision = z.object({
   decidedAt: z.string(),
   decidedByName: z.string().nullable(),
   hasPdf: z.boolean(),
+  hasReportPdf: z.boolean().describe("The review report PDF went with the letter e-mail"),
   mail: z
     .object({
       status: z.string(),

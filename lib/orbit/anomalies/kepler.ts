@@ -83,7 +83,7 @@ export function solveKeplerElliptic(M: number, e: number): number {
   const halleyDown = 2 * t3 + y;
   const wn = t * t * halleyUp * halleyUp;
   const wd = halleyDown * halleyDown;
-  // E = (2rw/(w² + wq + q²) + m)/d with w = wn/wd.
+  // E = (2rw/(w² + wq + q²) + m)/d with w = wn/wd: Markley, "Kepler equation solver", Celest. Mech. Dyn. Astron. 63 (1995) 101–111, the starter from the root of the cubic (recalled from memory).
   const den = wn * wn + wn * q * wd + q * q * wd * wd;
   const E = y > 0 && den !== 0 ? (2 * r * wn * wd + m * den) / (den * d) : m / d;
   // sin E = cos x and cos E = −sin x with x = E − π/2 in [−π/2, π/2] (Taylor series in Estrin's form).
@@ -148,21 +148,24 @@ export function solveKeplerHyperbolic(M: number, e: number): number {
   if (M === 0) return 0;
   const sign = M < 0 ? -1 : 1;
   const m = Math.abs(M);
-  // Hyperbolic Kepler's equation f(H) = e·sinh H − H − M; f(0) = −M < 0.
+  // Hyperbolic Kepler's equation f(H) = e·sinh H − H − M, f(0) = −M < 0: Curtis, "Orbital Mechanics for Engineering Students" (3rd ed.), ch. 3, hyperbolic trajectories (recalled from memory).
   const f = (h: number) => e * Math.sinh(h) - h - m;
   let lo = 0;
+  // Bracket from sinh H ≈ e^H/2 for large H: common practice, not from a publication.
   let hi = Math.max(1, Math.log((2 * m) / e + 1) + 1);
   while (f(hi) <= 0) {
     lo = hi;
     hi *= 2;
     if (hi > 1e3) fail(`hyperbolic mean anomaly ${fmt(M)} is too large to solve in double precision`);
   }
+  // Starter H0 = asinh(M/e) (the root when H is small against e·sinh H): common practice, not from a publication.
   let H = Math.asinh(m / e);
   if (!(H > lo && H < hi)) H = 0.5 * (lo + hi);
   for (let i = 0; i < 200; i++) {
     const fv = f(H);
     if (fv > 0) hi = H;
     else lo = H;
+    // Newton's step with f'(H) = e·cosh H − 1: Vallado, "Fundamentals of Astrodynamics and Applications" (4th ed.), ch. 2, hyperbolic Kepler's equation algorithm (recalled from memory).
     const d = fv / (e * Math.cosh(H) - 1);
     let next = H - d;
     if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
@@ -182,7 +185,7 @@ export function solveKeplerHyperbolic(M: number, e: number): number {
 export function solveBarker(Mp: number): number {
   const sign = Mp < 0 ? -1 : 1;
   const m = Math.abs(Mp);
-  // Cardano's solution of x³ + 3x − 6M_p = 0, x = tan(θ/2).
+  // Barker's equation as the cubic x³ + 3x − 6M_p = 0, x = tan(θ/2), solved by Cardano: Curtis, "Orbital Mechanics for Engineering Students" (3rd ed.), ch. 3, parabolic trajectories (recalled from memory).
   const w = Math.cbrt(3 * m + Math.sqrt(9 * m * m + 1));
   const x = w - 1 / w;
   return sign * 2 * Math.atan(x);
@@ -191,7 +194,7 @@ export function solveBarker(Mp: number): number {
 /** Barker's equation forward: parabolic mean anomaly from true anomaly (radians). */
 export function parabolicMeanAnomaly(theta: number): number {
   const x = Math.tan(theta / 2);
-  // Barker's equation.
+  // Barker's equation M_p = ½x + ⅙x³, x = tan(θ/2): Curtis, "Orbital Mechanics for Engineering Students" (3rd ed.), ch. 3, parabolic trajectories (recalled from memory).
   return 0.5 * x + (x * x * x) / 6;
 }
 
@@ -199,7 +202,7 @@ export function parabolicMeanAnomaly(theta: number): number {
 export function trueFromEccentric(E: number, e: number): number {
   const k = Math.round(E / TWO_PI);
   const Er = E - k * TWO_PI;
-  // tan(θ/2) = √((1+e)/(1−e))·tan(E/2), written with atan2 to stay continuous.
+  // tan(θ/2) = √((1+e)/(1−e))·tan(E/2), written with atan2 to stay continuous: Curtis, "Orbital Mechanics for Engineering Students" (3rd ed.), ch. 3, elliptical orbits (recalled from memory).
   return 2 * Math.atan2(Math.sqrt(1 + e) * Math.sin(Er / 2), Math.sqrt(1 - e) * Math.cos(Er / 2)) + k * TWO_PI;
 }
 
@@ -207,13 +210,13 @@ export function trueFromEccentric(E: number, e: number): number {
 export function eccentricFromTrue(theta: number, e: number): number {
   const k = Math.round(theta / TWO_PI);
   const t = theta - k * TWO_PI;
-  // tan(E/2) = √((1−e)/(1+e))·tan(θ/2).
+  // tan(E/2) = √((1−e)/(1+e))·tan(θ/2): Curtis, "Orbital Mechanics for Engineering Students" (3rd ed.), ch. 3, elliptical orbits (recalled from memory).
   return 2 * Math.atan2(Math.sqrt(1 - e) * Math.sin(t / 2), Math.sqrt(1 + e) * Math.cos(t / 2)) + k * TWO_PI;
 }
 
 /** Mean anomaly from eccentric anomaly (Kepler's equation). */
 export function meanFromEccentric(E: number, e: number): number {
-  // Kepler's equation M = E − e·sin E.
+  // Kepler's equation M = E − e·sin E: Curtis, "Orbital Mechanics for Engineering Students" (3rd ed.), ch. 3, elliptical orbits (recalled from memory).
   return E - e * Math.sin(E);
 }
 
@@ -222,18 +225,18 @@ export function hyperbolicFromTrue(theta: number, e: number): number {
   const limit = Math.acos(-1 / e);
   if (!(Math.abs(theta) < limit))
     fail(`true anomaly ${fmt((theta * 180) / Math.PI)}° lies beyond the asymptote of this hyperbola (±${fmt((limit * 180) / Math.PI)}° for e = ${fmt(e)})`);
-  // tanh(H/2) = √((e−1)/(e+1))·tan(θ/2).
+  // tanh(H/2) = √((e−1)/(e+1))·tan(θ/2): Curtis, "Orbital Mechanics for Engineering Students" (3rd ed.), ch. 3, hyperbolic trajectories (recalled from memory).
   return 2 * Math.atanh(Math.sqrt((e - 1) / (e + 1)) * Math.tan(theta / 2));
 }
 
 /** True anomaly from hyperbolic anomaly. */
 export function trueFromHyperbolic(H: number, e: number): number {
-  // tan(θ/2) = √((e+1)/(e−1))·tanh(H/2).
+  // tan(θ/2) = √((e+1)/(e−1))·tanh(H/2): Curtis, "Orbital Mechanics for Engineering Students" (3rd ed.), ch. 3, hyperbolic trajectories (recalled from memory).
   return 2 * Math.atan(Math.sqrt((e + 1) / (e - 1)) * Math.tanh(H / 2));
 }
 
 /** Hyperbolic mean anomaly from hyperbolic anomaly. */
 export function meanFromHyperbolic(H: number, e: number): number {
-  // Hyperbolic Kepler's equation M = e·sinh H − H.
+  // Hyperbolic Kepler's equation M = e·sinh H − H: Curtis, "Orbital Mechanics for Engineering Students" (3rd ed.), ch. 3, hyperbolic trajectories (recalled from memory).
   return e * Math.sinh(H) - H;
 }

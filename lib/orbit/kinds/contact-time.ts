@@ -5,7 +5,7 @@
 import type { Body } from "../constants";
 import { contactStatistics, stationPasses, unionOfPasses, type Pass } from "../contact";
 import { fail, fmt } from "../errors";
-import type { Inputs } from "../kinds";
+import type { Inputs } from "./types";
 import type { ComputedValue } from "../schema";
 import { evaluation, ORBIT_SHAPE_NAMES, readClosedShape, readContactOrbit, readStations, type CoverageKindDef } from "./coverage-shared";
 
@@ -50,7 +50,7 @@ export function contactFromInputs(g: Inputs, body: Body): ContactResult {
     messages.push(`no contact at all in ${days} days: check the stations' positions, their minimum elevation and the inclination`);
   }
   if (dataRate !== undefined) {
-    // Daily data volume = daily contact time × data rate (Gbit = 1e9 bit).
+    // Daily data volume = daily contact time × data rate (Gbit = 1e9 bit) (definition).
     values.dataVolumePerDay = (stats.contactPerDay * dataRate) / 1e9;
     values.dataVolumePerDayMin = (stats.contactPerDayMin * dataRate) / 1e9;
   } else {

@@ -1,14 +1,14 @@
 /**
  * What the coverage kinds (contactTime, linkBudget, repeatGroundTrack) share: their
  * definition shape, the orbit they read and the stations list. Type-only imports from
- * ../kinds keep the registry free of an import cycle.
+ * ./types keep the registry free of an import cycle.
  */
 import type { Body } from "../constants";
 import { conicFromShape, periapsisRadius, type ShapeInput } from "../conics";
 import type { ContactOrbit, Station } from "../contact";
 import { validateStation } from "../contact";
 import { fail, fmt } from "../errors";
-import type { Evaluation, GivenInfo, Inputs } from "../kinds";
+import type { Evaluation, GivenInfo, Inputs } from "./types";
 import type { ComputedValue } from "../schema";
 import { SHAPE_FIELDS } from "./shared";
 

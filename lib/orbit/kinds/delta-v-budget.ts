@@ -10,9 +10,11 @@
  */
 import { STANDARD_GRAVITY_KM_S2 } from "../constants";
 import { fail, fmt } from "../errors";
-import type { Inputs } from "../kinds";
+import { deltaVBudget } from "../rocket";
 import type { ComputedValue } from "../schema";
+import { result } from "./orbit-shape";
 import { fieldNumber, objectArray } from "./shared";
+import type { Inputs, KindDef } from "./types";
 
 export const PHASE_TYPES = ["deterministic", "statistical"] as const;
 export type PhaseType = (typeof PHASE_TYPES)[number];
@@ -66,8 +68,9 @@ function propellantFor(phases: readonly BudgetPhase[], m0: number, loss: number,
     const margin = dropStatisticalMargins && ph.type === "statistical" ? 0 : ph.margin;
     let used = 0;
     for (const mv of ph.maneuvers) {
+      // Δv with margin = Δv × (1 + loss factor) × (1 + phase margin) (common practice in Δv budgets).
       const dv = mv.deltaV * (1 + loss) * (1 + margin);
-      // Rocket equation: mp = m(1 − e^(−Δv/(Isp·g0))).
+      // Rocket equation mp = m(1 − e^(−Δv/(Isp·g0))): Curtis, "Orbital Mechanics for Engineering Students" (3rd ed.), ch. 11, the rocket equation (recalled from memory).
       const mp = m * (1 - Math.exp(-dv / (mv.specificImpulse * STANDARD_GRAVITY_KM_S2)));
       used += mp;
       m -= mp;
@@ -91,14 +94,15 @@ export function phasedDeltaVBudget(
   if (!(residualFraction >= 0 && residualFraction < 1)) fail(`given.residualFraction must be a fraction from 0 to below 1 (got ${fmt(residualFraction)})`);
   if (!(lossFactor >= 0 && lossFactor < 1)) fail(`given.lossFactor must be a fraction from 0 to below 1 (got ${fmt(lossFactor)})`);
   const loaded = m0 - mf;
-  // Usable propellant: the loaded propellant less the residual (unusable) fraction.
+  // Usable propellant: the loaded propellant less the residual (unusable) fraction (common practice in propellant budgets).
   const usable = loaded * (1 - residualFraction);
   const full = propellantFor(phases, m0, lossFactor, false);
   const lean = propellantFor(phases, m0, lossFactor, true);
   let cumulative = 0;
   const results: PhaseResult[] = phases.map((ph, i) => {
+    // A phase's Δv = Σ Δv × (1 + loss factor) (common practice in Δv budgets).
     const dv = ph.maneuvers.reduce((s, mv) => s + mv.deltaV, 0) * (1 + lossFactor);
-    // Tsiolkovsky (Δv = Isp·g0·ln(m_start/m_end)) on the usable propellant still aboard when the phase starts.
+    // Tsiolkovsky Δv = Isp·g0·ln(m_start/m_end) on the usable propellant still aboard when the phase starts: Curtis, "Orbital Mechanics for Engineering Students" (3rd ed.), ch. 11, the rocket equation (recalled from memory).
     const startMass = m0 - cumulative;
     const left = Math.max(0, usable - cumulative);
     const deltaVAvailable = left > 0 && startMass - left > 0 ? mainIsp * STANDARD_GRAVITY_KM_S2 * Math.log(startMass / (startMass - left)) : 0;
@@ -117,14 +121,14 @@ export function phasedDeltaVBudget(
   const deltaVRequired = results.reduce((s, p) => s + p.deltaV, 0);
   if (!(deltaVRequired > 0)) fail("the phases add up to zero Δv: a margin is undefined");
   const deltaVWithMargins = results.reduce((s, p) => s + p.deltaVWithMargin, 0);
-  // Tsiolkovsky with the main engine's Isp on the usable propellant.
+  // Tsiolkovsky Δv = Isp·g0·ln(m0/(m0 − usable)) with the main engine's Isp: Curtis, "Orbital Mechanics for Engineering Students" (3rd ed.), ch. 11, the rocket equation (recalled from memory).
   const deltaVAvailable = mainIsp * STANDARD_GRAVITY_KM_S2 * Math.log(m0 / (m0 - usable));
   return {
     phases: results,
     deltaVRequired,
     deltaVWithMargins,
     deltaVAvailable,
-    // Margin as a fraction of the requirement (available − required)/required.
+    // Margin as a fraction of the requirement (available − required)/required (common practice).
     margin: (deltaVAvailable - deltaVRequired) / deltaVRequired,
     propellantRequired: full.total,
     propellantLoaded: loaded,
@@ -191,3 +195,77 @@ export function phasedValues(b: PhasedBudgetResult, requiredMargin: number | und
     closesWithoutStatisticalMargins: b.closesWithoutStatisticalMargins,
   };
 }
+
+export const deltaVBudgetKind: KindDef = {
+  usesBody: false,
+  summary: "Δv budget against the vehicle's rocket-equation capability",
+  givenRule:
+    "maneuvers [{ name, deltaV (km/s) }] or phases [{ name, type: deterministic or statistical, margin (fraction), maneuvers: [{ name, deltaV, specificImpulse? or engine: main or thrusters }] }], specificImpulse (s, main engine), optional thrusterSpecificImpulse (s), initialMass and finalMass (kg), optional requiredMargin, residualFraction and lossFactor (fractions)",
+  given: [
+    ["maneuvers", "choice"],
+    ["phases", "choice"],
+    ["specificImpulse", "required"],
+    ["thrusterSpecificImpulse", "optional"],
+    ["initialMass", "required"],
+    ["finalMass", "required"],
+    ["requiredMargin", "optional"],
+    ["residualFraction", "optional"],
+    ["lossFactor", "optional"],
+  ],
+  computed: [
+    "deltaVRequired",
+    "deltaVAvailable",
+    "margin",
+    "marginOk",
+    "deltaVWithMargins",
+    "phases",
+    "phaseDeltaV",
+    "phaseDeltaVAvailable",
+    "phasePropellant",
+    "propellantRequired",
+    "propellantLoaded",
+    "propellantUsable",
+    "propellantRemaining",
+    "closes",
+    "closesWithoutStatisticalMargins",
+  ],
+  evaluate(g, body, options) {
+    if (g.has("phases")) {
+      if (g.has("maneuvers")) fail("give maneuvers (a single list) or phases, not both");
+      const isp = g.num("specificImpulse", "positive");
+      const b = phasedDeltaVBudget(
+        readPhases(g, isp),
+        isp,
+        g.num("initialMass", "positive"),
+        g.num("finalMass", "positive"),
+        g.optNum("residualFraction", "nonNegative") ?? 0,
+        g.optNum("lossFactor", "nonNegative") ?? 0,
+      );
+      const loss = g.optNum("lossFactor");
+      return result(phasedValues(b, g.optNum("requiredMargin")), body, {
+        messages: loss ? [`a loss factor of ${fmt(loss * 100)} % is the proposer's stated assumption for finite burns or low thrust`] : [],
+      });
+    }
+    if (!g.has("maneuvers")) fail("give maneuvers [{ name, deltaV }] or phases [{ name, type, margin, maneuvers }]");
+    const raw = g.value("maneuvers");
+    if (!Array.isArray(raw)) fail('given.maneuvers must be an array such as [{ "name": "orbit raising", "deltaV": 0.12 }]');
+    if (raw.length > 500) fail("given.maneuvers has more than 500 entries");
+    const list = raw.map((m, i) => {
+      if (typeof m !== "object" || m === null || Array.isArray(m)) fail(`maneuvers[${i}] must be an object { name, deltaV }`);
+      const o = m as Record<string, unknown>;
+      if (typeof o.deltaV !== "number" || !Number.isFinite(o.deltaV)) fail(`maneuvers[${i}].deltaV must be a finite number in km/s`);
+      const name = typeof o.name === "string" ? o.name : `maneuver ${i + 1}`;
+      return { name, deltaV: o.deltaV };
+    });
+    const req = g.optNum("requiredMargin") ?? 0;
+    const b = deltaVBudget(
+      list,
+      g.num("specificImpulse", "positive"),
+      g.num("initialMass", "positive"),
+      g.num("finalMass", "positive"),
+      req,
+      options?.g0 ?? STANDARD_GRAVITY_KM_S2,
+    );
+    return result({ ...b }, body);
+  },
+};

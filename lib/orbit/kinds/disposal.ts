@@ -6,7 +6,7 @@ import { STANDARD_GRAVITY_KM_S2 } from "../constants";
 import { visViva } from "../conics";
 import { decayOrbit, REENTRY_PERIGEE_KM } from "../decay";
 import { fail, fmt } from "../errors";
-import type { KindDef } from "../kinds";
+import type { KindDef } from "./types";
 import { DRAG_GIVEN, DRAG_RULE, evaluation, readBallisticCoefficient, readClosedOrbit, readSolarActivity, requireEarth, SHAPE_GIVEN_CHOICES } from "./shared";
 
 export const disposalKind: KindDef = {
@@ -35,7 +35,7 @@ export const disposalKind: KindDef = {
           `given.targetPerigeeAltitude (${fmt(hpTarget)} km) must be below the mission orbit's perigee (${fmt(rp - R)} km): a disposal burn lowers the perigee`,
         );
       if (!(hpTarget > 0)) fail("given.targetPerigeeAltitude must be above the surface (more than 0 km)");
-      // Burn at apogee: vis-viva before, v = √(μ(2/ra − 1/a)), and after, with a' = (ra + rp')/2.
+      // Burn at apogee, vis-viva before v = √(μ(2/ra − 1/a)) and after with a' = (ra + rp')/2: Vallado, "Fundamentals of Astrodynamics and Applications" (4th ed.), ch. 6, coplanar transfers (recalled from memory).
       const aNew = (ra + rpTarget) / 2;
       deltaV = visViva(body.mu, ra, c.a) - visViva(body.mu, ra, aNew);
       if (hpTarget < REENTRY_PERIGEE_KM) {
@@ -43,6 +43,7 @@ export const disposalKind: KindDef = {
         after = { lifetimeYears: 0, reentered: true, profile: [{ years: 0, periapsisAltitude: hpTarget, apoapsisAltitude: ra - R }], steps: 0 };
         messages.push(`the target perigee is below ${REENTRY_PERIGEE_KM} km: re-entry follows the burn directly (within the first revolution)`);
       } else {
+        // e = (ra − rp)/(ra + rp): Curtis, "Orbital Mechanics for Engineering Students" (3rd ed.), ch. 2, elliptical orbits (recalled from memory).
         const eNew = (ra - rpTarget) / (ra + rpTarget);
         after = decayOrbit({ mu: body.mu, radius: R, a: aNew, e: eNew, ballisticCoefficient: B, solarActivity: activity });
       }
@@ -67,7 +68,7 @@ export const disposalKind: KindDef = {
       const isp = g.num("specificImpulse", "positive");
       if (!g.has("mass")) fail("give mass (kg) with specificImpulse to compute the disposal propellant");
       const m = g.num("mass", "positive");
-      // Rocket equation: mp = m0(1 − e^(−Δv/(Isp·g0))).
+      // Rocket equation mp = m0(1 − e^(−Δv/(Isp·g0))): Curtis, "Orbital Mechanics for Engineering Students" (3rd ed.), ch. 11, the rocket equation (recalled from memory).
       values.propellantMass = m * (1 - Math.exp(-deltaV / (isp * STANDARD_GRAVITY_KM_S2)));
     }
     if (!reenteredAtOnce) messages.unshift(`exponential atmosphere, ${activity} solar activity, ballistic coefficient ${B.toFixed(1)} kg/m²`);

@@ -1,6 +1,6 @@
 /** `lifetime`: orbital lifetime under atmospheric drag (method and sources in ../decay.ts and ../atmosphere.ts). */
 import { decayOrbit } from "../decay";
-import type { KindDef } from "../kinds";
+import type { KindDef } from "./types";
 import { DRAG_GIVEN, DRAG_RULE, evaluation, readBallisticCoefficient, readClosedOrbit, readSolarActivity, requireEarth, SHAPE_GIVEN_CHOICES } from "./shared";
 
 export const lifetimeKind: KindDef = {

@@ -5,7 +5,7 @@
 import type { Body } from "../constants";
 import { fail, fmt } from "../errors";
 import { contactGeometry } from "../ground-contact";
-import type { Inputs } from "../kinds";
+import type { Inputs } from "./types";
 import { DEG, evaluation, type CoverageKindDef } from "./coverage-shared";
 
 /** Speed of light, m/s (exact, SI definition). */
@@ -63,7 +63,7 @@ export function linkFromInputs(g: Inputs, body: Body): LinkResult {
   } else {
     const gr = gainFrom(g, "receiveGain", "receiveDiameter", frequency, efficiency, "receive");
     if (!g.has("systemNoiseTemperature")) fail("give systemNoiseTemperature (K) with the receive gain, or gOverT (dB/K) instead");
-    // G/T = G − 10·log10(T).
+    // G/T = G − 10·log10(T): Wertz & Larson (eds.), "Space Mission Analysis and Design" (3rd ed.), ch. 13, communications link design (recalled from memory).
     gOverT = gr - dB(g.num("systemNoiseTemperature", "positive"));
   }
   const losses = g.optNum("losses", "nonNegative") ?? 0;
@@ -81,12 +81,12 @@ export function linkFromInputs(g: Inputs, body: Body): LinkResult {
     const h = g.num("altitude", "positive");
     range = contactGeometry(body.radius, h, eps * DEG).maxSlantRange;
   }
-  // EIRP = 10·log10(P) + Gt (dBW).
+  // EIRP = 10·log10(P) + Gt (dBW): Wertz & Larson (eds.), "Space Mission Analysis and Design" (3rd ed.), ch. 13, communications link design (recalled from memory).
   const eirp = dB(power) + gt;
   const pathLoss = freeSpaceLoss(range, frequency);
-  // Link equation: C/N0 = EIRP − L_fs − L_other + G/T − 10·log10(k).
+  // Link equation C/N0 = EIRP − L_fs − L_other + G/T − 10·log10(k): Wertz & Larson (eds.), "Space Mission Analysis and Design" (3rd ed.), ch. 13, communications link design (recalled from memory).
   const cOverN0 = eirp - pathLoss - losses + gOverT - dB(BOLTZMANN);
-  // Eb/N0 = C/N0 − 10·log10(R).
+  // Eb/N0 = C/N0 − 10·log10(R): Wertz & Larson (eds.), "Space Mission Analysis and Design" (3rd ed.), ch. 13, communications link design (recalled from memory).
   const ebN0 = cOverN0 - dB(dataRate);
   return { eirp, pathLoss, cOverN0, ebN0, margin: ebN0 - required, range, transmitGain: gt, gOverT };
 }

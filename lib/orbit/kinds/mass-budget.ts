@@ -11,7 +11,7 @@
  * maturity classes above.
  */
 import { fail, fmt } from "../errors";
-import type { KindDef } from "../kinds";
+import type { KindDef } from "./types";
 import type { ComputedValue } from "../schema";
 import { evaluation, fieldNumber, objectArray } from "./shared";
 
@@ -53,13 +53,13 @@ export function massBudget(
   if (!(systemMargin >= 0 && systemMargin < 1)) fail(`given.systemMargin must be a fraction from 0 to below 1 (got ${fmt(systemMargin)})`);
   const rows = items.map((it) => {
     const f = GROWTH_ALLOWANCE[it.maturity];
-    // Item growth allowance = mass × maturity percentage.
+    // Item growth allowance = mass × maturity percentage: ESA, "Margin philosophy for science assessment studies" (SRE-PA/2011.097), maturity margins (recalled from memory).
     return { ...it, growthFraction: f, growthAllowance: it.mass * f, massWithGrowth: it.mass * (1 + f) };
   });
   const basicMass = rows.reduce((s, r) => s + r.mass, 0);
   const growthAllowance = rows.reduce((s, r) => s + r.growthAllowance, 0);
   const massWithGrowth = basicMass + growthAllowance;
-  // System margin applied to the dry mass including growth allowances.
+  // System margin applied to the dry mass including growth allowances: ESA, "Margin philosophy for science assessment studies" (SRE-PA/2011.097), system margin (recalled from memory).
   const systemMarginMass = massWithGrowth * systemMargin;
   const totalWithMargin = massWithGrowth + systemMarginMass;
   const wetMass = totalWithMargin + propellantMass;

@@ -5,7 +5,7 @@
 import type { Body } from "../constants";
 import { fail, fmt } from "../errors";
 import { j2SecularRates } from "../j2";
-import type { Inputs } from "../kinds";
+import type { Inputs } from "./types";
 import { DEG, evaluation, type CoverageKindDef } from "./coverage-shared";
 
 export const MAX_REPEAT_ITERATIONS = 100;
@@ -30,7 +30,7 @@ export function repeatGroundTrack(body: Body & { j2ReferenceRadius?: number }, r
   if (!(w > 0)) fail(`${body.name} does not turn prograde (rotation rate ${fmt(w)} rad/s): a repeating ground track is not defined here`);
   const refR = body.j2ReferenceRadius ?? body.radius;
   const ratio = revs / days;
-  // Start from the two-body answer n = (R/D)·ω_body.
+  // Start from the two-body answer n = (R/D)·ω_body, a = (μ/n²)^(1/3) (Kepler's third law): Vallado, "Fundamentals of Astrodynamics and Applications" (4th ed.), ch. 11, repeat-groundtrack orbits (recalled from memory).
   let n = ratio * w;
   let a = Math.cbrt(body.mu / (n * n));
   let iterations = 0;
@@ -42,7 +42,7 @@ export function repeatGroundTrack(body: Body & { j2ReferenceRadius?: number }, r
     const c = 0.75 * body.j2 * (refR / p) ** 2 * Math.sqrt(1 - e * e) * (3 * Math.cos(i) ** 2 - 1);
     const nodalDayRate = w - rates.raanRate;
     if (!(nodalDayRate > 0)) fail("the node turns faster than the body: no repeating ground track exists for these values");
-    // n (1 + c) + ω̇ = (R/D)(ω_body − Ω̇), solved for n with c and the rates of the current a.
+    // n (1 + c) + ω̇ = (R/D)(ω_body − Ω̇), solved for n with c and the rates of the current a: Vallado, "Fundamentals of Astrodynamics and Applications" (4th ed.), ch. 11, repeat-groundtrack orbits (recalled from memory).
     const next = (ratio * nodalDayRate - rates.argPeriapsisRate) / (1 + c);
     const aNext = Math.cbrt(body.mu / (next * next));
     const done = Math.abs(aNext - a) < 1e-7;
@@ -59,13 +59,13 @@ export function repeatGroundTrack(body: Body & { j2ReferenceRadius?: number }, r
   const rates = j2SecularRates(body.mu, refR, body.j2, a, e, i);
   const p = a * (1 - e * e);
   const c = 0.75 * body.j2 * (refR / p) ** 2 * Math.sqrt(1 - e * e) * (3 * Math.cos(i) ** 2 - 1);
-  // Nodal period T_N = 2π / (Ṁ + ω̇).
+  // Nodal period T_N = 2π / (Ṁ + ω̇): Vallado, "Fundamentals of Astrodynamics and Applications" (4th ed.), §9.6 and ch. 11 (recalled from memory).
   const nodalPeriod = (2 * Math.PI) / (n * (1 + c) + rates.argPeriapsisRate);
   return {
     semiMajorAxis: a,
     altitude: a - body.radius,
     nodalPeriod,
-    // Adjacent tracks of the full cycle divide the equator evenly: 2πR / (revolutions per cycle).
+    // Adjacent tracks of the full cycle divide the equator evenly: 2πR / (revolutions per cycle) (geometry; definition).
     trackSpacing: (2 * Math.PI * body.radius) / revs,
     revolutionsPerDay: ratio,
     iterations,

@@ -1,12 +1,12 @@
 /**
  * Helpers shared by the budget kinds (lifetime, disposal, massBudget, deltaVBudget phases).
- * Only type imports from ../kinds, so these files load in any order.
+ * Only type imports from ./types, so these files load in any order.
  */
 import { SOLAR_ACTIVITIES, type SolarActivity } from "../atmosphere";
 import { conicFromShape, type Conic, type ShapeInput } from "../conics";
 import type { Body } from "../constants";
 import { fail, fmt } from "../errors";
-import type { Evaluation, GivenInfo, Inputs } from "../kinds";
+import type { Evaluation, GivenInfo, Inputs } from "./types";
 import type { ComputedValue } from "../schema";
 
 export const SHAPE_FIELDS = [
@@ -76,7 +76,7 @@ export function readBallisticCoefficient(g: Inputs): number {
   const m = g.num("mass", "positive");
   const A = g.num("dragArea", "positive");
   const cd = g.num("dragCoefficient", "positive");
-  // Ballistic coefficient B = m/(Cd·A).
+  // Ballistic coefficient B = m/(Cd·A): Vallado, "Fundamentals of Astrodynamics and Applications" (4th ed.), ch. 9, atmospheric drag (recalled from memory).
   return m / (cd * A);
 }
 

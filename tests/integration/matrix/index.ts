@@ -8,8 +8,9 @@ import { accountActionCases, accountRouteCases } from "./accounts";
 import { decisionActionCases, decisionRouteCases } from "./decisions";
 import { orbitFileRouteCases } from "./orbit-files";
 import { stationActionCases, stationRouteCases } from "./stations";
-import { meetingRouteCases } from "./meetings";
+import { reportRouteCases } from "./reports";
 import { responseRouteCases } from "./responses";
+import { meetingRouteCases } from "./meetings";
 
 export const routeCases: RouteCase[] = [
   ...dossierRouteCases,
@@ -20,7 +21,8 @@ export const routeCases: RouteCase[] = [
   ...decisionRouteCases,
   ...orbitFileRouteCases,
   ...stationRouteCases,
-  ...meetingRouteCases,
+  ...reportRouteCases,
   ...responseRouteCases,
+  ...meetingRouteCases,
 ];
 export const actionCases: ActionCase[] = [...accountActionCases, ...decisionActionCases, ...stationActionCases];

@@ -14,6 +14,7 @@ import { can } from "@/lib/auth/policy";
 import { proposalAccess } from "@/lib/dal/assignments";
 import { listAttachments } from "@/lib/dal/attachments";
 import { listReviewItems } from "@/lib/dal/review-items";
+import { canReadReviewReport } from "@/lib/dal/reports";
 import { ProposalReviewItems } from "@/components/review/proposal-review-items";
 import { getDraft, getProposal, getVersion, listVersions } from "@/lib/dal/proposals";
 import { deltaVBudget, evaluateBlocks, extractOrbitChecks } from "@/lib/dossier/claims";
@@ -59,6 +60,9 @@ export default async function ProposalPage({ params }: { params: Promise<{ board
       </Link>
     </nav>
   ) : null;
+  // The review report of each version, for those the policy lets read it ("report.view").
+  const reportReadable = new Set<number>();
+  for (const v of versions) if (await canReadReviewReport(user, access, v.id)) reportReadable.add(v.number);
   const responseWindow = proposal.latestVersion > 0 ? await getProposalResponseWindow(user, boardId, proposalId) : null;
   const responseLink = responseWindow ? (
     <p className="text-sm" data-response-window={responseWindow.state}>
@@ -101,6 +105,11 @@ export default async function ProposalPage({ params }: { params: Promise<{ board
               <Link href={`/boards/${boardId}/proposals/${proposalId}/versions/${v.number}`} className="font-semibold text-trajectory-700 hover:underline">
                 Version {v.number}
               </Link>
+              {reportReadable.has(v.number) ? (
+                <Link href={`/boards/${boardId}/proposals/${proposalId}/versions/${v.number}/report`} className="text-trajectory-700 underline">
+                  Review report, version {v.number}
+                </Link>
+              ) : null}
               <span className="text-ink-600">
                 {formatDateTime(v.submittedAt)} · server check: {v.counts.consistent} consistent, {v.counts.inconsistent} inconsistent, {v.counts.invalid}{" "}
                 cannot be evaluated

@@ -1,7 +1,7 @@
 "use server";
 import { z } from "zod";
 import { action } from "@/lib/actions/action";
-import { saveLetterTemplate } from "@/lib/dal/decisions";
+import { saveLetterTemplate } from "@/lib/decisions";
 import { letterDocument } from "@/lib/validation/decisions";
 
 /** Saves the board's decision letter template; `template: null` goes back to VisViva's default. */

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { NotAllowed, PageTitle, Panel } from "@/components/ui/panel";
 import { orNotFound, pageUser } from "@/lib/auth/page-guard";
-import { getLetterTemplate } from "@/lib/dal/decisions";
+import { getLetterTemplate } from "@/lib/decisions";
 import { isAppError } from "@/lib/errors";
 import { TemplateForm } from "./_components/template-form";
 

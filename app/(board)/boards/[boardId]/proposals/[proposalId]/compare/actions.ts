@@ -1,6 +1,6 @@
 "use server";
 import { action } from "@/lib/actions/action";
-import { reassignPreviousReviewers } from "@/lib/dal/decisions";
+import { reassignPreviousReviewers } from "@/lib/review/reassign";
 import { reassignInput } from "@/lib/validation/decisions";
 
 /** Asks the previous version's reviewers to review the resubmitted one. */

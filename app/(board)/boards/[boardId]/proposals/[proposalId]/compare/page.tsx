@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { PageTitle, Panel } from "@/components/ui/panel";
 import { orNotFound, pageUser } from "@/lib/auth/page-guard";
-import { compareVersions } from "@/lib/dal/decisions";
+import { compareVersions } from "@/lib/decisions";
 import { proposalAccess } from "@/lib/dal/assignments";
 import { compareQuery } from "@/lib/validation/decisions";
 import type { ClaimComparison, QuantityRow } from "@/lib/decisions/compare";

@@ -1,7 +1,7 @@
 "use server";
 import { z } from "zod";
 import { action } from "@/lib/actions/action";
-import { createDecision, previewDecision } from "@/lib/dal/decisions";
+import { createDecision, previewDecision } from "@/lib/decisions";
 import { decisionInput, decisionPreviewInput } from "@/lib/validation/decisions";
 
 const where = { boardId: z.uuid(), proposalId: z.uuid() };

@@ -7,7 +7,7 @@ import { PageTitle, Panel } from "@/components/ui/panel";
 import { orNotFound, pageUser } from "@/lib/auth/page-guard";
 import { can } from "@/lib/auth/policy";
 import { proposalAccess } from "@/lib/dal/assignments";
-import { getDecisionWorkspace, listProposalDecisions, type DecisionView } from "@/lib/dal/decisions";
+import { getDecisionWorkspace, listProposalDecisions, type DecisionView } from "@/lib/decisions";
 import { MAX_ATTEMPTS } from "@/lib/mail/outbox";
 import { outboxStatusText } from "@/lib/mail/status-text";
 import { DecisionForm } from "./_components/decision-form";
@@ -49,6 +49,12 @@ function IssuedDecision({ boardId, proposalId, decision, chairView }: { boardId:
             Download the letter (PDF)
           </a>
         ) : null}
+        <Link
+          className="rounded-chip border border-ink-300 px-3 py-1.5 text-ink-800"
+          href={`/boards/${boardId}/proposals/${proposalId}/versions/${decision.versionNumber}/report`}
+        >
+          Review report, version {decision.versionNumber}
+        </Link>
         {decision.versionNumber > 1 ? (
           <Link
             className="rounded-chip border border-ink-300 px-3 py-1.5 text-ink-800"
@@ -116,6 +122,14 @@ export default async function DecisionPage({ params }: { params: Promise<{ board
           <Link href={`/boards/${boardId}/proposals/${proposalId}`} className="text-trajectory-700 underline">
             read the dossier
           </Link>
+          {w.version ? (
+            <>
+              {" · "}
+              <Link href={`/boards/${boardId}/proposals/${proposalId}/versions/${w.version.number}/report`} className="text-trajectory-700 underline">
+                review report
+              </Link>
+            </>
+          ) : null}
           {w.previousVersionNumber ? (
             <>
               {" · "}

@@ -10,6 +10,7 @@ import { orNotFound, pageUser } from "@/lib/auth/page-guard";
 import { can } from "@/lib/auth/policy";
 import { proposalAccess } from "@/lib/dal/assignments";
 import { listReviewItems } from "@/lib/dal/review-items";
+import { canReadReviewReport } from "@/lib/dal/reports";
 import { getReviewScreen, listProposalReviews } from "@/lib/dal/reviews";
 
 export const metadata: Metadata = { title: "Review" };
@@ -46,6 +47,8 @@ export default async function ReviewPage({
   }
   const screen = await orNotFound(getReviewScreen(user, boardId, assignmentId));
   const items = await listReviewItems(user, boardId, proposalId, { versionId: screen.version.id });
+  // The version's review report, for a reviewer once the board's rules open it to them (and for the chair).
+  const reportReadable = await canReadReviewReport(user, access, screen.version.id);
   return (
     <div className="space-y-6">
       <PageTitle eyebrow={`Review · ${screen.proposal.callTitle}`} title={screen.proposal.title}>
@@ -88,6 +91,14 @@ export default async function ReviewPage({
         >
           Response round
         </Link>
+        {reportReadable ? (
+          <Link
+            href={`/boards/${boardId}/proposals/${proposalId}/versions/${screen.version.number}/report`}
+            className="rounded-chip border border-ink-300 px-3 py-1.5 font-semibold hover:border-trajectory-500"
+          >
+            Review report, version {screen.version.number}
+          </Link>
+        ) : null}
       </nav>
       {isChair && reviews.length > 0 ? (
         <nav aria-label="Reviews of this proposal" className="flex flex-wrap gap-2 text-sm">

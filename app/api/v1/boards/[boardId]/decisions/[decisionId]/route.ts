@@ -1,5 +1,5 @@
 import { requireUser } from "@/lib/auth/session";
-import { getDecision } from "@/lib/dal/decisions";
+import { getDecision } from "@/lib/decisions";
 import { json, route } from "@/lib/http/api";
 
 export const GET = route(async (_request, params) => {

@@ -27,6 +27,7 @@ export function DecisionForm({ boardId, proposalId, template, fields, items, nee
   const [outcome, setOutcome] = useState<Outcome | null>(null);
   const [selected, setSelected] = useState<string[]>(items.filter((i) => i.status === "open" && i.severity === "major").map((i) => i.id));
   const [overrideReason, setOverrideReason] = useState("");
+  const [attachReport, setAttachReport] = useState(false);
   const [error, setError] = useState<string | null>(null);
   const [preview, setPreview] = useState<{ subject: string; letterHtml: string } | null>(null);
   // "Send the decision" first shows the letter as it will go out, then asks to confirm.
@@ -48,6 +49,7 @@ export function DecisionForm({ boardId, proposalId, template, fields, items, nee
     letter: (editor?.getJSON() ?? template) as Record<string, unknown>,
     selectedReviewItemIds: selected,
     overrideReason: overrideReason.trim() || undefined,
+    attachReport,
   });
 
   const runPreview = (thenConfirm = false) =>
@@ -157,6 +159,16 @@ export function DecisionForm({ boardId, proposalId, template, fields, items, nee
         <LetterEditor editor={editor} fields={fields} />
       </div>
 
+      <label className="flex items-start gap-2 text-sm">
+        <input type="checkbox" checked={attachReport} onChange={(e) => setAttachReport(e.target.checked)} className="mt-1" />
+        <span>
+          <span className="font-semibold text-ink-900">Attach the review report (PDF) to the letter e-mail</span>
+          <span className="block text-xs text-ink-600">
+            Scores, review items, orbit checks and changes since the previous version, with reviewers numbered, not named.
+          </span>
+        </span>
+      </label>
+
       {error ? <FormNotice tone="error">{error}</FormNotice> : null}
 
       <div className="flex flex-wrap gap-3">
@@ -191,7 +203,7 @@ export function DecisionForm({ boardId, proposalId, template, fields, items, nee
             <div className="mt-4 space-y-2 border-t border-ink-200 pt-3">
               <p className="text-sm text-ink-800">
                 Sending records the decision ({choices.find((c) => c.value === outcome)?.label.toLowerCase()}) for good and e-mails this letter, with its PDF,
-                to the proposal&apos;s authors. It cannot be undone.
+                to the proposal&apos;s authors{attachReport ? ", with the review report attached" : ""}. It cannot be undone.
               </p>
               <div className="flex flex-wrap gap-3">
                 <button

@@ -1,6 +1,6 @@
 import { NextResponse } from "next/server";
 import { requireUser } from "@/lib/auth/session";
-import { decisionLetterUrl } from "@/lib/dal/decisions";
+import { decisionLetterUrl } from "@/lib/decisions";
 import { json, parseWith, route, searchParamsObject } from "@/lib/http/api";
 import { letterDownloadQuery } from "@/lib/validation/decisions";
 

@@ -1,5 +1,5 @@
 import { requireUser } from "@/lib/auth/session";
-import { createDecision, listProposalDecisions } from "@/lib/dal/decisions";
+import { createDecision, listProposalDecisions } from "@/lib/decisions";
 import { json, readJson, route } from "@/lib/http/api";
 import { decisionInput } from "@/lib/validation/decisions";
 

@@ -1,5 +1,5 @@
 import { requireUser } from "@/lib/auth/session";
-import { previewDecision } from "@/lib/dal/decisions";
+import { previewDecision } from "@/lib/decisions";
 import { json, readJson, route } from "@/lib/http/api";
 import { decisionPreviewInput } from "@/lib/validation/decisions";
 
